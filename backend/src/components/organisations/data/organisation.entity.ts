@@ -1,0 +1,22 @@
+import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
+import type { OrganisationKind } from '@shared/auth/roles';
+
+export type UnitSystem = 'us' | 'metric';
+
+@Entity({ name: 'organisation' })
+export class OrganisationEntity {
+  @PrimaryGeneratedColumn({ type: 'int', unsigned: true })
+  id!: number;
+
+  @Column({ type: 'varchar', length: 160, unique: true })
+  name!: string;
+
+  @Column({ type: 'enum', enum: ['property-manager', 'contractor', 'utility'] })
+  kind!: OrganisationKind;
+
+  @Column({ type: 'enum', enum: ['us', 'metric'], default: 'us', name: 'unit_system' })
+  unitSystem!: UnitSystem;
+
+  @CreateDateColumn({ type: 'datetime', precision: 3, name: 'created_at' })
+  createdAt!: Date;
+}

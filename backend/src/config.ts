@@ -1,0 +1,91 @@
+import { z } from 'zod';
+
+/**
+ * Typed configuration from the environment, checked once at start-up: a bad value stops the
+ * process at once with a message naming the variable. Defaults match ops/lib/env.sh and .env.example.
+ */
+const bool = z
+  .enum(['true', 'false', '1', '0'])
+  .transform((v) => v === 'true' || v === '1');
+
+const schema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  RILLMARK_DB_HOST: z.string().default('127.0.0.1'),
+  RILLMARK_DB_PORT: z.coerce.number().int().min(1).max(65535).default(3317),
+  RILLMARK_DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/).default('rillmark'),
+  RILLMARK_DB_USER: z.string().default('rillmark'),
+  RILLMARK_DB_PASSWORD: z.string().default('rillmark-dev-password'),
+  RILLMARK_DB_POOL_SIZE: z.coerce.number().int().min(1).max(200).default(20),
+  RILLMARK_PORT: z.coerce.number().int().min(0).max(65535).default(4280),
+  RILLMARK_HOST: z.string().default('127.0.0.1'),
+  RILLMARK_PUBLIC_URL: z.string().url().default('http://127.0.0.1:4280'),
+  RILLMARK_SESSION_SECRET: z.string().min(32, 'must be at least 32 characters').default('change-me-in-production-please-0123456789'),
+  RILLMARK_SESSION_HOURS: z.coerce.number().positive().default(12),
+  RILLMARK_SECURE_COOKIES: bool.default(false),
+  RILLMARK_TRUST_PROXY: z.string().default('loopback'),
+  RILLMARK_SIGNIN_MAX_ATTEMPTS: z.coerce.number().int().min(1).default(8),
+  RILLMARK_SIGNIN_WINDOW_MINUTES: z.coerce.number().positive().default(15),
+  RILLMARK_SMTP_HOST: z.string().default('127.0.0.1'),
+  RILLMARK_SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2526),
+  RILLMARK_MAIL_FROM: z.string().default('Rillmark <no-reply@rillmark.invalid>'),
+  RILLMARK_FAKE_SMTP_HTTP_PORT: z.coerce.number().int().min(1).max(65535).default(2580),
+  RILLMARK_DEV_OUTBOX: bool.default(true),
+  RILLMARK_WEB_DIR: z.string().default('dist/web/browser'),
+  RILLMARK_INVITE_HOURS: z.coerce.number().positive().default(72),
+  RILLMARK_LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
+});
+
+export type Env = z.infer<typeof schema>;
+
+export interface Config {
+  env: Env['NODE_ENV'];
+  db: { host: string; port: number; database: string; user: string; password: string; poolSize: number };
+  http: { host: string; port: number; publicUrl: string; trustProxy: string; webDir: string };
+  session: { secret: string; maxAgeMs: number; secureCookies: boolean };
+  signIn: { maxAttempts: number; windowMs: number };
+  mail: { host: string; port: number; from: string; fakeServerHttpPort: number; devOutbox: boolean };
+  inviteTtlMs: number;
+  logLevel: Env['RILLMARK_LOG_LEVEL'];
+}
+
+export function loadConfig(source: Record<string, string | undefined> = process.env): Config {
+  const parsed = schema.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  return {
+    env: e.NODE_ENV,
+    db: {
+      host: e.RILLMARK_DB_HOST,
+      port: e.RILLMARK_DB_PORT,
+      database: e.RILLMARK_DB_NAME,
+      user: e.RILLMARK_DB_USER,
+      password: e.RILLMARK_DB_PASSWORD,
+      poolSize: e.RILLMARK_DB_POOL_SIZE,
+    },
+    http: {
+      host: e.RILLMARK_HOST,
+      port: e.RILLMARK_PORT,
+      publicUrl: e.RILLMARK_PUBLIC_URL.replace(/\/$/, ''),
+      trustProxy: e.RILLMARK_TRUST_PROXY,
+      webDir: e.RILLMARK_WEB_DIR,
+    },
+    session: {
+      secret: e.RILLMARK_SESSION_SECRET,
+      maxAgeMs: e.RILLMARK_SESSION_HOURS * 3_600_000,
+      secureCookies: e.RILLMARK_SECURE_COOKIES,
+    },
+    signIn: { maxAttempts: e.RILLMARK_SIGNIN_MAX_ATTEMPTS, windowMs: e.RILLMARK_SIGNIN_WINDOW_MINUTES * 60_000 },
+    mail: {
+      host: e.RILLMARK_SMTP_HOST,
+      port: e.RILLMARK_SMTP_PORT,
+      from: e.RILLMARK_MAIL_FROM,
+      fakeServerHttpPort: e.RILLMARK_FAKE_SMTP_HTTP_PORT,
+      devOutbox: e.RILLMARK_DEV_OUTBOX,
+    },
+    inviteTtlMs: e.RILLMARK_INVITE_HOURS * 3_600_000,
+    logLevel: e.RILLMARK_LOG_LEVEL,
+  };
+}

@@ -1,0 +1,30 @@
+import 'reflect-metadata';
+import { DataSource } from 'typeorm';
+import { loadConfig, type Config } from '../config';
+import { ENTITIES } from './entities';
+import { MIGRATIONS } from './migrations';
+
+/** One DataSource per app instance. Schema changes go through migrations only (no `synchronize`). */
+export function createDataSource(db: Config['db']): DataSource {
+  return new DataSource({
+    type: 'mariadb',
+    host: db.host,
+    port: db.port,
+    username: db.user,
+    password: db.password,
+    database: db.database,
+    entities: ENTITIES,
+    migrations: MIGRATIONS,
+    migrationsTableName: 'schema_migration',
+    migrationsTransactionMode: 'each',
+    synchronize: false,
+    timezone: 'Z',
+    charset: 'utf8mb4_unicode_ci',
+    poolSize: db.poolSize,
+    extra: { connectTimeout: 5_000 },
+    logging: ['error'],
+  });
+}
+
+/** For the TypeORM CLI (`npm run migration:generate -- backend/src/db/migrations/<Name>`). */
+export const cliDataSource = createDataSource(loadConfig().db);

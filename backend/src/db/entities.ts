@@ -1,0 +1,20 @@
+import { AuditEntryEntity } from '../components/audit/data/audit-entry.entity';
+import { OrganisationEntity } from '../components/organisations/data/organisation.entity';
+import { SiteShareEntity } from '../components/sites/data/site-share.entity';
+import { SiteTagEntity } from '../components/sites/data/site-tag.entity';
+import { SiteEntity } from '../components/sites/data/site.entity';
+import { MembershipEntity } from '../components/users/data/membership.entity';
+import { UserTokenEntity } from '../components/users/data/user-token.entity';
+import { UserEntity } from '../components/users/data/user.entity';
+
+/** Every entity, listed once (explicit imports, so bundled builds need no file globbing). */
+export const ENTITIES = [
+  OrganisationEntity,
+  UserEntity,
+  MembershipEntity,
+  UserTokenEntity,
+  SiteEntity,
+  SiteTagEntity,
+  SiteShareEntity,
+  AuditEntryEntity,
+];

@@ -1,0 +1,4 @@
+import { Foundation1796163915429 } from './migrations/1796163915429-foundation';
+
+/** Every migration, in order (explicit imports, so bundled builds need no file globbing). Add new ones at the end. */
+export const MIGRATIONS: Function[] = [Foundation1796163915429];

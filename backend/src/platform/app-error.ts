@@ -1,0 +1,41 @@
+import type { ApiErrorCode, ApiErrorDetail } from '@shared/api/errors';
+
+const STATUS: Record<ApiErrorCode, number> = {
+  validation_failed: 400,
+  unauthenticated: 401,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  csrf_invalid: 403,
+  payload_too_large: 413,
+  rate_limited: 429,
+  internal_error: 500,
+  database_unavailable: 503,
+};
+
+/** The one error type the domain throws; the central handler turns it into the API's JSON error shape. */
+export class AppError extends Error {
+  readonly status: number;
+
+  constructor(
+    readonly code: ApiErrorCode,
+    message: string,
+    readonly details?: ApiErrorDetail[],
+  ) {
+    super(message);
+    this.name = 'AppError';
+    this.status = STATUS[code];
+  }
+
+  static notFound(what: string): AppError {
+    return new AppError('not_found', `${what} not found.`);
+  }
+
+  static forbidden(message = 'Your role does not allow this.'): AppError {
+    return new AppError('forbidden', message);
+  }
+
+  static invalid(field: string, message: string): AppError {
+    return new AppError('validation_failed', `${field}: ${message}`, [{ field, message }]);
+  }
+}

@@ -1,0 +1,26 @@
+import type { Config } from '../../config';
+import { AppError } from '../app-error';
+
+export interface OutboxMessage {
+  id: string;
+  from: string;
+  to: string;
+  subject: string;
+  date: string;
+  text: string;
+  html: string | null;
+}
+
+/** Reads what the local fake SMTP server received (development outbox page). */
+export async function fetchOutbox(mail: Config['mail']): Promise<OutboxMessage[]> {
+  const url = `http://${mail.host}:${mail.fakeServerHttpPort}/messages`;
+  let response: Response;
+  try {
+    response = await fetch(url, { signal: AbortSignal.timeout(3_000) });
+  } catch {
+    throw new AppError('internal_error', `The local fake SMTP server is not answering at ${url}; start it with: bash ops/mail/start.sh`);
+  }
+  if (!response.ok) throw new AppError('internal_error', `The fake SMTP server answered ${response.status}.`);
+  const body = (await response.json()) as { messages: OutboxMessage[] };
+  return body.messages;
+}

@@ -1,0 +1,38 @@
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { createApp } from './app';
+import type { Config } from './config';
+import { connectWithRetry } from './db/connect';
+import { createDataSource } from './db/data-source';
+import { createSmtpMailer, type Mailer } from './platform/mail/mailer';
+
+export interface RunningServer {
+  url: string;
+  port: number;
+  stop(): Promise<void>;
+}
+
+/** Starts the real app on `config.http.port` (0 = any free port, as the tests do). */
+export async function startServer(config: Config, options: { mailer?: Mailer; dbAttempts?: number } = {}): Promise<RunningServer> {
+  const db = createDataSource(config.db);
+  await connectWithRetry(db, { attempts: options.dbAttempts ?? 30 });
+  const mailer = options.mailer ?? createSmtpMailer(config.mail);
+  const { app, close } = createApp({ config, db, mailer });
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(config.http.port, config.http.host, () => resolve(s));
+  });
+  const { port } = server.address() as AddressInfo;
+  return {
+    url: `http://${config.http.host}:${port}`,
+    port,
+    async stop() {
+      await new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        server.closeAllConnections();
+      });
+      await close();
+      mailer.close();
+      await db.destroy();
+    },
+  };
+}

@@ -1,0 +1,45 @@
+import { Routes } from '@angular/router';
+import { capabilityGuard, signedInGuard, signedOutGuard } from './core/auth/auth-guards';
+
+export const routes: Routes = [
+  {
+    path: 'sign-in',
+    title: 'Sign in · Rillmark',
+    canActivate: [signedOutGuard],
+    loadComponent: () => import('./sign-in/sign-in').then((m) => m.SignIn),
+  },
+  {
+    path: 'accept-invite',
+    title: 'Accept invitation · Rillmark',
+    data: { purpose: 'invite' },
+    loadComponent: () => import('./auth/set-password/set-password').then((m) => m.SetPassword),
+  },
+  {
+    path: 'reset-password',
+    title: 'Choose a new password · Rillmark',
+    data: { purpose: 'reset' },
+    loadComponent: () => import('./auth/set-password/set-password').then((m) => m.SetPassword),
+  },
+  {
+    path: '',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
+    children: [
+      { path: '', pathMatch: 'full', redirectTo: 'sites' },
+      { path: 'sites', loadChildren: () => import('./sites/sites.routes').then((m) => m.sitesRoutes) },
+      {
+        path: 'admin/users',
+        title: 'Users · Rillmark',
+        canActivate: [capabilityGuard('manageUsers')],
+        loadComponent: () => import('./admin/user-list/user-list').then((m) => m.UserList),
+      },
+      {
+        path: 'admin/outbox',
+        title: 'Outbox · Rillmark',
+        canActivate: [capabilityGuard('viewOutbox')],
+        loadComponent: () => import('./admin/outbox/outbox').then((m) => m.Outbox),
+      },
+    ],
+  },
+  { path: '**', redirectTo: '' },
+];

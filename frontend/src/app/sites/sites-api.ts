@@ -1,0 +1,54 @@
+import { HttpClient, HttpParams } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import type { Page, SortDirection } from '@shared/api/page';
+import type { SiteDto, SiteInput, SiteKind, SiteSort } from '@shared/sites/site';
+import { Observable } from 'rxjs';
+
+export interface SiteQuery {
+  page: number;
+  pageSize: number;
+  sort: SiteSort;
+  dir: SortDirection;
+  q: string;
+  tag: string;
+  kind: SiteKind | '';
+}
+
+/** The /api/sites endpoints. */
+@Injectable({ providedIn: 'root' })
+export class SitesApi {
+  private readonly http = inject(HttpClient);
+
+  list(query: SiteQuery): Observable<Page<SiteDto>> {
+    let params = new HttpParams()
+      .set('page', query.page)
+      .set('pageSize', query.pageSize)
+      .set('sort', query.sort)
+      .set('dir', query.dir);
+    // Empty filters are left out rather than sent blank.
+    if (query.q) params = params.set('q', query.q);
+    if (query.tag) params = params.set('tag', query.tag);
+    if (query.kind) params = params.set('kind', query.kind);
+    return this.http.get<Page<SiteDto>>('/api/sites', { params });
+  }
+
+  tags(): Observable<string[]> {
+    return this.http.get<string[]>('/api/sites/tags');
+  }
+
+  get(id: number): Observable<SiteDto> {
+    return this.http.get<SiteDto>(`/api/sites/${id}`);
+  }
+
+  create(input: SiteInput): Observable<SiteDto> {
+    return this.http.post<SiteDto>('/api/sites', input);
+  }
+
+  update(id: number, changes: Partial<SiteInput>): Observable<SiteDto> {
+    return this.http.patch<SiteDto>(`/api/sites/${id}`, changes);
+  }
+
+  remove(id: number): Observable<void> {
+    return this.http.delete<void>(`/api/sites/${id}`);
+  }
+}

@@ -1,0 +1,53 @@
+#!/usr/bin/env bash
+# Starts Rillmark's own MariaDB on 127.0.0.1 with a private data directory (not the system service).
+# Idempotent: installs mariadb-server if missing, initialises the data directory once, starts the
+# server if its port is silent, and makes sure the database and the application user exist.
+set -euo pipefail
+. "$(dirname "$0")/../lib/env.sh"
+
+ensure_debian_packages mariadb-server mariadb-client
+
+DATA="$RILLMARK_DB_DIR/data"
+SOCK="$RILLMARK_DB_DIR/mariadb.sock"
+PIDF="$RILLMARK_DB_DIR/mariadb.pid"
+LOGF="$RILLMARK_DB_DIR/mariadb.log"
+mkdir -p "$RILLMARK_DB_DIR"
+
+admin() { mariadb-admin --no-defaults --protocol=socket --socket="$SOCK" -uroot "$@"; }
+
+if [ -f "$PIDF" ] && kill -0 "$(cat "$PIDF")" 2>/dev/null && admin ping >/dev/null 2>&1; then
+  log "MariaDB already running on $RILLMARK_DB_HOST:$RILLMARK_DB_PORT (pid $(cat "$PIDF"))"
+else
+  if [ ! -d "$DATA/mysql" ]; then
+    log "initialising MariaDB data directory in $DATA"
+    mariadb-install-db --no-defaults --user=root --datadir="$DATA" --auth-root-authentication-method=socket \
+      --skip-test-db >"$RILLMARK_DB_DIR/install.log" 2>&1 || { cat "$RILLMARK_DB_DIR/install.log"; die "mariadb-install-db failed"; }
+  fi
+  log "starting MariaDB on $RILLMARK_DB_HOST:$RILLMARK_DB_PORT"
+  # --no-defaults: the Debian config points the socket at /run/mysqld and belongs to the system service.
+  nohup mariadbd --no-defaults --user=root --datadir="$DATA" \
+    --bind-address="$RILLMARK_DB_HOST" --port="$RILLMARK_DB_PORT" --socket="$SOCK" --pid-file="$PIDF" \
+    --log-error="$LOGF" --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
+    --default-time-zone=+00:00 --local-infile=1 --max-connections=300 --innodb-buffer-pool-size=512M \
+    --innodb-flush-log-at-trx-commit=2 --skip-name-resolve >/dev/null 2>&1 &
+  for _ in $(seq 1 120); do
+    admin ping >/dev/null 2>&1 && break
+    sleep 0.25
+  done
+  admin ping >/dev/null 2>&1 || { tail -20 "$LOGF" >&2; die "MariaDB did not start; log: $LOGF"; }
+fi
+
+# Database and application user (password auth over TCP on loopback only).
+mariadb --no-defaults --protocol=socket --socket="$SOCK" -uroot <<SQL
+CREATE DATABASE IF NOT EXISTS \`$RILLMARK_DB_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+CREATE DATABASE IF NOT EXISTS \`${RILLMARK_DB_NAME}_test\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+CREATE USER IF NOT EXISTS '$RILLMARK_DB_USER'@'127.0.0.1' IDENTIFIED BY '$RILLMARK_DB_PASSWORD';
+CREATE USER IF NOT EXISTS '$RILLMARK_DB_USER'@'localhost' IDENTIFIED BY '$RILLMARK_DB_PASSWORD';
+ALTER USER '$RILLMARK_DB_USER'@'127.0.0.1' IDENTIFIED BY '$RILLMARK_DB_PASSWORD';
+ALTER USER '$RILLMARK_DB_USER'@'localhost' IDENTIFIED BY '$RILLMARK_DB_PASSWORD';
+GRANT ALL PRIVILEGES ON \`$RILLMARK_DB_NAME\`.* TO '$RILLMARK_DB_USER'@'127.0.0.1', '$RILLMARK_DB_USER'@'localhost';
+GRANT ALL PRIVILEGES ON \`${RILLMARK_DB_NAME}_test\`.* TO '$RILLMARK_DB_USER'@'127.0.0.1', '$RILLMARK_DB_USER'@'localhost';
+GRANT ALL PRIVILEGES ON \`${RILLMARK_DB_NAME}_scratch\`.* TO '$RILLMARK_DB_USER'@'127.0.0.1', '$RILLMARK_DB_USER'@'localhost';
+FLUSH PRIVILEGES;
+SQL
+log "MariaDB ready: database $RILLMARK_DB_NAME (and ${RILLMARK_DB_NAME}_test), user $RILLMARK_DB_USER"

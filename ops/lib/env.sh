@@ -1,0 +1,48 @@
+# Sourced by the ops scripts: project root, .env, and defaults (the same defaults as backend/src/config.ts).
+RILLMARK_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
+export RILLMARK_ROOT
+if [ -f "$RILLMARK_ROOT/.env" ]; then
+  set -a
+  # shellcheck disable=SC1091
+  . "$RILLMARK_ROOT/.env"
+  set +a
+fi
+export RILLMARK_DB_HOST="${RILLMARK_DB_HOST:-127.0.0.1}"
+export RILLMARK_DB_PORT="${RILLMARK_DB_PORT:-3317}"
+export RILLMARK_DB_NAME="${RILLMARK_DB_NAME:-rillmark}"
+export RILLMARK_DB_USER="${RILLMARK_DB_USER:-rillmark}"
+export RILLMARK_DB_PASSWORD="${RILLMARK_DB_PASSWORD:-rillmark-dev-password}"
+RILLMARK_DB_DIR="${RILLMARK_DB_DIR:-.data/mariadb}"
+case "$RILLMARK_DB_DIR" in /*) ;; *) RILLMARK_DB_DIR="$RILLMARK_ROOT/$RILLMARK_DB_DIR" ;; esac
+export RILLMARK_DB_DIR
+export RILLMARK_PORT="${RILLMARK_PORT:-4280}"
+export RILLMARK_SMTP_HOST="${RILLMARK_SMTP_HOST:-127.0.0.1}"
+export RILLMARK_SMTP_PORT="${RILLMARK_SMTP_PORT:-2526}"
+export RILLMARK_FAKE_SMTP_HTTP_PORT="${RILLMARK_FAKE_SMTP_HTTP_PORT:-2580}"
+
+log() { printf '\033[36m[rillmark]\033[0m %s\n' "$*"; }
+die() { printf '\033[31m[rillmark] %s\033[0m\n' "$*" >&2; exit 1; }
+
+# Installs Debian packages that are missing (root, or sudo when available).
+ensure_debian_packages() {
+  local missing=()
+  for pkg in "$@"; do
+    dpkg-query -W -f='${Status}' "$pkg" 2>/dev/null | grep -q "install ok installed" || missing+=("$pkg")
+  done
+  [ ${#missing[@]} -eq 0 ] && return 0
+  local sudo=""
+  [ "$(id -u)" -eq 0 ] || sudo="sudo"
+  log "installing Debian packages: ${missing[*]} (policy-rc.d may refuse to start the system service; that is expected)"
+  $sudo apt-get update -qq || die "apt-get update failed"
+  DEBIAN_FRONTEND=noninteractive $sudo apt-get install -y -qq --no-install-recommends "${missing[@]}" >/dev/null \
+    || die "apt-get install ${missing[*]} failed"
+}
+
+# npm ci when node_modules is missing or older than the lock file.
+ensure_node_modules() {
+  cd "$RILLMARK_ROOT" || exit 1
+  if [ ! -d node_modules ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
+    log "installing npm packages (npm ci)"
+    npm ci --no-audit --no-fund >/dev/null || die "npm ci failed"
+  fi
+}

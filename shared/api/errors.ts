@@ -1,0 +1,29 @@
+/** The one JSON error shape every API route returns. */
+export interface ApiErrorBody {
+  error: {
+    /** Stable machine-readable code, e.g. `validation_failed`, `not_found`. */
+    code: ApiErrorCode;
+    /** A sentence a person can read. */
+    message: string;
+    /** Per-field problems (validation), or per-row problems (uploads). */
+    details?: ApiErrorDetail[];
+  };
+}
+
+export interface ApiErrorDetail {
+  /** Dotted path of the field, e.g. `timeZone` or `tags.2`. */
+  field: string;
+  message: string;
+}
+
+export type ApiErrorCode =
+  | 'validation_failed'
+  | 'unauthenticated'
+  | 'forbidden'
+  | 'not_found'
+  | 'conflict'
+  | 'csrf_invalid'
+  | 'rate_limited'
+  | 'payload_too_large'
+  | 'database_unavailable'
+  | 'internal_error';

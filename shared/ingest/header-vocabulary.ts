@@ -1,0 +1,87 @@
+/**
+ * What a messy header probably means: "Meter #", "Serial", "Read Date", "Usage (Gal)", "Consumption CCF",
+ * "Interval Start", "Hr 01", "00:15", "Station", "Run Time (min)". Also units named in headers or unit cells.
+ * Rules are tried in order; the first that matches wins, so the order encodes precedence
+ * (e.g. "Read Date" is a date before it is a register read; "Meter Reading" is a reading before it is a meter).
+ */
+import type { IngestUnit } from './upload-kind';
+
+export type HeaderRole =
+  | 'interval-slot'
+  | 'unit'
+  | 'intervalMinutes'
+  | 'controller'
+  | 'station'
+  | 'duration'
+  | 'cause'
+  | 'end'
+  | 'start'
+  | 'timestamp'
+  | 'date'
+  | 'time'
+  | 'registerValue'
+  | 'measuredGallons'
+  | 'usageValue'
+  | 'meter'
+  | 'other';
+
+export function normaliseHeader(header: string): string {
+  return header
+    .replace(/^\uFEFF/, '')
+    .toLowerCase()
+    .replace(/[_.]+/g, ' ')
+    .replace(/\s+/g, ' ')
+    .trim();
+}
+
+// "Hr 01", "HE 1", "H24", "Hour 3", "Int 96", a bare "7", "00:15", "24:00", "0:00-0:15".
+const slotPatterns = [
+  /^(?:hr|he|h|hour|int|interval|q|qh)\s*#?\s*\d{1,3}$/,
+  /^\d{1,3}$/,
+  /^\d{1,2}:\d{2}$/,
+  /^\d{1,2}:\d{2}\s*[-–]\s*\d{1,2}:\d{2}$/,
+];
+
+const rules: Array<[HeaderRole, RegExp]> = [
+  ['unit', /^(?:unit|units|uom|unit of measure|measure unit|volume unit)$/],
+  ['intervalMinutes', /\binterval (?:length|len|minutes|mins?|duration)\b|\binterval \((?:min|mins|minutes)\)|^(?:resolution|int min|interval min)$/],
+  ['controller', /\b(?:controller|ctrl|clock|timer) ?(?:id|#|no|name|serial)?\b/],
+  ['station', /^(?!.*time ?zone)(?:.*\b(?:station|zone|valve|sta)\b.*)$/],
+  ['duration', /\b(?:run ?time|runtime|duration|minutes run|mins run|watering (?:time|minutes))\b|^(?:minutes|mins|min)$/],
+  ['cause', /\b(?:cause|reason|trigger|run type|event type|start type|origin)\b/],
+  ['end', /\b(?:end|ended|stop|stopped|finish|finished)\b/],
+  ['start', /\b(?:start|started|begin|began|beginning)\b/],
+  ['timestamp', /\b(?:timestamp|time stamp|date ?\/ ?time|datetime|date time|date and time|read at)\b/],
+  ['date', /\b(?:date|day)\b/],
+  ['time', /\b(?:time|hour|time of day)\b/],
+  ['registerValue', /\b(?:register|cumulative|index|reading|read|dial|totali[sz]er)\b/],
+  ['measuredGallons', /\b(?:measured|flow|actual|metered)\b/],
+  ['usageValue', /\b(?:usage|consumption|volume|use|used|gallons|gal|gals|kgal|ccf|hcf|cf|m3|m³|quantity|qty|amount|value)\b/],
+  ['meter', /\b(?:meter|serial|device|service point|sp id|meter ?#)\b|#$/],
+];
+
+/** The role a header most likely plays, ignoring which kind of file it is in. */
+export function classifyHeader(header: string): HeaderRole {
+  const h = normaliseHeader(header);
+  if (h === '') return 'other';
+  if (slotPatterns.some((p) => p.test(h))) return 'interval-slot';
+  for (const [role, pattern] of rules) if (pattern.test(h)) return role;
+  return 'other';
+}
+
+const unitRules: Array<[IngestUnit, RegExp]> = [
+  ['ccf', /\b(?:ccf|hcf|hundred cubic feet|100 ?cu ?ft|100 ?ft3)\b/],
+  ['kgal', /\b(?:kgal|k ?gal|thousand gallons|1000 ?gal(?:lons)?|1,000 ?gal(?:lons)?)\b/],
+  ['acft', /\b(?:acre ?-?f(?:ee)?t|af)\b/],
+  ['gal', /\b(?:gal|gals|gallons?|us gal)\b/],
+  ['cf', /\b(?:cf|cu ?ft|ft3|cubic f(?:ee|oo)t)\b|ft³/],
+  ['m3', /\b(?:m3|cubic met(?:er|re)s?|cu ?m)\b|m³/],
+  ['l', /\b(?:l|litres?|liters?)\b/],
+];
+
+/** A unit named in a header ("Usage (CCF)", "Consumption CCF") or a unit cell ("Gallons"), or null. */
+export function unitFromText(text: string): IngestUnit | null {
+  const h = normaliseHeader(text).replace(/[()[\]]/g, ' ');
+  for (const [unit, pattern] of unitRules) if (pattern.test(h)) return unit;
+  return null;
+}

@@ -1,0 +1,51 @@
+/** One-reading-per-row interval files → interval records. */
+import { createInstantResolver } from './local-instant-resolver';
+import { parseNumber, parseVolume } from './number-parsing';
+import { cellText, isBlankRow, nowMs, readRef, readTimestamp, readUnit, rowError, toIso, type ReadOptions } from './row-cells';
+import type { ColumnMapping, IntervalRecord, RowOutcome } from './upload-kind';
+
+export interface IntervalLongReader {
+  /** `null` for a blank row. Rows must arrive in file order (DST fall-back is resolved per meter in order). */
+  read(cells: string[], row: number): RowOutcome<IntervalRecord> | null;
+}
+
+export function createIntervalLongReader(mapping: ColumnMapping, options: ReadOptions): IntervalLongReader {
+  const resolver = createInstantResolver(options.timeZone);
+  const now = nowMs(options);
+  return {
+    read(cells, row) {
+      if (isBlankRow(cells)) return null;
+      const meter = readRef(mapping, cells, row, 'meter', options);
+      if (!meter.ok) return meter;
+      const stamp = readTimestamp(mapping, cells, row, 'timestamp');
+      if (!stamp.ok) return stamp;
+      const instant = resolver.resolve(meter.ref, stamp.parsed);
+      if (!instant.ok) return rowError(mapping, row, stamp.column, instant.message);
+
+      let minutes = mapping.intervalMinutes;
+      const minutesCol = mapping.columns.intervalMinutes;
+      if (minutesCol !== undefined) {
+        const parsed = parseNumber(cellText(cells, minutesCol));
+        if (!parsed.ok) return rowError(mapping, row, minutesCol, parsed.message);
+        if (!Number.isInteger(parsed.value) || parsed.value <= 0 || parsed.value > 1440) {
+          return rowError(mapping, row, minutesCol, `${parsed.value} is not an interval length in whole minutes (1–1440)`);
+        }
+        minutes = parsed.value;
+      }
+      if (minutes === undefined) return rowError(mapping, row, null, 'no interval length chosen');
+      if (instant.utcMs + minutes * 60_000 > now) {
+        return rowError(mapping, row, stamp.column, `${toIso(instant.utcMs)} is in the future (interval not yet over)`);
+      }
+
+      const valueCol = mapping.columns.value!;
+      const volume = parseVolume(cellText(cells, valueCol), mapping);
+      if (!volume.ok) return rowError(mapping, row, valueCol, volume.message);
+      const unit = readUnit(mapping, cells, row);
+      if (!unit.ok) return unit;
+      return {
+        ok: true,
+        record: { meterRef: meter.ref, startUtc: toIso(instant.utcMs), minutes, volume: volume.value, unit: unit.unit },
+      };
+    },
+  };
+}

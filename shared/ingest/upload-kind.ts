@@ -1,0 +1,113 @@
+/**
+ * The shapes shared by every step of CSV interpretation: the kinds of upload, the column mapping a person
+ * confirms, and the plain records the row readers produce. Pure types and tiny constants only.
+ */
+
+export const UPLOAD_KINDS = ['interval-long', 'interval-wide', 'register', 'runtime'] as const;
+/**
+ * - `interval-long`: one row per reading (meter, timestamp, volume; optional interval length).
+ * - `interval-wide`: one row per local day (meter optional, date, then 24 or 96 interval columns).
+ * - `register`: cumulative register reads (meter optional, timestamp, register value).
+ * - `runtime`: irrigation-controller runs (controller, station, start, duration or end; optional cause, gallons).
+ */
+export type UploadKind = (typeof UPLOAD_KINDS)[number];
+
+/**
+ * Volume units as written in files. Conversion factors live in `shared/units/` (REFERENCE.md §5); ingest only
+ * recognises and carries the code, so it never converts.
+ */
+export const INGEST_UNITS = ['gal', 'kgal', 'cf', 'ccf', 'm3', 'l', 'acft'] as const;
+export type IngestUnit = (typeof INGEST_UNITS)[number];
+
+/** The columns a mapping can point at. Each holds a 0-based column index. */
+export const MAPPED_FIELDS = [
+  'meter',
+  'controller',
+  'station',
+  'timestamp',
+  'date',
+  'time',
+  'value',
+  'unit',
+  'intervalMinutes',
+  'start',
+  'end',
+  'duration',
+  'cause',
+  'measuredGallons',
+] as const;
+export type MappedField = (typeof MAPPED_FIELDS)[number];
+
+/** Words used in messages so a person recognises the field. */
+export const FIELD_LABELS: Record<MappedField, string> = {
+  meter: 'meter',
+  controller: 'controller',
+  station: 'station / zone',
+  timestamp: 'timestamp',
+  date: 'date',
+  time: 'time of day',
+  value: 'volume / register value',
+  unit: 'unit',
+  intervalMinutes: 'interval length (minutes)',
+  start: 'run start',
+  end: 'run end',
+  duration: 'run time (minutes)',
+  cause: 'cause',
+  measuredGallons: 'measured gallons',
+};
+
+export interface ColumnMapping {
+  kind: UploadKind;
+  /** The header row as read, kept so messages can name the column. */
+  header: string[];
+  /** Field → 0-based column index. */
+  columns: Partial<Record<MappedField, number>>;
+  /** Wide layout: the run of interval columns (0-based first column and how many). */
+  intervalColumns?: { first: number; count: number };
+  /** Unit to use when the file has no unit column; set from the header (e.g. "Usage (CCF)") or chosen. */
+  unit?: IngestUnit;
+  /** Interval length when the file has no interval column (long layout), e.g. inferred from sample spacing. */
+  intervalMinutes?: number;
+  /** Meter for every row when the file has no meter column (single-meter exports). */
+  fixedMeterRef?: string;
+  /** `1.234,5` style numbers; only meaningful for `;`-delimited files. */
+  decimalComma?: boolean;
+}
+
+export interface IntervalRecord {
+  meterRef: string;
+  /** ISO 8601 UTC instant, e.g. `2026-11-01T08:00:00.000Z`. */
+  startUtc: string;
+  minutes: number;
+  volume: number;
+  unit: IngestUnit;
+}
+
+export interface RegisterRecord {
+  meterRef: string;
+  atUtc: string;
+  value: number;
+  unit: IngestUnit;
+}
+
+export const RUNTIME_CAUSES = ['scheduled', 'manual', 'skipped-rain', 'skipped-wind'] as const;
+export type RuntimeCause = (typeof RUNTIME_CAUSES)[number];
+
+export interface RuntimeRecord {
+  controllerRef: string;
+  station: string;
+  startUtc: string;
+  minutes: number;
+  /** `null` when the file has no cause column (the log does not say). */
+  cause: RuntimeCause | null;
+  measuredGallons?: number;
+}
+
+export type IngestRecord = IntervalRecord | RegisterRecord | RuntimeRecord;
+
+/** One row's (or one wide-row cell's) outcome. `row` and `column` are 1-based, as a spreadsheet shows them. */
+export type RowOutcome<R> =
+  | { ok: true; record: R; warnings?: string[] }
+  | { ok: false; row: number; column: number | null; message: string };
+
+export type RowError = Extract<RowOutcome<unknown>, { ok: false }>;

@@ -1,0 +1,47 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+// Node-side tests. The Angular component tests run through `ng test` (Angular's Vitest runner).
+const alias = { '@shared': fileURLToPath(new URL('./shared', import.meta.url)) };
+
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      {
+        resolve: { alias },
+        test: {
+          name: 'unit',
+          environment: 'node',
+          include: ['shared/**/*.spec.ts', 'backend/src/**/*.spec.ts', 'test/reference/**/*.test.ts', 'ops/**/*.spec.ts'],
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'api',
+          environment: 'node',
+          include: ['test/api/**/*.test.ts'],
+          globalSetup: ['test/support/global-setup.ts'],
+          // One MariaDB for all files; files run in parallel workers but each test makes its own records.
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+          pool: 'forks',
+          maxWorkers: 2,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'e2e',
+          environment: 'node',
+          include: ['test/e2e/**/*.test.ts'],
+          globalSetup: ['test/support/global-setup.ts'],
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
