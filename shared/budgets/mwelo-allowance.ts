@@ -121,10 +121,19 @@ export function estimatedTotalWaterUse(etoInPerYear: number, zones: readonly Etw
   };
 }
 
-/** Indoor allotment for a meter that also serves buildings: occupants × gallons per person per day × days. */
-export function indoorAllotmentGallons(occupants: number, gallonsPerPersonPerDay: number, days: number): number {
-  requireNonNegative('Occupants', occupants);
-  requireNonNegative('Gallons per person per day', gallonsPerPersonPerDay);
-  requireNonNegative('Days', days);
-  return occupants * gallonsPerPersonPerDay * days;
+export interface MweloCompliance {
+  complies: boolean;
+  reasons: string[];
+}
+
+/** ETWU must not exceed MAWA, and the regular areas' ETAF must not exceed the project type's maximum. */
+export function mweloCompliance(etwu: EtwuResult, mawa: MawaResult, maxEtaf: number): MweloCompliance {
+  const reasons: string[] = [];
+  if (etwu.gallons > mawa.gallons) {
+    reasons.push(`Estimated use ${Math.round(etwu.gallons)} gal/yr exceeds the allowance ${Math.round(mawa.gallons)} gal/yr`);
+  }
+  if (etwu.regularAreaEtaf !== null && etwu.regularAreaEtaf > maxEtaf) {
+    reasons.push(`Regular-area ETAF ${etwu.regularAreaEtaf.toFixed(2)} exceeds the maximum ${maxEtaf}`);
+  }
+  return { complies: reasons.length === 0, reasons };
 }

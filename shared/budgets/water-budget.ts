@@ -100,7 +100,15 @@ export interface ZonePeriodBudget {
   /** Days whose weather came from normals rather than the station. */
   filledDays: number;
   daily: { date: string; gallons: number; filled: boolean }[];
+  /** Month ("YYYY-MM") → zone gallons, in date order. */
+  byMonth: { month: string; gallons: number }[];
   formula: string;
+}
+
+function sumByMonth(daily: readonly { date: string; gallons: number }[]): { month: string; gallons: number }[] {
+  const monthly = new Map<string, number>();
+  for (const d of daily) monthly.set(d.date.slice(0, 7), (monthly.get(d.date.slice(0, 7)) ?? 0) + d.gallons);
+  return [...monthly.entries()].sort(([a], [b]) => a.localeCompare(b)).map(([month, gallons]) => ({ month, gallons }));
 }
 
 /** Sum of the daily budgets over `days` (the daily floor at zero is why it is not one formula on the totals). */
@@ -135,6 +143,7 @@ export function zoneBudgetForPeriod(
     endDate: dates[dates.length - 1]!,
     ...totals,
     daily,
+    byMonth: sumByMonth(daily),
     formula: 'Σ over days of max(0, ETo (in) × PF × area (ft²) × 0.623377 ÷ IE − rain credit)',
   };
 }
@@ -161,15 +170,11 @@ export function siteBudgetForPeriod(
     ids.add(zone.id);
   }
   const zoneBudgets = zones.map((zone) => zoneBudgetForPeriod(zone, days, rainMethod));
-  const monthly = new Map<string, number>();
-  for (const zb of zoneBudgets) {
-    for (const d of zb.daily) monthly.set(d.date.slice(0, 7), (monthly.get(d.date.slice(0, 7)) ?? 0) + d.gallons);
-  }
   return {
     zones: zoneBudgets,
     gallons: zoneBudgets.reduce((sum, z) => sum + z.gallons, 0),
     litres: zoneBudgets.reduce((sum, z) => sum + z.litres, 0),
-    byMonth: [...monthly.entries()].sort(([a], [b]) => a.localeCompare(b)).map(([month, gallons]) => ({ month, gallons })),
+    byMonth: sumByMonth(zoneBudgets.flatMap((z) => z.daily)),
     rainMethod: describeEffectiveRainMethod(rainMethod),
   };
 }
