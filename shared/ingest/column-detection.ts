@@ -4,8 +4,8 @@
  */
 import type { Delimiter } from './delimiter-sniffing';
 import { classifyHeader, unitFromText, type HeaderRole } from './header-vocabulary';
-import { parseTimeOfDay, parseTimestamp } from './timestamp-parsing';
-import type { ColumnMapping, MappedField, UploadKind } from './upload-kind';
+import { combineDateAndTime, parseTimeOfDay, parseTimestamp } from './timestamp-parsing';
+import { INTERVAL_MINUTES, type ColumnMapping, type MappedField, type UploadKind } from './upload-kind';
 import { wallTimeAsUtcMs } from './zoned-time';
 
 export interface ColumnDetection {
@@ -20,9 +20,6 @@ export interface DetectionOptions {
   /** The file's delimiter; decimal commas are only considered when it is not `,`. */
   delimiter?: Delimiter;
 }
-
-/** Interval lengths the product accepts; anything else inferred from samples is left for a person to choose. */
-export const INTERVAL_MINUTES = [5, 15, 30, 60, 1440] as const;
 
 interface Found {
   roles: HeaderRole[];
@@ -59,11 +56,14 @@ function looksDecimalComma(values: string[]): boolean {
 }
 
 /** Most common positive spacing (minutes) between consecutive sample timestamps of the same meter. */
-function inferIntervalMinutes(rows: string[][], timestampCol: number, meterCol: number | undefined): number | undefined {
+function inferIntervalMinutes(rows: string[][], columns: Partial<Record<MappedField, number>>): number | undefined {
   const last = new Map<string, number>();
   const counts = new Map<number, number>();
+  const meterCol = columns.meter;
   for (const row of rows) {
-    const parsed = parseTimestamp(row[timestampCol] ?? '');
+    const cell = (i: number | undefined) => (i === undefined ? '' : (row[i] ?? ''));
+    const parsed =
+      columns.timestamp !== undefined ? parseTimestamp(cell(columns.timestamp)) : combineDateAndTime(cell(columns.date), cell(columns.time));
     if (!parsed.ok) continue;
     const ms = parsed.kind === 'instant' ? parsed.utcMs : wallTimeAsUtcMs(parsed.wall);
     const key = meterCol === undefined ? '' : (row[meterCol] ?? '').trim();
@@ -138,13 +138,18 @@ export function detectColumns(header: string[], sampleRows: string[][] = [], opt
       else if (date !== undefined && time !== undefined) {
         take('date', date);
         take('time', time);
+      } else if (found.first('start') === undefined && found.first('end') !== undefined && kind === 'interval-long') {
+        // Some exports stamp each interval at its end ("Interval End").
+        take('timestamp', found.first('end'));
+        mapping.timestampMarksEnd = true;
+        reasons.push('Timestamps mark the end of each interval.');
       } else take('timestamp', found.first('start') ?? date ?? time);
       const value = kind === 'register' ? (found.first('registerValue') ?? found.first('usageValue')) : found.first('usageValue');
       take('value', value);
       if (kind === 'interval-long') {
         take('intervalMinutes', found.first('intervalMinutes') ?? found.first('duration'));
-        if (columns.intervalMinutes === undefined && columns.timestamp !== undefined) {
-          mapping.intervalMinutes = inferIntervalMinutes(sampleRows, columns.timestamp, columns.meter);
+        if (columns.intervalMinutes === undefined) {
+          mapping.intervalMinutes = inferIntervalMinutes(sampleRows, columns);
           if (mapping.intervalMinutes) reasons.push(`Interval length ${mapping.intervalMinutes} min, from the sample rows' spacing.`);
           else {
             reasons.push('Interval length not found; choose it.');

@@ -4,7 +4,7 @@
  * Rules are tried in order; the first that matches wins, so the order encodes precedence
  * (e.g. "Read Date" is a date before it is a register read; "Meter Reading" is a reading before it is a meter).
  */
-import type { IngestUnit } from './upload-kind';
+import { parseVolumeUnit, type VolumeUnit } from '../units/volume-units';
 
 export type HeaderRole =
   | 'interval-slot'
@@ -69,18 +69,24 @@ export function classifyHeader(header: string): HeaderRole {
   return 'other';
 }
 
-const unitRules: Array<[IngestUnit, RegExp]> = [
+const unitRules: Array<[VolumeUnit, RegExp]> = [
   ['ccf', /\b(?:ccf|hcf|hundred cubic feet|100 ?cu ?ft|100 ?ft3)\b/],
   ['kgal', /\b(?:kgal|k ?gal|thousand gallons|1000 ?gal(?:lons)?|1,000 ?gal(?:lons)?)\b/],
-  ['acft', /\b(?:acre ?-?f(?:ee)?t|af)\b/],
+  ['acre-ft', /\b(?:acre ?-?f(?:ee|oo)?t|af)\b/],
+  ['acre-in', /\b(?:acre ?-?inch(?:es)?|acre ?-?in)\b/],
   ['gal', /\b(?:gal|gals|gallons?|us gal)\b/],
-  ['cf', /\b(?:cf|cu ?ft|ft3|cubic f(?:ee|oo)t)\b|ft³/],
+  ['ft3', /\b(?:cf|cu ?ft|ft3|cubic f(?:ee|oo)t)\b|ft³/],
   ['m3', /\b(?:m3|cubic met(?:er|re)s?|cu ?m)\b|m³/],
   ['l', /\b(?:l|litres?|liters?)\b/],
 ];
 
 /** A unit named in a header ("Usage (CCF)", "Consumption CCF") or a unit cell ("Gallons"), or null. */
-export function unitFromText(text: string): IngestUnit | null {
+export function unitFromText(text: string): VolumeUnit | null {
+  try {
+    return parseVolumeUnit(text); // exact spellings first (shared with the rest of the product)
+  } catch {
+    // fall through to searching inside a longer header
+  }
   const h = normaliseHeader(text).replace(/[()[\]]/g, ' ');
   for (const [unit, pattern] of unitRules) if (pattern.test(h)) return unit;
   return null;

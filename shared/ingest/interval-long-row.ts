@@ -2,7 +2,8 @@
 import { createInstantResolver } from './local-instant-resolver';
 import { parseNumber, parseVolume } from './number-parsing';
 import { cellText, isBlankRow, nowMs, readRef, readTimestamp, readUnit, rowError, toIso, type ReadOptions } from './row-cells';
-import type { ColumnMapping, IntervalRecord, RowOutcome } from './upload-kind';
+import type { IntervalRecord, RowOutcome } from './ingest-records';
+import type { ColumnMapping } from './upload-kind';
 
 export interface IntervalLongReader {
   /** `null` for a blank row. Rows must arrive in file order (DST fall-back is resolved per meter in order). */
@@ -33,8 +34,9 @@ export function createIntervalLongReader(mapping: ColumnMapping, options: ReadOp
         minutes = parsed.value;
       }
       if (minutes === undefined) return rowError(mapping, row, null, 'no interval length chosen');
-      if (instant.utcMs + minutes * 60_000 > now) {
-        return rowError(mapping, row, stamp.column, `${toIso(instant.utcMs)} is in the future (interval not yet over)`);
+      const startMs = mapping.timestampMarksEnd ? instant.utcMs - minutes * 60_000 : instant.utcMs;
+      if (startMs + minutes * 60_000 > now) {
+        return rowError(mapping, row, stamp.column, `${toIso(startMs)} is in the future (interval not yet over)`);
       }
 
       const valueCol = mapping.columns.value!;
@@ -44,7 +46,7 @@ export function createIntervalLongReader(mapping: ColumnMapping, options: ReadOp
       if (!unit.ok) return unit;
       return {
         ok: true,
-        record: { meterRef: meter.ref, startUtc: toIso(instant.utcMs), minutes, volume: volume.value, unit: unit.unit },
+        record: { meterRef: meter.ref, startUtc: toIso(startMs), minutes, volume: volume.value, unit: unit.unit },
       };
     },
   };

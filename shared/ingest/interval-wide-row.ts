@@ -2,7 +2,8 @@
 import { parseVolume } from './number-parsing';
 import { cellText, isBlankRow, nowMs, readRef, readUnit, rowError, toIso, type ReadOptions } from './row-cells';
 import { parseTimestamp } from './timestamp-parsing';
-import type { ColumnMapping, IntervalRecord, RowOutcome } from './upload-kind';
+import type { IntervalRecord, RowOutcome } from './ingest-records';
+import type { ColumnMapping } from './upload-kind';
 import { layoutWideDay, type WideDayLayout } from './wide-day-layout';
 import { formatWallTime } from './zoned-time';
 

@@ -1,6 +1,6 @@
 /** Checks a column mapping (guessed or edited by a person) before any row is read. */
-import { INTERVAL_MINUTES } from './column-detection';
-import { FIELD_LABELS, INGEST_UNITS, type ColumnMapping, type MappedField } from './upload-kind';
+import { VOLUME_UNITS } from '../units/volume-units';
+import { FIELD_LABELS, INTERVAL_MINUTES, type ColumnMapping, type MappedField } from './upload-kind';
 
 export interface MappingProblem {
   field: MappedField | 'intervalColumns';
@@ -37,7 +37,7 @@ export function validateMapping(mapping: ColumnMapping): MappingProblem[] {
   };
   const needsUnit = () => {
     if (!has('unit') && !mapping.unit) problems.push({ field: 'unit', message: 'Choose the unit column, or the unit the volumes are in.' });
-    if (mapping.unit && !(INGEST_UNITS as readonly string[]).includes(mapping.unit)) {
+    if (mapping.unit && !(VOLUME_UNITS as readonly string[]).includes(mapping.unit)) {
       problems.push({ field: 'unit', message: `Unknown unit "${mapping.unit}".` });
     }
   };

@@ -9,7 +9,7 @@
  *   initial read: the first such read goes to the old register, the next to the new.
  * - Multiplier: register units × multiplier = volume in the read's unit (e.g. a ×10 dial).
  */
-import type { IntervalRecord, RegisterRecord } from './upload-kind';
+import type { IntervalRecord, RegisterRecord } from './ingest-records';
 
 export interface RegisterPeriod {
   installedUtc: string;

@@ -2,7 +2,8 @@
 import { createInstantResolver } from './local-instant-resolver';
 import { parseVolume } from './number-parsing';
 import { cellText, isBlankRow, nowMs, readRef, readTimestamp, readUnit, rowError, toIso, type ReadOptions } from './row-cells';
-import type { ColumnMapping, RegisterRecord, RowOutcome } from './upload-kind';
+import type { RegisterRecord, RowOutcome } from './ingest-records';
+import type { ColumnMapping } from './upload-kind';
 
 export interface RegisterReader {
   read(cells: string[], row: number): RowOutcome<RegisterRecord> | null;

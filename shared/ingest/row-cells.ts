@@ -1,7 +1,9 @@
 /** Reading mapped cells out of one row, with errors that name the row and the column. */
 import { combineDateAndTime, parseTimestamp, type ParsedTimestamp } from './timestamp-parsing';
 import { unitFromText } from './header-vocabulary';
-import type { ColumnMapping, IngestUnit, RowError } from './upload-kind';
+import type { RowError } from './ingest-records';
+import type { ColumnMapping } from './upload-kind';
+import type { VolumeUnit } from '../units/volume-units';
 
 export interface ReadOptions {
   /** The site's IANA zone; local wall times in the file are read in it. */
@@ -81,7 +83,7 @@ export function toIso(utcMs: number): string {
 }
 
 /** Unit from the row's unit column, else the mapping's unit. */
-export function readUnit(mapping: ColumnMapping, cells: string[], row: number): { ok: true; unit: IngestUnit } | RowError {
+export function readUnit(mapping: ColumnMapping, cells: string[], row: number): { ok: true; unit: VolumeUnit } | RowError {
   const column = mapping.columns.unit;
   if (column === undefined) {
     return mapping.unit ? { ok: true, unit: mapping.unit } : rowError(mapping, row, null, 'no unit chosen');

@@ -7,7 +7,8 @@ import { validateMapping, type MappingProblem } from './mapping-validation';
 import { createRegisterReader } from './register-row';
 import type { ReadOptions } from './row-cells';
 import { createRuntimeReader } from './runtime-row';
-import type { ColumnMapping, IngestRecord, RowError, RowOutcome } from './upload-kind';
+import type { IngestRecord, RowError, RowOutcome } from './ingest-records';
+import type { ColumnMapping } from './upload-kind';
 
 export type { ReadOptions } from './row-cells';
 
@@ -81,8 +82,10 @@ export function interpretRows(rows: string[][], options: InterpretOptions): Inte
   }
   const mapping: ColumnMapping = { ...base, ...options.mappingOverrides };
   result.mapping = mapping;
+  // A header-only file is reported as such; asking for an interval length it cannot have would only confuse.
+  if (result.fileProblems.length > 0) return result;
   result.mappingProblems = validateMapping(mapping);
-  if (result.mappingProblems.length > 0 || result.fileProblems.length > 0) return result;
+  if (result.mappingProblems.length > 0) return result;
 
   const reader = createRowReader(mapping, options);
   data.forEach((cells, i) => {

@@ -3,7 +3,8 @@ import { createInstantResolver } from './local-instant-resolver';
 import { parseNumber, parseVolume } from './number-parsing';
 import { cellText, isBlankRow, nowMs, readRef, readTimestamp, rowError, toIso, type ReadOptions } from './row-cells';
 import { parseTimestamp } from './timestamp-parsing';
-import type { ColumnMapping, RowOutcome, RuntimeCause, RuntimeRecord } from './upload-kind';
+import type { RowOutcome, RuntimeCause, RuntimeRecord } from './ingest-records';
+import type { ColumnMapping } from './upload-kind';
 import { addWallMinutes, wallTimeAsUtcMs } from './zoned-time';
 
 /** Controllers word causes many ways; these cover the common ones. Order matters: "rain skip" is not a schedule. */
@@ -49,7 +50,7 @@ export function createRuntimeReader(mapping: ColumnMapping, options: ReadOptions
       let minutes: number;
       const durationText = cellText(cells, c.duration);
       if (c.duration !== undefined && (durationText !== '' || c.end === undefined)) {
-        const parsed = parseNumber(durationText);
+        const parsed = parseNumber(durationText, mapping);
         if (!parsed.ok) return rowError(mapping, row, c.duration, parsed.message);
         if (parsed.value < 0 || parsed.value > MAX_RUN_MINUTES) {
           return rowError(mapping, row, c.duration, `${parsed.value} minutes is not a run time (0–${MAX_RUN_MINUTES})`);

@@ -1,3 +1,6 @@
+// Ingest only recognises and carries the unit; conversions belong to shared/units (REFERENCE.md §5).
+import type { VolumeUnit } from '../units/volume-units';
+
 /**
  * The shapes shared by every step of CSV interpretation: the kinds of upload, the column mapping a person
  * confirms, and the plain records the row readers produce. Pure types and tiny constants only.
@@ -12,12 +15,9 @@ export const UPLOAD_KINDS = ['interval-long', 'interval-wide', 'register', 'runt
  */
 export type UploadKind = (typeof UPLOAD_KINDS)[number];
 
-/**
- * Volume units as written in files. Conversion factors live in `shared/units/` (REFERENCE.md §5); ingest only
- * recognises and carries the code, so it never converts.
- */
-export const INGEST_UNITS = ['gal', 'kgal', 'cf', 'ccf', 'm3', 'l', 'acft'] as const;
-export type IngestUnit = (typeof INGEST_UNITS)[number];
+
+/** Interval lengths the product accepts; anything else inferred from samples is left for a person to choose. */
+export const INTERVAL_MINUTES = [5, 15, 30, 60, 1440] as const;
 
 /** The columns a mapping can point at. Each holds a 0-based column index. */
 export const MAPPED_FIELDS = [
@@ -65,49 +65,13 @@ export interface ColumnMapping {
   /** Wide layout: the run of interval columns (0-based first column and how many). */
   intervalColumns?: { first: number; count: number };
   /** Unit to use when the file has no unit column; set from the header (e.g. "Usage (CCF)") or chosen. */
-  unit?: IngestUnit;
+  unit?: VolumeUnit;
   /** Interval length when the file has no interval column (long layout), e.g. inferred from sample spacing. */
   intervalMinutes?: number;
   /** Meter for every row when the file has no meter column (single-meter exports). */
   fixedMeterRef?: string;
   /** `1.234,5` style numbers; only meaningful for `;`-delimited files. */
   decimalComma?: boolean;
+  /** Long layout: the timestamp marks the END of each interval ("Interval End"), so start = stamp − minutes. */
+  timestampMarksEnd?: boolean;
 }
-
-export interface IntervalRecord {
-  meterRef: string;
-  /** ISO 8601 UTC instant, e.g. `2026-11-01T08:00:00.000Z`. */
-  startUtc: string;
-  minutes: number;
-  volume: number;
-  unit: IngestUnit;
-}
-
-export interface RegisterRecord {
-  meterRef: string;
-  atUtc: string;
-  value: number;
-  unit: IngestUnit;
-}
-
-export const RUNTIME_CAUSES = ['scheduled', 'manual', 'skipped-rain', 'skipped-wind'] as const;
-export type RuntimeCause = (typeof RUNTIME_CAUSES)[number];
-
-export interface RuntimeRecord {
-  controllerRef: string;
-  station: string;
-  startUtc: string;
-  minutes: number;
-  /** `null` when the file has no cause column (the log does not say). */
-  cause: RuntimeCause | null;
-  measuredGallons?: number;
-}
-
-export type IngestRecord = IntervalRecord | RegisterRecord | RuntimeRecord;
-
-/** One row's (or one wide-row cell's) outcome. `row` and `column` are 1-based, as a spreadsheet shows them. */
-export type RowOutcome<R> =
-  | { ok: true; record: R; warnings?: string[] }
-  | { ok: false; row: number; column: number | null; message: string };
-
-export type RowError = Extract<RowOutcome<unknown>, { ok: false }>;

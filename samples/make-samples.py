@@ -1,0 +1,136 @@
+# Regenerates the invented demo samples (python3 make-samples.py). Values are formula-made, not measured.
+import os, zipfile, io, datetime as dt
+root=os.path.dirname(os.path.abspath(__file__))
+def w(path, text, enc='utf-8', bom=False):
+    p=os.path.join(root,path)
+    data=text.encode(enc)
+    if bom: data=b'\xef\xbb\xbf'+data
+    open(p,'wb').write(data)
+
+def gal(day, hour):
+    # night watering window plus a little daytime use; deterministic, invented
+    if hour >= 22 or hour <= 4:
+        return 80 + (hour*7 + day*3) % 40 + ((hour+day) % 4)*0.25
+    return (hour*5 + day) % 7 + 0.5
+
+# 1. long hourly across fall-back in America/Los_Angeles: Nov 1 has 25 local hours (01:00 twice)
+lines=['Meter #,Interval Start,Usage (Gal)']
+for meter,bias in (('HOA-NORTH-01',0),('HOA-NORTH-02',5)):
+    for h in range(24): lines.append(f'{meter},2026-10-31 {h:02d}:00,{gal(31,h)+bias:.2f}')
+    hours=[0,1,1]+list(range(2,24))
+    for h in hours: lines.append(f'{meter},2026-11-01 {h:02d}:00,{gal(1,h)+bias:.2f}')
+w('meters/interval-long-hourly.csv','\n'.join(lines)+'\n')
+
+# 2. wide 24 (America/Denver), fall-back day folded into Hr 02
+hdr=['Meter','Read Date','Units']+[f'Hr {i:02d}' for i in range(1,25)]
+lines=[','.join(hdr)]
+for d in ('2026-10-31','2026-11-01','2026-11-02'):
+    day=int(d[-2:])
+    vals=[gal(day,h) for h in range(24)]
+    if d=='2026-11-01': vals[1]=vals[1]*2  # repeated 01:00-02:00 hour, both occurrences in one column
+    lines.append(','.join(['OFFICE-PARK-01',d,'gal']+[f'{v:.2f}' for v in vals]))
+w('meters/interval-wide-24.csv','\n'.join(lines)+'\n')
+
+# 3. wide 96, semicolon, decimal comma (America/Los_Angeles)
+def hhmm(m): return f'{m//60:02d}:{m%60:02d}'
+hdr=['Meter','Date','Unit']+[hhmm(15*(i+1)) for i in range(96)]
+lines=[';'.join(hdr)]
+for d in ('2026-11-02','2026-11-03'):
+    day=int(d[-2:])
+    vals=[gal(day,i//4)/4 for i in range(96)]
+    lines.append(';'.join(['SCHOOL-01',d,'gal']+[f'{v:.3f}'.replace('.',',') for v in vals]))
+w('meters/interval-wide-96-semicolon.csv','\n'.join(lines)+'\n')
+
+# 4. single meter, no meter column, CCF in header
+lines=['Interval Start,Consumption CCF']
+for h in range(24): lines.append(f'2026-11-03 {h:02d}:00,{gal(3,h)/748.05:.4f}')
+w('meters/single-meter-no-meter-column.csv','\n'.join(lines)+'\n')
+
+# 8. Windows-1252 with a note column
+lines=['Meter #,Timestamp,Usage (Gal),Note']
+notes=['','Valve box lid replaced','Frost 28°F overnight','','Café patio drip line flushed','']
+for h in range(6): lines.append(f'OFFICE-PARK-02,2026-11-05 {h:02d}:00,{gal(5,h):.2f},{notes[h]}')
+w('meters/interval-long-windows-1252.csv','\r\n'.join(lines)+'\r\n', enc='cp1252')
+
+# 9. UTF-8 with BOM, unit column, UTC instants
+lines=['Meter,Timestamp,Usage,Unit']
+for h in range(6): lines.append(f'HOA-NORTH-02,2026-11-06T{h+8:02d}:00:00Z,{gal(6,h):.2f},Gallons')
+w('meters/interval-long-utf8-bom.csv','\r\n'.join(lines)+'\r\n', bom=True)
+
+# 10. tab-delimited, 15-minute with interval column
+lines=['Meter ID\tRead Date\tUsage (Gal)\tInterval (min)']
+for q in range(8): lines.append(f'OFFICE-PARK-01\t2026-11-07 {hhmm(15*q)}\t{gal(7,0)/4+q*0.1:.2f}\t15')
+w('meters/interval-long-tab-delimited.csv','\n'.join(lines)+'\n')
+
+# 11. US AM/PM across fall-back (America/Los_Angeles)
+lines=['Meter #,Read Date,Usage (Gal)']
+for label,h in (('12:00 AM',0),('1:00 AM',1),('1:00 AM',1),('2:00 AM',2),('3:00 AM',3),('4:00 AM',4)):
+    lines.append(f'SCHOOL-01,11/1/2026 {label},{gal(1,h):.2f}')
+w('meters/interval-long-us-ampm.csv','\n'.join(lines)+'\n')
+
+# 12. separate date and time columns
+lines=['Serial,Date,Time,Consumption,Unit']
+for h in range(8): lines.append(f'HOA-NORTH-02,11/8/2026,{h:02d}:00,{gal(8,h):.2f},gal')
+w('meters/interval-long-date-time-columns.csv','\n'.join(lines)+'\n')
+
+# 13. spreadsheet serial dates (1900 date system)
+base=(dt.date(2026,11,9)-dt.date(1899,12,30)).days
+lines=['Meter #,Interval Start,Usage (Gal)']
+for h in range(6):
+    s=base+h/24
+    lines.append(f'OFFICE-PARK-02,{s:.6f}'.rstrip('0').rstrip('.')+f',{gal(9,h):.2f}')
+w('meters/interval-long-serial-dates.csv','\n'.join(lines)+'\n')
+
+# 14. spring-forward day in America/Denver: no 02:00 row exists
+lines=['Meter #,Interval Start,Usage (Gal)']
+for h in (0,1,3,4,5): lines.append(f'OFFICE-PARK-01,2026-03-08 {h:02d}:00,{gal(8,h):.2f}')
+w('meters/interval-long-spring-forward.csv','\n'.join(lines)+'\n')
+
+# 5. register monthly, HOA-NORTH-01 rolls over its 4-digit dial
+lines=['Meter Serial,Read Date,Register Reading,Unit']
+for m,v in zip(range(6,12),['9420','9588','9761','9912','0043','0139']): lines.append(f'HOA-NORTH-01,2026-{m:02d}-01,{v},CCF')
+for m,v in zip(range(6,12),['031250','031702','032190','032611','032940','033105']): lines.append(f'HOA-NORTH-02,2026-{m:02d}-01,{v},CCF')
+w('meters/register-monthly.csv','\n'.join(lines)+'\n')
+
+# register with a meter swap on 2026-08-15 (old final and new initial read at the same time)
+lines=['Meter Serial,Read Date,Register Reading,Unit']
+for d,v in (('2026-06-01','45012'),('2026-07-01','45140'),('2026-08-01','45266'),('2026-08-15 09:00','45301'),('2026-08-15 09:00','00000'),('2026-09-01','00061'),('2026-10-01','00170')):
+    lines.append(f'OFFICE-PARK-02,{d},{v},kgal')
+w('meters/register-meter-swap.csv','\n'.join(lines)+'\n')
+
+# 6. runtime start + duration (America/Los_Angeles)
+lines=['Controller,Station,Start Time,Run Time (min),Cause,Flow (gal)']
+for day in (30,31):
+    for st,(start,mins,gals) in enumerate([('22:00',12,118.5),('22:12',15,142.0),('22:27',9,61.2),('22:36',20,205.8)],1):
+        lines.append(f'CTL-HOA-NORTH-A,{st},2026-10-{day} {start},{mins},Scheduled,{gals}')
+lines.append('CTL-HOA-NORTH-A,1,2026-11-01 22:00,0,Rain Skip,')
+lines.append('CTL-HOA-NORTH-A,2,2026-11-01 22:00,0,Rain Skip,')
+lines.append('CTL-HOA-NORTH-A,3,2026-11-02 07:40,5,Manual,48.9')
+lines.append('CTL-HOA-NORTH-A,4,2026-11-02 22:00,0,Wind skip,')
+w('runtime/runtime-start-duration.csv','\n'.join(lines)+'\n')
+
+# 7. runtime start + end with a separate date column (America/Los_Angeles); one run crosses midnight
+lines=['Controller ID,Zone,Date,Start,End,Reason']
+rows=[('A1','11/3/2026','9:30 PM','9:45 PM','Program A'),('A2','11/3/2026','9:45 PM','10:05 PM','Program A'),
+      ('A3','11/3/2026','10:05 PM','10:20 PM','Program A'),('B1','11/3/2026','11:50 PM','12:10 AM','Program B'),
+      ('A1','11/4/2026','6:15 AM','6:20 AM','Manual'),('A1','11/5/2026','9:30 PM','9:30 PM','Rain sensor')]
+for z,d,s,e,r in rows: lines.append(f'CTL-SCHOOL-A,{z},{d},{s},{e},{r}')
+w('runtime/runtime-start-end.csv','\n'.join(lines)+'\n')
+
+# broken
+w('broken/empty.csv','')
+w('broken/header-only.csv','Meter #,Interval Start,Usage (Gal)\n')
+w('broken/unknown-columns.csv','Colour,Shape,Flavour\nteal,round,mint\nplum,square,lime\n')
+w('broken/non-numeric-volume.csv','Meter #,Interval Start,Usage (Gal)\nHOA-NORTH-01,2026-11-10 00:00,91.25\nHOA-NORTH-01,2026-11-10 01:00,n/a\nHOA-NORTH-01,2026-11-10 02:00,88.00\n')
+w('broken/negative-volume.csv','Meter #,Interval Start,Usage (Gal)\nHOA-NORTH-01,2026-11-10 00:00,91.25\nHOA-NORTH-01,2026-11-10 01:00,-12.5\nHOA-NORTH-01,2026-11-10 02:00,88.00\n')
+w('broken/future-timestamp.csv','Meter #,Interval Start,Usage (Gal)\nHOA-NORTH-01,2026-11-10 00:00,91.25\nHOA-NORTH-01,2026-11-10 01:00,90.00\nHOA-NORTH-01,2027-11-10 02:00,88.50\n')
+w('broken/unknown-meter.csv','Meter #,Interval Start,Usage (Gal)\nHOA-NORTH-01,2026-11-10 00:00,91.25\nHOA-NORTH-01,2026-11-10 01:00,90.00\nHOA-SOUTH-99,2026-11-10 00:00,40.00\nHOA-SOUTH-99,2026-11-10 01:00,41.50\n')
+w('broken/missing-required-field.csv','Controller,Station,Run Time (min),Cause\nCTL-HOA-NORTH-A,1,12,Scheduled\n')
+w('broken/spring-forward-gap.csv','Meter #,Interval Start,Usage (Gal)\nHOA-NORTH-01,2026-03-08 01:00,20.00\nHOA-NORTH-01,2026-03-08 02:00,21.00\nHOA-NORTH-01,2026-03-08 03:00,22.00\n')
+w('broken/register-not-a-rollover.csv','Meter Serial,Read Date,Register Reading,Unit\nHOA-NORTH-02,2026-09-01,5210,CCF\nHOA-NORTH-02,2026-10-01,5190,CCF\nHOA-NORTH-02,2026-11-01,5350,CCF\n')
+hdr=['Meter','Read Date','Units']+[f'Hr {i:02d}' for i in range(1,25)]
+vals=['5.00']*24
+w('broken/wide-value-in-skipped-hour.csv',','.join(hdr)+'\n'+','.join(['OFFICE-PARK-01','2026-03-08','gal']+vals)+'\n')
+buf=io.BytesIO()
+with zipfile.ZipFile(buf,'w',zipfile.ZIP_DEFLATED) as z: z.writestr('usage.csv','Meter #,Interval Start,Usage (Gal)\nHOA-NORTH-01,2026-11-10 00:00,91.25\n')
+open(os.path.join(root,'broken/zip-renamed.csv'),'wb').write(buf.getvalue())
