@@ -46,3 +46,10 @@ ensure_node_modules() {
     npm ci --no-audit --no-fund >/dev/null || die "npm ci failed"
   fi
 }
+
+# tsx reads one tsconfig (not the nearest one per file); the back end's has the decorator settings.
+export TSX_TSCONFIG_PATH="$RILLMARK_ROOT/backend/tsconfig.json"
+
+# The local fake weather feed (ops/weather) and where the server looks for a feed.
+export RILLMARK_FAKE_WEATHER_PORT="${RILLMARK_FAKE_WEATHER_PORT:-2590}"
+export RILLMARK_WEATHER_FEED_URL="${RILLMARK_WEATHER_FEED_URL:-http://127.0.0.1:$RILLMARK_FAKE_WEATHER_PORT}"

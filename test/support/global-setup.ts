@@ -1,6 +1,7 @@
 import { execFileSync } from 'node:child_process';
 import { createConnection } from 'node:net';
 import { resolve } from 'node:path';
+import { createConnection as createDbConnection } from 'mysql2/promise';
 import { connectWithRetry } from '../../backend/src/db/connect';
 import { createDataSource } from '../../backend/src/db/data-source';
 import { setLogLevel } from '../../backend/src/platform/logger';
@@ -29,6 +30,9 @@ export default async function setup(): Promise<void> {
   if (!(await portAnswers(config.mail.host, config.mail.fakeServerHttpPort))) {
     execFileSync('bash', [resolve(root, 'ops/mail/start.sh')], { stdio: 'inherit' });
   }
+  const admin = await createDbConnection({ host: config.db.host, port: config.db.port, user: config.db.user, password: config.db.password });
+  await admin.query(`CREATE DATABASE IF NOT EXISTS \`${config.db.database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+  await admin.end();
   const db = createDataSource(config.db);
   await connectWithRetry(db, { attempts: 10 });
   await db.runMigrations({ transaction: 'each' });

@@ -1,0 +1,18 @@
+import { ROLE_LABELS } from '@shared/auth/roles';
+import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_USERS } from './demo-scenario';
+
+/** Printed by the start command once the server answers. */
+const url = process.argv[2] ?? 'http://127.0.0.1:4280';
+const orgName = (key: string) => DEMO_ORGANISATIONS.find((o) => o.key === key)!.name;
+const lines = [
+  '',
+  `  Rillmark is running at ${url}`,
+  `  Development outbox (mail sent by the app): ${url}/outbox (as an administrator)`,
+  '',
+  `  Demo sign-ins (password for all: ${DEMO_PASSWORD})`,
+  ...DEMO_USERS.map((u) => `    ${ROLE_LABELS[u.role].padEnd(20)} ${u.email.padEnd(40)} ${orgName(u.organisation)}`),
+  '',
+  '  Press Ctrl-C to stop the server, the fake SMTP server and MariaDB.',
+  '',
+];
+console.log(lines.join('\n'));
