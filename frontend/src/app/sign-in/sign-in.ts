@@ -27,7 +27,7 @@ function safeReturnUrl(url: string | undefined): string {
     LogoMark,
   ],
   templateUrl: './sign-in.html',
-  styleUrl: './sign-in.scss',
+  styleUrl: '../core/auth/auth-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SignIn {

@@ -11,6 +11,7 @@ import { describeApiError } from '../../core/http/api-error';
 import { OutboxApi, type OutboxMessage } from '../outbox-api';
 
 const URL_IN_TEXT = /https?:\/\/[^\s<>"')]+/g;
+const APP_PATHS = ['/accept-invite', '/reset-password'];
 
 /** Mail caught by the local fake SMTP server, so invitations and reset links can be followed in development. */
 @Component({
@@ -45,8 +46,16 @@ export class Outbox {
     });
   }
 
-  protected linksIn(message: OutboxMessage): string[] {
-    return [...new Set(message.text.match(URL_IN_TEXT) ?? [])];
+  /**
+   * Links found in the text body. Links to this app's own pages (invitation, password reset) open here, on
+   * whatever host and port the app is served from, since the mail carries the server's public address.
+   */
+  protected linksIn(message: OutboxMessage): { text: string; href: string }[] {
+    return [...new Set(message.text.match(URL_IN_TEXT) ?? [])].map((text) => {
+      const url = new URL(text);
+      const own = APP_PATHS.some((path) => url.pathname === path);
+      return { text, href: own ? url.pathname + url.search : text };
+    });
   }
 
   /**

@@ -39,7 +39,7 @@ function passwordsMatch(group: AbstractControl): ValidationErrors | null {
     LogoMark,
   ],
   templateUrl: './set-password.html',
-  styleUrl: '../../sign-in/sign-in.scss',
+  styleUrl: '../../core/auth/auth-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SetPassword {

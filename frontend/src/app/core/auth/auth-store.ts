@@ -36,11 +36,12 @@ export class AuthStore {
         return user;
       },
       (err: unknown) => {
-        this.loading = null;
         if (err instanceof HttpErrorResponse && err.status === 401) {
           this.current.set(null);
           return null;
         }
+        // Server unreachable or failing: ask again next time rather than caching the failure.
+        this.loading = null;
         throw err;
       },
     );

@@ -21,7 +21,8 @@ export interface ConfirmData {
       <p>{{ data.message }}</p>
     </mat-dialog-content>
     <mat-dialog-actions align="end">
-      <button mat-button type="button" [mat-dialog-close]="false" cdkFocusInitial>Cancel</button>
+      <!-- Cancel comes first, so it gets the initial focus rather than the destructive action. -->
+      <button mat-button type="button" [mat-dialog-close]="false">Cancel</button>
       <button mat-flat-button type="button" [class.danger]="data.danger" [mat-dialog-close]="true">
         {{ data.confirmLabel }}
       </button>

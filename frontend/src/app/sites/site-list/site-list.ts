@@ -1,5 +1,5 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, linkedSignal, signal } from '@angular/core';
 import { rxResource, takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -12,7 +12,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { Router, RouterLink } from '@angular/router';
+import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { DEFAULT_PAGE_SIZE, type Page, type SortDirection } from '@shared/api/page';
 import { SITE_KIND_LABELS, SITE_KINDS, SITE_SORTS, type SiteDto, type SiteKind, type SiteSort } from '@shared/sites/site';
 import { debounceTime, distinctUntilChanged, map } from 'rxjs';
@@ -20,6 +20,7 @@ import { AuthStore } from '../../core/auth/auth-store';
 import { describeApiError } from '../../core/http/api-error';
 import { SITE_LEVEL_LABELS } from '../site-labels';
 import { SitesApi, type SiteQuery } from '../sites-api';
+import { siteQueryFromUrl, siteQueryToUrl } from './site-list-url';
 
 const ALL_COLUMNS = ['name', 'kind', 'address', 'timeZone', 'tags', 'organisationName', 'access'];
 const PHONE_COLUMNS = ['name', 'kind', 'access'];
@@ -48,7 +49,9 @@ const PHONE_COLUMNS = ['name', 'kind', 'access'];
 export class SiteList {
   private readonly api = inject(SitesApi);
   private readonly router = inject(Router);
+  private readonly route = inject(ActivatedRoute);
   private readonly auth = inject(AuthStore);
+  private readonly initial = siteQueryFromUrl(this.route.snapshot.queryParamMap);
 
   protected readonly canCreate = computed(() => this.auth.capabilities().createSites);
   protected readonly kinds = SITE_KINDS;
@@ -58,15 +61,15 @@ export class SiteList {
   protected readonly pageSizeOptions = [10, DEFAULT_PAGE_SIZE, 50, 100];
 
   // Everything the request depends on; the table's events only set these.
-  protected readonly sort = signal<SiteSort>('name');
-  protected readonly dir = signal<SortDirection>('asc');
-  protected readonly pageIndex = signal(0);
-  protected readonly pageSize = signal(DEFAULT_PAGE_SIZE);
-  protected readonly q = signal('');
-  protected readonly tag = signal('');
-  protected readonly kind = signal<SiteKind | ''>('');
+  protected readonly sort = signal<SiteSort>(this.initial.sort);
+  protected readonly dir = signal<SortDirection>(this.initial.dir);
+  protected readonly pageIndex = signal(this.initial.page);
+  protected readonly pageSize = signal(this.initial.pageSize);
+  protected readonly q = signal(this.initial.q);
+  protected readonly tag = signal(this.initial.tag);
+  protected readonly kind = signal<SiteKind | ''>(this.initial.kind);
 
-  protected readonly search = new FormControl('', { nonNullable: true });
+  protected readonly search = new FormControl(this.initial.q, { nonNullable: true });
 
   private readonly query = computed<SiteQuery>(() => ({
     page: this.pageIndex(),
@@ -105,6 +108,13 @@ export class SiteList {
   protected readonly columns = computed(() => (this.phone() ? PHONE_COLUMNS : ALL_COLUMNS));
 
   constructor() {
+    // Mirror the view into the address bar without adding history entries.
+    effect(() => {
+      const queryParams = siteQueryToUrl(this.query());
+      void this.router
+        .navigate([], { relativeTo: this.route, queryParams, queryParamsHandling: 'merge', replaceUrl: true })
+        .catch(() => false);
+    });
     this.search.valueChanges
       .pipe(
         map((text) => text.trim()),
