@@ -7,7 +7,7 @@ const orgName = (key: string) => DEMO_ORGANISATIONS.find((o) => o.key === key)!.
 const lines = [
   '',
   `  Rillmark is running at ${url}`,
-  `  Development outbox (mail sent by the app): ${url}/outbox (as an administrator)`,
+  `  Development outbox (mail the app sent): ${url}/admin/outbox (sign in as the administrator)`,
   '',
   `  Demo sign-ins (password for all: ${DEMO_PASSWORD})`,
   ...DEMO_USERS.map((u) => `    ${ROLE_LABELS[u.role].padEnd(20)} ${u.email.padEnd(40)} ${orgName(u.organisation)}`),
