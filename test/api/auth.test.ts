@@ -107,7 +107,7 @@ describe('sessions', () => {
     try {
       const res = await fetch(`${second.server.url}/api/auth/me`, { headers: { cookie } });
       expect(res.status).toBe(200);
-      expect((await res.json()).email).toBe(world.users.manager.email);
+      expect(((await res.json()) as { email: string }).email).toBe(world.users.manager.email);
     } finally {
       await second.stop();
     }
