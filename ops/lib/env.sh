@@ -34,7 +34,7 @@ ensure_debian_packages() {
   [ "$(id -u)" -eq 0 ] || sudo="sudo"
   log "installing Debian packages: ${missing[*]} (policy-rc.d may refuse to start the system service; that is expected)"
   $sudo apt-get update -qq || die "apt-get update failed"
-  DEBIAN_FRONTEND=noninteractive $sudo apt-get install -y -qq --no-install-recommends "${missing[@]}" >/dev/null \
+  DEBIAN_FRONTEND=noninteractive $sudo apt-get install -y -qq "${missing[@]}" >/dev/null \
     || die "apt-get install ${missing[*]} failed"
 }
 
