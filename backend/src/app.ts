@@ -64,6 +64,9 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   const session = createSessionMiddleware(config, pool);
   const csrf = createCsrf(config);
   const rateLimitStore = new MariaDbRateLimitStore(pool, 'sign-in');
+  // Expired sign-in counters are dropped now and then so the table stays small.
+  const pruneTimer = setInterval(() => void rateLimitStore.prune().catch(() => undefined), 15 * 60_000);
+  pruneTimer.unref();
 
   const app = express();
   app.set('trust proxy', config.http.trustProxy);
@@ -108,6 +111,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   return {
     app,
     async close() {
+      clearInterval(pruneTimer);
       await session.close();
       await pool.end();
     },

@@ -12,16 +12,8 @@ import { dirname } from 'node:path';
 import { randomUUID } from 'node:crypto';
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
+import type { OutboxMessage } from '../../shared/mail/outbox-message';
 
-export interface StoredMessage {
-  id: string;
-  from: string;
-  to: string;
-  subject: string;
-  date: string;
-  text: string;
-  html: string | null;
-}
 
 export interface FakeSmtpOptions {
   host: string;
@@ -34,8 +26,8 @@ export interface FakeSmtpOptions {
 
 export async function startFakeSmtp(options: FakeSmtpOptions) {
   mkdirSync(dirname(options.file), { recursive: true });
-  const messages: StoredMessage[] = existsSync(options.file)
-    ? readFileSync(options.file, 'utf8').split('\n').filter(Boolean).map((l) => JSON.parse(l) as StoredMessage)
+  const messages: OutboxMessage[] = existsSync(options.file)
+    ? readFileSync(options.file, 'utf8').split('\n').filter(Boolean).map((l) => JSON.parse(l) as OutboxMessage)
     : [];
 
   const smtp = new SMTPServer({
@@ -47,7 +39,7 @@ export async function startFakeSmtp(options: FakeSmtpOptions) {
       simpleParser(stream)
         .then((mail) => {
           const to = Array.isArray(mail.to) ? mail.to.map((a) => a.text).join(', ') : (mail.to?.text ?? '');
-          const message: StoredMessage = {
+          const message: OutboxMessage = {
             id: randomUUID(),
             from: mail.from?.text ?? '',
             to,

@@ -1,15 +1,6 @@
 import type { Config } from '../../config';
+import type { OutboxMessage } from '@shared/mail/outbox-message';
 import { AppError } from '../app-error';
-
-export interface OutboxMessage {
-  id: string;
-  from: string;
-  to: string;
-  subject: string;
-  date: string;
-  text: string;
-  html: string | null;
-}
 
 /** Reads what the local fake SMTP server received (development outbox page). */
 export async function fetchOutbox(mail: Config['mail']): Promise<OutboxMessage[]> {

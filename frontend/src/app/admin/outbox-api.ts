@@ -1,17 +1,10 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
+import type { OutboxMessage } from '@shared/mail/outbox-message';
 
-/** One e-mail caught by the local development SMTP server. */
-export interface OutboxMessage {
-  id: string;
-  from: string;
-  to: string;
-  subject: string;
-  date: string;
-  text: string;
-  html: string;
-}
+export type { OutboxMessage };
+
 
 /** The development outbox (administrators only). */
 @Injectable({ providedIn: 'root' })

@@ -1,9 +1,10 @@
-import { HttpClient, HttpParams } from '@angular/common/http';
+import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Page, SortDirection } from '@shared/api/page';
 import type { Role } from '@shared/auth/roles';
 import type { InviteInput, OrgUserDto, UserSort } from '@shared/users/user';
 import { Observable } from 'rxjs';
+import { queryParams } from '../core/http/query-params';
 
 export interface UserQuery {
   page: number;
@@ -24,13 +25,7 @@ export class UsersApi {
   private readonly http = inject(HttpClient);
 
   list(query: UserQuery): Observable<Page<OrgUserDto>> {
-    let params = new HttpParams()
-      .set('page', query.page)
-      .set('pageSize', query.pageSize)
-      .set('sort', query.sort)
-      .set('dir', query.dir);
-    if (query.q) params = params.set('q', query.q);
-    return this.http.get<Page<OrgUserDto>>('/api/users', { params });
+    return this.http.get<Page<OrgUserDto>>('/api/users', { params: queryParams({ ...query }) });
   }
 
   invite(input: InviteInput): Observable<OrgUserDto> {

@@ -1,8 +1,9 @@
-import { HttpClient, HttpParams } from '@angular/common/http';
+import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Page, SortDirection } from '@shared/api/page';
 import type { SiteDto, SiteInput, SiteKind, SiteSort } from '@shared/sites/site';
 import { Observable } from 'rxjs';
+import { queryParams } from '../core/http/query-params';
 
 export interface SiteQuery {
   page: number;
@@ -20,16 +21,7 @@ export class SitesApi {
   private readonly http = inject(HttpClient);
 
   list(query: SiteQuery): Observable<Page<SiteDto>> {
-    let params = new HttpParams()
-      .set('page', query.page)
-      .set('pageSize', query.pageSize)
-      .set('sort', query.sort)
-      .set('dir', query.dir);
-    // Empty filters are left out rather than sent blank.
-    if (query.q) params = params.set('q', query.q);
-    if (query.tag) params = params.set('tag', query.tag);
-    if (query.kind) params = params.set('kind', query.kind);
-    return this.http.get<Page<SiteDto>>('/api/sites', { params });
+    return this.http.get<Page<SiteDto>>('/api/sites', { params: queryParams({ ...query }) });
   }
 
   tags(): Observable<string[]> {

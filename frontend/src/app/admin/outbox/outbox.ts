@@ -63,6 +63,6 @@ export class Outbox {
    * sanitiser would otherwise strip the mail's inline styles.
    */
   protected htmlOf(message: OutboxMessage): SafeHtml {
-    return this.sanitizer.bypassSecurityTrustHtml(message.html);
+    return this.sanitizer.bypassSecurityTrustHtml(message.html ?? '');
   }
 }
