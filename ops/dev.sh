@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# Development: MariaDB + fake SMTP, the API with reload (tsx watch) on :4280, and `ng serve` on :4200
+# Development: MariaDB + fake SMTP + fake weather feed, the API with reload (tsx watch) on :4280, and `ng serve` on :4200
 # proxying /api to it. Ctrl-C stops both servers (MariaDB and the fake SMTP server keep running;
 # stop them with npm run db:stop and bash ops/mail/stop.sh).
 set -euo pipefail
@@ -8,6 +8,7 @@ cd "$RILLMARK_ROOT"
 ensure_node_modules
 bash ops/db/start.sh
 bash ops/mail/start.sh
+bash ops/weather/start.sh
 npm run --silent migrate
 npm run --silent seed
 node --import tsx --watch backend/src/main.ts &

@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
-# The one command to run Rillmark locally: installs what is missing, starts MariaDB and the fake SMTP
-# server on loopback, migrates, seeds the demo scenario, builds, and serves app + API on one port.
+# The one command to run Rillmark locally: installs what is missing, starts MariaDB, the fake SMTP server
+# and the fake weather feed on loopback, migrates, seeds the demo scenario, builds, and serves app + API on one port.
 # Ctrl-C stops the server, the fake SMTP server and MariaDB.
 set -euo pipefail
 . "$(dirname "$0")/lib/env.sh"
@@ -10,6 +10,7 @@ ensure_debian_packages curl
 ensure_node_modules
 bash ops/db/start.sh
 bash ops/mail/start.sh
+bash ops/weather/start.sh
 npm run --silent migrate
 npm run --silent seed
 bash ops/build.sh
@@ -18,6 +19,7 @@ cleanup() {
   trap - INT TERM EXIT
   [ -n "${server_pid:-}" ] && kill -TERM "$server_pid" 2>/dev/null && wait "$server_pid" 2>/dev/null || true
   bash ops/mail/stop.sh || true
+  bash ops/weather/stop.sh || true
   bash ops/db/stop.sh || true
 }
 trap cleanup INT TERM EXIT

@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # The one command that runs every test: installs what is missing (npm packages, Debian's mariadb-server
-# and chromium), starts MariaDB and the fake SMTP server if they are not running, runs type checks,
+# and chromium), starts MariaDB, the fake SMTP server and the fake weather feed if they are not running, runs type checks,
 # unit and reference checks, API tests against MariaDB, Angular component tests, the production build
 # with its bundle budget, and end-to-end tests in Chromium; then stops what it started.
 set -uo pipefail
@@ -18,6 +18,10 @@ fi
 if ! curl -fs "http://$RILLMARK_SMTP_HOST:$RILLMARK_FAKE_SMTP_HTTP_PORT/messages" >/dev/null 2>&1; then
   bash ops/mail/start.sh || die "could not start the fake SMTP server"
   started+=(mail)
+fi
+if ! curl -fs "http://127.0.0.1:$RILLMARK_FAKE_WEATHER_PORT/status" >/dev/null 2>&1; then
+  bash ops/weather/start.sh || die "could not start the fake weather feed"
+  started+=(weather)
 fi
 cleanup() {
   for s in "${started[@]}"; do bash "ops/$s/stop.sh" || true; done

@@ -32,6 +32,8 @@ const schema = z.object({
   RILLMARK_DEV_OUTBOX: bool.default(true),
   RILLMARK_WEB_DIR: z.string().default('dist/web/browser'),
   RILLMARK_INVITE_HOURS: z.coerce.number().positive().default(72),
+  RILLMARK_WEATHER_FEED_URL: z.string().url().default('http://127.0.0.1:2590'),
+  RILLMARK_WEATHER_FEED_TIMEOUT_MS: z.coerce.number().int().min(100).max(120_000).default(10_000),
   RILLMARK_LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
 });
 
@@ -45,6 +47,7 @@ export interface Config {
   signIn: { maxAttempts: number; windowMs: number };
   mail: { host: string; port: number; from: string; fakeServerHttpPort: number; devOutbox: boolean };
   inviteTtlMs: number;
+  weather: { feedUrl: string; feedTimeoutMs: number };
   logLevel: Env['RILLMARK_LOG_LEVEL'];
 }
 
@@ -86,6 +89,7 @@ export function loadConfig(source: Record<string, string | undefined> = process.
       devOutbox: e.RILLMARK_DEV_OUTBOX,
     },
     inviteTtlMs: e.RILLMARK_INVITE_HOURS * 3_600_000,
+    weather: { feedUrl: e.RILLMARK_WEATHER_FEED_URL.replace(/\/$/, ''), feedTimeoutMs: e.RILLMARK_WEATHER_FEED_TIMEOUT_MS },
     logLevel: e.RILLMARK_LOG_LEVEL,
   };
 }

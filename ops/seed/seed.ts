@@ -2,6 +2,7 @@ import { loadConfig } from '../../backend/src/config';
 import { connectWithRetry } from '../../backend/src/db/connect';
 import { createDataSource } from '../../backend/src/db/data-source';
 import { logger } from '../../backend/src/platform/logger';
+import { seedBudgets } from './seed-budgets';
 import { seedDemo } from './seed-demo';
 
 /** `npm run seed`: writes the demo scenario into the configured database (idempotent). */
@@ -9,4 +10,6 @@ const db = createDataSource(loadConfig().db);
 await connectWithRetry(db, { attempts: 10 });
 const counts = await seedDemo(db);
 logger.info(`demo scenario seeded: ${counts.organisations} organisations, ${counts.users} users, ${counts.sites} sites`);
+const budgets = await seedBudgets(db);
+logger.info(`demo budgets seeded: ${budgets.stations} weather stations, ${budgets.days} days of weather, ${budgets.hydrozones} hydrozones`);
 await db.destroy();

@@ -26,4 +26,6 @@ export type ApiErrorCode =
   | 'rate_limited'
   | 'payload_too_large'
   | 'database_unavailable'
+  /** A service Rillmark calls (e.g. the weather feed) did not answer or answered nonsense. */
+  | 'upstream_unavailable'
   | 'internal_error';

@@ -18,7 +18,7 @@ function portAnswers(host: string, port: number): Promise<boolean> {
 }
 
 /**
- * Once per test run: start MariaDB and the fake SMTP server if their ports are silent (the README's
+ * Once per test run: start MariaDB, the fake SMTP server and the fake weather feed if their ports are silent (the README's
  * test command starts them already), then migrate the test database.
  */
 export default async function setup(): Promise<void> {
@@ -29,6 +29,10 @@ export default async function setup(): Promise<void> {
   }
   if (!(await portAnswers(config.mail.host, config.mail.fakeServerHttpPort))) {
     execFileSync('bash', [resolve(root, 'ops/mail/start.sh')], { stdio: 'inherit' });
+  }
+  const feed = new URL(config.weather.feedUrl);
+  if (!(await portAnswers(feed.hostname, Number(feed.port || 80)))) {
+    execFileSync('bash', [resolve(root, 'ops/weather/start.sh')], { stdio: 'inherit', env: { ...process.env, RILLMARK_FAKE_WEATHER_PORT: feed.port || '80' } });
   }
   const admin = await createDbConnection({ host: config.db.host, port: config.db.port, user: config.db.user, password: config.db.password });
   await admin.query(`CREATE DATABASE IF NOT EXISTS \`${config.db.database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);

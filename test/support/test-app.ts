@@ -65,6 +65,11 @@ export class Client {
     return this.agent.post(path).set('x-xsrf-token', this.csrf).send(body ?? {});
   }
 
+  /** A raw text body, e.g. a CSV upload. */
+  postText(path: string, text: string, contentType = 'text/csv') {
+    return this.agent.post(path).set('x-xsrf-token', this.csrf).set('content-type', contentType).send(text);
+  }
+
   patch(path: string, body: object) {
     return this.agent.patch(path).set('x-xsrf-token', this.csrf).send(body);
   }

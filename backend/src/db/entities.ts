@@ -6,6 +6,11 @@ import { SiteEntity } from '../components/sites/data/site.entity';
 import { MembershipEntity } from '../components/users/data/membership.entity';
 import { UserTokenEntity } from '../components/users/data/user-token.entity';
 import { UserEntity } from '../components/users/data/user.entity';
+import { HydrozoneEntity } from '../components/hydrozones/data/hydrozone.entity';
+import { RateScheduleEntity } from '../components/rates/data/rate-schedule.entity';
+import { DailyWeatherEntity } from '../components/weather/data/daily-weather.entity';
+import { MonthlyWeatherNormalEntity } from '../components/weather/data/monthly-weather-normal.entity';
+import { WeatherStationEntity } from '../components/weather/data/weather-station.entity';
 
 /** Every entity, listed once (explicit imports, so bundled builds need no file globbing). */
 export const ENTITIES = [
@@ -17,4 +22,9 @@ export const ENTITIES = [
   SiteTagEntity,
   SiteShareEntity,
   AuditEntryEntity,
+  WeatherStationEntity,
+  DailyWeatherEntity,
+  MonthlyWeatherNormalEntity,
+  HydrozoneEntity,
+  RateScheduleEntity,
 ];

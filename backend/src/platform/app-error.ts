@@ -11,6 +11,7 @@ const STATUS: Record<ApiErrorCode, number> = {
   rate_limited: 429,
   internal_error: 500,
   database_unavailable: 503,
+  upstream_unavailable: 502,
 };
 
 /** The one error type the domain throws; the central handler turns it into the API's JSON error shape. */

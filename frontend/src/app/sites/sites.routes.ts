@@ -18,4 +18,19 @@ export const sitesRoutes: Routes = [
     title: 'Site · Rillmark',
     loadComponent: () => import('./site-form/site-form').then((m) => m.SiteForm),
   },
+  {
+    path: ':id/hydrozones',
+    title: 'Hydrozones · Rillmark',
+    loadComponent: () => import('../hydrozones/hydrozone-list/hydrozone-list').then((m) => m.HydrozoneList),
+  },
+  {
+    path: ':id/budget',
+    title: 'Water budget · Rillmark',
+    loadComponent: () => import('../budgets/site-budget/site-budget').then((m) => m.SiteBudget),
+  },
+  {
+    path: ':id/rates',
+    title: 'Water rates · Rillmark',
+    loadComponent: () => import('../rates/rate-schedule-list/rate-schedule-list').then((m) => m.RateScheduleList),
+  },
 ];

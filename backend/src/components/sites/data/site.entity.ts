@@ -3,6 +3,7 @@ import {
 } from 'typeorm';
 import type { SiteKind } from '@shared/sites/site';
 import { OrganisationEntity } from '../../organisations/data/organisation.entity';
+import { WeatherStationEntity } from '../../weather/data/weather-station.entity';
 import { SiteShareEntity } from './site-share.entity';
 import { SiteTagEntity } from './site-tag.entity';
 
@@ -33,6 +34,14 @@ export class SiteEntity {
 
   @Column({ type: 'text' })
   notes!: string;
+
+  /** The station whose weather drives the site's budget; several sites may share one. */
+  @Column({ type: 'int', unsigned: true, name: 'weather_station_id', nullable: true })
+  weatherStationId!: number | null;
+
+  @ManyToOne(() => WeatherStationEntity, { onDelete: 'SET NULL' })
+  @JoinColumn({ name: 'weather_station_id', foreignKeyConstraintName: 'fk_site_weather_station' })
+  weatherStation?: WeatherStationEntity;
 
   @OneToMany(() => SiteTagEntity, (t) => t.site, { cascade: true })
   tags?: SiteTagEntity[];
