@@ -5,7 +5,7 @@
 set -euo pipefail
 . "$(dirname "$0")/../lib/env.sh"
 
-ensure_debian_packages mariadb-server mariadb-client
+ensure_debian_packages mariadb-server mariadb-client tzdata
 
 DATA="$RILLMARK_DB_DIR/data"
 SOCK="$RILLMARK_DB_DIR/mariadb.sock"
@@ -49,4 +49,11 @@ ALTER USER '$RILLMARK_DB_USER'@'localhost' IDENTIFIED BY '$RILLMARK_DB_PASSWORD'
 GRANT ALL PRIVILEGES ON \`${RILLMARK_DB_NAME}%\`.* TO '$RILLMARK_DB_USER'@'127.0.0.1', '$RILLMARK_DB_USER'@'localhost';
 FLUSH PRIVILEGES;
 SQL
+# Time-zone tables, so SQL can group readings by each site's local day (CONVERT_TZ with IANA names).
+zones=$(mariadb --no-defaults --protocol=socket --socket="$SOCK" -uroot -N -e "SELECT COUNT(*) FROM mysql.time_zone_name")
+if [ "$zones" = "0" ]; then
+  log "loading time-zone tables from /usr/share/zoneinfo"
+  mariadb-tzinfo-to-sql /usr/share/zoneinfo 2>/dev/null | mariadb --no-defaults --protocol=socket --socket="$SOCK" -uroot mysql \
+    || die "could not load the time-zone tables"
+fi
 log "MariaDB ready: database $RILLMARK_DB_NAME (and ${RILLMARK_DB_NAME}_test), user $RILLMARK_DB_USER"
