@@ -17,6 +17,7 @@ import { sitesRouter } from './components/sites/api/sites-router';
 import { SitesRepository } from './components/sites/data/sites-repository';
 import { SitesService } from './components/sites/domain/sites-service';
 import { usersRouter } from './components/users/api/users-router';
+import { MailQueue } from './components/mail/domain/mail-queue';
 import { budgetsRouter } from './components/budgets/api/budgets-router';
 import { BudgetsService } from './components/budgets/domain/budgets-service';
 import { hydrozonesRouter } from './components/hydrozones/api/hydrozones-router';
@@ -55,6 +56,8 @@ export interface App {
   app: Express;
   /** Closes what the app opened (session store, its pool); the caller owns `db` and `mailer`. */
   close(): Promise<void>;
+  /** What the scheduled jobs need. */
+  mailQueue: MailQueue;
 }
 
 /** The composition root: builds repositories, services and routers over one DataSource. */
@@ -73,7 +76,8 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   const audit = new AuditRepository(db);
   const usersRepository = new UsersRepository(db);
   const auth = new AuthService(db, usersRepository, audit);
-  const users = new UsersService(db, usersRepository, audit, mailer, config);
+  const mailQueue = new MailQueue(db, mailer);
+  const users = new UsersService(db, usersRepository, audit, mailQueue, config);
   const sites = new SitesService(db, new SitesRepository(db), audit);
   const organisationSettings = new OrganisationSettingsService(db, new OrganisationsRepository(db), audit);
   const hydrozones = new HydrozonesService(db, new HydrozonesRepository(db), sites, audit);
@@ -139,6 +143,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
 
   return {
     app,
+    mailQueue,
     async close() {
       clearInterval(pruneTimer);
       await session.close();

@@ -34,6 +34,7 @@ const schema = z.object({
   RILLMARK_INVITE_HOURS: z.coerce.number().positive().default(72),
   RILLMARK_WEATHER_FEED_URL: z.string().url().default('http://127.0.0.1:2590'),
   RILLMARK_WEATHER_FEED_TIMEOUT_MS: z.coerce.number().int().min(100).max(120_000).default(10_000),
+  RILLMARK_JOBS_ENABLED: bool.default(true),
   RILLMARK_LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
 });
 
@@ -47,6 +48,8 @@ export interface Config {
   signIn: { maxAttempts: number; windowMs: number };
   mail: { host: string; port: number; from: string; fakeServerHttpPort: number; devOutbox: boolean };
   inviteTtlMs: number;
+  /** Scheduled jobs (mail delivery, nightly checks) run in this instance; tests switch them off. */
+  jobs: { enabled: boolean };
   weather: { feedUrl: string; feedTimeoutMs: number };
   logLevel: Env['RILLMARK_LOG_LEVEL'];
 }
@@ -89,6 +92,7 @@ export function loadConfig(source: Record<string, string | undefined> = process.
       devOutbox: e.RILLMARK_DEV_OUTBOX,
     },
     inviteTtlMs: e.RILLMARK_INVITE_HOURS * 3_600_000,
+    jobs: { enabled: e.RILLMARK_JOBS_ENABLED },
     weather: { feedUrl: e.RILLMARK_WEATHER_FEED_URL.replace(/\/$/, ''), feedTimeoutMs: e.RILLMARK_WEATHER_FEED_TIMEOUT_MS },
     logLevel: e.RILLMARK_LOG_LEVEL,
   };

@@ -4,6 +4,7 @@ import { createApp } from './app';
 import type { Config } from './config';
 import { connectWithRetry } from './db/connect';
 import { createDataSource } from './db/data-source';
+import { startScheduler } from './jobs/scheduler';
 import { createSmtpMailer, type Mailer } from './platform/mail/mailer';
 
 export interface RunningServer {
@@ -17,7 +18,11 @@ export async function startServer(config: Config, options: { mailer?: Mailer; db
   const db = createDataSource(config.db);
   await connectWithRetry(db, { attempts: options.dbAttempts ?? 30 });
   const mailer = options.mailer ?? createSmtpMailer(config.mail);
-  const { app, close } = createApp({ config, db, mailer });
+  const { app, close, mailQueue } = createApp({ config, db, mailer });
+  const scheduler = config.jobs.enabled
+    ? startScheduler([{ name: 'mail-delivery', cron: '* * * * *', run: () => mailQueue.deliverDue() }])
+    : null;
+  if (config.jobs.enabled) mailQueue.kick();
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(config.http.port, config.http.host, () => resolve(s));
   });
@@ -30,6 +35,7 @@ export async function startServer(config: Config, options: { mailer?: Mailer; db
         server.close(() => resolve());
         server.closeAllConnections();
       });
+      await scheduler?.stop();
       await close();
       mailer.close();
       await db.destroy();

@@ -10,6 +10,7 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
     RILLMARK_PORT: '0',
     RILLMARK_LOG_LEVEL: 'warn',
     RILLMARK_SIGNIN_MAX_ATTEMPTS: '5',
+    RILLMARK_JOBS_ENABLED: 'false',
     ...overrides,
   });
 }

@@ -6,6 +6,8 @@ import { SiteEntity } from '../components/sites/data/site.entity';
 import { MembershipEntity } from '../components/users/data/membership.entity';
 import { UserTokenEntity } from '../components/users/data/user-token.entity';
 import { UserEntity } from '../components/users/data/user.entity';
+import { MailMessageEntity } from '../components/mail/data/mail-message.entity';
+import { JobLeaseEntity } from '../jobs/job-lease.entity';
 import { HydrozoneEntity } from '../components/hydrozones/data/hydrozone.entity';
 import { RateScheduleEntity } from '../components/rates/data/rate-schedule.entity';
 import { DailyWeatherEntity } from '../components/weather/data/daily-weather.entity';
@@ -22,6 +24,8 @@ export const ENTITIES = [
   SiteTagEntity,
   SiteShareEntity,
   AuditEntryEntity,
+  MailMessageEntity,
+  JobLeaseEntity,
   WeatherStationEntity,
   DailyWeatherEntity,
   MonthlyWeatherNormalEntity,

@@ -7,6 +7,8 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html?: string;
+  /** A stable Message-ID, so a message sent twice after a crash is recognisably the same one. */
+  messageId?: string;
 }
 
 export interface Mailer {

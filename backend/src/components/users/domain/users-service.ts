@@ -5,7 +5,7 @@ import type { InviteInput, OrgUserDto } from '@shared/users/user';
 import type { Config } from '../../../config';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
-import type { Mailer } from '../../../platform/mail/mailer';
+import type { MailQueue } from '../../mail/domain/mail-queue';
 import type { AuditRepository } from '../../audit/data/audit-repository';
 import type { OrgUserQuery, UsersRepository } from '../data/users-repository';
 import { invitationMail, passwordResetMail } from './account-mails';
@@ -17,7 +17,7 @@ export class UsersService {
     private readonly db: DataSource,
     private readonly users: UsersRepository,
     private readonly audit: AuditRepository,
-    private readonly mailer: Mailer,
+    private readonly mailQueue: MailQueue,
     private readonly config: Pick<Config, 'http' | 'inviteTtlMs'>,
   ) {}
 
@@ -33,6 +33,7 @@ export class UsersService {
       if (already) throw new AppError('conflict', `${input.email} is already a member of this organisation.`, [{ field: 'email', message: 'is already a member' }]);
     }
     const { token, hash } = newOneTimeToken();
+    const link = `${this.config.http.publicUrl}/accept-invite?token=${token}`;
     const userId = await this.db.transaction(async (em) => {
       const id = existing?.id ?? (await this.users.createUser(em, { email: input.email, displayName: input.displayName, status: 'invited', passwordHash: null }));
       await this.users.addMembership(em, id, principal.organisationId, input.role);
@@ -40,10 +41,11 @@ export class UsersService {
         await this.users.createToken(em, id, 'invite', hash, new Date(Date.now() + this.config.inviteTtlMs));
       }
       await this.audit.record(em, { userId: principal.userId, organisationId: principal.organisationId, entity: 'user', entityId: id, action: 'invite', changes: { email: input.email, role: input.role } });
+      const mail = invitationMail({ to: input.email, displayName: input.displayName, invitedBy: principal.displayName, organisation: orgName, role: input.role, link, existingAccount: !!existing && existing.status !== 'invited', publicUrl: this.config.http.publicUrl });
+      await this.mailQueue.enqueue(em, mail, `invite:${principal.organisationId}:${hash}`);
       return id;
     });
-    const link = `${this.config.http.publicUrl}/accept-invite?token=${token}`;
-    await this.mailer.send(invitationMail({ to: input.email, displayName: input.displayName, invitedBy: principal.displayName, organisation: orgName, role: input.role, link, existingAccount: !!existing && existing.status !== 'invited', publicUrl: this.config.http.publicUrl }));
+    this.mailQueue.kick();
     return (await this.users.findOrgUser(principal.organisationId, userId))!;
   }
 
@@ -70,11 +72,13 @@ export class UsersService {
     if (!member) throw AppError.notFound('User');
     if (member.status !== 'active') throw AppError.invalid('status', `a ${member.status} user cannot reset a password`);
     const { token, hash } = newOneTimeToken();
+    const link = `${this.config.http.publicUrl}/reset-password?token=${token}`;
     await this.db.transaction(async (em) => {
       await this.users.createToken(em, userId, 'reset', hash, new Date(Date.now() + this.config.inviteTtlMs));
       await this.audit.record(em, { userId: principal.userId, organisationId: principal.organisationId, entity: 'user', entityId: userId, action: 'password-reset-sent' });
+      const mail = passwordResetMail({ to: member.email, displayName: member.displayName, requestedBy: principal.displayName, link, publicUrl: this.config.http.publicUrl });
+      await this.mailQueue.enqueue(em, mail, `reset:${hash}`);
     });
-    const link = `${this.config.http.publicUrl}/reset-password?token=${token}`;
-    await this.mailer.send(passwordResetMail({ to: member.email, displayName: member.displayName, requestedBy: principal.displayName, link, publicUrl: this.config.http.publicUrl }));
+    this.mailQueue.kick();
   }
 }
