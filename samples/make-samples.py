@@ -21,7 +21,7 @@ for meter,bias in (('HOA-NORTH-01',0),('HOA-NORTH-02',5)):
     for h in hours: lines.append(f'{meter},2026-11-01 {h:02d}:00,{gal(1,h)+bias:.2f}')
 w('meters/interval-long-hourly.csv','\n'.join(lines)+'\n')
 
-# 2. wide 24 (America/Denver), fall-back day folded into Hr 02
+# 2. wide 24 (America/Los_Angeles, Tannery Point), fall-back day folded into Hr 02
 hdr=['Meter','Read Date','Units']+[f'Hr {i:02d}' for i in range(1,25)]
 lines=[','.join(hdr)]
 for d in ('2026-10-31','2026-11-01','2026-11-02'):
@@ -81,7 +81,7 @@ for h in range(6):
     lines.append(f'OFFICE-PARK-02,{s:.6f}'.rstrip('0').rstrip('.')+f',{gal(9,h):.2f}')
 w('meters/interval-long-serial-dates.csv','\n'.join(lines)+'\n')
 
-# 14. spring-forward day in America/Denver: no 02:00 row exists
+# 14. spring-forward day in America/Los_Angeles (Tannery Point): no 02:00 row exists
 lines=['Meter #,Interval Start,Usage (Gal)']
 for h in (0,1,3,4,5): lines.append(f'OFFICE-PARK-01,2026-03-08 {h:02d}:00,{gal(8,h):.2f}')
 w('meters/interval-long-spring-forward.csv','\n'.join(lines)+'\n')

@@ -17,6 +17,7 @@ import { sitesRouter } from './components/sites/api/sites-router';
 import { SitesRepository } from './components/sites/data/sites-repository';
 import { SitesService } from './components/sites/domain/sites-service';
 import { usersRouter } from './components/users/api/users-router';
+import { createIngest } from './components/uploads/ingest-module';
 import { MailQueue } from './components/mail/domain/mail-queue';
 import { budgetsRouter } from './components/budgets/api/budgets-router';
 import { BudgetsService } from './components/budgets/domain/budgets-service';
@@ -79,6 +80,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   const mailQueue = new MailQueue(db, mailer);
   const users = new UsersService(db, usersRepository, audit, mailQueue, config);
   const sites = new SitesService(db, new SitesRepository(db), audit);
+  const ingest = createIngest({ db, config, sites, auth, audit });
   const organisationSettings = new OrganisationSettingsService(db, new OrganisationsRepository(db), audit);
   const hydrozones = new HydrozonesService(db, new HydrozonesRepository(db), sites, audit);
   const weatherRepository = new WeatherRepository(db);
@@ -124,6 +126,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   api.use(passport.session());
   api.use(csrf.protect, csrf.toAppError);
   api.use('/auth', authRouter({ auth, passport, csrf, rateLimitStore, config }));
+  api.use(ingest.apiKeyAuth);
   api.use(requireSignedIn);
   api.use('/sites', sitesRouter(sites));
   api.use('/sites/:id/hydrozones', hydrozonesRouter(hydrozones));
@@ -134,6 +137,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   api.use('/organisation', organisationRouter(organisationSettings));
   api.use('/users', usersRouter(users));
   api.use('/audit', auditRouter(audit));
+  api.use(ingest.router);
   if (config.mail.devOutbox) api.use('/dev/outbox', outboxRouter(config));
   api.use(notFoundHandler);
   app.use('/api', api);

@@ -35,6 +35,8 @@ const schema = z.object({
   RILLMARK_WEATHER_FEED_URL: z.string().url().default('http://127.0.0.1:2590'),
   RILLMARK_WEATHER_FEED_TIMEOUT_MS: z.coerce.number().int().min(100).max(120_000).default(10_000),
   RILLMARK_JOBS_ENABLED: bool.default(true),
+  RILLMARK_UPLOAD_MAX_MB: z.coerce.number().positive().max(10_000).default(200),
+  RILLMARK_UPLOAD_DIR: z.string().default('.data/uploads'),
   RILLMARK_LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
 });
 
@@ -48,9 +50,11 @@ export interface Config {
   signIn: { maxAttempts: number; windowMs: number };
   mail: { host: string; port: number; from: string; fakeServerHttpPort: number; devOutbox: boolean };
   inviteTtlMs: number;
+  weather: { feedUrl: string; feedTimeoutMs: number };
   /** Scheduled jobs (mail delivery, nightly checks) run in this instance; tests switch them off. */
   jobs: { enabled: boolean };
-  weather: { feedUrl: string; feedTimeoutMs: number };
+  /** Uploads: the size limit and where original files are kept. */
+  uploads: { maxBytes: number; dir: string };
   logLevel: Env['RILLMARK_LOG_LEVEL'];
 }
 
@@ -92,8 +96,9 @@ export function loadConfig(source: Record<string, string | undefined> = process.
       devOutbox: e.RILLMARK_DEV_OUTBOX,
     },
     inviteTtlMs: e.RILLMARK_INVITE_HOURS * 3_600_000,
-    jobs: { enabled: e.RILLMARK_JOBS_ENABLED },
     weather: { feedUrl: e.RILLMARK_WEATHER_FEED_URL.replace(/\/$/, ''), feedTimeoutMs: e.RILLMARK_WEATHER_FEED_TIMEOUT_MS },
+    jobs: { enabled: e.RILLMARK_JOBS_ENABLED },
+    uploads: { maxBytes: Math.round(e.RILLMARK_UPLOAD_MAX_MB * 1024 * 1024), dir: e.RILLMARK_UPLOAD_DIR },
     logLevel: e.RILLMARK_LOG_LEVEL,
   };
 }

@@ -4,6 +4,7 @@ import { createDataSource } from '../../backend/src/db/data-source';
 import { logger } from '../../backend/src/platform/logger';
 import { seedBudgets } from './seed-budgets';
 import { seedDemo } from './seed-demo';
+import { seedMeters } from './seed-meters';
 
 /** `npm run seed`: writes the demo scenario into the configured database (idempotent). */
 const db = createDataSource(loadConfig().db);
@@ -12,4 +13,6 @@ const counts = await seedDemo(db);
 logger.info(`demo scenario seeded: ${counts.organisations} organisations, ${counts.users} users, ${counts.sites} sites`);
 const budgets = await seedBudgets(db);
 logger.info(`demo budgets seeded: ${budgets.stations} weather stations, ${budgets.days} days of weather, ${budgets.hydrozones} hydrozones`);
+const water = await seedMeters(db, loadConfig());
+logger.info(`demo meters seeded: ${water.meters} meters; ${water.uploads} new uploads with ${water.readings} readings and runs`);
 await db.destroy();

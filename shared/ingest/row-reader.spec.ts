@@ -100,20 +100,20 @@ describe('sample contents, in detail', () => {
     expect(records.map((r) => r.startUtc.slice(11, 16))).toEqual(['07:00', '08:00', '09:00', '10:00', '11:00', '12:00']);
   });
 
-  it('interval-long-serial-dates: 46335 is 2026-11-09 local midnight in Denver', () => {
+  it('interval-long-serial-dates: 46335 is 2026-11-09 local midnight at Tannery Point (Los Angeles)', () => {
     const records = interpret('meters/interval-long-serial-dates.csv').result!.records as IntervalRecord[];
-    expect(records.map((r) => r.startUtc)).toEqual([0, 1, 2, 3, 4, 5].map((h) => new Date(Date.UTC(2026, 10, 9, 7 + h)).toISOString()));
+    expect(records.map((r) => r.startUtc)).toEqual([0, 1, 2, 3, 4, 5].map((h) => new Date(Date.UTC(2026, 10, 9, 8 + h)).toISOString()));
   });
 
-  it('interval-long-spring-forward: 01:00 MST then 03:00 MDT are one hour apart', () => {
+  it('interval-long-spring-forward: 01:00 PST then 03:00 PDT are one hour apart', () => {
     const records = interpret('meters/interval-long-spring-forward.csv').result!.records as IntervalRecord[];
-    expect(records.slice(1, 3).map((r) => r.startUtc)).toEqual(['2026-03-08T08:00:00.000Z', '2026-03-08T09:00:00.000Z']);
+    expect(records.slice(1, 3).map((r) => r.startUtc)).toEqual(['2026-03-08T09:00:00.000Z', '2026-03-08T10:00:00.000Z']);
   });
 
-  it('interval-wide-24 (Denver, fall-back day): one 120-minute record holds the doubled Hr 02 value', () => {
+  it('interval-wide-24 (Los Angeles, fall-back day): one 120-minute record holds the doubled Hr 02 value', () => {
     const records = interpret('meters/interval-wide-24.csv').result!.records as IntervalRecord[];
     expect(records.filter((r) => r.minutes !== 60)).toEqual([
-      { meterRef: 'OFFICE-PARK-01', startUtc: '2026-11-01T07:00:00.000Z', minutes: 120, volume: 181, unit: 'gal' },
+      { meterRef: 'OFFICE-PARK-01', startUtc: '2026-11-01T08:00:00.000Z', minutes: 120, volume: 181, unit: 'gal' },
     ]);
   });
 

@@ -78,6 +78,11 @@ export class Client {
     return this.agent.put(path).set('x-xsrf-token', this.csrf).send(body);
   }
 
+  /** A POST for `.field()`/`.attach()` multipart bodies, with the CSRF header. */
+  multipart(path: string) {
+    return this.agent.post(path).set('x-xsrf-token', this.csrf);
+  }
+
   delete(path: string) {
     return this.agent.delete(path).set('x-xsrf-token', this.csrf);
   }

@@ -8,12 +8,26 @@ import { UserTokenEntity } from '../components/users/data/user-token.entity';
 import { UserEntity } from '../components/users/data/user.entity';
 import { MailMessageEntity } from '../components/mail/data/mail-message.entity';
 import { JobLeaseEntity } from '../jobs/job-lease.entity';
+import { SiteDailyUseEntity } from '../components/readings/data/site-daily-use.entity';
 import { HydrozoneEntity } from '../components/hydrozones/data/hydrozone.entity';
 import { RateScheduleEntity } from '../components/rates/data/rate-schedule.entity';
 import { DailyWeatherEntity } from '../components/weather/data/daily-weather.entity';
 import { MonthlyWeatherNormalEntity } from '../components/weather/data/monthly-weather-normal.entity';
 import { WeatherStationEntity } from '../components/weather/data/weather-station.entity';
 
+import { ApiKeySiteEntity } from '../components/api-keys/data/api-key-site.entity';
+import { ApiKeyEntity } from '../components/api-keys/data/api-key.entity';
+import { ControllerEntity } from '../components/meters/data/controller.entity';
+import { MeterReadingEntity } from '../components/meters/data/meter-reading.entity';
+import { MeterRegisterPeriodEntity } from '../components/meters/data/meter-register-period.entity';
+import { MeterRegisterReadEntity } from '../components/meters/data/meter-register-read.entity';
+import { MeterEntity } from '../components/meters/data/meter.entity';
+import { RuntimeEventEntity } from '../components/meters/data/runtime-event.entity';
+import { ZoneEntity } from '../components/meters/data/zone.entity';
+import { ImportProfileEntity } from '../components/uploads/data/import-profile.entity';
+import { UploadRejectionEntity } from '../components/uploads/data/upload-rejection.entity';
+import { UploadReplacementEntity } from '../components/uploads/data/upload-replacement.entity';
+import { UploadEntity } from '../components/uploads/data/upload.entity';
 /** Every entity, listed once (explicit imports, so bundled builds need no file globbing). */
 export const ENTITIES = [
   OrganisationEntity,
@@ -26,9 +40,24 @@ export const ENTITIES = [
   AuditEntryEntity,
   MailMessageEntity,
   JobLeaseEntity,
+  SiteDailyUseEntity,
   WeatherStationEntity,
   DailyWeatherEntity,
   MonthlyWeatherNormalEntity,
   HydrozoneEntity,
   RateScheduleEntity,
+  // Ingest (meters, controllers, uploads, API keys)
+  MeterEntity,
+  MeterRegisterPeriodEntity,
+  MeterReadingEntity,
+  MeterRegisterReadEntity,
+  ControllerEntity,
+  ZoneEntity,
+  RuntimeEventEntity,
+  UploadEntity,
+  UploadRejectionEntity,
+  UploadReplacementEntity,
+  ImportProfileEntity,
+  ApiKeyEntity,
+  ApiKeySiteEntity,
 ];

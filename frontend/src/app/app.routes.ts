@@ -27,6 +27,7 @@ export const routes: Routes = [
     children: [
       { path: '', pathMatch: 'full', redirectTo: 'sites' },
       { path: 'sites', loadChildren: () => import('./sites/sites.routes').then((m) => m.sitesRoutes) },
+      { path: 'uploads', loadChildren: () => import('./uploads/uploads.routes').then((m) => m.uploadsRoutes) },
       { path: 'weather-stations', loadChildren: () => import('./weather/weather.routes').then((m) => m.weatherRoutes) },
       {
         path: 'admin/users',

@@ -56,7 +56,7 @@ export class Shell {
 
   protected readonly links = computed<NavLink[]>(() => {
     const can = this.auth.capabilities();
-    const links: NavLink[] = [{ path: '/sites', label: 'Sites', icon: 'yard' }, { path: '/weather-stations', label: 'Weather', icon: 'partly_cloudy_day' }];
+    const links: NavLink[] = [{ path: '/sites', label: 'Sites', icon: 'yard' }, { path: '/weather-stations', label: 'Weather', icon: 'partly_cloudy_day' }, { path: '/uploads', label: 'Uploads', icon: 'upload_file' }];
     if (can.manageUsers) links.push({ path: '/admin/users', label: 'Users', icon: 'group' });
     if (can.viewOutbox) links.push({ path: '/admin/outbox', label: 'Outbox', icon: 'outgoing_mail' });
     return links;

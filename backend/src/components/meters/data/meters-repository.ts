@@ -1,0 +1,125 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { ControllerDto, MeterDto, MeterInput, ZoneDto, ZoneInput } from '@shared/meters/meter';
+import { ControllerEntity } from './controller.entity';
+import { MeterRegisterPeriodEntity } from './meter-register-period.entity';
+import { MeterEntity } from './meter.entity';
+import { ZoneEntity } from './zone.entity';
+
+const iso = (d: Date | null) => (d ? d.toISOString() : null);
+const date = (s: string | null) => (s ? new Date(s) : null);
+
+/** Meters, their earlier registers, controllers and zones of one site; returns plain DTOs. */
+export class MetersRepository {
+  constructor(private readonly db: DataSource) {}
+
+  async meters(siteId: number): Promise<MeterDto[]> {
+    const rows = await this.db.getRepository(MeterEntity).find({ where: { siteId }, order: { ref: 'ASC' } });
+    if (rows.length === 0) return [];
+    const periods = await this.db
+      .getRepository(MeterRegisterPeriodEntity)
+      .createQueryBuilder('p')
+      .where('p.meter_id IN (:...ids)', { ids: rows.map((r) => r.id) })
+      .orderBy('p.installed_at', 'ASC')
+      .getMany();
+    return rows.map((m) => ({
+      id: m.id,
+      siteId: m.siteId,
+      ref: m.ref,
+      unit: m.unit,
+      registerMultiplier: m.registerMultiplier,
+      registerDigits: m.registerDigits,
+      purpose: m.purpose,
+      waterSource: m.waterSource,
+      installedAt: iso(m.installedAt),
+      removedAt: iso(m.removedAt),
+      previousRegisters: periods
+        .filter((p) => p.meterId === m.id)
+        .map((p) => ({ installedAt: p.installedAt.toISOString(), removedAt: p.removedAt.toISOString(), multiplier: p.multiplier, digits: p.digits })),
+    }));
+  }
+
+  async meterSite(meterId: number): Promise<number | null> {
+    return (await this.db.getRepository(MeterEntity).findOneBy({ id: meterId }))?.siteId ?? null;
+  }
+
+  async refTaken(table: 'meter' | 'controller', siteId: number, ref: string, exceptId?: number): Promise<boolean> {
+    const repo = table === 'meter' ? this.db.getRepository(MeterEntity) : this.db.getRepository(ControllerEntity);
+    const found = await repo.findOneBy({ siteId, ref });
+    return !!found && found.id !== exceptId;
+  }
+
+  async insertMeter(em: EntityManager, siteId: number, input: MeterInput): Promise<number> {
+    const { previousRegisters, installedAt, removedAt, ...fields } = input;
+    const id = Number((await em.getRepository(MeterEntity).insert({ ...fields, siteId, installedAt: date(installedAt), removedAt: date(removedAt) })).identifiers[0]!['id']);
+    await this.replacePeriods(em, id, previousRegisters);
+    return id;
+  }
+
+  async updateMeter(em: EntityManager, meterId: number, patch: Partial<MeterInput>): Promise<void> {
+    const { previousRegisters, installedAt, removedAt, ...fields } = patch;
+    const update: Partial<MeterEntity> = { ...fields };
+    if (installedAt !== undefined) update.installedAt = date(installedAt);
+    if (removedAt !== undefined) update.removedAt = date(removedAt);
+    if (Object.keys(update).length) await em.getRepository(MeterEntity).update({ id: meterId }, update);
+    if (previousRegisters) await this.replacePeriods(em, meterId, previousRegisters);
+  }
+
+  async meterHasReadings(meterId: number): Promise<boolean> {
+    const [row] = await this.db.query('SELECT EXISTS(SELECT 1 FROM meter_reading WHERE meter_id = ?) AS r1, EXISTS(SELECT 1 FROM meter_register_read WHERE meter_id = ?) AS r2', [meterId, meterId]);
+    return Number(row.r1) === 1 || Number(row.r2) === 1;
+  }
+
+  async deleteMeter(em: EntityManager, meterId: number): Promise<void> {
+    await em.getRepository(MeterEntity).delete({ id: meterId });
+  }
+
+  private async replacePeriods(em: EntityManager, meterId: number, periods: MeterInput['previousRegisters']): Promise<void> {
+    await em.getRepository(MeterRegisterPeriodEntity).delete({ meterId });
+    if (periods.length) {
+      await em.getRepository(MeterRegisterPeriodEntity).insert(
+        periods.map((p) => ({ meterId, installedAt: new Date(p.installedAt), removedAt: new Date(p.removedAt), multiplier: p.multiplier, digits: p.digits })),
+      );
+    }
+  }
+
+  async controllers(siteId: number): Promise<ControllerDto[]> {
+    const controllers = await this.db.getRepository(ControllerEntity).find({ where: { siteId }, order: { ref: 'ASC' } });
+    if (controllers.length === 0) return [];
+    const zones = await this.db
+      .getRepository(ZoneEntity)
+      .createQueryBuilder('z')
+      .where('z.controller_id IN (:...ids)', { ids: controllers.map((c) => c.id) })
+      .orderBy('z.station', 'ASC')
+      .getMany();
+    return controllers.map((c) => ({ id: c.id, siteId: c.siteId, ref: c.ref, name: c.name, zones: zones.filter((z) => z.controllerId === c.id).map(toZoneDto) }));
+  }
+
+  async controllerSite(controllerId: number): Promise<number | null> {
+    return (await this.db.getRepository(ControllerEntity).findOneBy({ id: controllerId }))?.siteId ?? null;
+  }
+
+  async insertController(em: EntityManager, siteId: number, ref: string, name: string): Promise<number> {
+    return Number((await em.getRepository(ControllerEntity).insert({ siteId, ref, name })).identifiers[0]!['id']);
+  }
+
+  async stationTaken(controllerId: number, station: string): Promise<boolean> {
+    return !!(await this.db.getRepository(ZoneEntity).findOneBy({ controllerId, station }));
+  }
+
+  async insertZone(em: EntityManager, controllerId: number, input: ZoneInput): Promise<number> {
+    return Number((await em.getRepository(ZoneEntity).insert({ ...input, controllerId })).identifiers[0]!['id']);
+  }
+}
+
+function toZoneDto(z: ZoneEntity): ZoneDto {
+  return {
+    id: z.id,
+    controllerId: z.controllerId,
+    station: z.station,
+    name: z.name,
+    hydrozoneId: z.hydrozoneId,
+    designGpm: z.designGpm,
+    emitterCount: z.emitterCount,
+    emitterGph: z.emitterGph,
+  };
+}

@@ -1,0 +1,110 @@
+import type { DataSource, EntityManager } from 'typeorm';
+
+export interface DailyUse {
+  localDate: string;
+  gallons: number;
+  coveredMinutes: number;
+  readingCount: number;
+}
+
+export interface MonthlyUse {
+  siteId: number;
+  month: string;
+  gallons: number;
+  coveredMinutes: number;
+  days: number;
+}
+
+const DAY_MS = 86_400_000;
+
+/**
+ * The `site_daily_use` rollup. Local days come from MariaDB's time-zone tables (loaded by
+ * ops/db/start.sh), so a day in Los Angeles is 23, 24 or 25 hours as the calendar says.
+ */
+export class DailyUseRepository {
+  constructor(private readonly db: DataSource) {}
+
+  /**
+   * Recomputes the rollup for one site over the local days touched by [fromUtc, toUtc]. Call it in the
+   * same transaction as the change to the readings (import, replacement, roll back).
+   */
+  async refresh(em: EntityManager, siteId: number, fromUtc: Date, toUtc: Date): Promise<void> {
+    const [site]: { timeZone: string }[] = await em.query('SELECT time_zone AS timeZone FROM site WHERE id = ?', [siteId]);
+    if (!site) return;
+    const [bounds]: { first: string | null; last: string | null }[] = await em.query(
+      `SELECT DATE(CONVERT_TZ(?, '+00:00', ?)) AS first, DATE(CONVERT_TZ(?, '+00:00', ?)) AS last`,
+      [fromUtc, site.timeZone, toUtc, site.timeZone],
+    );
+    if (!bounds?.first || !bounds.last) throw new Error(`MariaDB cannot convert to time zone ${site.timeZone}; load the time-zone tables (bash ops/db/start.sh)`);
+    const first = dateOnly(bounds.first);
+    const last = dateOnly(bounds.last);
+    await em.query('DELETE FROM site_daily_use WHERE site_id = ? AND local_date BETWEEN ? AND ?', [siteId, first, last]);
+    // A UTC window one day wider on each side holds every reading of those local days; HAVING trims it.
+    await em.query(
+      `INSERT INTO site_daily_use (site_id, local_date, gallons, covered_minutes, reading_count)
+       SELECT m.site_id, DATE(CONVERT_TZ(r.start_utc, '+00:00', ?)) AS d, SUM(r.volume_gal), SUM(r.minutes), COUNT(*)
+       FROM meter_reading r JOIN meter m ON m.id = r.meter_id
+       WHERE m.site_id = ? AND r.start_utc >= ? AND r.start_utc < ?
+       GROUP BY m.site_id, d
+       HAVING d BETWEEN ? AND ?`,
+      [site.timeZone, siteId, new Date(fromUtc.getTime() - DAY_MS), new Date(toUtc.getTime() + DAY_MS), first, last],
+    );
+  }
+
+  /** The time span of the readings one upload stored (null when it stored none). */
+  async uploadSpan(em: EntityManager, uploadId: number): Promise<{ from: Date; to: Date } | null> {
+    const [span]: { first: Date | null; last: Date | null }[] = await em.query(
+      'SELECT MIN(start_utc) AS first, MAX(start_utc) AS last FROM meter_reading WHERE upload_id = ?',
+      [uploadId],
+    );
+    return span?.first && span.last ? { from: new Date(span.first), to: new Date(span.last) } : null;
+  }
+
+  /** Rebuilds a whole site's rollup (seeding, repairs). */
+  async rebuildSite(em: EntityManager, siteId: number): Promise<void> {
+    const [range]: { first: Date | null; last: Date | null }[] = await em.query(
+      'SELECT MIN(r.start_utc) AS first, MAX(r.start_utc) AS last FROM meter_reading r JOIN meter m ON m.id = r.meter_id WHERE m.site_id = ?',
+      [siteId],
+    );
+    await em.query('DELETE FROM site_daily_use WHERE site_id = ?', [siteId]);
+    if (range?.first && range.last) await this.refresh(em, siteId, new Date(range.first), new Date(range.last));
+  }
+
+  async daily(siteId: number, fromDate: string, toDate: string): Promise<DailyUse[]> {
+    const rows: Record<string, unknown>[] = await this.db.query(
+      `SELECT local_date AS localDate, gallons, covered_minutes AS coveredMinutes, reading_count AS readingCount
+       FROM site_daily_use WHERE site_id = ? AND local_date BETWEEN ? AND ? ORDER BY local_date`,
+      [siteId, fromDate, toDate],
+    );
+    return rows.map((r) => ({
+      localDate: dateOnly(r['localDate'] as string | Date),
+      gallons: Number(r['gallons']),
+      coveredMinutes: Number(r['coveredMinutes']),
+      readingCount: Number(r['readingCount']),
+    }));
+  }
+
+  /** Metered use per site per calendar month (YYYY-MM) between two local dates. */
+  async monthly(siteIds: number[], fromDate: string, toDate: string): Promise<MonthlyUse[]> {
+    if (!siteIds.length) return [];
+    const rows: Record<string, unknown>[] = await this.db.query(
+      `SELECT site_id AS siteId, DATE_FORMAT(local_date, '%Y-%m') AS month, SUM(gallons) AS gallons,
+              SUM(covered_minutes) AS coveredMinutes, COUNT(*) AS days
+       FROM site_daily_use WHERE site_id IN (?) AND local_date BETWEEN ? AND ?
+       GROUP BY site_id, month ORDER BY site_id, month`,
+      [siteIds, fromDate, toDate],
+    );
+    return rows.map((r) => ({
+      siteId: Number(r['siteId']),
+      month: String(r['month']),
+      gallons: Number(r['gallons']),
+      coveredMinutes: Number(r['coveredMinutes']),
+      days: Number(r['days']),
+    }));
+  }
+}
+
+/** `YYYY-MM-DD` from a DATE column (mysql2 may hand back a Date at UTC midnight or a string). */
+function dateOnly(value: string | Date): string {
+  return value instanceof Date ? value.toISOString().slice(0, 10) : String(value).slice(0, 10);
+}

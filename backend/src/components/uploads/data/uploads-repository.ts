@@ -1,0 +1,174 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { ColumnMapping, UploadKind } from '@shared/ingest/upload-kind';
+import type { ImportProfileDto, RejectionDto, UploadCounts, UploadDto, UploadStatus } from '@shared/uploads/upload';
+import { ImportProfileEntity } from './import-profile.entity';
+import { ALL_TARGETS } from './ingest-targets';
+import { affected } from './ingest-writer';
+import { UploadRejectionEntity } from './upload-rejection.entity';
+import { UploadEntity } from './upload.entity';
+
+export interface UploadRecord extends Omit<UploadDto, 'progressRows'> {
+  organisationId: number;
+}
+
+export interface NewUpload {
+  siteId: number;
+  fileName: string;
+  uploadedBy: number | null;
+  apiKeyId: number | null;
+  clientRef: string | null;
+  options: object;
+}
+
+export interface FinishedUpload extends UploadCounts {
+  status: UploadStatus;
+  kind: UploadKind | null;
+  sizeBytes: number;
+  sha256: string | null;
+  storageKey: string | null;
+  mapping: ColumnMapping | null;
+  errorSummary: string | null;
+}
+
+const SELECT = `SELECT u.*, s.organisation_id AS org_id, us.display_name AS by_name, k.name AS key_name
+  FROM upload u JOIN site s ON s.id = u.site_id LEFT JOIN user us ON us.id = u.uploaded_by LEFT JOIN api_key k ON k.id = u.api_key_id`;
+
+/** Upload rows, their rejections and the organisation's import profiles. */
+export class UploadsRepository {
+  constructor(private readonly db: DataSource) {}
+
+  async create(u: NewUpload): Promise<number> {
+    const result = await this.db.getRepository(UploadEntity).insert({
+      siteId: u.siteId,
+      fileName: u.fileName.slice(0, 255),
+      uploadedBy: u.uploadedBy,
+      apiKeyId: u.apiKeyId,
+      clientRef: u.clientRef,
+      options: JSON.stringify(u.options),
+      status: 'processing',
+    });
+    return Number(result.identifiers[0]!['id']);
+  }
+
+  async finish(em: EntityManager | DataSource, id: number, f: FinishedUpload): Promise<void> {
+    await em.getRepository(UploadEntity).update(
+      { id },
+      {
+        status: f.status,
+        kind: f.kind,
+        sizeBytes: String(f.sizeBytes),
+        sha256: f.sha256,
+        storageKey: f.storageKey,
+        mapping: f.mapping ? JSON.stringify(f.mapping) : null,
+        errorSummary: f.errorSummary ? f.errorSummary.slice(0, 5000) : null,
+        rowsRead: f.rowsRead,
+        accepted: f.accepted,
+        duplicate: f.duplicate,
+        conflicting: f.conflicting,
+        replaced: f.replaced,
+        rejected: f.rejected,
+        finishedAt: new Date(),
+      },
+    );
+  }
+
+  async remove(id: number): Promise<void> {
+    await this.db.getRepository(UploadEntity).delete({ id });
+  }
+
+  /** The done upload of the same bytes to the same site, if any (what makes a re-upload a no-op). */
+  async findDoneBySha(siteId: number, sha256: string, exceptId: number): Promise<number | null> {
+    const [row] = await this.db.query(`SELECT id FROM upload WHERE site_id = ? AND sha256 = ? AND status = 'done' AND id <> ? ORDER BY id LIMIT 1`, [siteId, sha256, exceptId]);
+    return row ? Number(row.id) : null;
+  }
+
+  async get(id: number): Promise<UploadRecord | null> {
+    const [row] = await this.db.query(`${SELECT} WHERE u.id = ?`, [id]);
+    return row ? toRecord(row) : null;
+  }
+
+  async list(siteId: number, f: { page: number; pageSize: number; clientRef?: string }): Promise<{ items: UploadRecord[]; total: number }> {
+    const where = f.clientRef ? 'u.site_id = ? AND u.client_ref = ?' : 'u.site_id = ?';
+    const params = f.clientRef ? [siteId, f.clientRef] : [siteId];
+    const [count] = await this.db.query(`SELECT COUNT(*) AS n FROM upload u WHERE ${where}`, params);
+    const rows = await this.db.query(`${SELECT} WHERE ${where} ORDER BY u.id DESC LIMIT ? OFFSET ?`, [...params, f.pageSize, f.page * f.pageSize]);
+    return { items: rows.map(toRecord), total: Number(count.n) };
+  }
+
+  async insertRejections(em: EntityManager | DataSource, uploadId: number, rows: RejectionDto[]): Promise<void> {
+    for (let i = 0; i < rows.length; i += 1000) {
+      await em.getRepository(UploadRejectionEntity).insert(
+        rows.slice(i, i + 1000).map((r) => ({ uploadId, rowNo: r.row, columnNo: r.column, kind: r.kind, message: r.message.slice(0, 500) })),
+      );
+    }
+  }
+
+  async rejections(uploadId: number, page: { offset: number; limit: number }): Promise<{ items: RejectionDto[]; total: number }> {
+    const [count] = await this.db.query('SELECT COUNT(*) AS n FROM upload_rejection WHERE upload_id = ?', [uploadId]);
+    const rows = await this.db.query('SELECT row_no, column_no, kind, message FROM upload_rejection WHERE upload_id = ? ORDER BY row_no, id LIMIT ? OFFSET ?', [uploadId, page.limit, page.offset]);
+    return {
+      items: rows.map((r: Record<string, unknown>) => ({ row: Number(r['row_no']), column: r['column_no'] === null ? null : Number(r['column_no']), kind: r['kind'], message: r['message'] })),
+      total: Number(count.n),
+    };
+  }
+
+  /** Deletes exactly what the upload wrote and puts back what it replaced. Runs in the caller's transaction. */
+  async rollBack(em: EntityManager, uploadId: number): Promise<number> {
+    let removed = 0;
+    for (const t of ALL_TARGETS) removed += affected(await em.query(`DELETE FROM \`${t.table}\` WHERE upload_id = ?`, [uploadId]));
+    for (const t of ALL_TARGETS) {
+      const columns = [...t.key, ...t.copied, 'upload_id'];
+      const values = columns.map((c) => `JSON_VALUE(previous_row, '$.${c}')`).join(', ');
+      await em.query(
+        `INSERT IGNORE INTO \`${t.table}\` (${columns.map((c) => `\`${c}\``).join(', ')}) SELECT ${values} FROM upload_replacement WHERE upload_id = ? AND target_table = ?`,
+        [uploadId, t.table],
+      );
+    }
+    await em.getRepository(UploadEntity).update({ id: uploadId }, { status: 'rolled-back' });
+    return removed;
+  }
+
+  async profiles(organisationId: number): Promise<ImportProfileDto[]> {
+    const rows = await this.db.getRepository(ImportProfileEntity).find({ where: { organisationId }, order: { name: 'ASC' } });
+    return rows.map((p) => ({ id: p.id, name: p.name, kind: p.kind, mapping: JSON.parse(p.mapping), createdAt: p.createdAt.toISOString() }));
+  }
+
+  async profileNameTaken(organisationId: number, name: string): Promise<boolean> {
+    return !!(await this.db.getRepository(ImportProfileEntity).findOneBy({ organisationId, name }));
+  }
+
+  async insertProfile(em: EntityManager, organisationId: number, createdBy: number, name: string, mapping: ColumnMapping): Promise<number> {
+    const result = await em.getRepository(ImportProfileEntity).insert({ organisationId, createdBy, name, kind: mapping.kind, mapping: JSON.stringify(mapping) });
+    return Number(result.identifiers[0]!['id']);
+  }
+
+  async deleteProfile(em: EntityManager, organisationId: number, id: number): Promise<boolean> {
+    return ((await em.getRepository(ImportProfileEntity).delete({ organisationId, id })).affected ?? 0) > 0;
+  }
+}
+
+function toRecord(r: Record<string, unknown>): UploadRecord {
+  const date = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
+  return {
+    id: Number(r['id']),
+    siteId: Number(r['site_id']),
+    organisationId: Number(r['org_id']),
+    kind: (r['kind'] as UploadKind | null) ?? null,
+    fileName: String(r['file_name']),
+    sizeBytes: Number(r['size_bytes']),
+    sha256: (r['sha256'] as string | null) ?? null,
+    status: r['status'] as UploadStatus,
+    errorSummary: (r['error_summary'] as string | null) ?? null,
+    mapping: r['mapping'] ? JSON.parse(String(r['mapping'])) : null,
+    uploadedBy: (r['by_name'] as string | null) ?? null,
+    viaApiKey: (r['key_name'] as string | null) ?? null,
+    createdAt: date(r['created_at'])!,
+    finishedAt: date(r['finished_at']),
+    rowsRead: Number(r['rows_read']),
+    accepted: Number(r['accepted']),
+    duplicate: Number(r['duplicate']),
+    conflicting: Number(r['conflicting']),
+    replaced: Number(r['replaced']),
+    rejected: Number(r['rejected']),
+  };
+}

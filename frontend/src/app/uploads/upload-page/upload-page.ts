@@ -1,0 +1,223 @@
+import { HttpErrorResponse, HttpEventType } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatRadioModule } from '@angular/material/radio';
+import { MatSelectModule } from '@angular/material/select';
+import type { IngestRecord } from '@shared/ingest/ingest-records';
+import { validateMapping } from '@shared/ingest/mapping-validation';
+import { interpretRows, type Interpretation } from '@shared/ingest/row-reader';
+import type { ColumnMapping } from '@shared/ingest/upload-kind';
+import type { SiteDto } from '@shared/sites/site';
+import { VOLUME_UNIT_LABELS } from '@shared/units/volume-units';
+import type { ImportProfileDto, RejectionDto, RowErrorPolicy, UploadDto, UploadResult } from '@shared/uploads/upload';
+import { Subscription, interval } from 'rxjs';
+import { confirm } from '../../shared/confirm-dialog/confirm-dialog';
+import { SitesApi } from '../../sites/sites-api';
+import { ColumnMappingEditor } from '../column-mapping-editor/column-mapping-editor';
+import { RejectionTable } from '../rejection-table/rejection-table';
+import { UploadHistory } from '../upload-history/upload-history';
+import { UploadsApi } from '../uploads-api';
+import { newClientRef, previewFile, type FilePreview } from './file-preview';
+
+type Phase = 'idle' | 'sending' | 'processing' | 'finished' | 'failed';
+
+/** Drop a CSV, check how it will be read, send it, and see what came of it; earlier uploads below. */
+@Component({
+  selector: 'rm-upload-page',
+  imports: [FormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatRadioModule, MatSelectModule, ColumnMappingEditor, RejectionTable, UploadHistory],
+  templateUrl: './upload-page.html',
+  styleUrl: './upload-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class UploadPage {
+  private readonly api = inject(UploadsApi);
+  private readonly sitesApi = inject(SitesApi);
+  private readonly dialog = inject(MatDialog);
+  private polling?: Subscription;
+
+  protected readonly sites = signal<SiteDto[]>([]);
+  protected readonly siteId = signal<number | null>(null);
+  protected readonly site = computed(() => this.sites().find((s) => s.id === this.siteId()) ?? null);
+  protected readonly canUpload = computed(() => !!this.site() && this.site()!.access !== 'read');
+  protected readonly meterRefs = signal<string[]>([]);
+  protected readonly profiles = signal<ImportProfileDto[]>([]);
+  protected readonly history = signal<UploadDto[]>([]);
+
+  protected readonly file = signal<File | null>(null);
+  protected readonly preview = signal<FilePreview | null>(null);
+  protected readonly mapping = signal<ColumnMapping | null>(null);
+  protected readonly interpretation = computed<Interpretation | null>(() => {
+    const preview = this.preview();
+    const site = this.site();
+    if (!preview?.ok || !site) return null;
+    const mapping = this.mapping();
+    return interpretRows(preview.rows, { timeZone: site.timeZone, now: Date.now(), delimiter: preview.delimiter, mapping: mapping ?? undefined });
+  });
+  protected readonly problems = computed(() => {
+    const i = this.interpretation();
+    if (!i) return [];
+    const mapping = this.mapping();
+    return [...i.fileProblems, ...(mapping ? validateMapping(mapping).map((p) => p.message) : [])];
+  });
+  protected readonly sampleRecords = computed(() => (this.interpretation()?.records ?? []).slice(0, 8).map((r) => this.describe(r)));
+  protected readonly replaceConflicts = signal(false);
+  protected readonly rowErrors = signal<RowErrorPolicy>('keep-valid');
+  protected readonly profileName = signal('');
+
+  protected readonly phase = signal<Phase>('idle');
+  protected readonly sentPercent = signal(0);
+  protected readonly processedRows = signal(0);
+  protected readonly result = signal<UploadResult | null>(null);
+  protected readonly error = signal<string | null>(null);
+  protected readonly shown = signal<UploadDto | null>(null);
+  protected readonly rejections = signal<{ items: RejectionDto[]; total: number } | null>(null);
+  protected readonly dragging = signal(false);
+  protected readonly unitLabels = VOLUME_UNIT_LABELS;
+
+  constructor() {
+    this.sitesApi.list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }).subscribe((page) => {
+      this.sites.set(page.items);
+      if (page.items.length && this.siteId() === null) this.chooseSite(page.items[0]!.id);
+    });
+    this.api.profiles().subscribe((p) => this.profiles.set(p));
+    inject(DestroyRef).onDestroy(() => this.polling?.unsubscribe());
+  }
+
+  protected chooseSite(id: number): void {
+    this.siteId.set(id);
+    this.api.meters(id).subscribe((m) => this.meterRefs.set(m.map((x) => x.ref)));
+    this.refreshHistory();
+  }
+
+  protected dragOver(event: DragEvent): void {
+    event.preventDefault();
+    this.dragging.set(true);
+  }
+
+  protected drop(event: DragEvent): void {
+    event.preventDefault();
+    this.dragging.set(false);
+    const file = event.dataTransfer?.files?.[0];
+    if (file) void this.chooseFile(file);
+  }
+
+  protected pick(input: HTMLInputElement): void {
+    const file = input.files?.[0];
+    if (file) void this.chooseFile(file);
+    input.value = '';
+  }
+
+  async chooseFile(file: File): Promise<void> {
+    this.file.set(file);
+    this.result.set(null);
+    this.error.set(null);
+    this.rejections.set(null);
+    this.phase.set('idle');
+    this.mapping.set(null);
+    const preview = await previewFile(file);
+    this.preview.set(preview);
+    this.mapping.set(this.interpretation()?.mapping ?? null);
+  }
+
+  protected useProfile(profile: ImportProfileDto | null): void {
+    const preview = this.preview();
+    if (!profile || !preview?.ok) return;
+    this.mapping.set({ ...profile.mapping, header: preview.rows[0] ?? [] });
+  }
+
+  protected saveProfile(): void {
+    const mapping = this.mapping();
+    const name = this.profileName().trim();
+    if (!mapping || !name) return;
+    this.api.saveProfile(name, mapping).subscribe({
+      next: (p) => (this.profiles.update((list) => [...list, p]), this.profileName.set('')),
+      error: (e: HttpErrorResponse) => this.error.set(e.error?.error?.message ?? 'The profile could not be saved.'),
+    });
+  }
+
+  protected send(): void {
+    const file = this.file();
+    const siteId = this.siteId();
+    const mapping = this.mapping();
+    if (!file || siteId === null || !mapping) return;
+    const clientRef = newClientRef();
+    this.phase.set('sending');
+    this.sentPercent.set(0);
+    this.processedRows.set(0);
+    this.error.set(null);
+    const fields = { mapping: JSON.stringify(mapping), replaceConflicts: String(this.replaceConflicts()), rowErrors: this.rowErrors(), clientRef };
+    this.api.upload(siteId, file, fields).subscribe({
+      next: (event) => {
+        if (event.type === HttpEventType.UploadProgress) {
+          this.sentPercent.set(Math.round((100 * event.loaded) / (event.total ?? file.size)));
+          if (event.loaded >= (event.total ?? file.size)) this.startPolling(siteId, clientRef);
+        } else if (event.type === HttpEventType.Response && event.body) {
+          this.finish();
+          this.phase.set('finished');
+          this.result.set(event.body);
+          this.showUpload(event.body.upload);
+        }
+      },
+      error: (e: HttpErrorResponse) => {
+        this.finish();
+        this.phase.set('failed');
+        this.error.set(e.error?.error?.message ?? 'The upload did not reach the server.');
+        const details: Array<{ field: string; message: string }> = e.error?.error?.details ?? [];
+        if (details.length) this.error.update((m) => `${m} ${details.map((d) => `${d.field}: ${d.message}`).join('; ')}`);
+      },
+    });
+  }
+
+  protected showUpload(upload: UploadDto): void {
+    this.shown.set(upload);
+    this.api.rejections(upload.id).subscribe((r) => this.rejections.set(r));
+  }
+
+  protected async rollBack(upload: UploadDto): Promise<void> {
+    const ok = await confirm(this.dialog, {
+      title: `Roll back upload #${upload.id}?`,
+      message: `Removes the ${upload.accepted} readings or runs "${upload.fileName}" stored, and puts back any values it replaced.`,
+      confirmLabel: 'Roll back',
+      danger: true,
+    });
+    if (!ok) return;
+    this.api.rollBack(upload.id).subscribe({ next: () => this.refreshHistory(), error: (e: HttpErrorResponse) => this.error.set(e.error?.error?.message ?? 'Roll back failed.') });
+  }
+
+  protected csvUrl(id: number): string {
+    return this.api.rejectionsCsvUrl(id);
+  }
+
+  private startPolling(siteId: number, clientRef: string): void {
+    if (this.polling) return;
+    this.phase.set('processing');
+    this.polling = interval(700).subscribe(() =>
+      this.api.list(siteId, 0, clientRef).subscribe((page) => this.processedRows.set(page.items[0]?.progressRows ?? this.processedRows())),
+    );
+  }
+
+  private finish(): void {
+    this.polling?.unsubscribe();
+    this.polling = undefined;
+    this.refreshHistory();
+  }
+
+  private refreshHistory(): void {
+    const id = this.siteId();
+    if (id !== null) this.api.list(id).subscribe((page) => this.history.set(page.items));
+  }
+
+  private describe(r: IngestRecord): string {
+    const local = (iso: string) => new Date(iso).toLocaleString('en-CA', { timeZone: this.site()!.timeZone, hour12: false }).replace(',', '');
+    if ('controllerRef' in r) return `${r.controllerRef} station ${r.station} · ${local(r.startUtc)} · ${r.minutes} min · ${r.cause ?? 'cause not given'}`;
+    if ('atUtc' in r) return `${r.meterRef} · read at ${local(r.atUtc)} · register ${r.value} ${this.unitLabels[r.unit]}`;
+    return `${r.meterRef} · ${local(r.startUtc)} · ${r.minutes} min · ${r.volume} ${this.unitLabels[r.unit]}`;
+  }
+}
