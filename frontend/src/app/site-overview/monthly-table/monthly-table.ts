@@ -1,0 +1,99 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { MatTableModule } from '@angular/material/table';
+import type { MonthlyFlag, MonthlyRow } from '@shared/portfolio/portfolio-dto';
+import { formatVolume } from '@shared/units/format-quantity';
+
+const FLAG_LABELS: Record<MonthlyFlag, string> = {
+  'over-budget': 'Over budget',
+  'partial-data': 'Partial data',
+  'no-data': 'No data',
+  'no-budget': 'No budget',
+  'weather-filled': 'Weather from normals',
+};
+
+/** The site's months: use, budget, variance, percent, ETo, rain, cost and flags. Display only. */
+@Component({
+  selector: 'rm-monthly-table',
+  imports: [MatTableModule],
+  template: `
+    <div class="rm-table-scroll">
+      <table mat-table [dataSource]="rows()" aria-label="Monthly use against budget">
+        <ng-container matColumnDef="month">
+          <th mat-header-cell *matHeaderCellDef>Month</th>
+          <td mat-cell *matCellDef="let r">{{ r.month }}</td>
+        </ng-container>
+        <ng-container matColumnDef="use">
+          <th mat-header-cell *matHeaderCellDef class="num">Use (gal)</th>
+          <td mat-cell *matCellDef="let r" class="num" data-col="use">{{ gal(r.useGallons) }}</td>
+        </ng-container>
+        <ng-container matColumnDef="budget">
+          <th mat-header-cell *matHeaderCellDef class="num">Budget (gal)</th>
+          <td mat-cell *matCellDef="let r" class="num">{{ gal(r.budgetGallons) }}</td>
+        </ng-container>
+        <ng-container matColumnDef="variance">
+          <th mat-header-cell *matHeaderCellDef class="num">Variance (gal)</th>
+          <td mat-cell *matCellDef="let r" class="num" [class.over]="(r.varianceGallons ?? 0) > 0">{{ signed(r.varianceGallons) }}</td>
+        </ng-container>
+        <ng-container matColumnDef="percent">
+          <th mat-header-cell *matHeaderCellDef class="num">Of budget (%)</th>
+          <td mat-cell *matCellDef="let r" class="num">{{ r.percentOfBudget === null ? '—' : num(r.percentOfBudget, 0) }}</td>
+        </ng-container>
+        <ng-container matColumnDef="eto">
+          <th mat-header-cell *matHeaderCellDef class="num">ETo (mm)</th>
+          <td mat-cell *matCellDef="let r" class="num">{{ num(r.etoMm, 1) }}</td>
+        </ng-container>
+        <ng-container matColumnDef="rain">
+          <th mat-header-cell *matHeaderCellDef class="num">Rain (mm)</th>
+          <td mat-cell *matCellDef="let r" class="num">{{ num(r.rainMm, 1) }}</td>
+        </ng-container>
+        <ng-container matColumnDef="cost">
+          <th mat-header-cell *matHeaderCellDef class="num">Cost</th>
+          <td mat-cell *matCellDef="let r" class="num">{{ money(r.cost, r.currency) }}</td>
+        </ng-container>
+        <ng-container matColumnDef="flags">
+          <th mat-header-cell *matHeaderCellDef>Flags</th>
+          <td mat-cell *matCellDef="let r">
+            @for (f of r.flags; track f) {
+              <span class="flag" [class]="'flag flag-' + f">{{ flagLabels[f] }}</span>
+            }
+          </td>
+        </ng-container>
+        <tr mat-header-row *matHeaderRowDef="columns"></tr>
+        <tr mat-row *matRowDef="let r; columns: columns" [attr.data-month]="r.month"></tr>
+        <tr *matNoDataRow><td [attr.colspan]="columns.length"><div class="rm-state"><p>No months in this range.</p></div></td></tr>
+      </table>
+    </div>
+  `,
+  styles: `
+    table { width: 100%; }
+    td, th { white-space: nowrap; }
+    .num { text-align: right; font-variant-numeric: tabular-nums; }
+    .over { color: var(--rm-soil, #a4562a); font-weight: 600; }
+    .flag { display: inline-block; margin: 2px 4px 2px 0; padding: 0 8px; border-radius: 10px; font: var(--mat-sys-label-small); background: var(--mat-sys-surface-container-high); }
+    .flag-over-budget { background: var(--mat-sys-error-container); color: var(--mat-sys-on-error-container); }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class MonthlyTable {
+  readonly months = input.required<MonthlyRow[]>();
+  protected readonly rows = computed(() => [...this.months()].reverse());
+  protected readonly columns = ['month', 'use', 'budget', 'variance', 'percent', 'eto', 'rain', 'cost', 'flags'];
+  protected readonly flagLabels: Record<string, string> = FLAG_LABELS;
+
+  protected gal(v: number | null): string {
+    return v === null ? '—' : formatVolume(v, 'gal').replace(/ gal$/, '');
+  }
+
+  protected signed(v: number | null): string {
+    return v === null ? '—' : `${v > 0 ? '+' : ''}${this.gal(v)}`;
+  }
+
+  protected num(v: number | null, digits: number): string {
+    return v === null ? '—' : v.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  }
+
+  protected money(v: number | null, currency: string | null): string {
+    if (v === null) return '—';
+    return currency ? new Intl.NumberFormat('en-US', { style: 'currency', currency }).format(v) : v.toFixed(2);
+  }
+}
