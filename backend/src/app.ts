@@ -18,8 +18,11 @@ import { SitesRepository } from './components/sites/data/sites-repository';
 import { SitesService } from './components/sites/domain/sites-service';
 import { usersRouter } from './components/users/api/users-router';
 import { createIngest } from './components/uploads/ingest-module';
+import { createWatch, type Watch } from './components/watch/watch-module';
+import { createPortfolio } from './components/portfolio/portfolio-module';
 import { MailQueue } from './components/mail/domain/mail-queue';
 import { budgetsRouter } from './components/budgets/api/budgets-router';
+import { createReports } from './components/reports/reports-module';
 import { BudgetsService } from './components/budgets/domain/budgets-service';
 import { hydrozonesRouter } from './components/hydrozones/api/hydrozones-router';
 import { HydrozonesRepository } from './components/hydrozones/data/hydrozones-repository';
@@ -59,6 +62,8 @@ export interface App {
   close(): Promise<void>;
   /** What the scheduled jobs need. */
   mailQueue: MailQueue;
+  /** The nightly watch (its scheduled job and run function). */
+  watch: Watch;
 }
 
 /** The composition root: builds repositories, services and routers over one DataSource. */
@@ -88,6 +93,9 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   const dailyWeather = new DailyWeatherService(db, weatherRepository, weatherStations, new WeatherFeedClient(config.weather.feedUrl, config.weather.feedTimeoutMs), audit);
   const rateSchedules = new RateSchedulesService(db, new RateSchedulesRepository(db), sites, audit);
   const budgets = new BudgetsService(sites, hydrozones, weatherStations, dailyWeather, rateSchedules, organisationSettings);
+  const watch = createWatch({ db, config, sites, budgets, rates: rateSchedules, mailQueue, audit });
+  const reports = createReports({ db, sites, budgets, weatherStations, dailyWeather, rateSchedules, audit, mailQueue, publicUrl: config.http.publicUrl });
+  const dashboard = createPortfolio({ db, sites, budgets, rates: rateSchedules });
 
   const passport = createPassport(auth);
   const session = createSessionMiddleware(config, pool);
@@ -133,11 +141,15 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   api.use('/sites/:id/weather-station', siteWeatherStationRouter(weatherStations));
   api.use('/sites/:id/rate-schedules', rateSchedulesRouter(rateSchedules));
   api.use('/sites/:id', budgetsRouter(budgets));
+  api.use('/sites/:id', dashboard.siteDashboardRouter);
+  api.use('/portfolio', dashboard.portfolioRouter);
   api.use('/weather-stations', weatherStationsRouter(weatherStations, dailyWeather));
   api.use('/organisation', organisationRouter(organisationSettings));
   api.use('/users', usersRouter(users));
   api.use('/audit', auditRouter(audit));
+  api.use(reports.router);
   api.use(ingest.router);
+  api.use(watch.router);
   if (config.mail.devOutbox) api.use('/dev/outbox', outboxRouter(config));
   api.use(notFoundHandler);
   app.use('/api', api);
@@ -148,6 +160,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   return {
     app,
     mailQueue,
+    watch,
     async close() {
       clearInterval(pruneTimer);
       await session.close();

@@ -37,6 +37,9 @@ const schema = z.object({
   RILLMARK_JOBS_ENABLED: bool.default(true),
   RILLMARK_UPLOAD_MAX_MB: z.coerce.number().positive().max(10_000).default(200),
   RILLMARK_UPLOAD_DIR: z.string().default('.data/uploads'),
+  // The watch ticks hourly and checks each site once its local clock passes RILLMARK_WATCH_LOCAL_HOUR.
+  RILLMARK_WATCH_CRON: z.string().regex(/^\S+( \S+){4}$/, 'must be a five-field cron expression').default('15 * * * *'),
+  RILLMARK_WATCH_LOCAL_HOUR: z.coerce.number().int().min(0).max(23).default(4),
   RILLMARK_LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
 });
 
@@ -55,6 +58,8 @@ export interface Config {
   jobs: { enabled: boolean };
   /** Uploads: the size limit and where original files are kept. */
   uploads: { maxBytes: number; dir: string };
+  /** The nightly watch: the scheduler's tick and the local hour after which a site's night is checked. */
+  watch: { cron: string; localHour: number };
   logLevel: Env['RILLMARK_LOG_LEVEL'];
 }
 
@@ -99,6 +104,7 @@ export function loadConfig(source: Record<string, string | undefined> = process.
     weather: { feedUrl: e.RILLMARK_WEATHER_FEED_URL.replace(/\/$/, ''), feedTimeoutMs: e.RILLMARK_WEATHER_FEED_TIMEOUT_MS },
     jobs: { enabled: e.RILLMARK_JOBS_ENABLED },
     uploads: { maxBytes: Math.round(e.RILLMARK_UPLOAD_MAX_MB * 1024 * 1024), dir: e.RILLMARK_UPLOAD_DIR },
+    watch: { cron: e.RILLMARK_WATCH_CRON, localHour: e.RILLMARK_WATCH_LOCAL_HOUR },
     logLevel: e.RILLMARK_LOG_LEVEL,
   };
 }

@@ -18,9 +18,9 @@ export async function startServer(config: Config, options: { mailer?: Mailer; db
   const db = createDataSource(config.db);
   await connectWithRetry(db, { attempts: options.dbAttempts ?? 30 });
   const mailer = options.mailer ?? createSmtpMailer(config.mail);
-  const { app, close, mailQueue } = createApp({ config, db, mailer });
+  const { app, close, mailQueue, watch } = createApp({ config, db, mailer });
   const scheduler = config.jobs.enabled
-    ? startScheduler([{ name: 'mail-delivery', cron: '* * * * *', run: () => mailQueue.deliverDue() }])
+    ? startScheduler([{ name: 'mail-delivery', cron: '* * * * *', run: () => mailQueue.deliverDue() }, watch.job])
     : null;
   if (config.jobs.enabled) mailQueue.kick();
   const server: Server = await new Promise((resolve) => {

@@ -16,6 +16,18 @@ export interface DemoFlow {
   window: number[];
   /** A leak: continuous flow (gal/h) on every hour of these local dates, on top of normal use. */
   leak?: { from: string; to: string; gph: number };
+  /** Extra flow (gal/h) at these local hours of one date: a valve stuck open, or a zone left running. */
+  extra?: { date: string; hours: number[]; gph: number }[];
+  /** The register stopped: zero on every hour of these local dates (a broken or bypassed meter). */
+  broken?: { from: string; to: string };
+}
+
+/** A controller's program: stations run back to back from the window's first hour, covering the window. */
+export interface DemoProgram {
+  startHour: number;
+  minutesPerStation: number;
+  /** One night when one station ran far longer than its program (a runaway zone), matching a meter's `extra`. */
+  longRun?: { date: string; station: string; minutes: number };
 }
 
 const pad = (n: number) => String(n).padStart(2, '0');
@@ -40,6 +52,8 @@ export function meterCsv(flows: DemoFlow[]): string {
           let gallons = flow.baseGph * (0.6 + ((hour * 7 + day * 3) % 9) / 10);
           if (waters && flow.window.includes(hour)) gallons += flow.wateringGph * season(day) * (0.9 + ((day + hour) % 5) / 20);
           if (leaking) gallons += flow.leak!.gph;
+          for (const x of flow.extra ?? []) if (x.date === date && x.hours.includes(hour)) gallons += x.gph;
+          if (flow.broken && date >= flow.broken.from && date <= flow.broken.to) gallons = 0;
           lines.push(`${flow.meterRef},${date} ${pad(hour)}:00,${gallons.toFixed(2)}`);
         }
       }
@@ -49,21 +63,23 @@ export function meterCsv(flows: DemoFlow[]): string {
 }
 
 /** One runtime log (start + minutes + cause) for a controller's stations, matching the meters' watering nights. */
-export function runtimeCsv(controllerRef: string, stations: string[], startHour: number, gpm: number): string {
+export function runtimeCsv(controllerRef: string, stations: string[], program: DemoProgram, gpm: number): string {
   const lines = ['Controller,Station,Start Time,Run Time (min),Cause,Flow (gal)'];
   for (let day = 0; day < DAYS; day++) {
     const date = dateOf(day);
     const waters = day % 3 !== 1;
-    let minute = startHour * 60;
-    stations.forEach((station, i) => {
+    let minute = program.startHour * 60;
+    stations.forEach((station) => {
       const start = `${date} ${pad(Math.floor(minute / 60) % 24)}:${pad(minute % 60)}`;
       if (!waters) {
         lines.push(`${controllerRef},${station},${start},0,${day % 2 ? 'Rain Skip' : 'Wind skip'},`);
         minute += 1;
         return;
       }
-      const runMinutes = Math.max(4, Math.round((12 + i * 3) * season(day)));
-      lines.push(`${controllerRef},${station},${start},${runMinutes},Scheduled,${(runMinutes * gpm).toFixed(1)}`);
+      const long = program.longRun && program.longRun.date === date && program.longRun.station === station;
+      const runMinutes = long ? program.longRun!.minutes : program.minutesPerStation;
+      // The controller's own flow sensor reads what the meter sees: design flow scaled like the meters' season.
+      lines.push(`${controllerRef},${station},${start},${runMinutes},Scheduled,${(runMinutes * gpm * season(day)).toFixed(1)}`);
       minute += runMinutes;
     });
   }

@@ -19,7 +19,7 @@ import type { Config } from '../../backend/src/config';
 import type { WaterSource } from '@shared/meters/meter';
 import type { VolumeUnit } from '@shared/units/volume-units';
 import { DEMO_ORGANISATIONS, DEMO_USERS } from './demo-scenario';
-import { meterCsv, runtimeCsv, type DemoFlow } from './demo-readings';
+import { meterCsv, runtimeCsv, type DemoFlow, type DemoProgram } from './demo-readings';
 
 interface CatalogueMeter {
   ref: string;
@@ -33,15 +33,22 @@ const catalogue = JSON.parse(readFileSync(resolve(import.meta.dirname, '../../sa
 };
 
 /** Which demo site holds which sample meters and controllers, and how its invented water use looks. */
-const PLACEMENTS: Array<{ demoSite: string; waterSource: WaterSource; stations: string[]; gpm: number; flows: DemoFlow[] }> = [
+/**
+ * Each site's meters water exactly while its controller runs (stations back to back over the window, at about
+ * the zones' design flow), so the nightly watch finds only the invented events: a stuck valve at North Commons,
+ * a zone left running at Tannery Point, a stopped meter at North Commons, and the leak at Juniper Hollow.
+ */
+const PLACEMENTS: Array<{ demoSite: string; waterSource: WaterSource; stations: string[]; gpm: number; program: DemoProgram; flows: DemoFlow[] }> = [
   {
     demoSite: 'Willowmere HOA — North Commons',
     waterSource: 'recycled',
     stations: ['1', '2', '3', '4'],
     gpm: 9.5,
+    program: { startHour: 22, minutesPerStation: 60 },
     flows: [
-      { meterRef: 'HOA-NORTH-01', wateringGph: 420, baseGph: 3, window: [22, 23, 0, 1, 2] },
-      { meterRef: 'HOA-NORTH-02', wateringGph: 260, baseGph: 2, window: [22, 23, 0, 1] },
+      { meterRef: 'HOA-NORTH-01', wateringGph: 330, baseGph: 3, window: [22, 23, 0, 1], broken: { from: '2026-11-26', to: '2026-11-28' } },
+      // A valve that stuck open after the program ended, one night in November.
+      { meterRef: 'HOA-NORTH-02', wateringGph: 240, baseGph: 2, window: [22, 23, 0, 1], extra: [{ date: '2026-11-21', hours: [2, 3, 4, 5], gph: 420 }], broken: { from: '2026-11-26', to: '2026-11-28' } },
     ],
   },
   {
@@ -49,9 +56,11 @@ const PLACEMENTS: Array<{ demoSite: string; waterSource: WaterSource; stations: 
     waterSource: 'recycled',
     stations: ['1', '2', '3', '4'],
     gpm: 6,
+    // Station 4 ran 165 minutes instead of 45 one morning (a controller fault).
+    program: { startHour: 3, minutesPerStation: 45, longRun: { date: '2026-11-17', station: '4', minutes: 165 } },
     flows: [
-      { meterRef: 'OFFICE-PARK-01', wateringGph: 300, baseGph: 4, window: [3, 4, 5] },
-      { meterRef: 'OFFICE-PARK-02', wateringGph: 180, baseGph: 1, window: [4, 5] },
+      { meterRef: 'OFFICE-PARK-01', wateringGph: 220, baseGph: 4, window: [3, 4, 5], extra: [{ date: '2026-11-17', hours: [6, 7], gph: 220 }] },
+      { meterRef: 'OFFICE-PARK-02', wateringGph: 140, baseGph: 1, window: [3, 4, 5], extra: [{ date: '2026-11-17', hours: [6, 7], gph: 140 }] },
     ],
   },
   {
@@ -59,15 +68,15 @@ const PLACEMENTS: Array<{ demoSite: string; waterSource: WaterSource; stations: 
     waterSource: 'recycled',
     stations: ['A1', 'A2', 'A3', 'B1'],
     gpm: 12,
+    program: { startHour: 21, minutesPerStation: 60 },
     flows: [
       // The leak the dashboards should find: water running all day and night for five days in November.
-      { meterRef: 'SCHOOL-01', wateringGph: 520, baseGph: 2, window: [21, 22, 23, 0, 1, 2], leak: { from: '2026-11-10', to: '2026-11-14', gph: 38 } },
-      { meterRef: 'SCHOOL-02', wateringGph: 240, baseGph: 2, window: [21, 22, 23] },
+      { meterRef: 'SCHOOL-01', wateringGph: 480, baseGph: 2, window: [21, 22, 23, 0], leak: { from: '2026-11-10', to: '2026-11-14', gph: 38 } },
+      { meterRef: 'SCHOOL-02', wateringGph: 240, baseGph: 2, window: [21, 22, 23, 0] },
     ],
   },
 ];
 
-const CONTROLLER_START_HOUR: Record<string, number> = { 'CTL-HOA-NORTH-A': 21, 'CTL-OFFICE-A': 2, 'CTL-SCHOOL-A': 21 };
 
 /**
  * Puts the sample meters and controllers on three demo sites, then brings in ~3 months of invented hourly readings
@@ -115,7 +124,7 @@ export async function seedMeters(db: DataSource, config: Config): Promise<{ mete
         p.stations.map((station, i) => ({ controllerId: controller.id, station, name: `Station ${station}`, hydrozoneId: null, designGpm: p.gpm, emitterCount: i % 2 ? 180 : null, emitterGph: i % 2 ? 1 : null })),
         ['controllerId', 'station'],
       );
-      work.push({ siteId: site.id, name: `${ref.toLowerCase()}-runtime-2026-09-to-11.csv`, csv: runtimeCsv(ref, p.stations, CONTROLLER_START_HOUR[ref] ?? 21, p.gpm) });
+      work.push({ siteId: site.id, name: `${ref.toLowerCase()}-runtime-2026-09-to-11.csv`, csv: runtimeCsv(ref, p.stations, p.program, p.gpm) });
     }
     work.unshift({ siteId: site.id, name: `${p.demoSite.split(' ')[0]!.toLowerCase()}-hourly-2026-09-to-11.csv`, csv: meterCsv(p.flows) });
   }

@@ -43,6 +43,9 @@ describe('demo site budget in the browser', () => {
       await page.getByLabel('E-mail address').fill('morgan.manager@cobaltridge.example');
       await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
       await page.getByRole('button', { name: 'Sign in' }).click();
+      // Home is the portfolio; this test starts from the sites list.
+      await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
+      await page.goto(`${server.url}/sites`);
       await page.getByRole('link', { name: 'Willowmere HOA — North Commons' }).click();
       await page.getByRole('link', { name: 'Water budget' }).click();
       const table = page.getByRole('table', { name: 'Monthly budget' });

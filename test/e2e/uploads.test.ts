@@ -53,6 +53,9 @@ describe('upload page', () => {
       await page.getByLabel('E-mail address').fill(manager.email);
       await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
       await page.getByRole('button', { name: 'Sign in' }).click();
+      // Home after sign-in is the portfolio; this test is about the sites list.
+      await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
+      await page.goto(`${server.url}/sites`);
       await page.getByRole('heading', { name: 'Sites', level: 1 }).waitFor();
 
       await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Uploads' }).click();

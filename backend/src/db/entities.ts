@@ -1,3 +1,9 @@
+import { AlertEntity } from '../components/alerts/data/alert.entity';
+import { AlertEventEntity } from '../components/alerts/data/alert-event.entity';
+import { UserNotificationEntity } from '../components/alerts/data/user-notification.entity';
+import { WatchRunEntity } from '../components/watch/data/watch-run.entity';
+import { WatchSiteStateEntity } from '../components/watch/data/watch-site-state.entity';
+import { SiteWatchSettingsEntity } from '../components/watch/data/site-watch-settings.entity';
 import { AuditEntryEntity } from '../components/audit/data/audit-entry.entity';
 import { OrganisationEntity } from '../components/organisations/data/organisation.entity';
 import { SiteShareEntity } from '../components/sites/data/site-share.entity';
@@ -28,6 +34,8 @@ import { ImportProfileEntity } from '../components/uploads/data/import-profile.e
 import { UploadRejectionEntity } from '../components/uploads/data/upload-rejection.entity';
 import { UploadReplacementEntity } from '../components/uploads/data/upload-replacement.entity';
 import { UploadEntity } from '../components/uploads/data/upload.entity';
+import { SavingsProjectEntity } from '../components/savings/data/savings-project.entity';
+import { ComplianceNoticeEntity } from '../components/reports/data/compliance-notice.entity';
 /** Every entity, listed once (explicit imports, so bundled builds need no file globbing). */
 export const ENTITIES = [
   OrganisationEntity,
@@ -60,4 +68,14 @@ export const ENTITIES = [
   ImportProfileEntity,
   ApiKeyEntity,
   ApiKeySiteEntity,
+  // Reports (savings projects, compliance notices)
+  SavingsProjectEntity,
+  ComplianceNoticeEntity,
+  // Nightly watch (alerts, runs, settings, notification preferences)
+  AlertEntity,
+  AlertEventEntity,
+  UserNotificationEntity,
+  WatchRunEntity,
+  WatchSiteStateEntity,
+  SiteWatchSettingsEntity,
 ];

@@ -25,10 +25,14 @@ export const routes: Routes = [
     canActivate: [signedInGuard],
     loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
     children: [
-      { path: '', pathMatch: 'full', redirectTo: 'sites' },
+      { path: '', pathMatch: 'full', redirectTo: 'portfolio' },
+      { path: 'portfolio', title: 'Portfolio · Rillmark', loadComponent: () => import('./portfolio/portfolio-page/portfolio-page').then((m) => m.PortfolioPage) },
+      { path: 'sites/:id/overview', loadChildren: () => import('./site-overview/site-overview.routes').then((m) => m.siteOverviewRoutes) },
       { path: 'sites', loadChildren: () => import('./sites/sites.routes').then((m) => m.sitesRoutes) },
       { path: 'uploads', loadChildren: () => import('./uploads/uploads.routes').then((m) => m.uploadsRoutes) },
+      { path: 'alerts', loadChildren: () => import('./alerts/alerts.routes').then((m) => m.alertsRoutes) },
       { path: 'weather-stations', loadChildren: () => import('./weather/weather.routes').then((m) => m.weatherRoutes) },
+      { path: 'reports', loadChildren: () => import('./reports/reports.routes').then((m) => m.reportsRoutes) },
       {
         path: 'admin/users',
         title: 'Users · Rillmark',

@@ -63,7 +63,7 @@ describe('SignIn', () => {
     expect(navigate).toHaveBeenCalledWith('/sites/42');
   });
 
-  it('when the return address points off-site, then goes to the sites list instead', async () => {
+  it('when the return address points off-site, then goes to the portfolio (home) instead', async () => {
     const { auth, navigate, field, submit } = await setUp('//elsewhere.example/phish');
     auth.signIn.mockResolvedValue({ id: 1 });
     await (await (await field('E-mail address')).getControl(MatInputHarness))!.setValue('pat@example.test');
@@ -71,7 +71,7 @@ describe('SignIn', () => {
 
     await submit();
 
-    expect(navigate).toHaveBeenCalledWith('/sites');
+    expect(navigate).toHaveBeenCalledWith('/portfolio');
   });
 
   it('when the server answers 401, then shows that the credentials are wrong and clears the password', async () => {

@@ -12,7 +12,7 @@ import { LogoMark } from '../core/shell/logo-mark';
 
 /** Only same-app paths, so a crafted link cannot bounce the user to another site after sign-in. */
 function safeReturnUrl(url: string | undefined): string {
-  return url && url.startsWith('/') && !url.startsWith('//') && !url.startsWith('/sign-in') ? url : '/sites';
+  return url && url.startsWith('/') && !url.startsWith('//') && !url.startsWith('/sign-in') ? url : '/portfolio';
 }
 
 @Component({

@@ -14,7 +14,7 @@ export const signedInGuard: CanActivateFn = async (_route, state) => {
 export const signedOutGuard: CanActivateFn = async () => {
   const router = inject(Router);
   const user = await inject(AuthStore).ensureLoaded().catch(() => null);
-  return user ? router.createUrlTree(['/sites']) : true;
+  return user ? router.createUrlTree(['/portfolio']) : true;
 };
 
 /** Hides pages a role may not use; the server refuses the requests regardless. */
