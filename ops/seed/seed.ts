@@ -5,7 +5,6 @@ import { logger } from '../../backend/src/platform/logger';
 import { seedBudgets } from './seed-budgets';
 import { seedDemo } from './seed-demo';
 import { seedMeters } from './seed-meters';
-import { seedDashboard } from './seed-dashboard';
 import { seedSavings } from './seed-savings';
 import { seedAlerts } from './seed-alerts';
 
@@ -20,8 +19,6 @@ const water = await seedMeters(db, loadConfig());
 logger.info(`demo meters seeded: ${water.meters} meters; ${water.uploads} new uploads with ${water.readings} readings and runs`);
 const savings = await seedSavings(db);
 logger.info(`demo savings seeded: ${savings.readings} daily readings, ${savings.projects} new savings projects`);
-const rollups = await seedDashboard(db);
-logger.info(`dashboard rollups: ${rollups.rebuilt} sites' daily use rebuilt`);
 // Last: the watch reads everything seeded above.
 const watched = await seedAlerts(db, loadConfig());
 logger.info(`demo watch run: ${watched.alerts} alerts (${Object.entries(watched.byKind).map(([k, n]) => `${k} ${n}`).join(', ')}); ${watched.mails} e-mails queued`);
