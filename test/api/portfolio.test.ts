@@ -191,3 +191,24 @@ describe('open alerts', () => {
     expect(overview.figures.openAlerts).toBe(1);
   });
 });
+
+describe('cached monthly budgets follow their inputs', () => {
+  // The site's monthly table reads the same cache as the portfolio (the portfolio also memoises its sums for
+  // a few seconds, so it would lag by that much).
+  it('when a hydrozone is added, changed or removed after a month was cached, then the next read shows the new budget', async () => {
+    const site = await createSite(app.db, owner.org.id, { name: `Cache ${suffix()}` });
+    const stationId = await stationForSite(manager, site.id);
+    await manager.postText(`/api/weather-stations/${stationId}/daily?format=eto-rain`, etoRainCsv('2025-06-01', 30, () => [5.08, 0])).expect(200);
+    const budgetOf = async () => {
+      const res = await manager.get(`/api/sites/${site.id}/monthly?from=2025-06&to=2025-06`).expect(200);
+      return res.body.months[0].budgetGallons as number | null;
+    };
+    expect(await budgetOf()).toBeNull(); // no hydrozones yet: cached as "no budget"
+    const zone = await manager.post(`/api/sites/${site.id}/hydrozones`, { name: 'Shrubs', area: 1000, areaUnit: 'ft2', plantFactor: 0.5, irrigationMethod: 'drip' }).expect(201);
+    expect(await budgetOf()).toBeCloseTo(BUDGET, 0);
+    await manager.patch(`/api/sites/${site.id}/hydrozones/${zone.body.id}`, { area: 2000 }).expect(200);
+    expect(await budgetOf()).toBeCloseTo(2 * BUDGET, 0);
+    await manager.delete(`/api/sites/${site.id}/hydrozones/${zone.body.id}`).expect(204);
+    expect(await budgetOf()).toBeNull();
+  });
+});

@@ -92,16 +92,25 @@ export class PortfolioRepository {
     }));
   }
 
-  /** (site, month) pairs among `siteIds` × `months` with no cache row, or one older than `maxAgeMinutes`. */
+  /**
+   * Sites among `siteIds` missing a cache row for some month, or holding one that is too old or older than a
+   * change to what it was computed from (the site, its hydrozones, rate schedules or weather station).
+   */
   async staleBudgetSites(siteIds: number[], months: string[], currentMonth: string): Promise<number[]> {
     if (!siteIds.length || !months.length) return [];
     // Past months are kept a day, the current and later months an hour (their weather is still arriving).
     const rows: { siteId: number }[] = await this.db.query(
       `SELECT s.id AS siteId FROM site s
-       LEFT JOIN (SELECT site_id, COUNT(*) AS n FROM site_monthly_budget
-                  WHERE site_id IN (?) AND month IN (?)
-                    AND computed_at > IF(month >= ?, NOW(3) - INTERVAL 1 HOUR, NOW(3) - INTERVAL 1 DAY)
-                  GROUP BY site_id) c ON c.site_id = s.id
+       LEFT JOIN (SELECT b.site_id, COUNT(*) AS n FROM site_monthly_budget b
+                  JOIN site bs ON bs.id = b.site_id
+                  LEFT JOIN weather_station ws ON ws.id = bs.weather_station_id
+                  WHERE b.site_id IN (?) AND b.month IN (?)
+                    AND b.computed_at > IF(b.month >= ?, NOW(3) - INTERVAL 1 HOUR, NOW(3) - INTERVAL 1 DAY)
+                    -- TypeORM stamps updated_at to the whole second, so a change counts for its whole second.
+                    AND b.computed_at >= GREATEST(bs.updated_at, COALESCE(ws.updated_at, bs.updated_at),
+                      COALESCE((SELECT MAX(h.updated_at) FROM hydrozone h WHERE h.site_id = b.site_id), bs.updated_at),
+                      COALESCE((SELECT MAX(r.updated_at) FROM rate_schedule r WHERE r.site_id = b.site_id), bs.updated_at)) + INTERVAL 1 SECOND
+                  GROUP BY b.site_id) c ON c.site_id = s.id
        WHERE s.id IN (?) AND COALESCE(c.n, 0) < ?`,
       [siteIds, months, currentMonth, siteIds, months.length],
     );

@@ -59,6 +59,8 @@ export class RateSchedulesService {
     const before = await this.load(siteId, id);
     await this.db.transaction(async (em) => {
       await this.rates.delete(em, id);
+      // Nothing newer is left to compare with: drop the site's cached monthly budgets outright.
+      await em.query('DELETE FROM site_monthly_budget WHERE site_id = ?', [siteId]);
       await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'rate_schedule', entityId: id, action: 'delete', changes: { siteId, name: before.name } });
     });
   }

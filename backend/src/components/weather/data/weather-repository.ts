@@ -116,6 +116,7 @@ export class WeatherRepository {
   async upsertDays(em: EntityManager, stationId: number, days: DayToStore[]): Promise<{ inserted: number; updated: number; unchanged: number }> {
     const counts = { inserted: 0, updated: 0, unchanged: 0 };
     if (!days.length) return counts;
+    await this.touchStation(em, stationId);
     const repo = em.getRepository(DailyWeatherEntity);
     const dates = days.map((d) => d.date);
     const existing = new Map<string, DailyWeatherEntity>();
@@ -145,7 +146,13 @@ export class WeatherRepository {
     return rows.map((r) => ({ month: r.month, etoMm: r.etoMm, rainMm: r.rainMm }));
   }
 
+  /** New weather changes every budget computed from this station: its `updated_at` is what cached budgets compare with. */
+  private async touchStation(em: EntityManager, stationId: number): Promise<void> {
+    await em.query('UPDATE weather_station SET updated_at = NOW(3) WHERE id = ?', [stationId]);
+  }
+
   async replaceNormals(em: EntityManager, stationId: number, normals: MonthlyNormalDto[]): Promise<void> {
+    await this.touchStation(em, stationId);
     await em.getRepository(MonthlyWeatherNormalEntity).delete({ stationId });
     if (normals.length) await em.getRepository(MonthlyWeatherNormalEntity).insert(normals.map((n) => ({ stationId, ...n })));
   }
