@@ -85,6 +85,7 @@ describe('each demo role in the browser', () => {
       expect(await page.getByRole('link', { name: 'New site' }).count()).toBe(canCreate ? 1 : 0);
       const nav = page.getByRole('navigation', { name: 'Main' });
       expect(await nav.getByRole('link', { name: 'Users' }).count()).toBe(role === 'admin' ? 1 : 0);
+      expect(await nav.getByRole('link', { name: 'Uploads' }).count()).toBe(role === 'auditor' ? 0 : 1);
       await screenshot(page, `${role}-sites-desktop`);
 
       // Open the first site: editable for admin and manager, read-only for the others.
