@@ -1,30 +1,24 @@
 /// <reference lib="dom" />
-import { existsSync } from 'node:fs';
-import { resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { DataSource } from 'typeorm';
 import { OrganisationEntity } from '../../backend/src/components/organisations/data/organisation.entity';
-import { connectWithRetry } from '../../backend/src/db/connect';
-import { createDataSource } from '../../backend/src/db/data-source';
 import { startServer, type RunningServer } from '../../backend/src/server';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../ops/seed/demo-scenario';
 import { seedDemo } from '../../ops/seed/seed-demo';
 import { leakingSite } from '../api/watch-fixtures';
 import { DESKTOP, openBrowser, screenshot } from '../support/browser';
 import { createSite, shareSite, suffix } from '../support/test-app';
-import { testConfig } from '../support/test-env';
+import { e2eDatabase } from '../support/e2e-database';
 
 /** An administrator runs the watch, finds the leak in the inbox, reads its evidence and acknowledges it; an auditor only reads. */
-const webDir = resolve(import.meta.dirname, '../../dist/web/browser');
 let server: RunningServer;
 let db: DataSource;
 let siteName: string;
 
 beforeAll(async () => {
-  if (!existsSync(resolve(webDir, 'index.html'))) throw new Error('No production build in dist/web; run: bash ops/build.sh');
-  const config = testConfig({ RILLMARK_WEB_DIR: webDir });
-  db = createDataSource(config.db);
-  await connectWithRetry(db, { attempts: 5 });
+  const opened = await e2eDatabase();
+  const { config } = opened;
+  db = opened.db;
   await seedDemo(db);
   const org = await db.getRepository(OrganisationEntity).findOneByOrFail({ name: 'Cobalt Ridge Property Services' });
   const utility = await db.getRepository(OrganisationEntity).findOneByOrFail({ name: 'Verdella Valley Water Agency — Conservation Office' });

@@ -1,29 +1,21 @@
 /// <reference lib="dom" />
 /// <reference lib="dom.iterable" />
-import { existsSync } from 'node:fs';
-import { resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { connectWithRetry } from '../../backend/src/db/connect';
-import { createDataSource } from '../../backend/src/db/data-source';
 import { startServer, type RunningServer } from '../../backend/src/server';
 import { DEMO_PASSWORD } from '../../ops/seed/demo-scenario';
 import { seedBudgets } from '../../ops/seed/seed-budgets';
 import { seedDemo } from '../../ops/seed/seed-demo';
 import { DESKTOP, openBrowser, screenshot } from '../support/browser';
-import { testConfig } from '../support/test-env';
+import { e2eDatabase } from '../support/e2e-database';
 
 /**
  * The issue's "done": a demo site shows monthly budgets from its hydrozones and its station's weather, and the
  * "how computed" view carries numbers a person can redo by hand (MWELO App. B form, 144/231 gal per inch per ft²).
  */
-const webDir = resolve(import.meta.dirname, '../../dist/web/browser');
 let server: RunningServer;
 
 beforeAll(async () => {
-  if (!existsSync(resolve(webDir, 'index.html'))) throw new Error('No production build in dist/web; run: bash ops/build.sh');
-  const config = testConfig({ RILLMARK_WEB_DIR: webDir });
-  const db = createDataSource(config.db);
-  await connectWithRetry(db, { attempts: 5 });
+  const { config, db } = await e2eDatabase();
   await seedDemo(db);
   await seedBudgets(db);
   await db.destroy();

@@ -1,32 +1,25 @@
 /// <reference lib="dom" />
-import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { connectWithRetry } from '../../backend/src/db/connect';
-import { createDataSource } from '../../backend/src/db/data-source';
 import { startServer, type RunningServer } from '../../backend/src/server';
 import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_USERS, type DemoUser } from '../../ops/seed/demo-scenario';
 import { seedBudgets } from '../../ops/seed/seed-budgets';
 import { seedDemo } from '../../ops/seed/seed-demo';
 import { seedMeters } from '../../ops/seed/seed-meters';
 import { ARTIFACTS, DESKTOP, openBrowser, PHONE, screenshot } from '../support/browser';
-import { testConfig } from '../support/test-env';
+import { e2eDatabase } from '../support/e2e-database';
 
 /**
  * Each demo role signs in to the production build, lands on the portfolio, opens a site's overview and
  * reads November 2026 (the demo readings run September to November) from its monthly table; the figure
  * must equal what the API says. Screenshots at desktop and phone width go to test-artifacts/e2e/.
  */
-const webDir = resolve(import.meta.dirname, '../../dist/web/browser');
 const MONTH = '2026-11';
 let server: RunningServer;
 
 beforeAll(async () => {
-  if (!existsSync(resolve(webDir, 'index.html'))) throw new Error('No production build in dist/web; run: bash ops/build.sh');
-  const config = testConfig({ RILLMARK_WEB_DIR: webDir });
-  const db = createDataSource(config.db);
-  await connectWithRetry(db, { attempts: 5 });
+  const { config, db } = await e2eDatabase();
   await seedDemo(db);
   await seedBudgets(db);
   // Imports keep site_daily_use in step, so the seeded readings are on the dashboard without a rebuild.

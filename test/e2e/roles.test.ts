@@ -1,29 +1,21 @@
 /// <reference lib="dom" />
 /// <reference lib="dom.iterable" />
-import { existsSync } from 'node:fs';
-import { resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { connectWithRetry } from '../../backend/src/db/connect';
-import { createDataSource } from '../../backend/src/db/data-source';
 import { startServer, type RunningServer } from '../../backend/src/server';
 import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_SITES, DEMO_USERS, type DemoUser } from '../../ops/seed/demo-scenario';
 import { seedDemo } from '../../ops/seed/seed-demo';
 import { DESKTOP, openBrowser, PHONE, screenshot } from '../support/browser';
-import { testConfig } from '../support/test-env';
+import { e2eDatabase } from '../support/e2e-database';
 
 /**
  * Each demo role signs in through the real production build in Debian's Chromium and sees its own
  * sites and actions. Screenshots go to test-artifacts/e2e/ (git-ignored) to be looked at.
  */
-const webDir = resolve(import.meta.dirname, '../../dist/web/browser');
 let server: RunningServer;
 
 beforeAll(async () => {
-  if (!existsSync(resolve(webDir, 'index.html'))) throw new Error('No production build in dist/web; run: bash ops/build.sh');
-  const config = testConfig({ RILLMARK_WEB_DIR: webDir });
-  const db = createDataSource(config.db);
-  await connectWithRetry(db, { attempts: 5 });
+  const { config, db } = await e2eDatabase();
   await seedDemo(db);
   await db.destroy();
   server = await startServer(config);

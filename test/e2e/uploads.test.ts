@@ -1,5 +1,4 @@
 /// <reference lib="dom" />
-import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { DataSource } from 'typeorm';
@@ -7,27 +6,23 @@ import { ControllerEntity } from '../../backend/src/components/meters/data/contr
 import { MeterEntity } from '../../backend/src/components/meters/data/meter.entity';
 import { ZoneEntity } from '../../backend/src/components/meters/data/zone.entity';
 import { OrganisationEntity } from '../../backend/src/components/organisations/data/organisation.entity';
-import { connectWithRetry } from '../../backend/src/db/connect';
-import { createDataSource } from '../../backend/src/db/data-source';
 import { startServer, type RunningServer } from '../../backend/src/server';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../ops/seed/demo-scenario';
 import { seedDemo } from '../../ops/seed/seed-demo';
 import { DESKTOP, openBrowser, screenshot } from '../support/browser';
 import { SAMPLES } from '../support/ingest-fixtures';
 import { createSite, suffix } from '../support/test-app';
-import { testConfig } from '../support/test-env';
+import { e2eDatabase } from '../support/e2e-database';
 
 /** A manager sends a sample file through the upload page of the production build, sends it again, rolls it back. */
-const webDir = resolve(import.meta.dirname, '../../dist/web/browser');
 let server: RunningServer;
 let db: DataSource;
 let siteName: string;
 
 beforeAll(async () => {
-  if (!existsSync(resolve(webDir, 'index.html'))) throw new Error('No production build in dist/web; run: bash ops/build.sh');
-  const config = testConfig({ RILLMARK_WEB_DIR: webDir });
-  db = createDataSource(config.db);
-  await connectWithRetry(db, { attempts: 5 });
+  const opened = await e2eDatabase();
+  const { config } = opened;
+  db = opened.db;
   await seedDemo(db);
   // A fresh site each run, so the first upload is always new.
   const org = await db.getRepository(OrganisationEntity).findOneByOrFail({ name: 'Cobalt Ridge Property Services' });
