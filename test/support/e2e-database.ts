@@ -6,7 +6,8 @@ import { connectWithRetry } from '../../backend/src/db/connect';
 import { createDataSource } from '../../backend/src/db/data-source';
 import { testConfig } from './test-env';
 
-const webDir = resolve(import.meta.dirname, '../../dist/web/browser');
+// RILLMARK_E2E_WEB_DIR lets parallel work trees test their own build (ng build --output-path dist/<name>).
+const webDir = process.env['RILLMARK_E2E_WEB_DIR'] ?? resolve(import.meta.dirname, '../../dist/web/browser');
 
 /**
  * What every browser test starts from: the production build (checked, with a plain message when missing),
