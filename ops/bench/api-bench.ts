@@ -1,10 +1,11 @@
 /**
  * Dashboard API benchmark (`npm run bench:api`): 1,000 sites with a year of hourly readings each (8.76 M rows,
- * LOAD DATA into database `rillmark_bench`, rollups built in SQL), the app in-process on 127.0.0.1 port 0,
+ * LOAD DATA into database `rillmark_bench`, rollups built in SQL), the app in a child process on 127.0.0.1 port 0,
  * autocannon at 20 connections against the portfolio and a site overview. Prints p50/p95/p99 and req/s, and the
  * time of the bare SQL aggregate behind the portfolio as a floor. Not a test: figures vary run to run.
  * The world is generated once and reused while its marker organisation exists (BENCH_REBUILD=1 regenerates).
  */
+import { fork, type ChildProcess } from 'node:child_process';
 import { createWriteStream, createReadStream, mkdirSync } from 'node:fs';
 import { once } from 'node:events';
 import { resolve } from 'node:path';
@@ -16,7 +17,6 @@ import { connectWithRetry } from '../../backend/src/db/connect';
 import { createDataSource } from '../../backend/src/db/data-source';
 import { hashPassword } from '../../backend/src/platform/auth/password';
 import { setLogLevel } from '../../backend/src/platform/logger';
-import { startServer } from '../../backend/src/server';
 
 setLogLevel('warn');
 const SITES = Number(process.env['BENCH_SITES'] ?? 1000);
@@ -92,11 +92,13 @@ if (!org || process.env['BENCH_REBUILD']) {
   );
   console.log(`generated ${SITES} sites × ${HOURS} hourly readings = ${(SITES * HOURS).toLocaleString('en-US')} rows in ${((performance.now() - t0) / 1000).toFixed(0)} s`);
 }
-// Budgets: the cache the portfolio reads, refreshed every run so it counts as fresh (synthetic, 24,000–36,000 gal a month).
+// Budgets: the cache the portfolio reads, refreshed every run so it counts as fresh (synthetic, 24,000–36,000 gal a month;
+// 5,000 for a tenth of the sites).
 const siteIds: number[] = (await db.query('SELECT id FROM site WHERE organisation_id = ? ORDER BY id', [org.id])).map((s: { id: number }) => Number(s.id));
 const months = Array.from({ length: 24 }, (_, i) => new Date(Date.UTC(2024, i, 1)).toISOString().slice(0, 7));
 for (let i = 0; i < siteIds.length; i += 200) {
-  const rows = siteIds.slice(i, i + 200).flatMap((id, k) => months.map((m) => [id, m, 24_000 + ((i + k) % 50) * 250, null, null, 150, 10, 0, null, new Date()]));
+  // Every tenth site gets a budget below its use, so the portfolio also prices the gap (money over budget).
+  const rows = siteIds.slice(i, i + 200).flatMap((id, k) => months.map((m) => [id, m, (i + k) % 10 === 3 ? 5_000 : 24_000 + ((i + k) % 50) * 250, null, null, 150, 10, 0, null, new Date()]));
   await db.query('REPLACE INTO site_monthly_budget (site_id, month, gallons, cost, currency, eto_mm, rain_mm, filled_days, problem, computed_at) VALUES ?', [rows]);
 }
 
@@ -114,8 +116,13 @@ for (let i = 0; i < 30; i++) {
 floor.sort((a, b) => a - b);
 await db.destroy();
 
-// 3. The app in-process, a signed-in session, autocannon.
-const server = await startServer(config, { dbAttempts: 5 });
+// 3. The app in its own process (as deployed: autocannon must not share its event loop), a signed-in session.
+const child: ChildProcess = fork(resolve(import.meta.dirname, 'bench-server.ts'), [], {
+  env: { ...env, TSX_TSCONFIG_PATH: resolve(root, 'backend/tsconfig.json') },
+  execArgv: ['--import', 'tsx', ...(process.env['BENCH_CPU_PROF'] ? ['--cpu-prof', `--cpu-prof-dir=${dir}`] : [])],
+});
+const [{ url }] = (await once(child, 'message')) as [{ url: string }];
+const server = { url };
 const csrf = await fetch(`${server.url}/api/auth/csrf`);
 let cookies = csrf.headers.getSetCookie().map((c) => c.split(';')[0]!);
 const token = ((await csrf.json()) as { token: string }).token;
@@ -150,7 +157,8 @@ for (let i = 0; i < 15; i++) {
 }
 cold.sort((a, b) => a - b);
 results.push(`${'portfolio, memo missed every time (1 connection, 15 runs)'.padEnd(56)} p50 ${cold[7]!.toFixed(0)} ms  max ${cold[14]!.toFixed(0)} ms`);
-await server.stop();
+child.send({ cmd: 'stop' });
+await once(child, 'exit');
 const floorP50 = floor[Math.floor(floor.length / 2)]!;
 console.log(`\n20 connections, ${DURATION} s each, ${SITES} sites, database ${config.db.database}`);
 for (const line of results) console.log(line);

@@ -23,6 +23,7 @@ export function createSessionMiddleware(config: Config, pool: Pool): { middlewar
     },
     pool as never,
   );
+  throttleTouch(store);
   const middleware = session({
     name: SESSION_COOKIE,
     secret: config.session.secret,
@@ -40,4 +41,27 @@ export function createSessionMiddleware(config: Config, pool: Pool): { middlewar
     },
   });
   return { middleware, close: () => store.close() };
+}
+
+/** How often one instance writes a session's new expiry: at most once a minute, not on every request. */
+export const TOUCH_INTERVAL_MS = 60_000;
+
+/**
+ * With `rolling`, express-session touches the store on every request: an UPDATE and a commit per page load
+ * or API call. The cookie still rolls every response; the stored expiry is refreshed at most once a
+ * minute per session, so a session can end at most that much earlier than its cookie says.
+ */
+export function throttleTouch(store: { touch: (sid: string, session: unknown, cb?: (err?: unknown) => void) => unknown }): void {
+  const touch = store.touch.bind(store);
+  const last = new Map<string, number>();
+  store.touch = (sid, session, cb) => {
+    const now = Date.now();
+    if (now - (last.get(sid) ?? 0) < TOUCH_INTERVAL_MS) {
+      cb?.();
+      return;
+    }
+    if (last.size > 50_000) last.clear(); // bounded: forgetting only means one extra write
+    last.set(sid, now);
+    return touch(sid, session, cb);
+  };
 }

@@ -30,9 +30,9 @@ export class AuthService {
    * takes effect at once. Null when the user is gone, disabled or has no membership left.
    */
   async principal(userId: number, organisationId?: number): Promise<Principal | null> {
-    const user = await this.users.findById(userId);
-    if (!user || user.status !== 'active') return null;
-    const memberships = await this.users.memberships(userId);
+    const found = await this.users.activeUserWithMemberships(userId);
+    if (!found) return null;
+    const { user, memberships } = found;
     const active = memberships.find((m) => m.organisationId === organisationId) ?? memberships[0];
     if (!active) return null;
     return { userId: user.id, email: user.email, displayName: user.displayName, organisationId: active.organisationId, role: active.role, memberships };

@@ -150,13 +150,18 @@ export class PortfolioRepository {
     return map;
   }
 
-  /** Open alerts per site; empty until the nightly watch's `alert` table exists. */
-  async openAlerts(siteIds: number[]): Promise<Map<number, number>> {
+  /** Open alerts per site, over every site the organisation may see (owned or shared); the caller keeps the ones in scope. */
+  async openAlerts(viewerOrgId: number): Promise<Map<number, number>> {
     const map = new Map<number, number>();
     const table = await this.alerts();
-    if (!table || !siteIds.length) return map;
-    const open = table.status ? "AND status <> 'resolved'" : table.resolvedAt ? 'AND resolved_at IS NULL' : '';
-    const rows: { siteId: number; n: number }[] = await this.db.query(`SELECT site_id AS siteId, COUNT(*) AS n FROM alert WHERE site_id IN (?) ${open} GROUP BY site_id`, [siteIds]);
+    if (!table) return map;
+    const open = table.status ? "AND a.status <> 'resolved'" : table.resolvedAt ? 'AND a.resolved_at IS NULL' : '';
+    const rows: { siteId: number; n: number }[] = await this.db.query(
+      `SELECT a.site_id AS siteId, COUNT(*) AS n FROM alert a JOIN site s ON s.id = a.site_id
+       LEFT JOIN site_share sh ON sh.site_id = s.id AND sh.organisation_id = ?
+       WHERE (s.organisation_id = ? OR sh.organisation_id IS NOT NULL) ${open} GROUP BY a.site_id`,
+      [viewerOrgId, viewerOrgId],
+    );
     for (const r of rows) map.set(Number(r.siteId), Number(r.n));
     return map;
   }

@@ -9,6 +9,12 @@ import type { PortfolioRepository, SiteAggregate } from '../data/portfolio-repos
 import type { BudgetCache } from './budget-cache';
 import { ShortMemo } from './short-memo';
 
+/** What one scope's memo holds: the sums per site, and the money over budget (both independent of paging and sorting). */
+interface ScopeSums {
+  sites: SiteAggregate[];
+  money: { cost: number | null; currency: string | null };
+}
+
 export interface PortfolioQuery {
   period: PortfolioPeriod;
   from?: string;
@@ -29,7 +35,7 @@ const SCOPE_MEMO_MS = 20_000;
 /** The portfolio: every site the user may see, summed over a period, with headline figures. */
 export class PortfolioService {
   /** Sorting, paging and condition filters reuse one scope's sums for a few seconds (see ShortMemo). */
-  private readonly recent = new ShortMemo<SiteAggregate[]>(SCOPE_MEMO_MS);
+  private readonly recent = new ShortMemo<ScopeSums>(SCOPE_MEMO_MS);
 
   constructor(
     private readonly repo: PortfolioRepository,
@@ -50,18 +56,19 @@ export class PortfolioService {
     const filter = { q: query.q, tag: query.tag, organisationId: query.organisationId };
     const load = () => this.repo.aggregates(principal.organisationId, filter, { ...period, months: periodMonths.length }, { ...ytd, months: ytdMonths.length });
     const key = JSON.stringify([principal.organisationId, filter, period.from, period.to]);
-    const sites = await this.recent.get(key, async () => {
-      const scope = await load();
+    const isOver = (s: SiteAggregate) => s.budgetGallons !== null && s.useGallons > s.budgetGallons;
+    const { sites, money } = await this.recent.get(key, async () => {
+      let scope = await load();
       const neededMonths = monthsBetween(ytd.from < period.from ? ytd.from : period.from, period.to);
-      return (await this.budgetCacheNeeded(principal, scope.map((s) => s.siteId), neededMonths)) ? load() : scope;
+      if (await this.budgetCacheNeeded(principal, scope.map((s) => s.siteId), neededMonths)) scope = await load();
+      return { sites: scope, money: await this.moneyOverBudget(scope.filter(isOver), period.from, period.to, periodMonths) };
     });
 
-    const alerts = await this.repo.openAlerts(sites.map((s) => s.siteId));
+    // Alert counts are not memoised: an alert resolved a moment ago must not still count.
+    const alerts = await this.repo.openAlerts(principal.organisationId);
     const recentCutoff = now.getTime() - RECENT_DATA_DAYS * 86_400_000;
-    const isOver = (s: SiteAggregate) => s.budgetGallons !== null && s.useGallons > s.budgetGallons;
     const isSilent = (s: SiteAggregate) => !s.lastDataAt || s.lastDataAt.getTime() < recentCutoff;
     const over = sites.filter(isOver);
-    const money = await this.moneyOverBudget(over, period.from, period.to, periodMonths);
 
     const matching = sites.filter((s) =>
       query.condition === 'over-budget' ? isOver(s) : query.condition === 'no-recent-data' ? isSilent(s) : query.condition === 'open-alerts' ? (alerts.get(s.siteId) ?? 0) > 0 : true,
@@ -91,7 +98,7 @@ export class PortfolioService {
         overBudgetGallons: sum(over, (s) => s.useGallons - s.budgetGallons!),
         overBudgetCost: money.cost,
         currency: money.currency,
-        openAlerts: [...alerts.values()].reduce((a, b) => a + b, 0),
+        openAlerts: sites.reduce((t, s) => t + (alerts.get(s.siteId) ?? 0), 0),
         sitesOverBudget: over.length,
         sitesWithoutRecentData: sites.filter(isSilent).length,
         siteCount: sites.length,
@@ -124,11 +131,12 @@ export class PortfolioService {
     const ids = over.map((s) => s.siteId);
     const use = await this.dailyUse.monthly(ids, from, to);
     const budgets = await this.repo.budgetMonths(ids, months[0]!, months[months.length - 1]!);
+    const schedulesOf = await this.rates.allOfSites(ids);
     let cost = 0;
     const currencies = new Set<string>();
     let unpriced = false;
     for (const site of over) {
-      const schedules = await this.rates.allOfSite(site.siteId);
+      const schedules = schedulesOf.get(site.siteId) ?? [];
       for (const month of months) {
         const b = budgets.find((r) => r.siteId === site.siteId && r.month === month);
         if (b?.gallons === null || b?.gallons === undefined) continue;

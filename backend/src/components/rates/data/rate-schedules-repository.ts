@@ -1,4 +1,4 @@
-import type { DataSource, EntityManager } from 'typeorm';
+import { In, type DataSource, type EntityManager } from 'typeorm';
 import type { BillingUnit, VolumeCharge } from '@shared/rates/rate-schedule';
 import type { RateScheduleDto, RateScheduleInput } from '@shared/rates/rate-schedule-dto';
 import { RateScheduleEntity } from './rate-schedule.entity';
@@ -9,6 +9,15 @@ export class RateSchedulesRepository {
   /** Every schedule of the site, oldest first (few per site, so no paging). */
   async all(siteId: number): Promise<RateScheduleDto[]> {
     return (await this.db.getRepository(RateScheduleEntity).find({ where: { siteId }, order: { effectiveFrom: 'ASC' } })).map(toDto);
+  }
+
+  /** Every schedule of each site, oldest first; sites without one are absent from the map. */
+  async allOfSites(siteIds: number[]): Promise<Map<number, RateScheduleDto[]>> {
+    const map = new Map<number, RateScheduleDto[]>();
+    if (!siteIds.length) return map;
+    const rows = await this.db.getRepository(RateScheduleEntity).find({ where: { siteId: In(siteIds) }, order: { siteId: 'ASC', effectiveFrom: 'ASC' } });
+    for (const row of rows) map.set(row.siteId, [...(map.get(row.siteId) ?? []), toDto(row)]);
+    return map;
   }
 
   async find(siteId: number, id: number): Promise<RateScheduleDto | null> {

@@ -26,6 +26,11 @@ export class RateSchedulesService {
     return this.rates.all(siteId);
   }
 
+  /** For the portfolio's money figures, one query for many sites; the caller has checked access. */
+  allOfSites(siteIds: number[]): Promise<Map<number, RateScheduleDto[]>> {
+    return this.rates.allOfSites(siteIds);
+  }
+
   async create(principal: Principal, siteId: number, input: RateScheduleInput): Promise<RateScheduleDto> {
     const site = await this.sites.requireLevel(principal, siteId, 'contribute');
     check(input);

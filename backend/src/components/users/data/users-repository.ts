@@ -1,8 +1,7 @@
 import { DataSource, EntityManager, IsNull, MoreThan } from 'typeorm';
 import type { MembershipDto, OrgUserDto, UserSort, UserStatus } from '@shared/users/user';
 import type { Page } from '@shared/api/page';
-import type { Role } from '@shared/auth/roles';
-import { OrganisationEntity } from '../../organisations/data/organisation.entity';
+import type { OrganisationKind, Role } from '@shared/auth/roles';
 import { MembershipEntity } from './membership.entity';
 import { UserTokenEntity, type TokenPurpose } from './user-token.entity';
 import { UserEntity } from './user.entity';
@@ -45,16 +44,26 @@ export class UsersRepository {
     return u && toRecord(u);
   }
 
-  async memberships(userId: number): Promise<MembershipDto[]> {
-    const rows = await this.db
-      .getRepository(MembershipEntity)
-      .createQueryBuilder('m')
-      .innerJoin(OrganisationEntity, 'o', 'o.id = m.organisation_id')
-      .select(['m.organisation_id AS organisationId', 'o.name AS organisationName', 'o.kind AS organisationKind', 'm.role AS role'])
-      .where('m.user_id = :userId', { userId })
-      .orderBy('m.id', 'ASC')
-      .getRawMany<MembershipDto>();
-    return rows.map((r) => ({ ...r, organisationId: Number(r.organisationId) }));
+  /**
+   * An active user with their memberships, in one round trip (this runs on every signed-in request).
+   * Null when the user is gone or not active; `memberships` is empty when none is left.
+   */
+  async activeUserWithMemberships(userId: number): Promise<{ user: UserRecord; memberships: MembershipDto[] } | null> {
+    const rows: Record<string, unknown>[] = await this.db.query(
+      `SELECT u.id, u.email, u.display_name AS displayName, u.status, m.organisation_id AS organisationId, o.name AS organisationName,
+              o.kind AS organisationKind, m.role
+       FROM user u LEFT JOIN membership m ON m.user_id = u.id LEFT JOIN organisation o ON o.id = m.organisation_id
+       WHERE u.id = ? AND u.status = 'active' ORDER BY m.id`,
+      [userId],
+    );
+    const first = rows[0];
+    if (!first) return null;
+    return {
+      user: { id: Number(first['id']), email: String(first['email']), displayName: String(first['displayName']), passwordHash: null, status: first['status'] as UserStatus },
+      memberships: rows
+        .filter((r) => r['organisationId'] !== null && r['organisationName'] !== null)
+        .map((r): MembershipDto => ({ organisationId: Number(r['organisationId']), organisationName: String(r['organisationName']), organisationKind: r['organisationKind'] as OrganisationKind, role: r['role'] as Role })),
+    };
   }
 
   async recordSignIn(userId: number): Promise<void> {
