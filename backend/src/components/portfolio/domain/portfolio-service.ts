@@ -79,6 +79,7 @@ export class PortfolioService {
     const lastMonth = periodMonths[periodMonths.length - 1]!;
     const trendMonths = monthsBetween(`${addMonths(lastMonth, -11)}-01`, `${lastMonth}-01`);
     const monthly = await this.dailyUse.monthly(ids, `${trendMonths[0]}-01`, lastDayOfMonth(lastMonth));
+    const monthlyOf = new Map(monthly.map((m) => [`${m.siteId} ${m.month}`, m.gallons]));
     const tags = await this.repo.tagsOf(ids);
 
     const sum = (xs: SiteAggregate[], f: (s: SiteAggregate) => number | null) => xs.reduce((t, s) => t + (f(s) ?? 0), 0);
@@ -107,7 +108,7 @@ export class PortfolioService {
         items: pageRows.map((s): PortfolioRow => ({
           siteId: s.siteId, siteName: s.siteName, organisationName: s.organisationName, timeZone: s.timeZone, tags: tags.get(s.siteId) ?? [],
           useGallons: s.useGallons, budgetGallons: s.budgetGallons, percentOfBudget: percentOf(s.useGallons, s.budgetGallons),
-          trend: trendMonths.map((month) => ({ month, gallons: monthly.find((m) => m.siteId === s.siteId && m.month === month)?.gallons ?? 0 })),
+          trend: trendMonths.map((month) => ({ month, gallons: monthlyOf.get(`${s.siteId} ${month}`) ?? 0 })),
           openAlerts: alerts.get(s.siteId) ?? 0,
           lastDataAt: s.lastDataAt?.toISOString() ?? null,
           budgetProblem: s.budgetProblem,
@@ -169,12 +170,17 @@ function sortRows(rows: SiteAggregate[], sort: PortfolioSort, dir: 'asc' | 'desc
     }
   };
   const sign = dir === 'asc' ? 1 : -1;
+  // Keys computed once per row, not once per comparison (1,000 sites are ~10,000 comparisons).
+  const keyed = rows.map((row) => ({ row, key: key(row) }));
   // Sites without a value (no budget, no data) go last in either direction; ties by name, then id.
-  return [...rows].sort((a, b) => {
-    const ka = key(a), kb = key(b);
+  keyed.sort((a, b) => {
+    const ka = a.key, kb = b.key;
     if (ka === null && kb !== null) return 1;
     if (kb === null && ka !== null) return -1;
     if (ka !== null && kb !== null && ka !== kb) return (ka < kb ? -1 : 1) * sign;
-    return a.siteName.localeCompare(b.siteName) || a.siteId - b.siteId;
+    return byName.compare(a.row.siteName, b.row.siteName) || a.row.siteId - b.row.siteId;
   });
+  return keyed.map((k) => k.row);
 }
+
+const byName = new Intl.Collator('en');

@@ -75,14 +75,13 @@ export class SitesRepository {
       .offset(f.page * f.pageSize)
       .limit(f.pageSize)
       .getRawMany();
-    return { rows: await this.withTags(raw.map((r) => toRecord(r, organisationId))), total };
+    return { rows: raw.map((r) => toRecord(r, organisationId)), total };
   }
 
   async findVisible(organisationId: number, siteId: number): Promise<SiteRecord | null> {
     const raw = await withColumns(this.visible(organisationId).andWhere('s.id = :siteId', { siteId })).getRawOne();
     if (!raw) return null;
-    const [record] = await this.withTags([toRecord(raw, organisationId)]);
-    return record!;
+    return toRecord(raw, organisationId);
   }
 
   async tags(organisationId: number): Promise<string[]> {
@@ -151,18 +150,6 @@ export class SitesRepository {
   async organisationExists(organisationId: number): Promise<boolean> {
     return this.db.getRepository(OrganisationEntity).existsBy({ id: organisationId });
   }
-
-  private async withTags(records: SiteRecord[]): Promise<SiteRecord[]> {
-    if (!records.length) return records;
-    const rows = await this.db
-      .getRepository(SiteTagEntity)
-      .createQueryBuilder('t')
-      .where('t.site_id IN (:...ids)', { ids: records.map((r) => r.id) })
-      .orderBy('t.tag', 'ASC')
-      .getMany();
-    for (const r of records) r.tags = rows.filter((t) => t.siteId === r.id).map((t) => t.tag);
-    return records;
-  }
 }
 
 function withColumns(qb: SelectQueryBuilder<SiteEntity>): SelectQueryBuilder<SiteEntity> {
@@ -170,6 +157,8 @@ function withColumns(qb: SelectQueryBuilder<SiteEntity>): SelectQueryBuilder<Sit
     's.id AS id', 's.organisation_id AS organisationId', 'o.name AS organisationName', 's.name AS name', 's.kind AS kind',
     's.address AS address', 's.time_zone AS timeZone', 's.notes AS notes', 's.created_at AS createdAt', 's.updated_at AS updatedAt',
     'sh.access AS shareAccess',
+    // The tags in the same round trip (this runs behind every site-scoped request, through requireLevel).
+    '(SELECT JSON_ARRAYAGG(t.tag ORDER BY t.tag) FROM site_tag t WHERE t.site_id = s.id) AS tagsJson',
   ]);
 }
 
@@ -184,7 +173,7 @@ function toRecord(r: Record<string, unknown>, viewer: number): SiteRecord {
     address: String(r['address']),
     timeZone: String(r['timeZone']),
     notes: String(r['notes'] ?? ''),
-    tags: [],
+    tags: typeof r['tagsJson'] === 'string' ? (JSON.parse(r['tagsJson']) as string[]) : ((r['tagsJson'] as string[] | null) ?? []),
     relation: organisationId === viewer ? { kind: 'owner' } : { kind: 'shared', access: r['shareAccess'] as ShareAccess },
     createdAt: new Date(r['createdAt'] as string),
     updatedAt: new Date(r['updatedAt'] as string),
