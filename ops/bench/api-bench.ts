@@ -8,6 +8,7 @@
 import { fork, type ChildProcess } from 'node:child_process';
 import { createWriteStream, createReadStream, mkdirSync } from 'node:fs';
 import { once } from 'node:events';
+import { availableParallelism, loadavg } from 'node:os';
 import { resolve } from 'node:path';
 // @ts-expect-error autocannon ships no types
 import autocannon from 'autocannon';
@@ -123,6 +124,12 @@ const child: ChildProcess = fork(resolve(import.meta.dirname, 'bench-server.ts')
 });
 const [{ url }] = (await once(child, 'message')) as [{ url: string }];
 const server = { url };
+/** The server process's CPU time so far: per request it is the cost that doesn't depend on how busy the machine is. */
+const serverCpuMs = async (): Promise<number> => {
+  const reply = once(child, 'message') as Promise<[{ cpuMs: number }]>;
+  child.send({ cmd: 'cpu' });
+  return (await reply)[0].cpuMs;
+};
 const csrf = await fetch(`${server.url}/api/auth/csrf`);
 let cookies = csrf.headers.getSetCookie().map((c) => c.split(';')[0]!);
 const token = ((await csrf.json()) as { token: string }).token;
@@ -139,12 +146,16 @@ const targets = [
   // Not the dashboard's: the existing sites list, as this machine's ceiling for any signed-in request.
   { name: 'reference: sites list (25 rows)', path: '/api/sites?pageSize=25' },
 ];
+const loadBefore = loadavg().map((l) => l.toFixed(1)).join(' ');
 const results: string[] = [];
-for (const target of targets) {
+// BENCH_ONLY=<word> runs only the targets whose name contains it (for profiling one endpoint).
+for (const target of targets.filter((t) => t.name.includes(process.env['BENCH_ONLY'] ?? ''))) {
   const check = await fetch(server.url + target.path, { headers });
   if (check.status !== 200) throw new Error(`${target.path}: ${check.status} ${await check.text()}`);
+  const cpu0 = await serverCpuMs();
   const r = await autocannon({ url: server.url + target.path, connections: 20, duration: DURATION, headers });
-  results.push(`${target.name.padEnd(56)} p50 ${r.latency.p50} ms  p95 ${percentile(r, 95)} ms  p99 ${r.latency.p99} ms  ${Math.round(r.requests.average)} req/s  (${r.non2xx} non-2xx)`);
+  const cpuPerRequest = ((await serverCpuMs()) - cpu0) / r.requests.total;
+  results.push(`${target.name.padEnd(56)} p50 ${r.latency.p50} ms  p95 ${percentile(r, 95)} ms  p99 ${r.latency.p99} ms  ${Math.round(r.requests.average)} req/s  (${r.non2xx} non-2xx)  server CPU ${cpuPerRequest.toFixed(1)} ms/request`);
 }
 // Uncached: the portfolio memoises one scope's sums for 20 s, so also time requests that each miss it
 // (a different custom range every time), one at a time.
@@ -160,7 +171,7 @@ results.push(`${'portfolio, memo missed every time (1 connection, 15 runs)'.padE
 child.send({ cmd: 'stop' });
 await once(child, 'exit');
 const floorP50 = floor[Math.floor(floor.length / 2)]!;
-console.log(`\n20 connections, ${DURATION} s each, ${SITES} sites, database ${config.db.database}`);
+console.log(`\n20 connections, ${DURATION} s each, ${SITES} sites, database ${config.db.database}; load average before ${loadBefore}, after ${loadavg().map((l) => l.toFixed(1)).join(' ')} (${availableParallelism()} cores)`);
 for (const line of results) console.log(line);
 console.log(`bare SQL portfolio aggregate: p50 ${floorP50.toFixed(1)} ms (single connection, 30 runs) — the floor for the portfolio endpoint`);
 

@@ -3,7 +3,8 @@ import { startServer } from '../../backend/src/server';
 
 /**
  * The API for the ingest benchmark, in its own process so its memory is measured alone. Samples RSS every
- * 20 ms and answers the parent's `{ cmd: 'rss' }` with the baseline and the peak since the last `reset`.
+ * 20 ms and answers the parent's `{ cmd: 'rss' }` with the baseline and the peak since the last `reset`, and
+ * `{ cmd: 'cpu' }` with the CPU time it has used (the API benchmark's per-request cost).
  */
 const server = await startServer(loadConfig(), { dbAttempts: 5 });
 let peak = process.memoryUsage().rss;
@@ -19,6 +20,9 @@ process.on('message', async (message: { cmd: string }) => {
     process.send!({ baseline });
   } else if (message.cmd === 'rss') {
     process.send!({ baseline, peak });
+  } else if (message.cmd === 'cpu') {
+    const { user, system } = process.cpuUsage();
+    process.send!({ cpuMs: (user + system) / 1000 });
   } else if (message.cmd === 'stop') {
     clearInterval(timer);
     await server.stop();
