@@ -104,6 +104,7 @@ describe('portfolio', () => {
     expect(over.sites.items.map((r: { siteId: number }) => r.siteId)).toEqual([budgeted.id]);
     const tagged = (await manager.get(`${june}&tag=${tag}&sort=useGallons&dir=desc`).expect(200)).body;
     expect(tagged.sites.items.map((r: { siteId: number }) => r.siteId)).toEqual([budgeted.id, unbudgeted.id]);
+    expect(tagged.sites.items.map((r: { tags: string[] }) => r.tags)).toEqual([[tag], [tag]]);
     const paged = (await manager.get(`${june}&tag=${tag}&sort=useGallons&dir=desc&page=1&pageSize=1`).expect(200)).body;
     expect(paged.sites).toMatchObject({ total: 2, page: 1, pageSize: 1 });
     expect(paged.sites.items[0].siteId).toBe(unbudgeted.id);

@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import { jsonArray } from '../../../db/json-array';
 
 /** One visible site with its aggregates over a period and over the year to date. */
 export interface SiteAggregate {
@@ -13,6 +14,7 @@ export interface SiteAggregate {
   ytdBudgetGallons: number | null;
   lastDataAt: Date | null;
   budgetProblem: string | null;
+  tags: string[];
 }
 
 export interface BudgetMonthRow {
@@ -58,7 +60,8 @@ export class PortfolioRepository {
     const rows: Record<string, unknown>[] = await this.db.query(
       `SELECT s.id AS siteId, s.name AS siteName, s.organisation_id AS organisationId, o.name AS organisationName, s.time_zone AS timeZone,
               COALESCE(u.gal, 0) AS useGal, b.gal AS budgetGal, COALESCE(yu.gal, 0) AS ytdUseGal, yb.gal AS ytdBudgetGal,
-              ld.last AS lastDataAt, b.problem AS problem
+              ld.last AS lastDataAt, b.problem AS problem,
+              (SELECT JSON_ARRAYAGG(t.tag ORDER BY t.tag) FROM site_tag t WHERE t.site_id = s.id) AS tagsJson
        FROM site s
        JOIN organisation o ON o.id = s.organisation_id
        LEFT JOIN site_share sh ON sh.site_id = s.id AND sh.organisation_id = ?
@@ -89,6 +92,7 @@ export class PortfolioRepository {
       ytdBudgetGallons: r['ytdBudgetGal'] === null ? null : Number(r['ytdBudgetGal']),
       lastDataAt: r['lastDataAt'] ? new Date(r['lastDataAt'] as string) : null,
       budgetProblem: (r['problem'] as string | null) ?? null,
+      tags: jsonArray(r['tagsJson']),
     }));
   }
 
@@ -140,14 +144,6 @@ export class PortfolioRepository {
       currency: (r['currency'] as string | null) ?? null, etoMm: r['etoMm'] === null ? null : Number(r['etoMm']),
       rainMm: r['rainMm'] === null ? null : Number(r['rainMm']), filledDays: Number(r['filledDays']), problem: (r['problem'] as string | null) ?? null,
     }));
-  }
-
-  async tagsOf(siteIds: number[]): Promise<Map<number, string[]>> {
-    const map = new Map<number, string[]>();
-    if (!siteIds.length) return map;
-    const rows: { siteId: number; tag: string }[] = await this.db.query('SELECT site_id AS siteId, tag FROM site_tag WHERE site_id IN (?) ORDER BY tag', [siteIds]);
-    for (const r of rows) map.set(Number(r.siteId), [...(map.get(Number(r.siteId)) ?? []), r.tag]);
-    return map;
   }
 
   /** Open alerts per site, over every site the organisation may see (owned or shared); the caller keeps the ones in scope. */

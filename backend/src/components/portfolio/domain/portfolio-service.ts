@@ -36,6 +36,8 @@ const SCOPE_MEMO_MS = 20_000;
 export class PortfolioService {
   /** Sorting, paging and condition filters reuse one scope's sums for a few seconds (see ShortMemo). */
   private readonly recent = new ShortMemo<ScopeSums>(SCOPE_MEMO_MS);
+  /** The 12-month trend lines of one page of sites, on the same terms. */
+  private readonly trends = new ShortMemo<Map<string, number>>(SCOPE_MEMO_MS);
 
   constructor(
     private readonly repo: PortfolioRepository,
@@ -78,9 +80,11 @@ export class PortfolioService {
     const ids = pageRows.map((s) => s.siteId);
     const lastMonth = periodMonths[periodMonths.length - 1]!;
     const trendMonths = monthsBetween(`${addMonths(lastMonth, -11)}-01`, `${lastMonth}-01`);
-    const monthly = await this.dailyUse.monthly(ids, `${trendMonths[0]}-01`, lastDayOfMonth(lastMonth));
-    const monthlyOf = new Map(monthly.map((m) => [`${m.siteId} ${m.month}`, m.gallons]));
-    const tags = await this.repo.tagsOf(ids);
+    const trendKey = JSON.stringify([ids, lastMonth]);
+    const monthlyOf = await this.trends.get(trendKey, async () => {
+      const monthly = await this.dailyUse.monthly(ids, `${trendMonths[0]}-01`, lastDayOfMonth(lastMonth));
+      return new Map(monthly.map((m) => [`${m.siteId} ${m.month}`, m.gallons]));
+    });
 
     const sum = (xs: SiteAggregate[], f: (s: SiteAggregate) => number | null) => xs.reduce((t, s) => t + (f(s) ?? 0), 0);
     const budgeted = sites.filter((s) => s.budgetGallons !== null);
@@ -106,7 +110,7 @@ export class PortfolioService {
       },
       sites: {
         items: pageRows.map((s): PortfolioRow => ({
-          siteId: s.siteId, siteName: s.siteName, organisationName: s.organisationName, timeZone: s.timeZone, tags: tags.get(s.siteId) ?? [],
+          siteId: s.siteId, siteName: s.siteName, organisationName: s.organisationName, timeZone: s.timeZone, tags: s.tags,
           useGallons: s.useGallons, budgetGallons: s.budgetGallons, percentOfBudget: percentOf(s.useGallons, s.budgetGallons),
           trend: trendMonths.map((month) => ({ month, gallons: monthlyOf.get(`${s.siteId} ${month}`) ?? 0 })),
           openAlerts: alerts.get(s.siteId) ?? 0,

@@ -6,6 +6,7 @@ import { escapeLike } from '../../users/data/users-repository';
 import { SiteShareEntity } from './site-share.entity';
 import { SiteTagEntity } from './site-tag.entity';
 import { SiteEntity } from './site.entity';
+import { jsonArray } from '../../../db/json-array';
 
 /** A site as the data layer returns it, with how the asking organisation relates to it. */
 export interface SiteRecord {
@@ -173,7 +174,7 @@ function toRecord(r: Record<string, unknown>, viewer: number): SiteRecord {
     address: String(r['address']),
     timeZone: String(r['timeZone']),
     notes: String(r['notes'] ?? ''),
-    tags: typeof r['tagsJson'] === 'string' ? (JSON.parse(r['tagsJson']) as string[]) : ((r['tagsJson'] as string[] | null) ?? []),
+    tags: jsonArray(r['tagsJson']),
     relation: organisationId === viewer ? { kind: 'owner' } : { kind: 'shared', access: r['shareAccess'] as ShareAccess },
     createdAt: new Date(r['createdAt'] as string),
     updatedAt: new Date(r['updatedAt'] as string),
