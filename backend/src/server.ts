@@ -1,11 +1,23 @@
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
+import type { DataSource } from 'typeorm';
 import { createApp } from './app';
 import type { Config } from './config';
 import { connectWithRetry } from './db/connect';
 import { createDataSource } from './db/data-source';
 import { startScheduler } from './jobs/scheduler';
+import { logger } from './platform/logger';
 import { createSmtpMailer, type Mailer } from './platform/mail/mailer';
+
+/**
+ * The app expects MariaDB to run READ COMMITTED (ops/db/start.sh sets it): under REPEATABLE READ, gap locks
+ * made concurrent uploads for different sites deadlock. Imports ask for it per transaction anyway; this says
+ * so when a server of one's own is configured otherwise.
+ */
+async function warnUnlessReadCommitted(db: DataSource): Promise<void> {
+  const [row]: { level: string }[] = await db.query('SELECT @@GLOBAL.tx_isolation AS level');
+  if (row && row.level !== 'READ-COMMITTED') logger.warn(`MariaDB runs ${row.level}; set transaction_isolation = READ-COMMITTED (see README, Scaling) or concurrent writes may deadlock`);
+}
 
 export interface RunningServer {
   url: string;
@@ -17,6 +29,7 @@ export interface RunningServer {
 export async function startServer(config: Config, options: { mailer?: Mailer; dbAttempts?: number } = {}): Promise<RunningServer> {
   const db = createDataSource(config.db);
   await connectWithRetry(db, { attempts: options.dbAttempts ?? 30 });
+  await warnUnlessReadCommitted(db);
   const mailer = options.mailer ?? createSmtpMailer(config.mail);
   const { app, close, mailQueue, watch } = createApp({ config, db, mailer });
   const scheduler = config.jobs.enabled

@@ -29,7 +29,7 @@ else
     --bind-address="$RILLMARK_DB_HOST" --port="$RILLMARK_DB_PORT" --socket="$SOCK" --pid-file="$PIDF" \
     --log-error="$LOGF" --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
     --default-time-zone=+00:00 --local-infile=1 --max-connections=300 --innodb-buffer-pool-size=512M \
-    --innodb-flush-log-at-trx-commit=2 --skip-name-resolve >/dev/null 2>&1 &
+    --innodb-flush-log-at-trx-commit=2 --transaction-isolation=READ-COMMITTED --skip-name-resolve >/dev/null 2>&1 &
   for _ in $(seq 1 120); do
     admin ping >/dev/null 2>&1 && break
     sleep 0.25
@@ -38,7 +38,11 @@ else
 fi
 
 # Database and application user (password auth over TCP on loopback only).
+# READ COMMITTED: under REPEATABLE READ, range deletes and inserts into empty ranges take gap locks that
+# reach into other sites' rows, and two sites' uploads (or meter edits) at the same moment deadlocked.
+# Set here too, for a server that was already running (it applies to new connections).
 mariadb --no-defaults --protocol=socket --socket="$SOCK" -uroot <<SQL
+SET GLOBAL tx_isolation = 'READ-COMMITTED';
 CREATE DATABASE IF NOT EXISTS \`$RILLMARK_DB_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 CREATE DATABASE IF NOT EXISTS \`${RILLMARK_DB_NAME}_test\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 CREATE USER IF NOT EXISTS '$RILLMARK_DB_USER'@'127.0.0.1' IDENTIFIED BY '$RILLMARK_DB_PASSWORD';

@@ -28,11 +28,13 @@ export interface InstantResolver {
 }
 
 export function createInstantResolver(zone: string): InstantResolver {
-  const latestByKey = new Map<string, number>();
+  // Boxed so that moving a key's latest instant on (every row of a big file) is a field write, not a Map.set.
+  const latestByKey = new Map<string, { ms: number }>();
 
   const remember = (key: string, utcMs: number) => {
     const latest = latestByKey.get(key);
-    if (latest === undefined || utcMs > latest) latestByKey.set(key, utcMs);
+    if (latest === undefined) latestByKey.set(key, { ms: utcMs });
+    else if (utcMs > latest.ms) latest.ms = utcMs;
   };
 
   return {
@@ -47,7 +49,7 @@ export function createInstantResolver(zone: string): InstantResolver {
       if (r.kind === 'unique') utcMs = r.utcMs;
       else {
         const latest = latestByKey.get(key);
-        utcMs = latest !== undefined && latest >= r.earlierUtcMs ? r.laterUtcMs : r.earlierUtcMs;
+        utcMs = latest !== undefined && latest.ms >= r.earlierUtcMs ? r.laterUtcMs : r.earlierUtcMs;
       }
       remember(key, utcMs);
       return { ok: true, utcMs };

@@ -11,11 +11,25 @@ export interface NumberFormat {
 const pointStyle = /^[+-]?(?:\d{1,3}(?:,\d{3})+|\d+)(?:\.\d+)?$|^[+-]?\.\d+$/;
 const commaStyle = /^[+-]?(?:\d{1,3}(?:\.\d{3})+|\d+)(?:,\d+)?$|^[+-]?,\d+$/;
 
+/** `123` or `123.45`: digits with at most one point between digits, the form nearly every cell has (no regex). */
+function isPlainDecimal(t: string): boolean {
+  let point = -1;
+  for (let i = 0; i < t.length; i++) {
+    const c = t.charCodeAt(i);
+    if (c === 46) {
+      if (point !== -1 || i === 0 || i === t.length - 1) return false;
+      point = i;
+    } else if (c < 48 || c > 57) return false;
+  }
+  return true;
+}
+
 /** Parses a number cell: thousands separators per the format, surrounding spaces ignored, nothing else. */
 export function parseNumber(text: string, format: NumberFormat = {}): ParsedNumber {
   const trimmed = text.trim();
   if (trimmed === '') return { ok: false, message: 'is empty' };
   const decimalComma = format.decimalComma === true;
+  if (!decimalComma && isPlainDecimal(trimmed)) return { ok: true, value: Number(trimmed) };
   if (!(decimalComma ? commaStyle : pointStyle).test(trimmed)) {
     const hint =
       !decimalComma && /^[+-]?\d+,\d{1,2}$/.test(trimmed)

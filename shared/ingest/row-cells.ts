@@ -78,8 +78,18 @@ export function readTimestamp(
   return { ok: true, parsed, column: own };
 }
 
+/** Whole-minute instant → ISO text; a big upload formats a million instants over a few thousand distinct ones. */
+const isoMinutes = new Map<number, string>();
+
 export function toIso(utcMs: number): string {
-  return new Date(utcMs).toISOString();
+  if (utcMs % 60_000 !== 0) return new Date(utcMs).toISOString();
+  let iso = isoMinutes.get(utcMs);
+  if (iso === undefined) {
+    if (isoMinutes.size > 100_000) isoMinutes.clear();
+    iso = new Date(utcMs).toISOString();
+    isoMinutes.set(utcMs, iso);
+  }
+  return iso;
 }
 
 /** Unit from the row's unit column, else the mapping's unit. */

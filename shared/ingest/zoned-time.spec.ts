@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { addWallMinutes, localDayHours, resolveLocalTime, zoneOffsetMinutes } from './zoned-time';
+import { addWallMinutes, localDayHours, resolveLocalTime, resolveWallMs, resolveWallMsAfresh, zoneOffsetMinutes } from './zoned-time';
 
 const at = (year: number, month: number, day: number, hour: number, minute = 0) => ({ year, month, day, hour, minute, second: 0 });
 const LA = 'America/Los_Angeles';
@@ -59,5 +59,19 @@ describe('localDayHours', () => {
 describe('addWallMinutes', () => {
   it('moves along clock labels across month ends', () => {
     expect(addWallMinutes(at(2026, 10, 31, 23, 45), 30)).toEqual(at(2026, 11, 1, 0, 15));
+  });
+});
+
+describe('remembered steady wall hours', () => {
+  // Zones with 1 h and 30 min DST shifts, half-hour and 45-minute offsets, no DST, and a southern-hemisphere one.
+  const zones = [LA, DEN, 'America/Phoenix', 'Europe/London', 'Australia/Lord_Howe', 'Asia/Kolkata', 'Pacific/Chatham', 'America/Santiago', 'Asia/Tehran'];
+  it.each(zones)('every quarter hour of 2025–2026 in %s resolves as when worked out afresh', (zone) => {
+    for (let ms = Date.UTC(2025, 0, 1); ms < Date.UTC(2027, 0, 1); ms += 15 * 60_000) {
+      const expected = resolveWallMsAfresh(ms, zone);
+      const got = resolveWallMs(ms, zone);
+      if (got.kind !== expected.kind || JSON.stringify(got) !== JSON.stringify(expected)) {
+        expect({ wall: new Date(ms).toISOString(), got }).toEqual({ wall: new Date(ms).toISOString(), got: expected });
+      }
+    }
   });
 });

@@ -71,6 +71,21 @@ function formatterFor(zone: string): Intl.DateTimeFormat {
 }
 
 const HOUR = 3_600_000;
+
+/** One zone's hour → value memory (created on first use). */
+function hourMemo(memos: Map<string, Map<number, number>>, zone: string): Map<number, number> {
+  let memo = memos.get(zone);
+  if (!memo) memos.set(zone, (memo = new Map()));
+  return memo;
+}
+
+/** Stores and returns `value`; a memory past 500,000 hours starts again, so it stays small. */
+function remember(memo: Map<number, number>, hour: number, value: number): number {
+  if (memo.size > 500_000) memo.clear();
+  memo.set(hour, value);
+  return value;
+}
+
 /** Per zone: UTC hour → offset, only for hours whose start and end share one offset (no change inside). */
 const steadyHours = new Map<string, Map<number, number>>();
 
@@ -81,17 +96,12 @@ const steadyHours = new Map<string, Map<number, number>>();
  * always asked afresh, so results are exactly those of the uncached call.
  */
 export function zoneOffsetMinutes(utcMs: number, zone: string): number {
-  let cache = steadyHours.get(zone);
-  if (!cache) steadyHours.set(zone, (cache = new Map()));
+  const cache = hourMemo(steadyHours, zone);
   const hour = Math.floor(utcMs / HOUR);
   const known = cache.get(hour);
   if (known !== undefined) return known;
   const start = intlOffsetMinutes(hour * HOUR, zone);
-  if (start === intlOffsetMinutes((hour + 1) * HOUR, zone)) {
-    if (cache.size > 500_000) cache.clear();
-    cache.set(hour, start);
-    return start;
-  }
+  if (start === intlOffsetMinutes((hour + 1) * HOUR, zone)) return remember(cache, hour, start);
   return intlOffsetMinutes(utcMs, zone);
 }
 
@@ -110,7 +120,37 @@ function intlOffsetMinutes(utcMs: number, zone: string): number {
  * Offsets are sampled a day either side, which covers every real zone (none changes offset twice in 48 h).
  */
 export function resolveLocalTime(wall: WallTime, zone: string): LocalResolution {
-  const asUtc = wallTimeAsUtcMs(wall);
+  return resolveWallMs(wallTimeAsUtcMs(wall), zone);
+}
+
+/** Per zone: wall hour (read as UTC) → the one offset every wall time in it resolves with, for steady hours only. */
+const steadyWallHours = new Map<string, Map<number, number>>();
+
+/**
+ * `resolveLocalTime` for a wall time given as its UTC-field reading (`wallTimeAsUtcMs`). Most wall hours are
+ * nowhere near a DST change: when the offset is the same at both ends of the day before, of the day after and of
+ * the hour itself (one offset change per hour at most, as `zoneOffsetMinutes` assumes), every wall time in that
+ * hour resolves uniquely with that offset, so the hour is remembered. Other hours are worked out each time.
+ */
+export function resolveWallMs(asUtc: number, zone: string): LocalResolution {
+  const cache = hourMemo(steadyWallHours, zone);
+  const hour = Math.floor(asUtc / HOUR);
+  const known = cache.get(hour);
+  if (known !== undefined) return { kind: 'unique', utcMs: asUtc - known * MINUTE };
+  const start = hour * HOUR;
+  const o = zoneOffsetMinutes(start - DAY, zone);
+  const steady =
+    zoneOffsetMinutes(start + HOUR - DAY, zone) === o &&
+    zoneOffsetMinutes(start + DAY, zone) === o &&
+    zoneOffsetMinutes(start + HOUR + DAY, zone) === o &&
+    zoneOffsetMinutes(start - o * MINUTE, zone) === o &&
+    zoneOffsetMinutes(start + HOUR - o * MINUTE, zone) === o;
+  if (steady) return { kind: 'unique', utcMs: asUtc - remember(cache, hour, o) * MINUTE };
+  return resolveWallMsAfresh(asUtc, zone);
+}
+
+/** `resolveWallMs` without the steady-hour memory (the cross-check test compares the two). */
+export function resolveWallMsAfresh(asUtc: number, zone: string): LocalResolution {
   const offsets = new Set([zoneOffsetMinutes(asUtc - DAY, zone), zoneOffsetMinutes(asUtc + DAY, zone)]);
   const candidates = [...offsets]
     .map((offset) => asUtc - offset * MINUTE)

@@ -194,3 +194,17 @@ describe('daily use rollup follows the readings', () => {
     expect(await dailyUse(siteId)).toEqual([]);
   });
 });
+
+describe('uploads at the same moment', () => {
+  it('when several sites send overlapping days at once (nightly scripts on one schedule), then every upload lands and each site counts only its own water', async () => {
+    const sites = await Promise.all(Array.from({ length: 6 }, () => equippedSite()));
+    // Same days at every site, different volumes, so a mixed-up daily rollup would show.
+    const file = (k: number) => header + hours(0, 24, (h) => (h < 4 ? 10 + k : 0.5));
+    const results = await Promise.all(sites.map((siteId, k) => uploadFile(manager, siteId, Buffer.from(file(k)), {}, `night-${k}.csv`)));
+    expect(results.map((r) => r.status)).toEqual(sites.map(() => 201));
+    for (const [k, siteId] of sites.entries()) {
+      const [day] = await app.db.query('SELECT gallons, reading_count AS n FROM site_daily_use WHERE site_id = ? AND local_date = ?', [siteId, '2026-11-20']);
+      expect({ gallons: Number(day.gallons), n: Number(day.n) }).toEqual({ gallons: 4 * (10 + k) + 20 * 0.5, n: 24 });
+    }
+  });
+});

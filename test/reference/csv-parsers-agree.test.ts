@@ -1,6 +1,7 @@
 /**
  * Reference check: two independent CSV parsers feed the same rows into shared/ingest and get identical results.
- * - csv-parse 7 (https://csv.js.org/parse/, the server's streaming parser), after iconv-lite decoding as the
+ * - csv-parse 7 (https://csv.js.org/parse/, the server's streaming parser behind its quote-free fast path, which
+ *   backend/src/components/uploads/domain/csv-rows.spec.ts checks against it), after iconv-lite decoding as the
  *   server does;
  * - Papa Parse 5 (https://www.papaparse.com/, the browser preview's parser), after WHATWG TextDecoder decoding
  *   as the browser does.

@@ -59,5 +59,14 @@ export const ALL_TARGETS = [INTERVAL_TARGET, RUNTIME_TARGET, REGISTER_TARGET];
 
 /** `2026-11-01T08:00:00.000Z` → `2026-11-01 08:00:00` (what a DATETIME column takes, in UTC). */
 export function sqlUtc(iso: string): string {
-  return `${iso.slice(0, 10)} ${iso.slice(11, 19)}`;
+  let sql = sqlTimes.get(iso);
+  if (sql === undefined) {
+    if (sqlTimes.size > 100_000) sqlTimes.clear();
+    sql = `${iso.slice(0, 10)} ${iso.slice(11, 19)}`;
+    sqlTimes.set(iso, sql);
+  }
+  return sql;
 }
+
+/** Remembered conversions: the readers hand out the same ISO strings again and again (see `toIso`). */
+const sqlTimes = new Map<string, string>();

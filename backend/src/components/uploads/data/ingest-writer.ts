@@ -80,13 +80,18 @@ export class IngestWriter {
   }
 
   /** One tab-separated line per record: the stage columns in order, then the file row; `\N` is NULL. */
-  async write(line: string): Promise<void> {
+  add(line: string): void {
     this.chunk += line;
     this.linesSent++;
-    if (this.chunk.length >= CHUNK_CHARS) await this.flush();
   }
 
-  private async flush(): Promise<void> {
+  /** True when enough lines wait for `flush()`. */
+  get full(): boolean {
+    return this.chunk.length >= CHUNK_CHARS;
+  }
+
+  /** Sends the waiting lines, waiting while the connection's buffers are full. */
+  async flush(): Promise<void> {
     const stream = this.stream!;
     const text = this.chunk;
     this.chunk = '';

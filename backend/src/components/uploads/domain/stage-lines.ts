@@ -4,6 +4,7 @@ import type { ColumnMapping } from '@shared/ingest/upload-kind';
 import { toGallons } from '@shared/units/volume-units';
 import { sqlUtc } from '../data/ingest-targets';
 import { zoneKey, type IngestRefs } from './ingest-refs';
+import type { IntervalSpans } from './interval-spans';
 
 /** Largest volume one interval may hold: the column is DECIMAL(12,4) gallons. */
 const MAX_GALLONS = 99_999_999;
@@ -14,13 +15,14 @@ export type StageLine = string | RowError;
  * Turns one record into a stage line (tab-separated, `\N` for NULL, file row last), or a row error for what only
  * the server can judge: a reading outside the meter's installed life, a zone the controller does not have.
  */
-export function createStageLines(mapping: ColumnMapping, refs: IngestRefs): (record: IngestRecord, row: number) => StageLine {
+export function createStageLines(mapping: ColumnMapping, refs: IngestRefs, spans?: IntervalSpans): (record: IngestRecord, row: number) => StageLine {
   const c = mapping.columns;
   const timeColumn = c.timestamp ?? c.date ?? c.start ?? null;
   const lastRead = { key: '', position: 0 };
 
   const installed = (ref: string, atIso: string, row: number): RowError | number => {
     const meter = refs.meters.get(ref)!;
+    if (meter.firstInstalledMs === null && meter.removedMs === null) return meter.id;
     const ms = Date.parse(atIso);
     if (meter.firstInstalledMs !== null && ms < meter.firstInstalledMs) {
       return rowError(mapping, row, timeColumn, `${atIso.slice(0, 16).replace('T', ' ')} UTC is before meter ${ref} was installed (${new Date(meter.firstInstalledMs).toISOString().slice(0, 10)})`);
@@ -40,7 +42,9 @@ export function createStageLines(mapping: ColumnMapping, refs: IngestRefs): (rec
         if (typeof meterId !== 'number') return meterId;
         const gallons = toGallons(r.volume, r.unit);
         if (gallons > MAX_GALLONS) return rowError(mapping, row, c.value ?? null, `${r.volume} ${r.unit} is more than one interval can hold (${MAX_GALLONS.toLocaleString('en-US')} gal)`);
-        return `${meterId}\t${sqlUtc(r.startUtc)}\t${r.minutes}\t${gallons.toFixed(4)}\t${r.volume.toFixed(6)}\t${r.unit}\t${row}\n`;
+        const start = sqlUtc(r.startUtc);
+        spans?.add(meterId, start, r.minutes);
+        return `${meterId}\t${start}\t${r.minutes}\t${gallons.toFixed(4)}\t${r.volume.toFixed(6)}\t${r.unit}\t${row}\n`;
       };
     case 'register':
       return (record, row) => {

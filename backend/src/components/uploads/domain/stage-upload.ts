@@ -8,7 +8,15 @@ import { INTERVAL_TARGET, REGISTER_TARGET, RUNTIME_TARGET, type IngestTarget } f
 import { IngestWriter } from '../data/ingest-writer';
 import { FileProblem, type CsvRows } from './csv-rows';
 import type { IngestRefs } from './ingest-refs';
+import { IntervalSpans } from './interval-spans';
 import { createStageLines } from './stage-lines';
+
+/**
+ * Imports and roll-backs run READ COMMITTED: under REPEATABLE READ the range DELETE that refreshes
+ * `site_daily_use` takes gap locks reaching into the next site's rows, and two sites' uploads at the same
+ * moment (nightly scripts on one schedule) deadlocked. Duplicate-key checks still lock, so no reading is doubled.
+ */
+export const IMPORT_ISOLATION = 'READ COMMITTED' as const;
 
 /** Rejections stored per upload; the counts stay exact beyond it. Keeps a garbage file from filling a table. */
 export const MAX_STORED_REJECTIONS = 10_000;
@@ -48,6 +56,8 @@ export interface Staged {
   staged: number;
   /** Records whose key repeats an earlier row of the same file. */
   repeats: number;
+  /** With `direct`: the spans of what was loaded, so the checks after the load need not read it back. */
+  spans?: IntervalSpans;
   rejected: number;
   rejections: RejectionDto[];
 }
@@ -64,30 +74,35 @@ const TARGETS: Record<UploadKind, IngestTarget> = {
  * errors are collected with their row, column and reason. Nothing is written to stored data here.
  */
 export async function stageUpload(qr: QueryRunner, csv: CsvRows, options: StageOptions): Promise<Staged> {
-  const rows = csv.rows[Symbol.asyncIterator]() as AsyncIterator<string[]>;
+  const batches = csv.batches[Symbol.asyncIterator]();
   const head: string[][] = [];
+  let afterHead: string[][] = [];
   while (head.length <= HEAD_ROWS) {
-    const next = await rows.next();
+    const next = await batches.next();
     if (next.done) break;
-    head.push(next.value);
+    const wanted = HEAD_ROWS + 1 - head.length;
+    head.push(...next.value.slice(0, wanted));
+    afterHead = next.value.slice(wanted);
   }
   const mapping = decideMapping(head, csv, options);
   const knownRefs = mapping.kind === 'runtime' ? options.refs.controllers : new Set(options.refs.meters.keys());
   const reader = createRowReader(mapping, { timeZone: options.timeZone, now: options.now, knownRefs });
-  const toLine = createStageLines(mapping, options.refs);
   const target = TARGETS[mapping.kind];
   const writer = new IngestWriter(qr, target);
   const direct = options.directUploadId !== undefined && target === INTERVAL_TARGET;
-  if (direct) await qr.startTransaction();
+  const spans = direct ? new IntervalSpans() : undefined;
+  const toLine = createStageLines(mapping, options.refs, spans);
+  if (direct) await qr.startTransaction(IMPORT_ISOLATION);
   await writer.open(direct ? options.directUploadId : undefined);
 
-  const staged: Staged = { direct, kind: mapping.kind, mapping, target, writer, rowsRead: 0, staged: 0, repeats: 0, rejected: 0, rejections: [] };
+  const staged: Staged = { direct, kind: mapping.kind, mapping, target, writer, rowsRead: 0, staged: 0, repeats: 0, rejected: 0, rejections: [], spans };
   const reject = (e: RowError) => {
     staged.rejected++;
     if (staged.rejections.length < MAX_STORED_REJECTIONS) staged.rejections.push({ row: e.row, column: e.column, kind: 'rejected', message: e.message });
   };
   let row = 1;
-  const handle = async (cells: string[]) => {
+  // Synchronous per row (a promise per row costs more than the row); the writer is flushed between rows.
+  const handle = (cells: string[]) => {
     row++;
     if (cells.length === 1 && cells[0]!.trim() === '') return;
     staged.rowsRead++;
@@ -97,14 +112,21 @@ export async function stageUpload(qr: QueryRunner, csv: CsvRows, options: StageO
         continue;
       }
       const line = toLine(outcome.record, row);
-      if (typeof line === 'string') await writer.write(line);
+      if (typeof line === 'string') writer.add(line);
       else reject(line);
     }
     if (staged.rowsRead % 2000 === 0) options.onProgress(staged.rowsRead);
   };
+  const handleAll = async (rows: string[][]) => {
+    for (const cells of rows) {
+      handle(cells);
+      if (writer.full) await writer.flush();
+    }
+  };
   try {
-    for (const cells of head.slice(1)) await handle(cells);
-    for (let next = await rows.next(); !next.done; next = await rows.next()) await handle(next.value);
+    await handleAll(head.slice(1));
+    await handleAll(afterHead);
+    for (let next = await batches.next(); !next.done; next = await batches.next()) await handleAll(next.value);
     staged.staged = await writer.finish();
   } catch (err) {
     writer.abort(err as Error);

@@ -18,9 +18,9 @@ import type { UploadRecord, UploadsRepository } from '../data/uploads-repository
 import { conflictRejections } from './conflict-messages';
 import { openCsvRows } from './csv-rows';
 import { ingestRefsFrom } from './ingest-refs-from';
-import { withdrawLengthOverlaps } from './interval-overlaps';
+import { OVERLAP_MAX_MINUTES, withdrawLengthOverlaps } from './interval-overlaps';
 import { deriveRegisterVolumes } from './register-volumes';
-import { stageUpload, type Staged } from './stage-upload';
+import { IMPORT_ISOLATION, stageUpload, type Staged } from './stage-upload';
 import { RowsRefused, TooLarge, toUploadError } from './upload-errors';
 
 export interface IngestRequest {
@@ -123,12 +123,13 @@ export class UploadsService {
       const stagedAt = Date.now();
       let merged: MergeOutcome = { accepted: staged.staged, duplicate: 0, conflicting: 0, replaced: 0, conflicts: [] };
       if (!staged.direct) {
-        await qr.startTransaction();
+        await qr.startTransaction(IMPORT_ISOLATION);
         merged = await staged.writer.merge(uploadId, replaceConflicts);
       }
       const rejections: RejectionDto[] = [...staged.rejections, ...conflictRejections(staged.target, merged, refs, replaceConflicts)];
       if (staged.target === INTERVAL_TARGET && merged.accepted > 0) {
-        const overlaps = await withdrawLengthOverlaps(qr, uploadId, refs);
+        // After a direct load every line sent was stored: the spans collected while sending are exact.
+        const overlaps = await withdrawLengthOverlaps(qr, uploadId, refs, staged.direct ? staged.spans?.meterSpans(OVERLAP_MAX_MINUTES) : undefined);
         merged = { ...merged, accepted: merged.accepted - overlaps.withdrawn, conflicting: merged.conflicting + overlaps.withdrawn };
         rejections.push(...overlaps.rejections);
       }
@@ -140,7 +141,8 @@ export class UploadsService {
       }
       const counts = { rowsRead: staged.rowsRead, accepted: merged.accepted, duplicate: merged.duplicate, conflicting: merged.conflicting, replaced: merged.replaced, rejected };
       // The daily rollup moves with the readings, in the same transaction.
-      const span = await this.dailyUse.uploadSpan(qr.manager, uploadId);
+      // (A direct load's span may include readings withdrawn above; refreshing those days again changes nothing.)
+      const span = staged.direct && staged.spans ? staged.spans.overall() : await this.dailyUse.uploadSpan(qr.manager, uploadId);
       if (span) await this.dailyUse.refresh(qr.manager, siteId, span.from, span.to);
       await this.repo.insertRejections(qr.manager, uploadId, rejections);
       await this.repo.finish(qr.manager, uploadId, { ...counts, status: 'done', kind: staged.kind, sizeBytes: size, sha256, storageKey, mapping: staged.mapping, errorSummary: null });
@@ -207,7 +209,7 @@ export class UploadsService {
   async rollBack(principal: Principal, uploadId: number): Promise<{ upload: UploadDto; removed: number }> {
     const upload = await this.load(principal, uploadId, 'contribute');
     if (upload.status !== 'done') throw new AppError('conflict', `Upload #${uploadId} is ${upload.status}; only a finished upload can be rolled back.`);
-    const removed = await this.db.transaction(async (em) => {
+    const removed = await this.db.transaction(IMPORT_ISOLATION, async (em) => {
       const span = await this.dailyUse.uploadSpan(em, uploadId);
       const n = await this.repo.rollBack(em, uploadId);
       if (span) await this.dailyUse.refresh(em, upload.siteId, span.from, span.to);
