@@ -39,7 +39,8 @@ describe('demo site budget in the browser', () => {
       await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
       await page.goto(`${server.url}/sites`);
       await page.getByRole('link', { name: 'Willowmere HOA — North Commons' }).click();
-      await page.getByRole('link', { name: 'Water budget' }).click();
+      // The site's pages are tabs of its workspace.
+      await page.getByRole('tab', { name: 'Water budget', exact: true }).click();
       const table = page.getByRole('table', { name: 'Monthly budget' });
       await table.locator('tbody tr').first().waitFor();
       expect(await table.locator('tbody tr.mat-mdc-row:not(.detail-row)').count()).toBe(12);

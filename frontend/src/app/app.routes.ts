@@ -27,12 +27,12 @@ export const routes: Routes = [
     children: [
       { path: '', pathMatch: 'full', redirectTo: 'portfolio' },
       { path: 'portfolio', title: 'Portfolio · Rillmark', loadComponent: () => import('./portfolio/portfolio-page/portfolio-page').then((m) => m.PortfolioPage) },
-      { path: 'sites/:id/overview', loadChildren: () => import('./site-overview/site-overview.routes').then((m) => m.siteOverviewRoutes) },
       { path: 'sites', loadChildren: () => import('./sites/sites.routes').then((m) => m.sitesRoutes) },
       { path: 'uploads', loadChildren: () => import('./uploads/uploads.routes').then((m) => m.uploadsRoutes) },
       { path: 'alerts', loadChildren: () => import('./alerts/alerts.routes').then((m) => m.alertsRoutes) },
       { path: 'weather-stations', loadChildren: () => import('./weather/weather.routes').then((m) => m.weatherRoutes) },
       { path: 'reports', loadChildren: () => import('./reports/reports.routes').then((m) => m.reportsRoutes) },
+      { path: 'settings', loadChildren: () => import('./settings/settings.routes').then((m) => m.settingsRoutes) },
       {
         path: 'admin/users',
         title: 'Users · Rillmark',

@@ -4,21 +4,19 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, RouterLink } from '@angular/router';
-import { addMonths, monthsBetween, resolvePeriod } from '@shared/portfolio/period';
+import { monthsBetween, resolvePeriod } from '@shared/portfolio/period';
 import { PORTFOLIO_PERIODS, type PortfolioPeriod } from '@shared/portfolio/portfolio-dto';
 import { formatVolume } from '@shared/units/format-quantity';
 import { describeApiError } from '../core/http/api-error';
 import { lastCompleteMonth, PeriodPicker, type PeriodValue } from '../portfolio/period-picker/period-picker';
-import { dataAge } from '../portfolio/sites-table/data-age';
 import { DailyChart } from './daily-chart/daily-chart';
 import { FlowGrid } from './flow-grid/flow-grid';
-import { MonthlyTable } from './monthly-table/monthly-table';
 import { SiteOverviewApi } from './site-overview-api';
 
-/** One site at a glance: key figures, daily use against budget, the hour-by-day flow grid and the monthly table. */
+/** `/sites/:id/overview`: a period's key figures, daily use against budget and the hour-by-day flow grid. */
 @Component({
   selector: 'rm-site-overview',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, PeriodPicker, DailyChart, FlowGrid, MonthlyTable],
+  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, PeriodPicker, DailyChart, FlowGrid],
   templateUrl: './site-overview.html',
   styleUrl: './site-overview.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -32,18 +30,12 @@ export class SiteOverview {
   /** The grid shows one month; it follows the period's last month until the user picks another. */
   protected readonly gridMonth = linkedSignal(() => this.period().to.slice(0, 7));
   protected readonly gridMonths = computed(() => monthsBetween(this.period().from, this.period().to));
-  private readonly tableTo = computed(() => this.period().to.slice(0, 7));
-  private readonly tableFrom = computed(() => addMonths(this.tableTo(), -11));
 
   protected readonly overview = rxResource({ params: () => this.period(), stream: ({ params }) => this.api.overview(this.siteId, params.from, params.to) });
   protected readonly grid = rxResource({ params: () => this.gridMonth(), stream: ({ params }) => this.api.hourlyGrid(this.siteId, params) });
-  protected readonly monthly = rxResource({ params: () => [this.tableFrom(), this.tableTo()] as const, stream: ({ params }) => this.api.monthly(this.siteId, params[0], params[1]) });
 
-  protected readonly csvUrl = computed(() => this.api.monthlyCsvUrl(this.siteId, this.tableFrom(), this.tableTo()));
-  protected readonly now = Date.now();
   protected readonly overviewError = computed(() => errorOf(this.overview.error(), 'The overview could not be loaded.'));
   protected readonly gridError = computed(() => errorOf(this.grid.error(), 'The flow grid could not be loaded.'));
-  protected readonly monthlyError = computed(() => errorOf(this.monthly.error(), 'The monthly table could not be loaded.'));
   protected readonly gridHasData = computed(() => (this.grid.hasValue() ? this.grid.value().days.some((d) => d.hours.some((h) => h !== null)) : false));
 
   protected gallons(value: number | null): string {
@@ -52,10 +44,6 @@ export class SiteOverview {
 
   protected percent(value: number | null): string {
     return value === null ? 'no budget' : `${Math.round(value).toLocaleString('en-US')} %`;
-  }
-
-  protected age(iso: string | null): string {
-    return dataAge(iso, this.now);
   }
 
   protected choosePeriod(value: PeriodValue): void {

@@ -44,7 +44,16 @@ const zoneBody = z.strictObject({
 });
 const controllerBody = z.strictObject({ ref, name: z.string().trim().min(1, 'is required').max(120), zones: z.array(zoneBody).max(200).optional() });
 const meterParams = z.object({ id: z.coerce.number().int().positive(), meterId: z.coerce.number().int().positive() });
+const zonePatch = z.strictObject({
+  station: zoneBody.shape.station,
+  name: zoneBody.shape.name,
+  hydrozoneId: z.number().int().positive().nullable(),
+  designGpm: z.number().positive().nullable(),
+  emitterCount: z.number().int().positive().nullable(),
+  emitterGph: z.number().positive().nullable(),
+}).partial();
 const controllerParams = z.object({ id: z.coerce.number().int().positive(), controllerId: z.coerce.number().int().positive() });
+const zoneParams = controllerParams.extend({ zoneId: z.coerce.number().int().positive() });
 
 /** /api/sites/:id/meters and /api/sites/:id/controllers */
 export function metersRouter(meters: MetersService): Router {
@@ -75,6 +84,10 @@ export function metersRouter(meters: MetersService): Router {
   router.post('/sites/:id/controllers/:controllerId/zones', async (req, res) => {
     const { id, controllerId } = validate(controllerParams, req.params);
     res.status(201).json(await meters.addZone(principalOf(req), id, controllerId, validate(zoneBody, req.body, 'Zone')));
+  });
+  router.patch('/sites/:id/controllers/:controllerId/zones/:zoneId', async (req, res) => {
+    const { id, controllerId, zoneId } = validate(zoneParams, req.params);
+    res.json(await meters.updateZone(principalOf(req), id, controllerId, zoneId, validate(zonePatch, req.body, 'Zone')));
   });
 
   return router;

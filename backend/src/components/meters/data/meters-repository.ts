@@ -98,12 +98,28 @@ export class MetersRepository {
     return (await this.db.getRepository(ControllerEntity).findOneBy({ id: controllerId }))?.siteId ?? null;
   }
 
+  /** Which of these hydrozone ids belong to the site (a zone may only link to its own site's hydrozones). */
+  async hydrozonesOfSite(siteId: number, hydrozoneIds: number[]): Promise<Set<number>> {
+    if (!hydrozoneIds.length) return new Set();
+    const rows: { id: number }[] = await this.db.query('SELECT id FROM hydrozone WHERE site_id = ? AND id IN (?)', [siteId, hydrozoneIds]);
+    return new Set(rows.map((r) => Number(r.id)));
+  }
+
   async insertController(em: EntityManager, siteId: number, ref: string, name: string): Promise<number> {
     return Number((await em.getRepository(ControllerEntity).insert({ siteId, ref, name })).identifiers[0]!['id']);
   }
 
-  async stationTaken(controllerId: number, station: string): Promise<boolean> {
-    return !!(await this.db.getRepository(ZoneEntity).findOneBy({ controllerId, station }));
+  async stationTaken(controllerId: number, station: string, exceptZoneId?: number): Promise<boolean> {
+    const zone = await this.db.getRepository(ZoneEntity).findOneBy({ controllerId, station });
+    return !!zone && zone.id !== exceptZoneId;
+  }
+
+  async zoneController(zoneId: number): Promise<number | null> {
+    return (await this.db.getRepository(ZoneEntity).findOneBy({ id: zoneId }))?.controllerId ?? null;
+  }
+
+  async updateZone(em: EntityManager, zoneId: number, patch: Partial<ZoneInput>): Promise<void> {
+    if (Object.keys(patch).length) await em.getRepository(ZoneEntity).update({ id: zoneId }, patch);
   }
 
   async insertZone(em: EntityManager, controllerId: number, input: ZoneInput): Promise<number> {

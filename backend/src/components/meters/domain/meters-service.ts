@@ -68,6 +68,7 @@ export class MetersService {
     if (await this.repo.refTaken('controller', siteId, input.ref)) throw refTaken('controller', input.ref);
     const stations = (input.zones ?? []).map((z) => z.station);
     if (new Set(stations).size !== stations.length) throw AppError.invalid('zones', 'two zones have the same station');
+    await this.assertOwnHydrozones(siteId, (input.zones ?? []).map((z) => z.hydrozoneId));
     const id = await this.db.transaction(async (em) => {
       const controllerId = await this.repo.insertController(em, siteId, input.ref, input.name);
       for (const zone of input.zones ?? []) await this.repo.insertZone(em, controllerId, zone);
@@ -80,13 +81,39 @@ export class MetersService {
   async addZone(principal: Principal, siteId: number, controllerId: number, input: ZoneInput): Promise<ControllerDto> {
     const site = await this.sites.requireLevel(principal, siteId, 'contribute');
     if ((await this.repo.controllerSite(controllerId)) !== siteId) throw AppError.notFound('Controller');
-    if (await this.repo.stationTaken(controllerId, input.station)) throw new AppError('conflict', `Station "${input.station}" already exists on this controller.`, [{ field: 'station', message: 'is already used' }]);
+    if (await this.repo.stationTaken(controllerId, input.station)) throw stationTaken(input.station);
+    await this.assertOwnHydrozones(siteId, [input.hydrozoneId]);
     await this.db.transaction(async (em) => {
       const zoneId = await this.repo.insertZone(em, controllerId, input);
       await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'zone', entityId: zoneId, action: 'create', changes: input });
     });
     return (await this.repo.controllers(siteId)).find((c) => c.id === controllerId)!;
   }
+
+  /** A zone links only to a hydrozone of its own site; any other id (another site's, or none) is refused alike. */
+  private async assertOwnHydrozones(siteId: number, ids: (number | null | undefined)[]): Promise<void> {
+    const wanted = [...new Set(ids.filter((id): id is number => typeof id === 'number'))];
+    const own = await this.repo.hydrozonesOfSite(siteId, wanted);
+    if (wanted.some((id) => !own.has(id))) throw AppError.invalid('hydrozoneId', 'is not a hydrozone of this site');
+  }
+
+  /** Renames, renumbers or relinks one zone (e.g. to the hydrozone it waters); answers with its controller. */
+  async updateZone(principal: Principal, siteId: number, controllerId: number, zoneId: number, patch: Partial<ZoneInput>): Promise<ControllerDto> {
+    const site = await this.sites.requireLevel(principal, siteId, 'contribute');
+    if ((await this.repo.controllerSite(controllerId)) !== siteId) throw AppError.notFound('Controller');
+    if ((await this.repo.zoneController(zoneId)) !== controllerId) throw AppError.notFound('Zone');
+    if (patch.station !== undefined && (await this.repo.stationTaken(controllerId, patch.station, zoneId))) throw stationTaken(patch.station);
+    await this.assertOwnHydrozones(siteId, [patch.hydrozoneId]);
+    await this.db.transaction(async (em) => {
+      await this.repo.updateZone(em, zoneId, patch);
+      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'zone', entityId: zoneId, action: 'update', changes: patch });
+    });
+    return (await this.repo.controllers(siteId)).find((c) => c.id === controllerId)!;
+  }
+}
+
+function stationTaken(station: string): AppError {
+  return new AppError('conflict', `Station "${station}" already exists on this controller.`, [{ field: 'station', message: 'is already used' }]);
 }
 
 function refTaken(what: string, ref: string): AppError {

@@ -6,22 +6,21 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { MatSortModule, Sort } from '@angular/material/sort';
-import { MatTableModule } from '@angular/material/table';
+import type { Sort } from '@angular/material/sort';
 import { RouterLink } from '@angular/router';
 import type { Page } from '@shared/api/page';
-import { ALERT_STATUSES, KIND_LABELS, SEVERITY_LABELS, SUB_KIND_LABELS, type AlertSort, type AlertStatus, type AlertSummaryDto } from '@shared/alerts/alert-dto';
+import { ALERT_STATUSES, KIND_LABELS, type AlertSort, type AlertStatus, type AlertSummaryDto } from '@shared/alerts/alert-dto';
 import { FINDING_KINDS, type FindingKind } from '@shared/alerts/finding';
 import { AuthStore } from '../../core/auth/auth-store';
 import { describeApiError } from '../../core/http/api-error';
 import { SitesApi } from '../../sites/sites-api';
+import { AlertTable } from '../alert-table/alert-table';
 import { AlertsApi, type AlertQuery } from '../alerts-api';
-import { gallons, money, siteTime } from '../site-time';
 
 /** Every alert on the sites the user can see, as a server-side filtered, sorted and paged table. */
 @Component({
   selector: 'rm-alert-inbox',
-  imports: [RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatProgressBarModule, MatFormFieldModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [RouterLink, AlertTable, MatPaginatorModule, MatProgressBarModule, MatFormFieldModule, MatSelectModule, MatButtonModule, MatIconModule],
   templateUrl: './alert-inbox.html',
   styleUrl: './alert-inbox.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -35,12 +34,6 @@ export class AlertInbox {
   protected readonly kinds = FINDING_KINDS;
   protected readonly statuses = ALERT_STATUSES;
   protected readonly kindLabels: Record<string, string> = KIND_LABELS;
-  protected readonly subKindLabels: Record<string, string> = SUB_KIND_LABELS;
-  protected readonly severityLabels: Record<string, string> = SEVERITY_LABELS;
-  protected readonly columns = ['severity', 'kind', 'siteName', 'period', 'waterLost', 'moneyLost', 'status'];
-  protected readonly siteTime = siteTime;
-  protected readonly gallons = gallons;
-  protected readonly money = money;
 
   // Everything the request depends on; the table's events only set these.
   protected readonly status = signal<AlertStatus | ''>('open');

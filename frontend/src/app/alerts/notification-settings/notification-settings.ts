@@ -36,7 +36,7 @@ import { AlertsApi } from '../alerts-api';
       @if (saved()) { <p role="status">Saved.</p> }
     }
   `,
-  styles: `mat-radio-group { display: flex; flex-direction: column; gap: 4px; } .sites { list-style: none; padding: 0; } .error { color: #a3261b; }`,
+  styles: `h1 { font: var(--mat-sys-headline-small); margin: 0 0 12px; } h2 { font: var(--mat-sys-title-medium); margin: 16px 0 4px; } mat-radio-group { display: flex; flex-direction: column; gap: 4px; } mat-checkbox { display: block; margin-bottom: 12px; } .sites { list-style: none; padding: 0; } .error { color: #a3261b; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class NotificationSettings {

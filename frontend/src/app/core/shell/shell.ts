@@ -63,6 +63,8 @@ export class Shell {
     links.push({ path: '/alerts', label: 'Alerts', icon: 'notifications_active' });
     if (can.manageUsers) links.push({ path: '/admin/users', label: 'Users', icon: 'group' });
     if (can.viewOutbox) links.push({ path: '/admin/outbox', label: 'Outbox', icon: 'outgoing_mail' });
+    // Everyone has a settings page: units (read-only unless admin) and their own alert e-mail.
+    links.push({ path: '/settings', label: 'Settings', icon: 'settings' });
     return links;
   });
 

@@ -11,7 +11,6 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { RouterLink } from '@angular/router';
 import { atLeast } from '@shared/auth/roles';
 import { SPECIAL_LANDSCAPE_KIND_LABELS, type HydrozoneDto } from '@shared/hydrozones/hydrozone-dto';
 import { firstValueFrom } from 'rxjs';
@@ -33,7 +32,7 @@ function previousMonth(): string {
 @Component({
   selector: 'rm-hydrozone-list',
   imports: [
-    DecimalPipe, RouterLink, MatTableModule, MatButtonModule, MatIconModule, MatProgressBarModule, MatTooltipModule,
+    DecimalPipe, MatTableModule, MatButtonModule, MatIconModule, MatProgressBarModule, MatTooltipModule,
     MatFormFieldModule, MatInputModule, MatSelectModule, RunTimeAdvice,
   ],
   templateUrl: './hydrozone-list.html',

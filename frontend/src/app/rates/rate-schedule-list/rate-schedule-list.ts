@@ -6,7 +6,6 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
-import { RouterLink } from '@angular/router';
 import { atLeast } from '@shared/auth/roles';
 import type { RateScheduleDto } from '@shared/rates/rate-schedule-dto';
 import { firstValueFrom } from 'rxjs';
@@ -19,7 +18,7 @@ import { RatesApi } from '../rates-api';
 /** `/sites/:id/rates`: the site's water rate schedules; each applies from its date until the next starts. */
 @Component({
   selector: 'rm-rate-schedule-list',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule],
   templateUrl: './rate-schedule-list.html',
   styles: `table { width: 100%; } .actions { text-align: right; white-space: nowrap; } td.mat-cell { padding-top: 8px; padding-bottom: 8px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,

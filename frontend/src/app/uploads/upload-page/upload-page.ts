@@ -10,6 +10,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
+import { ActivatedRoute } from '@angular/router';
 import type { IngestRecord } from '@shared/ingest/ingest-records';
 import { validateMapping } from '@shared/ingest/mapping-validation';
 import { interpretRows, type Interpretation } from '@shared/ingest/row-reader';
@@ -82,9 +83,12 @@ export class UploadPage {
   protected readonly unitLabels = VOLUME_UNIT_LABELS;
 
   constructor() {
+    // A site's workspace links here with ?site=<id> so the file goes to that site.
+    const wanted = Number(inject(ActivatedRoute).snapshot.queryParamMap.get('site'));
     this.sitesApi.list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }).subscribe((page) => {
       this.sites.set(page.items);
-      if (page.items.length && this.siteId() === null) this.chooseSite(page.items[0]!.id);
+      const first = page.items.find((s) => s.id === wanted) ?? page.items[0];
+      if (first && this.siteId() === null) this.chooseSite(first.id);
     });
     this.api.profiles().subscribe((p) => this.profiles.set(p));
     inject(DestroyRef).onDestroy(() => this.polling?.unsubscribe());
