@@ -143,6 +143,7 @@ const targets = [
   { name: 'portfolio (month, 1,000 sites, sorted by % of budget)', path: '/api/portfolio?period=month&from=2025-06-01&sort=percentOfBudget&dir=desc' },
   { name: 'site overview (30 days)', path: `/api/sites/${siteIds[500]}/overview?from=2025-06-01&to=2025-06-30` },
   { name: 'site hourly grid (1 month)', path: `/api/sites/${siteIds[500]}/hourly-grid?month=2025-06` },
+  { name: 'site monthly table (12 months)', path: `/api/sites/${siteIds[500]}/monthly?from=2024-07&to=2025-06` },
   // Not the dashboard's: the existing sites list, as this machine's ceiling for any signed-in request.
   { name: 'reference: sites list (25 rows)', path: '/api/sites?pageSize=25' },
 ];
