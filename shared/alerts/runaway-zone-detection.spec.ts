@@ -24,6 +24,14 @@ describe('detectLongRuns', () => {
     expect(f!.waterLostGal).toBeCloseTo(295, 6);
   });
 
+  it('names the zone as people know it (station and name) when the label is known', () => {
+    const runs = [...Array.from({ length: 12 }, (_, d) => program(d, 10 + (d % 2), 15, 20)).flat(), ...program(12, 40, 15, 20)];
+    const zones = testZones.map((z) => (z.zoneId === 'A' ? { ...z, label: 'Station 1 “Front lawn”' } : z));
+    const [f] = detectLongRuns(runs, testContext({}, {}, zones));
+    expect(f!.explanation).toMatch(/^Station 1 “Front lawn” ran up to 40 minutes/);
+    expect(f!.series[0]!.label).toBe('Station 1 “Front lawn” run length, minutes');
+  });
+
   it('does not flag the whole program growing together (a hot week or a raised seasonal %)', () => {
     const runs = [...Array.from({ length: 12 }, (_, d) => program(d, 10, 15, 20)).flat(), ...program(12, 17, 26, 34)];
     expect(detectLongRuns(runs, testContext())).toEqual([]);
@@ -55,7 +63,7 @@ describe('detectOpenValve', () => {
     expect(rest).toEqual([]);
     expect(f).toMatchObject({ subKind: 'open-valve', periodStartUtc: T0 + 2 * HOUR_MS, periodEndUtc: T0 + 5 * HOUR_MS });
     expect(f!.evidence['limitGph']).toBe(240);
-    expect(f!.explanation).toMatch(/zone C/); // 480 gal/h = 8 gpm
+    expect(f!.explanation).toMatch(/close to Zone C's flow/); // 480 gal/h = 8 gpm
   });
 
   it('does not flag the same flow outside the window, below the limit, or while a zone runs', () => {

@@ -8,7 +8,7 @@ import { completeFinding, type Finding } from './finding';
 import { groupConsecutive, itemAtCount, type TimelineHour } from './hour-timeline';
 import { median, robustUpperLimit } from './robust-statistics';
 import { HOUR_MS, inLocalWindow, localHourOf } from './site-clock';
-import { runWatered, type WatchContext, type ZoneRun } from './watch-inputs';
+import { runWatered, zoneName, type WatchContext, type ZoneRun } from './watch-inputs';
 
 const gal = (v: number) => formatVolume(v, 'gal');
 
@@ -101,9 +101,9 @@ export function detectLongRuns(runs: readonly ZoneRun[], ctx: WatchContext): Fin
             detectedAtUtc: first.run.startUtc + first.run.minutes * 60_000,
             ongoing: last.run === lastRun,
             evidence: { longRuns: episode.length, longestMinutes: longest, usualMinutes: usual, extraMinutes, designGpm: zone.designGpm },
-            series: [{ label: `Zone ${zone.zoneId} run length, minutes`, unit: 'min', points: shown.map((r) => ({ atUtc: r.startUtc, value: r.minutes })) }],
+            series: [{ label: `${zoneName(ctx.zones, zone.zoneId)} run length, minutes`, unit: 'min', points: shown.map((r) => ({ atUtc: r.startUtc, value: r.minutes })) }],
             waterLostGal: lost,
-            explanation: `Zone ${zone.zoneId} ran up to ${longest} minutes where it usually runs ${Math.round(usual)}, ${episode.length} time${episode.length === 1 ? '' : 's'}, about ${gal(lost)} extra: check the program, the seasonal adjustment and the valve.`,
+            explanation: `${zoneName(ctx.zones, zone.zoneId)} ran up to ${longest} minutes where it usually runs ${Math.round(usual)}, ${episode.length} time${episode.length === 1 ? '' : 's'}, about ${gal(lost)} extra: check the program, the seasonal adjustment and the valve.`,
             pricingMonth: localHourOf(first.run.startUtc, ctx.site.timeZone).month,
           },
           ctx.site,
@@ -154,7 +154,7 @@ export function detectOpenValve(timeline: readonly TimelineHour[], ctx: WatchCon
           },
         ],
         waterLostGal: lost,
-        explanation: `Water flowed at about ${gal(rateGph)} an hour in the watering window while the controller ran no zone${likely ? ` (close to zone ${likely.zoneId}'s flow)` : ''}: a valve is probably stuck open, about ${gal(lost)} so far.`,
+        explanation: `Water flowed at about ${gal(rateGph)} an hour in the watering window while the controller ran no zone${likely ? ` (close to ${zoneName(ctx.zones, likely.zoneId)}'s flow)` : ''}: a valve is probably stuck open, about ${gal(lost)} so far.`,
         pricingMonth: episode[0]!.local.month,
       },
       ctx.site,

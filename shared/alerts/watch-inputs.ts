@@ -29,6 +29,8 @@ export interface ZoneRun {
 export interface ZoneFacts {
   zoneId: string;
   designGpm: number;
+  /** How people know the zone, e.g. `Station 4 “Front beds”`; alert texts fall back to `Zone <id>`. */
+  label?: string;
   /** The programmed minutes, when known; lets the watch compare a run with its schedule as well as its history. */
   scheduledMinutes?: number;
 }
@@ -74,4 +76,9 @@ export interface WatchContext {
   zones: readonly ZoneFacts[];
   thresholds: AlertThresholds;
   asOfUtc: number;
+}
+
+/** The zone as alert texts name it: its label when known, else `Zone <id>`. */
+export function zoneName(zones: readonly ZoneFacts[], zoneId: string): string {
+  return zones.find((z) => z.zoneId === zoneId)?.label ?? `Zone ${zoneId}`;
 }

@@ -9,7 +9,7 @@ import { completeFinding, type Finding, type FindingDraft } from './finding';
 import { groupConsecutive, itemAtCount, type TimelineHour } from './hour-timeline';
 import { median } from './robust-statistics';
 import { localHourOf } from './site-clock';
-import { runWatered, type WatchContext, type ZoneRun } from './watch-inputs';
+import { runWatered, zoneName, type WatchContext, type ZoneRun } from './watch-inputs';
 
 interface RunCheck {
   runIndex: number;
@@ -121,11 +121,11 @@ export function detectOverVolume(timeline: readonly TimelineHour[], runs: readon
         ongoing: episode[episode.length - 1]!.runIndex === lastIndex,
         evidence: { heavyRuns: episode.length, medianRatio: ratio, designGpm: gpm.get(zoneId) ?? 0, extraGal: lost },
         series: [
-          { label: `Zone ${zoneId} measured per run, gallons`, unit: 'gal', points: recent.map((c) => ({ atUtc: at(c), value: c.measuredGal })) },
-          { label: `Zone ${zoneId} design flow × minutes, gallons`, unit: 'gal', points: recent.map((c) => ({ atUtc: at(c), value: c.expectedGal })) },
+          { label: `${zoneName(ctx.zones, zoneId)} measured per run, gallons`, unit: 'gal', points: recent.map((c) => ({ atUtc: at(c), value: c.measuredGal })) },
+          { label: `${zoneName(ctx.zones, zoneId)} design flow × minutes, gallons`, unit: 'gal', points: recent.map((c) => ({ atUtc: at(c), value: c.expectedGal })) },
         ],
         waterLostGal: lost,
-        explanation: `Zone ${zoneId} used ${ratio.toFixed(1)} times its design flow on ${episode.length} runs in a row, about ${formatVolume(lost, 'gal')} extra: look for a broken pipe, a missing nozzle or a split drip line.`,
+        explanation: `${zoneName(ctx.zones, zoneId)} used ${ratio.toFixed(1)} times its design flow on ${episode.length} runs in a row, about ${formatVolume(lost, 'gal')} extra: look for a broken pipe, a missing nozzle or a split drip line.`,
         pricingMonth: localHourOf(firstRun.startUtc, ctx.site.timeZone).month,
       });
     }

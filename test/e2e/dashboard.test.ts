@@ -125,8 +125,26 @@ describe('dashboard in the browser', () => {
       // The export link points at the CSV of the same table.
       const href = await page.getByRole('link', { name: 'Export CSV' }).getAttribute('href');
       expect(href).toMatch(new RegExp(`/api/sites/${siteId}/monthly\\?from=\\d{4}-\\d{2}&to=${MONTH}&format=csv`));
+
+      // Why: the site's open alerts, then one alert's evidence (from the inbox when this site has none open).
+      const alertsTab = page.getByRole('tab', { name: 'Alerts', exact: true });
+      await alertsTab.focus(); // at phone width the tab bar scrolls a focused tab into view; Enter then opens it
+      await page.keyboard.press('Enter');
+      await page.waitForURL(new RegExp(`/sites/${siteId}/alerts$`));
+      await page.locator('table[aria-label="Alerts at this site"]').waitFor();
+      await page.locator('rm-site-alerts mat-progress-bar').waitFor({ state: 'detached' });
+      let alertLink = page.locator('table[aria-label="Alerts at this site"] tbody a[href^="/alerts/"]').first();
+      if (!(await alertLink.count())) {
+        await page.goto(new URL('/alerts', page.url()).href);
+        alertLink = page.locator('tbody a[href^="/alerts/"]').first();
+        await alertLink.waitFor();
+      }
+      await alertLink.click();
+      await page.getByRole('heading', { name: 'Evidence' }).waitFor();
+      await page.waitForTimeout(600);
+      await screenshot(page, `dashboard-${tag}-alert-${width}`);
     });
-  }, 120_000);
+  }, 150_000);
 
   it('a manager opens a site from the portfolio and goes through every tab of its workspace', async () => {
     const manager = DEMO_USERS.find((u) => u.role === 'manager')!;

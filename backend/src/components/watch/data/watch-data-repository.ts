@@ -85,9 +85,9 @@ export class WatchDataRepository {
   }
 
   async zones(siteId: number): Promise<ZoneFacts[]> {
-    const rows: { id: number; design_gpm: number | null }[] = await this.db.query(
-      'SELECT z.id, z.design_gpm FROM zone z JOIN controller c ON c.id = z.controller_id WHERE c.site_id = ? ORDER BY z.id', [siteId]);
-    return rows.map((r) => ({ zoneId: String(r.id), designGpm: r.design_gpm ?? 0 }));
+    const rows: { id: number; design_gpm: number | null; station: string; name: string }[] = await this.db.query(
+      'SELECT z.id, z.design_gpm, z.station, z.name FROM zone z JOIN controller c ON c.id = z.controller_id WHERE c.site_id = ? ORDER BY z.id', [siteId]);
+    return rows.map((r) => ({ zoneId: String(r.id), designGpm: r.design_gpm ?? 0, label: zoneLabel(r.station, r.name) }));
   }
 
   async runs(siteId: number, fromUtc: Date, toUtc: Date): Promise<ZoneRun[]> {
@@ -114,4 +114,10 @@ export class WatchDataRepository {
        ON DUPLICATE KEY UPDATE last_data_utc = VALUES(last_data_utc), last_checked_as_of_utc = VALUES(last_checked_as_of_utc),
        last_night = COALESCE(VALUES(last_night), last_night)`, [siteId, lastDataUtc, asOfUtc, lastNight]);
   }
+}
+
+/** `Station 4 “Front beds”`; just `Station 4` when the zone has no name of its own (or is named after its station). */
+export function zoneLabel(station: string, name: string): string {
+  const plain = `Station ${station}`;
+  return !name.trim() || name.trim().toLowerCase() === plain.toLowerCase() ? plain : `${plain} “${name.trim()}”`;
 }

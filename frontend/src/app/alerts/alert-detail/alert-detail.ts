@@ -17,6 +17,7 @@ import { gallons, money, siteTime } from '../site-time';
 /** One alert: what the watch saw (chart and numbers), in plain words, what it cost, and who did what about it. */
 @Component({
   selector: 'rm-alert-detail',
+  host: { class: 'rm-page' },
   imports: [RouterLink, FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatIconModule, MatProgressBarModule, EvidenceChart],
   templateUrl: './alert-detail.html',
   styleUrl: './alert-detail.scss',

@@ -20,6 +20,7 @@ import { AlertsApi, type AlertQuery } from '../alerts-api';
 /** Every alert on the sites the user can see, as a server-side filtered, sorted and paged table. */
 @Component({
   selector: 'rm-alert-inbox',
+  host: { class: 'rm-page' },
   imports: [RouterLink, AlertTable, MatPaginatorModule, MatProgressBarModule, MatFormFieldModule, MatSelectModule, MatButtonModule, MatIconModule],
   templateUrl: './alert-inbox.html',
   styleUrl: './alert-inbox.scss',

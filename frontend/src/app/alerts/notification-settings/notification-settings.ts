@@ -12,6 +12,7 @@ import { AlertsApi } from '../alerts-api';
 /** The signed-in user's alert e-mail: how often, and for which sites. */
 @Component({
   selector: 'rm-notification-settings',
+  host: { class: 'rm-page' },
   imports: [MatRadioModule, MatCheckboxModule, MatButtonModule, MatProgressBarModule],
   template: `
     <h1>Alert e-mail</h1>

@@ -12,6 +12,7 @@ import { AlertsApi } from '../alerts-api';
 /** Administrators: the watch's run history, "run now", and a re-check of a date range. */
 @Component({
   selector: 'rm-watch-runs',
+  host: { class: 'rm-page' },
   imports: [DatePipe, MatTableModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule],
   template: `
     <h1>Watch runs</h1>

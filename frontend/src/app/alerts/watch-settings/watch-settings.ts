@@ -11,6 +11,7 @@ import { AlertsApi } from '../alerts-api';
 /** A site's watch thresholds, each with what it does in plain words; editable at 'edit' level. */
 @Component({
   selector: 'rm-watch-settings',
+  host: { class: 'rm-page' },
   imports: [MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule],
   template: `
     <h1>Watch settings</h1>
