@@ -30,6 +30,15 @@ describe('detectOverspend', () => {
     expect(projected!.evidence['projectedExtraCost']).toBe(36);
   });
 
+  it('says a month came back under the alert line instead of calling it over by 0 gal', () => {
+    // 1,300 gal/day for 10 days (13,000 vs 10,000 prorated: flagged), then 600 a day for 10: 19,000 vs 20,000 (95 %).
+    const findings = detectOverspend(june(20, (d) => (d < 10 ? 1300 : 600)), testContext());
+    const toDate = findings.find((f) => f.subKind === 'month-to-date')!;
+    expect(toDate).toMatchObject({ ongoing: false, waterLostGal: 0 });
+    expect(toDate.explanation).toMatch(/^Over its budget so far on \d+ days? \(first on 2026-06-\d\d\); by 2026-06-20 19,000 gal against 20,000 gal .*\(95 %\), under the alert line again\.$/);
+    expect(toDate.explanation).not.toMatch(/by 0 gal/);
+  });
+
   it('projects from the recent pace, so a late surge shows before the month-to-date total catches up', () => {
     // 800 gal/day for 20 days, then 2,500 gal/day for 4: to date 26,000 vs 24,000 (108 %, under 110 %), but
     // projected 26,000 + mean(last 14 days: 10 × 800 + 4 × 2,500 = 18,000 / 14) × 6 = 33,714 > 1.1 × 30,000.

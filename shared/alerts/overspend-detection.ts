@@ -93,10 +93,18 @@ export function detectOverspend(timeline: readonly TimelineHour[], ctx: WatchCon
         projectedGal: latest.projected,
         ...(ctx.site.rateSchedule ? { projectedExtraCost: costOfGap(ctx.site.rateSchedule, Math.max(latest.projected, budget), budget).gapCost } : {}),
       };
+      const stillOver = over(latest);
+      const percent = ((latest.useSoFar / latest.proratedBudget) * 100).toFixed(0);
+      const flaggedDays = `${flagged.length} day${flagged.length === 1 ? '' : 's'} (first on ${flagged[0]!.date})`;
+      // A month that went over and came back says so, rather than "over by 0 gal".
       const explanation =
         subKind === 'month-to-date'
-          ? `By ${latest.date} the site had used ${gal(latest.useSoFar)} this month against ${gal(latest.proratedBudget)} budgeted for those days (${((latest.useSoFar / latest.proratedBudget) * 100).toFixed(0)} %).`
-          : `At the pace of the last days, ${month} would end near ${gal(latest.projected)}, over its ${gal(budget)} budget by ${gal(projectedExtra)}.`;
+          ? stillOver
+            ? `By ${latest.date} the site had used ${gal(latest.useSoFar)} this month against ${gal(latest.proratedBudget)} budgeted for those days (${percent} %).`
+            : `Over its budget so far on ${flaggedDays}; by ${latest.date} ${gal(latest.useSoFar)} against ${gal(latest.proratedBudget)} budgeted for those days (${percent} %), under the alert line again.`
+          : stillOver
+            ? `At the pace of the last days, ${month} would end near ${gal(latest.projected)}, over its ${gal(budget)} budget by ${gal(projectedExtra)}.`
+            : `On ${flaggedDays} the pace pointed past ${month}'s ${gal(budget)} budget; by ${latest.date} it pointed to about ${gal(latest.projected)}, under the alert line again.`;
       findings.push(
         completeFinding(
           {
