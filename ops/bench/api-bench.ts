@@ -47,6 +47,7 @@ if (!org || process.env['BENCH_REBUILD']) {
   if (org) {
     await db.query('DELETE r FROM meter_reading r JOIN meter m ON m.id = r.meter_id JOIN site s ON s.id = m.site_id WHERE s.organisation_id = ?', [org.id]);
     await db.query('DELETE d FROM site_daily_use d JOIN site s ON s.id = d.site_id WHERE s.organisation_id = ?', [org.id]);
+    await db.query('DELETE u FROM site_monthly_use u JOIN site s ON s.id = u.site_id WHERE s.organisation_id = ?', [org.id]);
     await db.query('DELETE b FROM site_monthly_budget b JOIN site s ON s.id = b.site_id WHERE s.organisation_id = ?', [org.id]);
     await db.query('DELETE m FROM meter m JOIN site s ON s.id = m.site_id WHERE s.organisation_id = ?', [org.id]);
     await db.query('DELETE FROM site WHERE organisation_id = ?', [org.id]);
@@ -89,6 +90,12 @@ if (!org || process.env['BENCH_REBUILD']) {
      SELECT m.site_id, DATE(CONVERT_TZ(r.start_utc, '+00:00', s.time_zone)) AS d, SUM(r.volume_gal), SUM(r.minutes), COUNT(*)
      FROM meter_reading r JOIN meter m ON m.id = r.meter_id JOIN site s ON s.id = m.site_id
      WHERE s.organisation_id = ? GROUP BY m.site_id, d`,
+    [org.id],
+  );
+  await db.query(
+    `INSERT INTO site_monthly_use (site_id, month, gallons, covered_minutes, days)
+     SELECT d.site_id, DATE_FORMAT(d.local_date, '%Y-%m') AS m, SUM(d.gallons), SUM(d.covered_minutes), COUNT(*)
+     FROM site_daily_use d JOIN site s ON s.id = d.site_id WHERE s.organisation_id = ? GROUP BY d.site_id, m`,
     [org.id],
   );
   console.log(`generated ${SITES} sites × ${HOURS} hourly readings = ${(SITES * HOURS).toLocaleString('en-US')} rows in ${((performance.now() - t0) / 1000).toFixed(0)} s`);

@@ -1,6 +1,7 @@
 import type { DataSource } from 'typeorm';
 import { etoRainCsv, normals, stationForSite } from './budget-fixtures';
 import type { Client } from './test-app';
+import { refreshMonths } from '../../backend/src/components/readings/data/daily-use-repository';
 
 /** Invented daily ETo (mm) by calendar month: ~2.5 in January rising to ~6 in July. */
 export const etoPerDay = (month: number): number => Number((2 + 4 * Math.sin((Math.PI * (month - 0.5)) / 12)).toFixed(2));
@@ -30,6 +31,7 @@ export async function insertMonthlyUse(db: DataSource, siteId: number, month: st
   const values = Array.from({ length: meteredDays }, (_, i) => [siteId, `${month}-${String(i + 1).padStart(2, '0')}`, (gallons / meteredDays).toFixed(4), 1440, 96]);
   await db.query('DELETE FROM site_daily_use WHERE site_id = ? AND local_date BETWEEN ? AND ?', [siteId, `${month}-01`, `${month}-31`]);
   await db.query('INSERT INTO site_daily_use (site_id, local_date, gallons, covered_minutes, reading_count) VALUES ?', [values]);
+  await refreshMonths(db, siteId, month, month);
 }
 
 // pdf-parse ships no types; the module path is a variable so TypeScript does not look for them.

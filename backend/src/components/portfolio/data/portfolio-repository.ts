@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import { lastDayOfMonth } from '@shared/portfolio/period';
 import { jsonArray } from '../../../db/json-array';
 
 /** One visible site with its aggregates over a period and over the year to date. */
@@ -44,6 +45,14 @@ const budgetOver = (alias: string) => `
       MAX(b.problem) AS problem
     FROM site_monthly_budget b WHERE b.month BETWEEN ? AND ? GROUP BY b.site_id) ${alias} ON ${alias}.site_id = s.id`;
 
+/** Use per site over a date range: whole months from the monthly rollup, anything else from the daily one. */
+function useOver(range: { from: string; to: string }): { sql: string; params: string[] } {
+  const aligned = range.from.endsWith('-01') && range.to === lastDayOfMonth(range.to.slice(0, 7));
+  return aligned
+    ? { sql: 'SELECT site_id, SUM(gallons) AS gal FROM site_monthly_use WHERE month BETWEEN ? AND ? GROUP BY site_id', params: [range.from.slice(0, 7), range.to.slice(0, 7)] }
+    : { sql: 'SELECT site_id, SUM(gallons) AS gal FROM site_daily_use WHERE local_date BETWEEN ? AND ? GROUP BY site_id', params: [range.from, range.to] };
+}
+
 /** Aggregate reads for the dashboard; every site list is scoped to what one organisation may see. */
 export class PortfolioRepository {
   private alertTable: { status: boolean; resolvedAt: boolean; title: string | null; dateColumn: string } | null = null;
@@ -65,8 +74,8 @@ export class PortfolioRepository {
        FROM site s
        JOIN organisation o ON o.id = s.organisation_id
        LEFT JOIN site_share sh ON sh.site_id = s.id AND sh.organisation_id = ?
-       LEFT JOIN (SELECT site_id, SUM(gallons) AS gal FROM site_daily_use WHERE local_date BETWEEN ? AND ? GROUP BY site_id) u ON u.site_id = s.id
-       LEFT JOIN (SELECT site_id, SUM(gallons) AS gal FROM site_daily_use WHERE local_date BETWEEN ? AND ? GROUP BY site_id) yu ON yu.site_id = s.id
+       LEFT JOIN (${useOver(period).sql}) u ON u.site_id = s.id
+       LEFT JOIN (${useOver(ytd).sql}) yu ON yu.site_id = s.id
        ${budgetOver('b')}
        ${budgetOver('yb')}
        LEFT JOIN (SELECT m.site_id, MAX((SELECT r.start_utc + INTERVAL r.minutes MINUTE FROM meter_reading r WHERE r.meter_id = m.id ORDER BY r.start_utc DESC LIMIT 1)) AS last
@@ -74,7 +83,7 @@ export class PortfolioRepository {
        WHERE ${where.join(' AND ')}`,
       [
         viewerOrgId,
-        period.from, period.to, ytd.from, ytd.to,
+        ...useOver(period).params, ...useOver(ytd).params,
         period.months, period.to, period.from, period.from.slice(0, 7), period.to.slice(0, 7),
         ytd.months, ytd.to, ytd.from, ytd.from.slice(0, 7), ytd.to.slice(0, 7),
         ...whereParams,

@@ -1,4 +1,5 @@
 import type { DataSource, EntityManager } from 'typeorm';
+import { addMonths, lastDayOfMonth } from '@shared/portfolio/period';
 
 export interface DailyUse {
   localDate: string;
@@ -49,6 +50,7 @@ export class DailyUseRepository {
        HAVING d BETWEEN ? AND ?`,
       [site.timeZone, siteId, new Date(fromUtc.getTime() - DAY_MS), new Date(toUtc.getTime() + DAY_MS), first, last],
     );
+    await refreshMonths(em, siteId, first.slice(0, 7), last.slice(0, 7));
   }
 
   /** The time span of the readings one upload stored (null when it stored none). */
@@ -67,6 +69,7 @@ export class DailyUseRepository {
       [siteId],
     );
     await em.query('DELETE FROM site_daily_use WHERE site_id = ?', [siteId]);
+    await em.query('DELETE FROM site_monthly_use WHERE site_id = ?', [siteId]);
     if (range?.first && range.last) await this.refresh(em, siteId, new Date(range.first), new Date(range.last));
   }
 
@@ -84,15 +87,35 @@ export class DailyUseRepository {
     }));
   }
 
-  /** Metered use per site per calendar month (YYYY-MM) between two local dates. */
+  /**
+   * Metered use per site per calendar month (YYYY-MM) between two local dates: whole months come from the
+   * monthly rollup, the days of a partial month at either edge from the daily one.
+   */
   async monthly(siteIds: number[], fromDate: string, toDate: string): Promise<MonthlyUse[]> {
-    if (!siteIds.length) return [];
+    if (!siteIds.length || toDate < fromDate) return [];
+    const firstWhole = fromDate.endsWith('-01') ? fromDate.slice(0, 7) : addMonths(fromDate.slice(0, 7), 1);
+    const lastWhole = toDate === lastDayOfMonth(toDate.slice(0, 7)) ? toDate.slice(0, 7) : addMonths(toDate.slice(0, 7), -1);
+    const parts: string[] = [];
+    const params: unknown[] = [];
+    if (firstWhole <= lastWhole) {
+      parts.push(`SELECT site_id, month, gallons, covered_minutes, days FROM site_monthly_use WHERE site_id IN (?) AND month BETWEEN ? AND ?`);
+      params.push(siteIds, firstWhole, lastWhole);
+    }
+    // Days outside the whole months (none when the range is month-aligned).
+    const dayRanges: [string, string][] = firstWhole <= lastWhole
+      ? [[fromDate, `${firstWhole}-01` > fromDate ? dayBefore(`${firstWhole}-01`) : ''], [lastDayOfMonth(lastWhole) < toDate ? dayAfter(lastDayOfMonth(lastWhole)) : '', toDate]]
+      : [[fromDate, toDate]];
+    for (const [from, to] of dayRanges) {
+      if (!from || !to || to < from) continue;
+      parts.push(`SELECT site_id, DATE_FORMAT(local_date, '%Y-%m') AS month, SUM(gallons) AS gallons, SUM(covered_minutes) AS covered_minutes, COUNT(*) AS days
+                  FROM site_daily_use WHERE site_id IN (?) AND local_date BETWEEN ? AND ? GROUP BY site_id, month`);
+      params.push(siteIds, from, to);
+    }
     const rows: Record<string, unknown>[] = await this.db.query(
-      `SELECT site_id AS siteId, DATE_FORMAT(local_date, '%Y-%m') AS month, SUM(gallons) AS gallons,
-              SUM(covered_minutes) AS coveredMinutes, COUNT(*) AS days
-       FROM site_daily_use WHERE site_id IN (?) AND local_date BETWEEN ? AND ?
+      `SELECT site_id AS siteId, month, SUM(gallons) AS gallons, SUM(covered_minutes) AS coveredMinutes, SUM(days) AS days
+       FROM (${parts.join(' UNION ALL ')}) AS u
        GROUP BY site_id, month ORDER BY site_id, month`,
-      [siteIds, fromDate, toDate],
+      params,
     );
     return rows.map((r) => ({
       siteId: Number(r['siteId']),
@@ -102,6 +125,25 @@ export class DailyUseRepository {
       days: Number(r['days']),
     }));
   }
+}
+
+/** Recomputes `site_monthly_use` for one site's months from its daily rows (same transaction as the daily refresh). */
+export async function refreshMonths(em: EntityManager | DataSource, siteId: number, fromMonth: string, toMonth: string): Promise<void> {
+  await em.query('DELETE FROM site_monthly_use WHERE site_id = ? AND month BETWEEN ? AND ?', [siteId, fromMonth, toMonth]);
+  await em.query(
+    `INSERT INTO site_monthly_use (site_id, month, gallons, covered_minutes, days)
+     SELECT site_id, DATE_FORMAT(local_date, '%Y-%m') AS m, SUM(gallons), SUM(covered_minutes), COUNT(*)
+     FROM site_daily_use WHERE site_id = ? AND local_date BETWEEN ? AND ? GROUP BY site_id, m`,
+    [siteId, `${fromMonth}-01`, lastDayOfMonth(toMonth)],
+  );
+}
+
+function dayBefore(date: string): string {
+  return new Date(Date.parse(`${date}T00:00:00Z`) - DAY_MS).toISOString().slice(0, 10);
+}
+
+function dayAfter(date: string): string {
+  return new Date(Date.parse(`${date}T00:00:00Z`) + DAY_MS).toISOString().slice(0, 10);
 }
 
 /** `YYYY-MM-DD` from a DATE column (mysql2 may hand back a Date at UTC midnight or a string). */
