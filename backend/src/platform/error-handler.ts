@@ -11,8 +11,25 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (appError.status >= 500) logger.error('request failed', { method: req.method, url: req.originalUrl, error: describe(err) });
   const body: ApiErrorBody = { error: { code: appError.code, message: appError.message } };
   if (appError.details?.length) body.error.details = appError.details;
-  res.status(appError.status).json(body);
+  const send = () => {
+    if (!res.headersSent) res.status(appError.status).json(body);
+  };
+  // Refused before its body was read (e.g. an upload with a revoked key): take in the rest of a small body
+  // first, so the client finishes sending and reads the answer instead of a reset connection. Large or
+  // stalled bodies get the answer at once.
+  const pending = Number(req.headers['content-length'] ?? 0);
+  if (!req.complete && !req.destroyed && pending > 0 && pending <= DRAIN_LIMIT_BYTES) {
+    const timer = setTimeout(send, 2_000);
+    req.on('end', () => { clearTimeout(timer); send(); });
+    req.on('error', () => { clearTimeout(timer); send(); });
+    req.resume();
+    return;
+  }
+  send();
 };
+
+/** Bodies up to this size are read to the end before an early error answer. */
+const DRAIN_LIMIT_BYTES = 1024 * 1024;
 
 export const notFoundHandler: RequestHandler = (req) => {
   throw new AppError('not_found', `No API route ${req.method} ${req.path}.`);
