@@ -18,7 +18,9 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   // first, so the client finishes sending and reads the answer instead of a reset connection. Large or
   // stalled bodies get the answer at once.
   const pending = Number(req.headers['content-length'] ?? 0);
-  if (!req.complete && !req.destroyed && pending > 0 && pending <= DRAIN_LIMIT_BYTES) {
+  // Only a body nobody has started reading: one piped into an upload parser belongs to it (resuming it would
+  // push data into a file stream that the failed upload already closed).
+  if (!req.complete && !req.destroyed && req.readableFlowing === null && pending > 0 && pending <= DRAIN_LIMIT_BYTES) {
     const timer = setTimeout(send, 2_000);
     req.on('end', () => { clearTimeout(timer); send(); });
     req.on('error', () => { clearTimeout(timer); send(); });
