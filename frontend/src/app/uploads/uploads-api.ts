@@ -2,7 +2,6 @@ import { HttpClient, type HttpEvent } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Page } from '@shared/api/page';
 import type { ColumnMapping } from '@shared/ingest/upload-kind';
-import type { ControllerDto, MeterDto } from '@shared/meters/meter';
 import type { ImportProfileDto, RejectionDto, UploadDto, UploadResult } from '@shared/uploads/upload';
 import type { Observable } from 'rxjs';
 
@@ -45,11 +44,5 @@ export class UploadsApi {
     return this.http.post<ImportProfileDto>('/api/import-profiles', { name, mapping });
   }
 
-  meters(siteId: number): Observable<MeterDto[]> {
-    return this.http.get<MeterDto[]>(`/api/sites/${siteId}/meters`);
-  }
 
-  controllers(siteId: number): Observable<ControllerDto[]> {
-    return this.http.get<ControllerDto[]>(`/api/sites/${siteId}/controllers`);
-  }
 }

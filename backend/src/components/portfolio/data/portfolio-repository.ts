@@ -66,6 +66,8 @@ export class PortfolioRepository {
     if (f.q) { where.push('s.name LIKE ?'); whereParams.push(`%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`); }
     if (f.tag) { where.push('EXISTS (SELECT 1 FROM site_tag t WHERE t.site_id = s.id AND t.tag = ?)'); whereParams.push(f.tag); }
     if (f.organisationId) { where.push('s.organisation_id = ?'); whereParams.push(f.organisationId); }
+    const periodUse = useOver(period);
+    const ytdUse = useOver(ytd);
     const rows: Record<string, unknown>[] = await this.db.query(
       `SELECT s.id AS siteId, s.name AS siteName, s.organisation_id AS organisationId, o.name AS organisationName, s.time_zone AS timeZone,
               COALESCE(u.gal, 0) AS useGal, b.gal AS budgetGal, COALESCE(yu.gal, 0) AS ytdUseGal, yb.gal AS ytdBudgetGal,
@@ -74,8 +76,8 @@ export class PortfolioRepository {
        FROM site s
        JOIN organisation o ON o.id = s.organisation_id
        LEFT JOIN site_share sh ON sh.site_id = s.id AND sh.organisation_id = ?
-       LEFT JOIN (${useOver(period).sql}) u ON u.site_id = s.id
-       LEFT JOIN (${useOver(ytd).sql}) yu ON yu.site_id = s.id
+       LEFT JOIN (${periodUse.sql}) u ON u.site_id = s.id
+       LEFT JOIN (${ytdUse.sql}) yu ON yu.site_id = s.id
        ${budgetOver('b')}
        ${budgetOver('yb')}
        LEFT JOIN (SELECT m.site_id, MAX((SELECT r.start_utc + INTERVAL r.minutes MINUTE FROM meter_reading r WHERE r.meter_id = m.id ORDER BY r.start_utc DESC LIMIT 1)) AS last
@@ -83,7 +85,7 @@ export class PortfolioRepository {
        WHERE ${where.join(' AND ')}`,
       [
         viewerOrgId,
-        ...useOver(period).params, ...useOver(ytd).params,
+        ...periodUse.params, ...ytdUse.params,
         period.months, period.to, period.from, period.from.slice(0, 7), period.to.slice(0, 7),
         ytd.months, ytd.to, ytd.from, ytd.from.slice(0, 7), ytd.to.slice(0, 7),
         ...whereParams,

@@ -2,6 +2,7 @@ import { toCsv, type CsvColumn } from '@shared/csv/csv-writer';
 import { dayCount, daysInMonth, lastDayOfMonth, monthsBetween } from '@shared/portfolio/period';
 import { percentOf, type HourlyGridDto, type MonthlyFlag, type MonthlyRow, type OverviewDay, type SiteMonthlyDto, type SiteOverviewDto } from '@shared/portfolio/portfolio-dto';
 import { costOfVolume } from '@shared/rates/water-cost';
+import { addDays } from '@shared/weather/day-of-year';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
 import type { DailyUseRepository } from '../../readings/data/daily-use-repository';
@@ -38,7 +39,7 @@ export class SiteDashboardService {
     // ETo for the whole months, so each day's share of its month's budget is known even at the range's edges.
     const weather = await this.repo.weather(siteId, `${months[0]}-01`, lastDayOfMonth(months[months.length - 1]!));
     const days: OverviewDay[] = [];
-    for (let d = from; d <= to; d = nextDay(d)) {
+    for (let d = from; d <= to; d = addDays(d, 1)) {
       const month = d.slice(0, 7);
       const w = weather.get(d);
       days.push({
@@ -76,7 +77,7 @@ export class SiteDashboardService {
     const last = lastDayOfMonth(month);
     const cells = await this.repo.hourly(siteId, site.timeZone, month, last);
     const days: HourlyGridDto['days'] = [];
-    for (let d = `${month}-01`; d <= last; d = nextDay(d)) days.push({ date: d, hours: Array.from({ length: 24 }, () => null) });
+    for (let d = `${month}-01`; d <= last; d = addDays(d, 1)) days.push({ date: d, hours: Array.from({ length: 24 }, () => null) });
     for (const c of cells) {
       const day = days[Number(c.date.slice(8)) - 1];
       if (day) day.hours[c.hour] = (day.hours[c.hour] ?? 0) + c.gallons;
@@ -153,8 +154,4 @@ function dailyBudget(date: string, monthBudget: number | null, weather: Map<stri
     total += eto;
   }
   return total > 0 ? (monthBudget * (weather.get(date)!.etoMm ?? 0)) / total : monthBudget / n;
-}
-
-function nextDay(date: string): string {
-  return new Date(Date.parse(`${date}T00:00:00Z`) + 86_400_000).toISOString().slice(0, 10);
 }

@@ -1,5 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { addMonths, lastDayOfMonth } from '@shared/portfolio/period';
+import { addDays } from '@shared/weather/day-of-year';
 
 export interface DailyUse {
   localDate: string;
@@ -103,7 +104,7 @@ export class DailyUseRepository {
     }
     // Days outside the whole months (none when the range is month-aligned).
     const dayRanges: [string, string][] = firstWhole <= lastWhole
-      ? [[fromDate, `${firstWhole}-01` > fromDate ? dayBefore(`${firstWhole}-01`) : ''], [lastDayOfMonth(lastWhole) < toDate ? dayAfter(lastDayOfMonth(lastWhole)) : '', toDate]]
+      ? [[fromDate, `${firstWhole}-01` > fromDate ? addDays(`${firstWhole}-01`, -1) : ''], [lastDayOfMonth(lastWhole) < toDate ? addDays(lastDayOfMonth(lastWhole), 1) : '', toDate]]
       : [[fromDate, toDate]];
     for (const [from, to] of dayRanges) {
       if (!from || !to || to < from) continue;
@@ -136,14 +137,6 @@ export async function refreshMonths(em: EntityManager | DataSource, siteId: numb
      FROM site_daily_use WHERE site_id = ? AND local_date BETWEEN ? AND ? GROUP BY site_id, m`,
     [siteId, `${fromMonth}-01`, lastDayOfMonth(toMonth)],
   );
-}
-
-function dayBefore(date: string): string {
-  return new Date(Date.parse(`${date}T00:00:00Z`) - DAY_MS).toISOString().slice(0, 10);
-}
-
-function dayAfter(date: string): string {
-  return new Date(Date.parse(`${date}T00:00:00Z`) + DAY_MS).toISOString().slice(0, 10);
 }
 
 /** `YYYY-MM-DD` from a DATE column (mysql2 may hand back a Date at UTC midnight or a string). */

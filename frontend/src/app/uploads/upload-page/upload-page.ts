@@ -20,6 +20,7 @@ import { VOLUME_UNIT_LABELS } from '@shared/units/volume-units';
 import type { ImportProfileDto, RejectionDto, RowErrorPolicy, UploadDto, UploadResult } from '@shared/uploads/upload';
 import { Subscription, interval } from 'rxjs';
 import { confirm } from '../../shared/confirm-dialog/confirm-dialog';
+import { MetersApi } from '../../meters/meters-api';
 import { SitesApi } from '../../sites/sites-api';
 import { ColumnMappingEditor } from '../column-mapping-editor/column-mapping-editor';
 import { RejectionTable } from '../rejection-table/rejection-table';
@@ -40,6 +41,7 @@ type Phase = 'idle' | 'sending' | 'processing' | 'finished' | 'failed';
 export class UploadPage {
   private readonly api = inject(UploadsApi);
   private readonly sitesApi = inject(SitesApi);
+  private readonly metersApi = inject(MetersApi);
   private readonly dialog = inject(MatDialog);
   private polling?: Subscription;
 
@@ -96,7 +98,7 @@ export class UploadPage {
 
   protected chooseSite(id: number): void {
     this.siteId.set(id);
-    this.api.meters(id).subscribe((m) => this.meterRefs.set(m.map((x) => x.ref)));
+    this.metersApi.meters(id).subscribe((m) => this.meterRefs.set(m.map((x) => x.ref)));
     this.refreshHistory();
   }
 
