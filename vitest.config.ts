@@ -13,7 +13,13 @@ export default defineConfig({
         test: {
           name: 'unit',
           environment: 'node',
-          include: ['shared/**/*.spec.ts', 'backend/src/**/*.spec.ts', 'test/reference/**/*.test.ts', 'test/quality/**/*.test.ts', 'ops/**/*.spec.ts'],
+          include: [
+            'shared/**/*.spec.ts',
+            'backend/src/**/*.spec.ts',
+            'test/reference/**/*.test.ts',
+            'test/quality/**/*.test.ts',
+            'ops/**/*.spec.ts',
+          ],
         },
       },
       {

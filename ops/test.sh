@@ -37,6 +37,7 @@ stage() {
   if "$@"; then results+=("ok      $name ($((SECONDS - t0)) s)"); else results+=("FAILED  $name ($((SECONDS - t0)) s)"); status=1; fi
 }
 
+stage "formatting (Prettier)" npx prettier --check --log-level warn .
 stage "type check (backend, shared, tests)" npx tsc -p backend/tsconfig.json --noEmit
 stage "type check (frontend)" npx tsc -p frontend/tsconfig.app.json --noEmit
 stage "unit and reference checks" npx vitest run --project unit

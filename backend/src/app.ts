@@ -90,11 +90,34 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   const hydrozones = new HydrozonesService(db, new HydrozonesRepository(db), sites, audit);
   const weatherRepository = new WeatherRepository(db);
   const weatherStations = new WeatherStationsService(db, weatherRepository, sites, audit);
-  const dailyWeather = new DailyWeatherService(db, weatherRepository, weatherStations, new WeatherFeedClient(config.weather.feedUrl, config.weather.feedTimeoutMs), audit);
+  const dailyWeather = new DailyWeatherService(
+    db,
+    weatherRepository,
+    weatherStations,
+    new WeatherFeedClient(config.weather.feedUrl, config.weather.feedTimeoutMs),
+    audit,
+  );
   const rateSchedules = new RateSchedulesService(db, new RateSchedulesRepository(db), sites, audit);
-  const budgets = new BudgetsService(sites, hydrozones, weatherStations, dailyWeather, rateSchedules, organisationSettings);
+  const budgets = new BudgetsService(
+    sites,
+    hydrozones,
+    weatherStations,
+    dailyWeather,
+    rateSchedules,
+    organisationSettings,
+  );
   const watch = createWatch({ db, config, sites, budgets, rates: rateSchedules, mailQueue, audit });
-  const reports = createReports({ db, sites, budgets, weatherStations, dailyWeather, rateSchedules, audit, mailQueue, publicUrl: config.http.publicUrl });
+  const reports = createReports({
+    db,
+    sites,
+    budgets,
+    weatherStations,
+    dailyWeather,
+    rateSchedules,
+    audit,
+    mailQueue,
+    publicUrl: config.http.publicUrl,
+  });
   const dashboard = createPortfolio({ db, sites, budgets, rates: rateSchedules });
 
   const passport = createPassport(auth);
@@ -173,8 +196,14 @@ export function createApp({ config, db, mailer }: AppDeps): App {
 function serveWebApp(app: Express, config: Config): void {
   const dir = resolve(config.http.webDir);
   if (!existsSync(resolve(dir, 'index.html'))) return;
-  app.use(express.static(dir, { index: false, maxAge: '1h', setHeaders: (res, path) => {
-    if (/-[A-Z0-9]{8}\.(js|css)$/.test(path)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
-  } }));
+  app.use(
+    express.static(dir, {
+      index: false,
+      maxAge: '1h',
+      setHeaders: (res, path) => {
+        if (/-[A-Z0-9]{8}\.(js|css)$/.test(path)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+      },
+    }),
+  );
   app.get('/{*splat}', (_req, res) => res.sendFile(resolve(dir, 'index.html')));
 }

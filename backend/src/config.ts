@@ -4,22 +4,26 @@ import { z } from 'zod';
  * Typed configuration from the environment, checked once at start-up: a bad value stops the
  * process at once with a message naming the variable. Defaults match ops/lib/env.sh and .env.example.
  */
-const bool = z
-  .enum(['true', 'false', '1', '0'])
-  .transform((v) => v === 'true' || v === '1');
+const bool = z.enum(['true', 'false', '1', '0']).transform((v) => v === 'true' || v === '1');
 
 const schema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   RILLMARK_DB_HOST: z.string().default('127.0.0.1'),
   RILLMARK_DB_PORT: z.coerce.number().int().min(1).max(65535).default(3317),
-  RILLMARK_DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/).default('rillmark'),
+  RILLMARK_DB_NAME: z
+    .string()
+    .regex(/^[A-Za-z0-9_]+$/)
+    .default('rillmark'),
   RILLMARK_DB_USER: z.string().default('rillmark'),
   RILLMARK_DB_PASSWORD: z.string().default('rillmark-dev-password'),
   RILLMARK_DB_POOL_SIZE: z.coerce.number().int().min(1).max(200).default(20),
   RILLMARK_PORT: z.coerce.number().int().min(0).max(65535).default(4280),
   RILLMARK_HOST: z.string().default('127.0.0.1'),
   RILLMARK_PUBLIC_URL: z.string().url().default('http://127.0.0.1:4280'),
-  RILLMARK_SESSION_SECRET: z.string().min(32, 'must be at least 32 characters').default('change-me-in-production-please-0123456789'),
+  RILLMARK_SESSION_SECRET: z
+    .string()
+    .min(32, 'must be at least 32 characters')
+    .default('change-me-in-production-please-0123456789'),
   RILLMARK_SESSION_HOURS: z.coerce.number().positive().default(12),
   RILLMARK_SECURE_COOKIES: bool.default(false),
   RILLMARK_TRUST_PROXY: z.string().default('loopback'),
@@ -38,7 +42,10 @@ const schema = z.object({
   RILLMARK_UPLOAD_MAX_MB: z.coerce.number().positive().max(10_000).default(200),
   RILLMARK_UPLOAD_DIR: z.string().default('.data/uploads'),
   // The watch ticks hourly and checks each site once its local clock passes RILLMARK_WATCH_LOCAL_HOUR.
-  RILLMARK_WATCH_CRON: z.string().regex(/^\S+( \S+){4}$/, 'must be a five-field cron expression').default('15 * * * *'),
+  RILLMARK_WATCH_CRON: z
+    .string()
+    .regex(/^\S+( \S+){4}$/, 'must be a five-field cron expression')
+    .default('15 * * * *'),
   RILLMARK_WATCH_LOCAL_HOUR: z.coerce.number().int().min(0).max(23).default(4),
   RILLMARK_LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
 });
@@ -101,7 +108,10 @@ export function loadConfig(source: Record<string, string | undefined> = process.
       devOutbox: e.RILLMARK_DEV_OUTBOX,
     },
     inviteTtlMs: e.RILLMARK_INVITE_HOURS * 3_600_000,
-    weather: { feedUrl: e.RILLMARK_WEATHER_FEED_URL.replace(/\/$/, ''), feedTimeoutMs: e.RILLMARK_WEATHER_FEED_TIMEOUT_MS },
+    weather: {
+      feedUrl: e.RILLMARK_WEATHER_FEED_URL.replace(/\/$/, ''),
+      feedTimeoutMs: e.RILLMARK_WEATHER_FEED_TIMEOUT_MS,
+    },
     jobs: { enabled: e.RILLMARK_JOBS_ENABLED },
     uploads: { maxBytes: Math.round(e.RILLMARK_UPLOAD_MAX_MB * 1024 * 1024), dir: e.RILLMARK_UPLOAD_DIR },
     watch: { cron: e.RILLMARK_WATCH_CRON, localHour: e.RILLMARK_WATCH_LOCAL_HOUR },

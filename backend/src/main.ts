@@ -17,7 +17,10 @@ try {
   logger.info(`Rillmark API listening on ${server.url} (${config.env})`);
   const shutdown = (signal: string) => {
     logger.info(`${signal}: shutting down`);
-    server.stop().then(() => process.exit(0), () => process.exit(1));
+    server.stop().then(
+      () => process.exit(0),
+      () => process.exit(1),
+    );
   };
   process.on('SIGINT', () => shutdown('SIGINT'));
   process.on('SIGTERM', () => shutdown('SIGTERM'));

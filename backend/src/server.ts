@@ -16,7 +16,10 @@ import { createSmtpMailer, type Mailer } from './platform/mail/mailer';
  */
 async function warnUnlessReadCommitted(db: DataSource): Promise<void> {
   const [row]: { level: string }[] = await db.query('SELECT @@GLOBAL.tx_isolation AS level');
-  if (row && row.level !== 'READ-COMMITTED') logger.warn(`MariaDB runs ${row.level}; set transaction_isolation = READ-COMMITTED (see README, Scaling) or concurrent writes may deadlock`);
+  if (row && row.level !== 'READ-COMMITTED')
+    logger.warn(
+      `MariaDB runs ${row.level}; set transaction_isolation = READ-COMMITTED (see README, Scaling) or concurrent writes may deadlock`,
+    );
 }
 
 export interface RunningServer {
@@ -26,7 +29,10 @@ export interface RunningServer {
 }
 
 /** Starts the real app on `config.http.port` (0 = any free port, as the tests do). */
-export async function startServer(config: Config, options: { mailer?: Mailer; dbAttempts?: number } = {}): Promise<RunningServer> {
+export async function startServer(
+  config: Config,
+  options: { mailer?: Mailer; dbAttempts?: number } = {},
+): Promise<RunningServer> {
   const db = createDataSource(config.db);
   await connectWithRetry(db, { attempts: options.dbAttempts ?? 30 });
   await warnUnlessReadCommitted(db);

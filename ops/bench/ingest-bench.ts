@@ -24,12 +24,27 @@ const METERS = 100;
 const root = resolve(import.meta.dirname, '../..');
 const dir = resolve(root, '.data/bench');
 mkdirSync(dir, { recursive: true });
-const env = { ...process.env, RILLMARK_DB_NAME: process.env['RILLMARK_BENCH_DB'] ?? 'rillmark_bench', RILLMARK_PORT: '0', RILLMARK_LOG_LEVEL: process.env['BENCH_LOG'] ?? 'warn', RILLMARK_UPLOAD_MAX_MB: '2000', RILLMARK_UPLOAD_DIR: resolve(dir, 'uploads'), RILLMARK_DEV_OUTBOX: 'false' };
+const env = {
+  ...process.env,
+  RILLMARK_DB_NAME: process.env['RILLMARK_BENCH_DB'] ?? 'rillmark_bench',
+  RILLMARK_PORT: '0',
+  RILLMARK_LOG_LEVEL: process.env['BENCH_LOG'] ?? 'warn',
+  RILLMARK_UPLOAD_MAX_MB: '2000',
+  RILLMARK_UPLOAD_DIR: resolve(dir, 'uploads'),
+  RILLMARK_DEV_OUTBOX: 'false',
+};
 const config = loadConfig(env);
 
 // 1. Database, schema and a site with METERS meters.
-const admin = await createConnection({ host: config.db.host, port: config.db.port, user: config.db.user, password: config.db.password });
-await admin.query(`CREATE DATABASE IF NOT EXISTS \`${config.db.database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+const admin = await createConnection({
+  host: config.db.host,
+  port: config.db.port,
+  user: config.db.user,
+  password: config.db.password,
+});
+await admin.query(
+  `CREATE DATABASE IF NOT EXISTS \`${config.db.database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`,
+);
 await admin.end();
 const db = createDataSource(config.db);
 await connectWithRetry(db, { attempts: 5 });
@@ -68,13 +83,20 @@ const rawPath = resolve(dir, 'readings.tsv');
   await Promise.all([once(csv, 'finish'), once(raw, 'finish')]);
 }
 const csvBytes = statSync(csvPath).size;
-console.log(`generated ${ROWS.toLocaleString('en-US')} readings for ${METERS} meters: ${(csvBytes / 1e6).toFixed(1)} MB of CSV`);
+console.log(
+  `generated ${ROWS.toLocaleString('en-US')} readings for ${METERS} meters: ${(csvBytes / 1e6).toFixed(1)} MB of CSV`,
+);
 
 // 3. The server in a child process; an API key for the upload.
 const child: ChildProcess = fork(resolve(import.meta.dirname, 'bench-server.ts'), [], {
   env: { ...env, TSX_TSCONFIG_PATH: resolve(root, 'backend/tsconfig.json') },
   // BENCH_CPU_PROF=1 writes the server's CPU profile to .data/bench/prof/ (open it in Chrome DevTools).
-  execArgv: ['--import', 'tsx', '--expose-gc', ...(process.env['BENCH_CPU_PROF'] ? ['--cpu-prof', `--cpu-prof-dir=${resolve(dir, 'prof')}`] : [])],
+  execArgv: [
+    '--import',
+    'tsx',
+    '--expose-gc',
+    ...(process.env['BENCH_CPU_PROF'] ? ['--cpu-prof', `--cpu-prof-dir=${resolve(dir, 'prof')}`] : []),
+  ],
 });
 const ask = <T>(cmd: string): Promise<T> => {
   const reply = once(child, 'message') as Promise<[T]>;
@@ -86,23 +108,40 @@ const key = await world.apiKey();
 console.log(`server up at ${url}; uploading…`);
 
 // 4. Upload through the API, streaming the file as multipart.
-const loadBefore = loadavg().map((l) => l.toFixed(1)).join(' ');
+const loadBefore = loadavg()
+  .map((l) => l.toFixed(1))
+  .join(' ');
 await ask('reset');
 const boundary = `----rillmark-bench-${Date.now()}`;
-const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="readings.csv"\r\nContent-Type: text/csv\r\n\r\n`);
+const head = Buffer.from(
+  `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="readings.csv"\r\nContent-Type: text/csv\r\n\r\n`,
+);
 const tail = Buffer.from(`\r\n--${boundary}--\r\n`);
 const t0 = performance.now();
 const response = await new Promise<{ status: number; body: string }>((done, fail) => {
-  const req = request(`${url}/api/sites/${world.siteId}/uploads`, {
-    method: 'POST',
-    headers: { Authorization: `Bearer ${key}`, 'Content-Type': `multipart/form-data; boundary=${boundary}`, 'Content-Length': head.length + csvBytes + tail.length },
-  }, (res) => {
-    let body = '';
-    res.setEncoding('utf8').on('data', (c) => (body += c)).on('end', () => done({ status: res.statusCode ?? 0, body }));
-  });
+  const req = request(
+    `${url}/api/sites/${world.siteId}/uploads`,
+    {
+      method: 'POST',
+      headers: {
+        Authorization: `Bearer ${key}`,
+        'Content-Type': `multipart/form-data; boundary=${boundary}`,
+        'Content-Length': head.length + csvBytes + tail.length,
+      },
+    },
+    (res) => {
+      let body = '';
+      res
+        .setEncoding('utf8')
+        .on('data', (c) => (body += c))
+        .on('end', () => done({ status: res.statusCode ?? 0, body }));
+    },
+  );
   req.on('error', fail);
   req.write(head);
-  createReadStream(csvPath).on('end', () => req.end(tail)).pipe(req, { end: false });
+  createReadStream(csvPath)
+    .on('end', () => req.end(tail))
+    .pipe(req, { end: false });
 });
 const apiSeconds = (performance.now() - t0) / 1000;
 console.log(`upload answered ${response.status} after ${apiSeconds.toFixed(1)} s; raw loads…`);
@@ -114,7 +153,13 @@ if (upload.accepted !== ROWS) throw new Error(`expected ${ROWS} accepted, got ${
 // 5. The same rows, raw LOAD DATA LOCAL INFILE into a scratch copy of meter_reading (same columns, key, upload
 // index and meter foreign key: the table work any import must do), and, for comparison, into a bare table with
 // the primary key only (what LOAD DATA can do when nothing else is maintained).
-const conn = await createConnection({ host: config.db.host, port: config.db.port, user: config.db.user, password: config.db.password, database: config.db.database });
+const conn = await createConnection({
+  host: config.db.host,
+  port: config.db.port,
+  user: config.db.user,
+  password: config.db.password,
+  database: config.db.database,
+});
 const rawLoad = async (table: string, tail: string, values: unknown[] = []): Promise<number> => {
   const t = performance.now();
   await conn.query({
@@ -128,9 +173,17 @@ const rawLoad = async (table: string, tail: string, values: unknown[] = []): Pro
 };
 await conn.query('DROP TABLE IF EXISTS bench_raw_reading, bench_raw_reading_bare');
 await conn.query('CREATE TABLE bench_raw_reading LIKE meter_reading');
-await conn.query('ALTER TABLE bench_raw_reading ADD CONSTRAINT fk_bench_raw_reading_meter FOREIGN KEY (meter_id) REFERENCES meter (id) ON DELETE CASCADE');
-const rawSeconds = await rawLoad('bench_raw_reading', "(meter_id, start_utc, minutes, volume_gal) SET original_value = volume_gal, original_unit = 'gal', upload_id = ?", [upload.id]);
-await conn.query('CREATE TABLE bench_raw_reading_bare (meter_id int unsigned NOT NULL, start_utc datetime NOT NULL, minutes mediumint unsigned NOT NULL, volume_gal decimal(12,4) NOT NULL, PRIMARY KEY (meter_id, start_utc, minutes)) ENGINE=InnoDB');
+await conn.query(
+  'ALTER TABLE bench_raw_reading ADD CONSTRAINT fk_bench_raw_reading_meter FOREIGN KEY (meter_id) REFERENCES meter (id) ON DELETE CASCADE',
+);
+const rawSeconds = await rawLoad(
+  'bench_raw_reading',
+  "(meter_id, start_utc, minutes, volume_gal) SET original_value = volume_gal, original_unit = 'gal', upload_id = ?",
+  [upload.id],
+);
+await conn.query(
+  'CREATE TABLE bench_raw_reading_bare (meter_id int unsigned NOT NULL, start_utc datetime NOT NULL, minutes mediumint unsigned NOT NULL, volume_gal decimal(12,4) NOT NULL, PRIMARY KEY (meter_id, start_utc, minutes)) ENGINE=InnoDB',
+);
 const bareSeconds = await rawLoad('bench_raw_reading_bare', '(meter_id, start_utc, minutes, volume_gal)');
 await conn.end();
 
@@ -145,9 +198,21 @@ await db.destroy();
 const apiRate = ROWS / apiSeconds;
 const rawRate = ROWS / rawSeconds;
 const growthMb = (memory.peak - memory.baseline) / (1024 * 1024);
-console.log(`API upload:        ${apiSeconds.toFixed(2)} s, ${Math.round(apiRate).toLocaleString('en-US')} rows/s (send + parse + stage + merge, one transaction)`);
-console.log(`raw LOAD DATA:     ${rawSeconds.toFixed(2)} s, ${Math.round(rawRate).toLocaleString('en-US')} rows/s (into a copy of meter_reading: same columns, indexes, foreign key)`);
+console.log(
+  `API upload:        ${apiSeconds.toFixed(2)} s, ${Math.round(apiRate).toLocaleString('en-US')} rows/s (send + parse + stage + merge, one transaction)`,
+);
+console.log(
+  `raw LOAD DATA:     ${rawSeconds.toFixed(2)} s, ${Math.round(rawRate).toLocaleString('en-US')} rows/s (into a copy of meter_reading: same columns, indexes, foreign key)`,
+);
 console.log(`ratio API / raw:   ${(apiRate / rawRate).toFixed(2)}  (target ≥ 0.50)`);
-console.log(`for comparison, raw LOAD DATA into a bare table (primary key only, 4 columns): ${bareSeconds.toFixed(2)} s, ${Math.round(ROWS / bareSeconds).toLocaleString('en-US')} rows/s; API / bare ${(apiRate / (ROWS / bareSeconds)).toFixed(2)}`);
-console.log(`load average before ${loadBefore}, after ${loadavg().map((l) => l.toFixed(1)).join(' ')} (${availableParallelism()} cores)`);
-console.log(`server RSS growth: ${growthMb.toFixed(0)} MB peak during the upload (baseline ${(memory.baseline / 1048576).toFixed(0)} MB; target < 300 MB)`);
+console.log(
+  `for comparison, raw LOAD DATA into a bare table (primary key only, 4 columns): ${bareSeconds.toFixed(2)} s, ${Math.round(ROWS / bareSeconds).toLocaleString('en-US')} rows/s; API / bare ${(apiRate / (ROWS / bareSeconds)).toFixed(2)}`,
+);
+console.log(
+  `load average before ${loadBefore}, after ${loadavg()
+    .map((l) => l.toFixed(1))
+    .join(' ')} (${availableParallelism()} cores)`,
+);
+console.log(
+  `server RSS growth: ${growthMb.toFixed(0)} MB peak during the upload (baseline ${(memory.baseline / 1048576).toFixed(0)} MB; target < 300 MB)`,
+);

@@ -14,7 +14,6 @@ import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
 import type { OutboxMessage } from '../../shared/mail/outbox-message';
 
-
 export interface FakeSmtpOptions {
   host: string;
   smtpPort: number;
@@ -27,7 +26,10 @@ export interface FakeSmtpOptions {
 export async function startFakeSmtp(options: FakeSmtpOptions) {
   mkdirSync(dirname(options.file), { recursive: true });
   const messages: OutboxMessage[] = existsSync(options.file)
-    ? readFileSync(options.file, 'utf8').split('\n').filter(Boolean).map((l) => JSON.parse(l) as OutboxMessage)
+    ? readFileSync(options.file, 'utf8')
+        .split('\n')
+        .filter(Boolean)
+        .map((l) => JSON.parse(l) as OutboxMessage)
     : [];
 
   const smtp = new SMTPServer({

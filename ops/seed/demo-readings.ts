@@ -50,7 +50,8 @@ export function meterCsv(flows: DemoFlow[]): string {
         const repeats = date === '2026-11-01' && hour === 1 ? 2 : 1;
         for (let r = 0; r < repeats; r++) {
           let gallons = flow.baseGph * (0.6 + ((hour * 7 + day * 3) % 9) / 10);
-          if (waters && flow.window.includes(hour)) gallons += flow.wateringGph * season(day) * (0.9 + ((day + hour) % 5) / 20);
+          if (waters && flow.window.includes(hour))
+            gallons += flow.wateringGph * season(day) * (0.9 + ((day + hour) % 5) / 20);
           if (leaking) gallons += flow.leak!.gph;
           for (const x of flow.extra ?? []) if (x.date === date && x.hours.includes(hour)) gallons += x.gph;
           if (flow.broken && date >= flow.broken.from && date <= flow.broken.to) gallons = 0;
@@ -79,7 +80,9 @@ export function runtimeCsv(controllerRef: string, stations: string[], program: D
       const long = program.longRun && program.longRun.date === date && program.longRun.station === station;
       const runMinutes = long ? program.longRun!.minutes : program.minutesPerStation;
       // The controller's own flow sensor reads what the meter sees: design flow scaled like the meters' season.
-      lines.push(`${controllerRef},${station},${start},${runMinutes},Scheduled,${(runMinutes * gpm * season(day)).toFixed(1)}`);
+      lines.push(
+        `${controllerRef},${station},${start},${runMinutes},Scheduled,${(runMinutes * gpm * season(day)).toFixed(1)}`,
+      );
       minute += runMinutes;
     });
   }

@@ -17,11 +17,16 @@ export async function seedWatchSettings(db: DataSource): Promise<number> {
   const org = DEMO_ORGANISATIONS.find((o) => o.key === 'cobalt')!.name;
   let n = 0;
   for (const [siteName, thresholds] of Object.entries(DEMO_SETTINGS)) {
-    const [site] = (await db.query('SELECT s.id FROM site s JOIN organisation o ON o.id = s.organisation_id WHERE o.name = ? AND s.name = ?', [org, siteName])) as { id: number }[];
+    const [site] = (await db.query(
+      'SELECT s.id FROM site s JOIN organisation o ON o.id = s.organisation_id WHERE o.name = ? AND s.name = ?',
+      [org, siteName],
+    )) as { id: number }[];
     if (!site) continue;
     await db.query(
       `INSERT INTO site_watch_settings (site_id, thresholds, irrigation_start_hour, irrigation_end_hour) VALUES (?, ?, 21, 7)
-       ON DUPLICATE KEY UPDATE thresholds = VALUES(thresholds)`, [site.id, JSON.stringify(thresholds)]);
+       ON DUPLICATE KEY UPDATE thresholds = VALUES(thresholds)`,
+      [site.id, JSON.stringify(thresholds)],
+    );
     n++;
   }
   return n;

@@ -23,20 +23,41 @@ export async function seedDemo(db: DataSource): Promise<{ organisations: number;
     for (const u of DEMO_USERS) {
       const users = em.getRepository(UserEntity);
       const existing = await users.findOneBy({ email: u.email });
-      const id = existing?.id ?? (await users.insert({ email: u.email, displayName: u.displayName, status: 'active', passwordHash })).identifiers[0]!['id'];
+      const id =
+        existing?.id ??
+        (await users.insert({ email: u.email, displayName: u.displayName, status: 'active', passwordHash }))
+          .identifiers[0]!['id'];
       if (existing) await users.update({ id }, { displayName: u.displayName, status: 'active', passwordHash });
-      await em.getRepository(MembershipEntity).upsert({ userId: Number(id), organisationId: orgIds.get(u.organisation)!, role: u.role }, ['userId', 'organisationId']);
+      await em
+        .getRepository(MembershipEntity)
+        .upsert({ userId: Number(id), organisationId: orgIds.get(u.organisation)!, role: u.role }, [
+          'userId',
+          'organisationId',
+        ]);
     }
     for (const s of DEMO_SITES) {
       const organisationId = orgIds.get(s.organisation)!;
-      const fields = { organisationId, name: s.name, kind: s.kind, address: s.address, timeZone: s.timeZone, notes: s.notes };
+      const fields = {
+        organisationId,
+        name: s.name,
+        kind: s.kind,
+        address: s.address,
+        timeZone: s.timeZone,
+        notes: s.notes,
+      };
       await em.getRepository(SiteEntity).upsert(fields, ['organisationId', 'name']);
       const site = await em.getRepository(SiteEntity).findOneByOrFail({ organisationId, name: s.name });
       await em.getRepository(SiteTagEntity).delete({ siteId: site.id });
       await em.getRepository(SiteTagEntity).insert(s.tags.map((tag) => ({ siteId: site.id, tag })));
       await em.getRepository(SiteShareEntity).delete({ siteId: site.id });
       if (s.shares.length) {
-        await em.getRepository(SiteShareEntity).insert(s.shares.map((sh) => ({ siteId: site.id, organisationId: orgIds.get(sh.organisation)!, access: sh.access })));
+        await em.getRepository(SiteShareEntity).insert(
+          s.shares.map((sh) => ({
+            siteId: site.id,
+            organisationId: orgIds.get(sh.organisation)!,
+            access: sh.access,
+          })),
+        );
       }
     }
     return { organisations: DEMO_ORGANISATIONS.length, users: DEMO_USERS.length, sites: DEMO_SITES.length };

@@ -38,7 +38,14 @@ const catalogue = JSON.parse(readFileSync(resolve(import.meta.dirname, '../../sa
  * the zones' design flow), so the nightly watch finds only the invented events: a stuck valve at North Commons,
  * a zone left running at Tannery Point, a stopped meter at North Commons, and the leak at Juniper Hollow.
  */
-const PLACEMENTS: Array<{ demoSite: string; waterSource: WaterSource; stations: string[]; gpm: number; program: DemoProgram; flows: DemoFlow[] }> = [
+const PLACEMENTS: Array<{
+  demoSite: string;
+  waterSource: WaterSource;
+  stations: string[];
+  gpm: number;
+  program: DemoProgram;
+  flows: DemoFlow[];
+}> = [
   {
     demoSite: 'Willowmere HOA — North Commons',
     waterSource: 'recycled',
@@ -46,9 +53,22 @@ const PLACEMENTS: Array<{ demoSite: string; waterSource: WaterSource; stations: 
     gpm: 9.5,
     program: { startHour: 22, minutesPerStation: 60 },
     flows: [
-      { meterRef: 'HOA-NORTH-01', wateringGph: 330, baseGph: 3, window: [22, 23, 0, 1], broken: { from: '2026-11-26', to: '2026-11-28' } },
+      {
+        meterRef: 'HOA-NORTH-01',
+        wateringGph: 330,
+        baseGph: 3,
+        window: [22, 23, 0, 1],
+        broken: { from: '2026-11-26', to: '2026-11-28' },
+      },
       // A valve that stuck open after the program ended, one night in November.
-      { meterRef: 'HOA-NORTH-02', wateringGph: 240, baseGph: 2, window: [22, 23, 0, 1], extra: [{ date: '2026-11-21', hours: [2, 3, 4, 5], gph: 420 }], broken: { from: '2026-11-26', to: '2026-11-28' } },
+      {
+        meterRef: 'HOA-NORTH-02',
+        wateringGph: 240,
+        baseGph: 2,
+        window: [22, 23, 0, 1],
+        extra: [{ date: '2026-11-21', hours: [2, 3, 4, 5], gph: 420 }],
+        broken: { from: '2026-11-26', to: '2026-11-28' },
+      },
     ],
   },
   {
@@ -59,8 +79,20 @@ const PLACEMENTS: Array<{ demoSite: string; waterSource: WaterSource; stations: 
     // Station 4 ran 165 minutes instead of 45 one morning (a controller fault).
     program: { startHour: 3, minutesPerStation: 45, longRun: { date: '2026-11-17', station: '4', minutes: 165 } },
     flows: [
-      { meterRef: 'OFFICE-PARK-01', wateringGph: 220, baseGph: 4, window: [3, 4, 5], extra: [{ date: '2026-11-17', hours: [6, 7], gph: 220 }] },
-      { meterRef: 'OFFICE-PARK-02', wateringGph: 140, baseGph: 1, window: [3, 4, 5], extra: [{ date: '2026-11-17', hours: [6, 7], gph: 140 }] },
+      {
+        meterRef: 'OFFICE-PARK-01',
+        wateringGph: 220,
+        baseGph: 4,
+        window: [3, 4, 5],
+        extra: [{ date: '2026-11-17', hours: [6, 7], gph: 220 }],
+      },
+      {
+        meterRef: 'OFFICE-PARK-02',
+        wateringGph: 140,
+        baseGph: 1,
+        window: [3, 4, 5],
+        extra: [{ date: '2026-11-17', hours: [6, 7], gph: 140 }],
+      },
     ],
   },
   {
@@ -71,20 +103,30 @@ const PLACEMENTS: Array<{ demoSite: string; waterSource: WaterSource; stations: 
     program: { startHour: 21, minutesPerStation: 60 },
     flows: [
       // The leak the dashboards should find: water running all day and night for five days in November.
-      { meterRef: 'SCHOOL-01', wateringGph: 480, baseGph: 2, window: [21, 22, 23, 0], leak: { from: '2026-11-10', to: '2026-11-14', gph: 38 } },
+      {
+        meterRef: 'SCHOOL-01',
+        wateringGph: 480,
+        baseGph: 2,
+        window: [21, 22, 23, 0],
+        leak: { from: '2026-11-10', to: '2026-11-14', gph: 38 },
+      },
       { meterRef: 'SCHOOL-02', wateringGph: 240, baseGph: 2, window: [21, 22, 23, 0] },
     ],
   },
 ];
-
 
 /**
  * Puts the sample meters and controllers on three demo sites, then brings in ~3 months of invented hourly readings
  * and runtime logs through the upload code path (the same function the API calls). Idempotent: equipment is
  * matched by ref; the generated files are identical each run, so their second import is "already imported".
  */
-export async function seedMeters(db: DataSource, config: Config): Promise<{ meters: number; uploads: number; readings: number }> {
-  const org = await db.getRepository(OrganisationEntity).findOneByOrFail({ name: DEMO_ORGANISATIONS.find((o) => o.key === 'cobalt')!.name });
+export async function seedMeters(
+  db: DataSource,
+  config: Config,
+): Promise<{ meters: number; uploads: number; readings: number }> {
+  const org = await db
+    .getRepository(OrganisationEntity)
+    .findOneByOrFail({ name: DEMO_ORGANISATIONS.find((o) => o.key === 'cobalt')!.name });
   const adminEmail = DEMO_USERS.find((u) => u.organisation === 'cobalt' && u.role === 'admin')!.email;
   const adminUser = await db.getRepository(UserEntity).findOneByOrFail({ email: adminEmail });
   let meters = 0;
@@ -113,20 +155,44 @@ export async function seedMeters(db: DataSource, config: Config): Promise<{ mete
       const meter = await db.getRepository(MeterEntity).findOneByOrFail({ siteId: site.id, ref: m.ref });
       await db.getRepository(MeterRegisterPeriodEntity).delete({ meterId: meter.id });
       for (const r of registers.slice(0, -1)) {
-        await db.getRepository(MeterRegisterPeriodEntity).insert({ meterId: meter.id, installedAt: new Date(r.installedUtc), removedAt: new Date(r.removedUtc!), multiplier: r.multiplier, digits: r.digits });
+        await db.getRepository(MeterRegisterPeriodEntity).insert({
+          meterId: meter.id,
+          installedAt: new Date(r.installedUtc),
+          removedAt: new Date(r.removedUtc!),
+          multiplier: r.multiplier,
+          digits: r.digits,
+        });
       }
       meters++;
     }
     for (const ref of sample.controllers) {
-      await db.getRepository(ControllerEntity).upsert({ siteId: site.id, ref, name: `${p.demoSite.split(' ')[0]} controller A` }, ['siteId', 'ref']);
+      await db
+        .getRepository(ControllerEntity)
+        .upsert({ siteId: site.id, ref, name: `${p.demoSite.split(' ')[0]} controller A` }, ['siteId', 'ref']);
       const controller = await db.getRepository(ControllerEntity).findOneByOrFail({ siteId: site.id, ref });
       await db.getRepository(ZoneEntity).upsert(
-        p.stations.map((station, i) => ({ controllerId: controller.id, station, name: `Station ${station}`, hydrozoneId: null, designGpm: p.gpm, emitterCount: i % 2 ? 180 : null, emitterGph: i % 2 ? 1 : null })),
+        p.stations.map((station, i) => ({
+          controllerId: controller.id,
+          station,
+          name: `Station ${station}`,
+          hydrozoneId: null,
+          designGpm: p.gpm,
+          emitterCount: i % 2 ? 180 : null,
+          emitterGph: i % 2 ? 1 : null,
+        })),
         ['controllerId', 'station'],
       );
-      work.push({ siteId: site.id, name: `${ref.toLowerCase()}-runtime-2026-09-to-11.csv`, csv: runtimeCsv(ref, p.stations, p.program, p.gpm) });
+      work.push({
+        siteId: site.id,
+        name: `${ref.toLowerCase()}-runtime-2026-09-to-11.csv`,
+        csv: runtimeCsv(ref, p.stations, p.program, p.gpm),
+      });
     }
-    work.unshift({ siteId: site.id, name: `${p.demoSite.split(' ')[0]!.toLowerCase()}-hourly-2026-09-to-11.csv`, csv: meterCsv(p.flows) });
+    work.unshift({
+      siteId: site.id,
+      name: `${p.demoSite.split(' ')[0]!.toLowerCase()}-hourly-2026-09-to-11.csv`,
+      csv: meterCsv(p.flows),
+    });
   }
 
   // The real import path, acting as the organisation's administrator.
@@ -137,7 +203,12 @@ export async function seedMeters(db: DataSource, config: Config): Promise<{ mete
   let uploads = 0;
   let readings = 0;
   for (const w of work) {
-    const result = await ingest.uploads.ingest(principal, w.siteId, { fileName: w.name, file: Readable.from([Buffer.from(w.csv)]), replaceConflicts: false, rowErrors: 'keep-valid' });
+    const result = await ingest.uploads.ingest(principal, w.siteId, {
+      fileName: w.name,
+      file: Readable.from([Buffer.from(w.csv)]),
+      replaceConflicts: false,
+      rowErrors: 'keep-valid',
+    });
     if (result.outcome === 'imported') {
       uploads++;
       readings += result.upload.accepted;

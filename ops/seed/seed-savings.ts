@@ -27,12 +27,17 @@ const BASE_GAL_PER_DAY = 40;
  * report's figures are the same on every machine.
  */
 export async function seedSavings(db: DataSource): Promise<{ readings: number; projects: number }> {
-  const org = await db.getRepository(OrganisationEntity).findOneByOrFail({ name: DEMO_ORGANISATIONS.find((o) => o.key === 'cobalt')!.name });
+  const org = await db
+    .getRepository(OrganisationEntity)
+    .findOneByOrFail({ name: DEMO_ORGANISATIONS.find((o) => o.key === 'cobalt')!.name });
   const site = await db.getRepository(SiteEntity).findOneByOrFail({ organisationId: org.id, name: SITE });
   const contractorEmail = DEMO_USERS.find((u) => u.organisation === 'thistlewood' && u.role === 'contractor')?.email;
   const author = contractorEmail ? await db.getRepository(UserEntity).findOneBy({ email: contractorEmail }) : null;
   let readings = 0;
-  const [existing]: { id: number }[] = await db.query('SELECT id FROM upload WHERE site_id = ? AND file_name = ?', [site.id, FILE_NAME]);
+  const [existing]: { id: number }[] = await db.query('SELECT id FROM upload WHERE site_id = ? AND file_name = ?', [
+    site.id,
+    FILE_NAME,
+  ]);
   if (!existing) {
     if (!site.weatherStationId) throw new Error(`${SITE} has no weather station; run seedBudgets first`);
     const weather: { date: string | Date; eto: number | null; rain: number | null }[] = await db.query(
@@ -42,7 +47,17 @@ export async function seedSavings(db: DataSource): Promise<{ readings: number; p
     const byDate = new Map(weather.map((w) => [dateOnly(w.date), w]));
     await db.transaction(async (em) => {
       await em.getRepository(MeterEntity).upsert(
-        { siteId: site.id, ref: METER_REF, unit: 'gal', registerMultiplier: 1, registerDigits: null, purpose: 'dedicated-irrigation', waterSource: 'recycled', installedAt: new Date('2019-03-01T08:00:00Z'), removedAt: null },
+        {
+          siteId: site.id,
+          ref: METER_REF,
+          unit: 'gal',
+          registerMultiplier: 1,
+          registerDigits: null,
+          purpose: 'dedicated-irrigation',
+          waterSource: 'recycled',
+          installedAt: new Date('2019-03-01T08:00:00Z'),
+          removedAt: null,
+        },
         ['siteId', 'ref'],
       );
       const meter = await em.getRepository(MeterEntity).findOneByOrFail({ siteId: site.id, ref: METER_REF });
@@ -69,7 +84,10 @@ export async function seedSavings(db: DataSource): Promise<{ readings: number; p
       );
       const uploadId = Number(upload.insertId);
       for (let i = 0; i < rows.length; i += 500) {
-        await em.query('INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?', [rows.slice(i, i + 500).map((r) => [...r, uploadId])]);
+        await em.query(
+          'INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?',
+          [rows.slice(i, i + 500).map((r) => [...r, uploadId])],
+        );
       }
       await new DailyUseRepository(db).rebuildSite(em, site.id);
       readings = rows.length;
@@ -79,9 +97,18 @@ export async function seedSavings(db: DataSource): Promise<{ readings: number; p
   let projects = 0;
   if (!(await db.getRepository(SavingsProjectEntity).findOneBy({ siteId: site.id, title }))) {
     await db.getRepository(SavingsProjectEntity).insert({
-      siteId: site.id, title, changeKind: 'spray-to-drip',
-      changeDescription: 'Spray heads along the greenbelt path replaced by inline drip under mulch; slope groundcover unchanged.',
-      installedOn: INSTALLED_ON, baselineFrom: '2025-04', baselineTo: '2026-03', reportingFrom: '2026-05', reportingTo: '2026-11', modelForm: 'eto', createdBy: author?.id ?? null,
+      siteId: site.id,
+      title,
+      changeKind: 'spray-to-drip',
+      changeDescription:
+        'Spray heads along the greenbelt path replaced by inline drip under mulch; slope groundcover unchanged.',
+      installedOn: INSTALLED_ON,
+      baselineFrom: '2025-04',
+      baselineTo: '2026-03',
+      reportingFrom: '2026-05',
+      reportingTo: '2026-11',
+      modelForm: 'eto',
+      createdBy: author?.id ?? null,
     });
     projects = 1;
   }

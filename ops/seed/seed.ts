@@ -12,14 +12,24 @@ import { seedAlerts } from './seed-alerts';
 const db = createDataSource(loadConfig().db);
 await connectWithRetry(db, { attempts: 10 });
 const counts = await seedDemo(db);
-logger.info(`demo scenario seeded: ${counts.organisations} organisations, ${counts.users} users, ${counts.sites} sites`);
+logger.info(
+  `demo scenario seeded: ${counts.organisations} organisations, ${counts.users} users, ${counts.sites} sites`,
+);
 const budgets = await seedBudgets(db);
-logger.info(`demo budgets seeded: ${budgets.stations} weather stations, ${budgets.days} days of weather, ${budgets.hydrozones} hydrozones`);
+logger.info(
+  `demo budgets seeded: ${budgets.stations} weather stations, ${budgets.days} days of weather, ${budgets.hydrozones} hydrozones`,
+);
 const water = await seedMeters(db, loadConfig());
-logger.info(`demo meters seeded: ${water.meters} meters; ${water.uploads} new uploads with ${water.readings} readings and runs`);
+logger.info(
+  `demo meters seeded: ${water.meters} meters; ${water.uploads} new uploads with ${water.readings} readings and runs`,
+);
 const savings = await seedSavings(db);
 logger.info(`demo savings seeded: ${savings.readings} daily readings, ${savings.projects} new savings projects`);
 // Last: the watch reads everything seeded above.
 const watched = await seedAlerts(db, loadConfig());
-logger.info(`demo watch run: ${watched.alerts} alerts (${Object.entries(watched.byKind).map(([k, n]) => `${k} ${n}`).join(', ')}); ${watched.mails} e-mails queued`);
+logger.info(
+  `demo watch run: ${watched.alerts} alerts (${Object.entries(watched.byKind)
+    .map(([k, n]) => `${k} ${n}`)
+    .join(', ')}); ${watched.mails} e-mails queued`,
+);
 await db.destroy();

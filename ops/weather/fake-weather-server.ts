@@ -47,7 +47,8 @@ export function answer(url: URL): { status: number; body: unknown } {
 
 export function startFakeWeather(host: string, port: number): Promise<Server> {
   const server = createServer((req, res) => {
-    const { status, body } = req.method === 'GET' ? answer(new URL(req.url ?? '/', `http://${host}`)) : problem(405, 'GET only');
+    const { status, body } =
+      req.method === 'GET' ? answer(new URL(req.url ?? '/', `http://${host}`)) : problem(405, 'GET only');
     res.writeHead(status, { 'content-type': 'application/json' });
     res.end(JSON.stringify(body));
   });

@@ -68,7 +68,13 @@ export function inventedDay(latitude: number, longitude: number, date: string): 
 }
 
 /** Every day from `from` to `to` inclusive, leaving out the invented feed's missing days when asked. */
-export function inventedDays(latitude: number, longitude: number, from: string, to: string, options: { withGaps: boolean }): InventedDay[] {
+export function inventedDays(
+  latitude: number,
+  longitude: number,
+  from: string,
+  to: string,
+  options: { withGaps: boolean },
+): InventedDay[] {
   const days: InventedDay[] = [];
   for (let date = from; date <= to; date = addDays(date, 1)) {
     if (options.withGaps && inventedDayMissing(latitude, longitude, date)) continue;

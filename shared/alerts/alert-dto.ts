@@ -11,15 +11,28 @@ export type AlertSort = (typeof ALERT_SORTS)[number];
 
 /** Rillmark's own names for the kinds and sub-kinds, as the UI and e-mail show them. */
 export const KIND_LABELS: Record<FindingKind, string> = {
-  leak: 'Leak', 'runaway-zone': 'Runaway zone', overspend: 'Over budget', 'silent-meter': 'Silent meter',
+  leak: 'Leak',
+  'runaway-zone': 'Runaway zone',
+  overspend: 'Over budget',
+  'silent-meter': 'Silent meter',
 };
 export const SUB_KIND_LABELS: Record<string, string> = {
-  'continuous-flow': 'Flow that never stops', 'night-flow': 'High night flow', 'month-far-over-budget': 'Month far over budget',
-  'over-volume': 'Zone uses too much', 'long-run': 'Zone runs too long', 'open-valve': 'Valve open with nothing scheduled',
-  'month-to-date': 'Over budget so far this month', 'projected-month-end': 'Heading over budget by month end',
-  'no-reads': 'No readings', 'zero-while-running': 'No flow while zones ran',
+  'continuous-flow': 'Flow that never stops',
+  'night-flow': 'High night flow',
+  'month-far-over-budget': 'Month far over budget',
+  'over-volume': 'Zone uses too much',
+  'long-run': 'Zone runs too long',
+  'open-valve': 'Valve open with nothing scheduled',
+  'month-to-date': 'Over budget so far this month',
+  'projected-month-end': 'Heading over budget by month end',
+  'no-reads': 'No readings',
+  'zero-while-running': 'No flow while zones ran',
 };
-export const SEVERITY_LABELS: Record<Severity, string> = { watch: 'Keep an eye on', 'act-soon': 'Act soon', 'act-now': 'Act now' };
+export const SEVERITY_LABELS: Record<Severity, string> = {
+  watch: 'Keep an eye on',
+  'act-soon': 'Act soon',
+  'act-now': 'Act now',
+};
 
 export interface AlertListFilter {
   status?: AlertStatus;

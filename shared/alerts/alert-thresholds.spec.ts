@@ -12,12 +12,13 @@ describe('DEFAULT_THRESHOLDS', () => {
 
   it('says "common practice, no source" on the trade rules of thumb', () => {
     const ruleOfThumb: ThresholdName[] = ['continuousFlowHours', 'monthlyLeakRatio', 'overVolumeRatio'];
-    for (const name of ruleOfThumb) expect(DEFAULT_THRESHOLDS[name].explanation, name).toMatch(/common practice, no source/);
+    for (const name of ruleOfThumb)
+      expect(DEFAULT_THRESHOLDS[name].explanation, name).toMatch(/common practice, no source/);
   });
 });
 
 describe('resolveThresholds', () => {
-  it('applies a site\'s overrides over the defaults', () => {
+  it("applies a site's overrides over the defaults", () => {
     const t = resolveThresholds({ continuousFlowHours: 36 });
     expect(t.continuousFlowHours).toBe(36);
     expect(t.monthlyLeakRatio).toBe(DEFAULT_THRESHOLDS.monthlyLeakRatio.value);

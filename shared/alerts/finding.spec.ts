@@ -1,7 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import type { RateSchedule } from '../rates/rate-schedule';
 import { resolveThresholds } from './alert-thresholds';
-import { completeFinding, conditionKeyOf, findingKeyOf, priceLostWater, severityOfLoss, type FindingDraft } from './finding';
+import {
+  completeFinding,
+  conditionKeyOf,
+  findingKeyOf,
+  priceLostWater,
+  severityOfLoss,
+  type FindingDraft,
+} from './finding';
 import { testSite } from './watch-test-input';
 
 // Invented tiered rate: 100 CCF at $2, then $5.
@@ -10,7 +17,13 @@ const tiers: RateSchedule = {
   unit: 'ccf',
   currency: 'USD',
   fixedChargePerPeriod: 30,
-  volumeCharge: { kind: 'tiered', tiers: [{ upToUnits: 100, pricePerUnit: 2 }, { upToUnits: null, pricePerUnit: 5 }] },
+  volumeCharge: {
+    kind: 'tiered',
+    tiers: [
+      { upToUnits: 100, pricePerUnit: 2 },
+      { upToUnits: null, pricePerUnit: 5 },
+    ],
+  },
 };
 const CCF = 748.051948; // gallons in 100 ft³
 
@@ -18,13 +31,15 @@ describe('keys', () => {
   it('name the condition without the period, and the episode with its start', () => {
     const condition = conditionKeyOf('s1', 'runaway-zone', 'long-run', 'Z3');
     expect(condition).toBe('s1|runaway-zone|long-run|Z3');
-    expect(findingKeyOf(condition, Date.UTC(2026, 6, 1, 4))).toBe('s1|runaway-zone|long-run|Z3|2026-07-01T04:00:00.000Z');
+    expect(findingKeyOf(condition, Date.UTC(2026, 6, 1, 4))).toBe(
+      's1|runaway-zone|long-run|Z3|2026-07-01T04:00:00.000Z',
+    );
     expect(conditionKeyOf('s1', 'leak', 'continuous-flow')).toBe('s1|leak|continuous-flow|-');
   });
 });
 
 describe('priceLostWater', () => {
-  it('prices the waste in the tier just above the month\'s budget', () => {
+  it("prices the waste in the tier just above the month's budget", () => {
     // Budget 90 CCF; 20 CCF lost → 10 CCF at $2 and 10 CCF at $5 = $70.
     const site = testSite({ rateSchedule: tiers, monthlyBudgets: [{ month: '2026-06', gallons: 90 * CCF }] });
     expect(priceLostWater(site, '2026-06', 20 * CCF)).toEqual({ amount: 70, currency: 'USD' });
@@ -47,7 +62,7 @@ describe('severityOfLoss', () => {
 });
 
 describe('completeFinding', () => {
-  it('adds keys, site, money and a loss-based severity to a detector\'s draft', () => {
+  it("adds keys, site, money and a loss-based severity to a detector's draft", () => {
     const draft: FindingDraft = {
       kind: 'leak',
       subKind: 'continuous-flow',

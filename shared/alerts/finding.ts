@@ -91,10 +91,18 @@ export function averageDailyBudget(site: SiteFacts): number {
  * Waste priced as if the rest of the month were exactly on budget: the extra water falls in the tiers just above
  * the budget, which is what it adds to the bill.
  */
-export function priceLostWater(site: SiteFacts, month: string, lostGal: number): { amount: number; currency: string } | null {
-  if (!site.rateSchedule || !(lostGal > 0)) return site.rateSchedule ? { amount: 0, currency: site.rateSchedule.currency } : null;
+export function priceLostWater(
+  site: SiteFacts,
+  month: string,
+  lostGal: number,
+): { amount: number; currency: string } | null {
+  if (!site.rateSchedule || !(lostGal > 0))
+    return site.rateSchedule ? { amount: 0, currency: site.rateSchedule.currency } : null;
   const budget = monthBudget(site, month);
-  return { amount: costOfGap(site.rateSchedule, budget + lostGal, budget).gapCost, currency: site.rateSchedule.currency };
+  return {
+    amount: costOfGap(site.rateSchedule, budget + lostGal, budget).gapCost,
+    currency: site.rateSchedule.currency,
+  };
 }
 
 /** Severity from the waste rate against the site's average daily budget. */

@@ -44,7 +44,12 @@ export function runSharesByHour(runs: readonly ZoneRun[], zones: readonly ZoneFa
 }
 
 /** Every hour from the first meter hour to the last, in order; hours the meter never sent have `gallons: null`. */
-export function buildTimeline(meterHours: readonly MeterHour[], runs: readonly ZoneRun[], zones: readonly ZoneFacts[], zone: string): TimelineHour[] {
+export function buildTimeline(
+  meterHours: readonly MeterHour[],
+  runs: readonly ZoneRun[],
+  zones: readonly ZoneFacts[],
+  zone: string,
+): TimelineHour[] {
   if (meterHours.length === 0) return [];
   const gallonsAt = new Map<number, number>();
   for (const h of meterHours) {

@@ -13,7 +13,13 @@ describe('detectContinuousFlow', () => {
     const ctx = testContext();
     const [f, ...rest] = detectContinuousFlow(buildTimeline(hours(T0, values), [], testZones, 'UTC'), ctx);
     expect(rest).toEqual([]);
-    expect(f).toMatchObject({ kind: 'leak', subKind: 'continuous-flow', periodStartUtc: T0 + 6 * HOUR_MS, periodEndUtc: T0 + 36 * HOUR_MS, ongoing: false });
+    expect(f).toMatchObject({
+      kind: 'leak',
+      subKind: 'continuous-flow',
+      periodStartUtc: T0 + 6 * HOUR_MS,
+      periodEndUtc: T0 + 36 * HOUR_MS,
+      ongoing: false,
+    });
     expect(f!.evidence['lowestHourGal']).toBe(12);
     expect(f!.waterLostGal).toBe(12 * 30);
     expect(f!.detectedAtUtc).toBe(T0 + 30 * HOUR_MS);
@@ -21,14 +27,18 @@ describe('detectContinuousFlow', () => {
 
   it('does not flag 23 hours, nor flow broken by a lost reading', () => {
     const ctx = testContext();
-    expect(detectContinuousFlow(buildTimeline(hours(T0, [0, ...repeat(5, 23), 0]), [], testZones, 'UTC'), ctx)).toEqual([]);
+    expect(detectContinuousFlow(buildTimeline(hours(T0, [0, ...repeat(5, 23), 0]), [], testZones, 'UTC'), ctx)).toEqual(
+      [],
+    );
     const broken = [0, ...repeat(5, 15), null, ...repeat(5, 15), 0];
     expect(detectContinuousFlow(buildTimeline(hours(T0, broken), [], testZones, 'UTC'), ctx)).toEqual([]);
   });
 
-  it('follows the site\'s own hour count', () => {
+  it("follows the site's own hour count", () => {
     const ctx = testContext({ continuousFlowHours: 12 });
-    expect(detectContinuousFlow(buildTimeline(hours(T0, [0, ...repeat(5, 13), 0]), [], testZones, 'UTC'), ctx)).toHaveLength(1);
+    expect(
+      detectContinuousFlow(buildTimeline(hours(T0, [0, ...repeat(5, 13), 0]), [], testZones, 'UTC'), ctx),
+    ).toHaveLength(1);
   });
 });
 
@@ -44,7 +54,7 @@ describe('detectNightFlow', () => {
     return { meter: hours(T0, values), runs };
   }
 
-  it('flags nights whose quiet-hour low rises above the site\'s own baseline', () => {
+  it("flags nights whose quiet-hour low rises above the site's own baseline", () => {
     // 20 nights at 0–2 gal/h (median 1, scaled MAD 1.48 → limit 1 + 4×1.48 = 6.9), then 3 nights at 18 gal/h.
     const { meter, runs } = days(23, (d) => (d < 20 ? d % 3 : 18));
     const [f, ...rest] = detectNightFlow(buildTimeline(meter, runs, testZones, 'UTC'), testContext());
@@ -80,7 +90,9 @@ describe('detectNightFlow', () => {
     for (let t = start; t < end; t += HOUR_MS) {
       // 20 gal/h only in local 01:00–04:59 from 1 Nov, which starts at 08:00 UTC before the change and 09:00 after.
       const local = new Date(t + (t < Date.UTC(2026, 10, 1, 9) ? -7 : -8) * HOUR_MS);
-      values.push(t >= localMidnightUtc('2026-11-01', zone) && local.getUTCHours() >= 1 && local.getUTCHours() < 5 ? 20 : 0);
+      values.push(
+        t >= localMidnightUtc('2026-11-01', zone) && local.getUTCHours() >= 1 && local.getUTCHours() < 5 ? 20 : 0,
+      );
     }
     const ctx = testContext({}, { timeZone: zone });
     const [f] = detectNightFlow(buildTimeline(hours(start, values), [], testZones, zone), ctx);
@@ -90,9 +102,28 @@ describe('detectNightFlow', () => {
 
 describe('detectMonthOverBudget', () => {
   it('flags a monthly read at 1.5 × budget or more, and not 1.4 ×', () => {
-    const ctx = testContext({}, { monthlyBudgets: [{ month: '2026-06', gallons: 30_000 }, { month: '2026-07', gallons: 40_000 }] });
-    const findings = detectMonthOverBudget([{ month: '2026-06', gallons: 45_000 }, { month: '2026-07', gallons: 56_000 }], ctx);
+    const ctx = testContext(
+      {},
+      {
+        monthlyBudgets: [
+          { month: '2026-06', gallons: 30_000 },
+          { month: '2026-07', gallons: 40_000 },
+        ],
+      },
+    );
+    const findings = detectMonthOverBudget(
+      [
+        { month: '2026-06', gallons: 45_000 },
+        { month: '2026-07', gallons: 56_000 },
+      ],
+      ctx,
+    );
     expect(findings).toHaveLength(1);
-    expect(findings[0]).toMatchObject({ subKind: 'month-far-over-budget', periodStartUtc: Date.UTC(2026, 5, 1), periodEndUtc: Date.UTC(2026, 6, 1), waterLostGal: 15_000 });
+    expect(findings[0]).toMatchObject({
+      subKind: 'month-far-over-budget',
+      periodStartUtc: Date.UTC(2026, 5, 1),
+      periodEndUtc: Date.UTC(2026, 6, 1),
+      waterLostGal: 15_000,
+    });
   });
 });

@@ -23,7 +23,9 @@ export function detectContinuousFlow(timeline: readonly TimelineHour[], ctx: Wat
   const lastHour = timeline[timeline.length - 1]?.startUtc;
   // A missing hour breaks the run: we cannot claim flow we did not see.
   const flowing = timeline.filter((h) => h.gallons !== null && h.gallons > t.continuousFlowMinGph);
-  const episodes = groupConsecutive(flowing, (a, b) => b.startUtc - a.startUtc === HOUR_MS).filter((g) => g.length >= t.continuousFlowHours);
+  const episodes = groupConsecutive(flowing, (a, b) => b.startUtc - a.startUtc === HOUR_MS).filter(
+    (g) => g.length >= t.continuousFlowHours,
+  );
   return episodes.map((episode) => {
     const start = episode[0]!.startUtc;
     const end = episode[episode.length - 1]!.startUtc + HOUR_MS;
@@ -39,8 +41,18 @@ export function detectContinuousFlow(timeline: readonly TimelineHour[], ctx: Wat
         periodEndUtc: end,
         detectedAtUtc: start + t.continuousFlowHours * HOUR_MS,
         ongoing: episode[episode.length - 1]!.startUtc === lastHour,
-        evidence: { hoursFlowing: hours, lowestHourGal: floorGph, totalGal: episode.reduce((s, h) => s + h.gallons!, 0) },
-        series: [{ label: 'Meter, gallons per hour', unit: 'gal/h', points: hourlyPoints(timeline, start - 24 * HOUR_MS, end) }],
+        evidence: {
+          hoursFlowing: hours,
+          lowestHourGal: floorGph,
+          totalGal: episode.reduce((s, h) => s + h.gallons!, 0),
+        },
+        series: [
+          {
+            label: 'Meter, gallons per hour',
+            unit: 'gal/h',
+            points: hourlyPoints(timeline, start - 24 * HOUR_MS, end),
+          },
+        ],
         waterLostGal: lost,
         explanation: `The meter never stopped for ${hours} hours in a row and never read below ${gal(floorGph)} an hour, so about ${gal(lost)} went to a leak or a valve that does not close.`,
         pricingMonth: episode[0]!.local.month,
@@ -68,14 +80,17 @@ function nightLows(timeline: readonly TimelineHour[], ctx: WatchContext): NightL
     const night = nightOf(h.local, window);
     if (!night) continue;
     const low = nights.get(night);
-    if (!low) nights.set(night, { night, firstUtc: h.startUtc, lastUtc: h.startUtc, lowestGal: h.gallons, quietHours: 1 });
+    if (!low)
+      nights.set(night, { night, firstUtc: h.startUtc, lastUtc: h.startUtc, lowestGal: h.gallons, quietHours: 1 });
     else {
       low.lowestGal = Math.min(low.lowestGal, h.gallons);
       low.lastUtc = h.startUtc;
       low.quietHours += 1;
     }
   }
-  return [...nights.values()].filter((n) => n.quietHours >= ctx.thresholds.nightMinQuietHours).sort((a, b) => a.firstUtc - b.firstUtc);
+  return [...nights.values()]
+    .filter((n) => n.quietHours >= ctx.thresholds.nightMinQuietHours)
+    .sort((a, b) => a.firstUtc - b.firstUtc);
 }
 
 /**
@@ -88,13 +103,18 @@ export function detectNightFlow(timeline: readonly TimelineHour[], ctx: WatchCon
   const normal: number[] = [];
   const judged = lows.map((low) => {
     const history = normal.slice(-t.nightBaselineNights);
-    const limit = history.length >= t.nightMinBaselineNights ? robustUpperLimit(history, t.nightFlowMadK, t.nightFlowMinExcessGph) : null;
+    const limit =
+      history.length >= t.nightMinBaselineNights
+        ? robustUpperLimit(history, t.nightFlowMadK, t.nightFlowMinExcessGph)
+        : null;
     const high = limit !== null && low.lowestGal > limit.limit;
     if (!high) normal.push(low.lowestGal);
     return { low, limit, high };
   });
   const lastNight = judged[judged.length - 1]?.low.night;
-  const episodes = groupConsecutive(judged, (a, b) => a.high && b.high).filter((g) => g[0]!.high && g.length >= t.nightFlowMinNights);
+  const episodes = groupConsecutive(judged, (a, b) => a.high && b.high).filter(
+    (g) => g[0]!.high && g.length >= t.nightFlowMinNights,
+  );
   return episodes.map((episode) => {
     const first = episode[0]!;
     const last = episode[episode.length - 1]!;
@@ -122,12 +142,15 @@ export function detectNightFlow(timeline: readonly TimelineHour[], ctx: WatchCon
           {
             label: 'Lowest night hour with no zone running, gallons',
             unit: 'gal/h',
-            points: lows.filter((l) => l.firstUtc >= chartFrom && l.firstUtc <= last.low.lastUtc).map((l) => ({ atUtc: l.firstUtc, value: l.lowestGal })),
+            points: lows
+              .filter((l) => l.firstUtc >= chartFrom && l.firstUtc <= last.low.lastUtc)
+              .map((l) => ({ atUtc: l.firstUtc, value: l.lowestGal })),
           },
         ],
         waterLostGal: lost,
         explanation: `For ${episode.length} nights the quietest hour still used ${gal(recent)}, against a usual ${gal(baseline.median)}; something is running that no zone explains, about ${gal(lost)} so far.`,
-        pricingMonth: timeline.find((h) => h.startUtc === first.low.firstUtc)?.local.month ?? first.low.night.slice(0, 7),
+        pricingMonth:
+          timeline.find((h) => h.startUtc === first.low.firstUtc)?.local.month ?? first.low.night.slice(0, 7),
       },
       ctx.site,
       t,
@@ -160,8 +183,22 @@ export function detectMonthOverBudget(monthlyUse: readonly MonthlyUse[], ctx: Wa
           ongoing: false,
           evidence: { monthGal: use.gallons, budgetGal: budget, ratio },
           series: [
-            { label: 'Monthly use, gallons', unit: 'gal', points: monthlyUse.map((u) => ({ atUtc: localMidnightUtc(`${u.month}-01`, ctx.site.timeZone), value: u.gallons })) },
-            { label: 'Monthly budget, gallons', unit: 'gal', points: ctx.site.monthlyBudgets.map((b) => ({ atUtc: localMidnightUtc(`${b.month}-01`, ctx.site.timeZone), value: b.gallons })) },
+            {
+              label: 'Monthly use, gallons',
+              unit: 'gal',
+              points: monthlyUse.map((u) => ({
+                atUtc: localMidnightUtc(`${u.month}-01`, ctx.site.timeZone),
+                value: u.gallons,
+              })),
+            },
+            {
+              label: 'Monthly budget, gallons',
+              unit: 'gal',
+              points: ctx.site.monthlyBudgets.map((b) => ({
+                atUtc: localMidnightUtc(`${b.month}-01`, ctx.site.timeZone),
+                value: b.gallons,
+              })),
+            },
           ],
           waterLostGal: lost,
           explanation: `${use.month} used ${gal(use.gallons)}, ${ratio.toFixed(1)} times its ${gal(budget)} budget; with only monthly reads this much extra usually means a leak.`,

@@ -25,7 +25,8 @@ interface DayState {
 
 function dailyTotals(timeline: readonly TimelineHour[]): Map<string, number> {
   const totals = new Map<string, number>();
-  for (const h of timeline) if (h.gallons !== null) totals.set(h.local.date, (totals.get(h.local.date) ?? 0) + h.gallons);
+  for (const h of timeline)
+    if (h.gallons !== null) totals.set(h.local.date, (totals.get(h.local.date) ?? 0) + h.gallons);
   return totals;
 }
 
@@ -35,7 +36,10 @@ function monthStates(month: string, budget: number, totals: Map<string, number>,
   const daily = new Map((ctx.site.dailyBudgets ?? []).map((d) => [d.date, d.gallons]));
   const monthDates = Array.from({ length: days }, (_, i) => `${month}-${String(i + 1).padStart(2, '0')}`);
   const followDaily = monthDates.every((d) => daily.has(d));
-  const lastDataDate = [...totals.keys()].filter((d) => d.startsWith(month)).sort().pop();
+  const lastDataDate = [...totals.keys()]
+    .filter((d) => d.startsWith(month))
+    .sort()
+    .pop();
   if (!lastDataDate) return [];
   const states: DayState[] = [];
   let useSoFar = 0;
@@ -70,7 +74,9 @@ export function detectOverspend(timeline: readonly TimelineHour[], ctx: WatchCon
   const totals = dailyTotals(timeline);
   const lastDate = timeline[timeline.length - 1]?.local.date;
   const findings: Finding[] = [];
-  for (const { month, gallons: budget } of [...ctx.site.monthlyBudgets].sort((a, b) => a.month.localeCompare(b.month))) {
+  for (const { month, gallons: budget } of [...ctx.site.monthlyBudgets].sort((a, b) =>
+    a.month.localeCompare(b.month),
+  )) {
     if (!(budget > 0)) continue;
     const states = monthStates(month, budget, totals, ctx);
     const latest = states[states.length - 1];
@@ -91,7 +97,9 @@ export function detectOverspend(timeline: readonly TimelineHour[], ctx: WatchCon
         proratedBudgetGal: latest.proratedBudget,
         monthBudgetGal: budget,
         projectedGal: latest.projected,
-        ...(ctx.site.rateSchedule ? { projectedExtraCost: costOfGap(ctx.site.rateSchedule, Math.max(latest.projected, budget), budget).gapCost } : {}),
+        ...(ctx.site.rateSchedule
+          ? { projectedExtraCost: costOfGap(ctx.site.rateSchedule, Math.max(latest.projected, budget), budget).gapCost }
+          : {}),
       };
       const stillOver = over(latest);
       const percent = ((latest.useSoFar / latest.proratedBudget) * 100).toFixed(0);
@@ -117,8 +125,19 @@ export function detectOverspend(timeline: readonly TimelineHour[], ctx: WatchCon
             ongoing: over(latest) && latest.date === lastDate,
             evidence,
             series: [
-              { label: 'Use so far this month, gallons', unit: 'gal', points: states.map((s) => ({ atUtc: localMidnightUtc(s.date, ctx.site.timeZone), value: s.useSoFar })) },
-              { label: 'Budget so far, gallons', unit: 'gal', points: states.map((s) => ({ atUtc: localMidnightUtc(s.date, ctx.site.timeZone), value: s.proratedBudget })) },
+              {
+                label: 'Use so far this month, gallons',
+                unit: 'gal',
+                points: states.map((s) => ({ atUtc: localMidnightUtc(s.date, ctx.site.timeZone), value: s.useSoFar })),
+              },
+              {
+                label: 'Budget so far, gallons',
+                unit: 'gal',
+                points: states.map((s) => ({
+                  atUtc: localMidnightUtc(s.date, ctx.site.timeZone),
+                  value: s.proratedBudget,
+                })),
+              },
             ],
             waterLostGal: lostSoFar,
             explanation,

@@ -7,7 +7,7 @@ describe('median', () => {
     expect(median([4, 1, 3, 2])).toBe(2.5);
   });
 
-  it('does not reorder the caller\'s array', () => {
+  it("does not reorder the caller's array", () => {
     const values = [3, 1, 2];
     median(values);
     expect(values).toEqual([3, 1, 2]);

@@ -14,7 +14,10 @@ function program(d: number, a: number, b: number, c: number) {
 
 describe('detectLongRuns', () => {
   it('flags a zone running far longer than its recent runs', () => {
-    const runs = [...Array.from({ length: 12 }, (_, d) => program(d, 10 + (d % 2), 15, 20)).flat(), ...program(12, 40, 15, 20)];
+    const runs = [
+      ...Array.from({ length: 12 }, (_, d) => program(d, 10 + (d % 2), 15, 20)).flat(),
+      ...program(12, 40, 15, 20),
+    ];
     const [f, ...rest] = detectLongRuns(runs, testContext());
     expect(rest).toEqual([]);
     expect(f).toMatchObject({ subKind: 'long-run', zoneId: 'A', ongoing: true });
@@ -25,7 +28,10 @@ describe('detectLongRuns', () => {
   });
 
   it('names the zone as people know it (station and name) when the label is known', () => {
-    const runs = [...Array.from({ length: 12 }, (_, d) => program(d, 10 + (d % 2), 15, 20)).flat(), ...program(12, 40, 15, 20)];
+    const runs = [
+      ...Array.from({ length: 12 }, (_, d) => program(d, 10 + (d % 2), 15, 20)).flat(),
+      ...program(12, 40, 15, 20),
+    ];
     const zones = testZones.map((z) => (z.zoneId === 'A' ? { ...z, label: 'Station 1 “Front lawn”' } : z));
     const [f] = detectLongRuns(runs, testContext({}, {}, zones));
     expect(f!.explanation).toMatch(/^Station 1 “Front lawn” ran up to 40 minutes/);
@@ -56,12 +62,16 @@ describe('detectLongRuns', () => {
 });
 
 describe('detectOpenValve', () => {
-  it('flags flow in the watering window with no zone running, at half the smallest zone\'s flow or more', () => {
+  it("flags flow in the watering window with no zone running, at half the smallest zone's flow or more", () => {
     // Smallest zone 8 gpm → limit 4 gpm = 240 gal/h. Hours 02–05 read 480 gal/h with nothing running.
     const values = [...repeat(0, 2), ...repeat(480, 3), ...repeat(0, 19)];
     const [f, ...rest] = detectOpenValve(buildTimeline(hours(T0, values), [], testZones, 'UTC'), testContext());
     expect(rest).toEqual([]);
-    expect(f).toMatchObject({ subKind: 'open-valve', periodStartUtc: T0 + 2 * HOUR_MS, periodEndUtc: T0 + 5 * HOUR_MS });
+    expect(f).toMatchObject({
+      subKind: 'open-valve',
+      periodStartUtc: T0 + 2 * HOUR_MS,
+      periodEndUtc: T0 + 5 * HOUR_MS,
+    });
     expect(f!.evidence['limitGph']).toBe(240);
     expect(f!.explanation).toMatch(/close to Zone C's flow/); // 480 gal/h = 8 gpm
   });
@@ -73,12 +83,17 @@ describe('detectOpenValve', () => {
     const leakSized = [...repeat(0, 2), ...repeat(120, 3), ...repeat(0, 19)];
     expect(detectOpenValve(buildTimeline(hours(T0, leakSized), [], testZones, 'UTC'), ctx)).toEqual([]);
     const watering = [...repeat(0, 2), ...repeat(600, 3), ...repeat(0, 19)];
-    expect(detectOpenValve(buildTimeline(hours(T0, watering), [run('A', T0 + 2 * HOUR_MS, 180)], testZones, 'UTC'), ctx)).toEqual([]);
+    expect(
+      detectOpenValve(buildTimeline(hours(T0, watering), [run('A', T0 + 2 * HOUR_MS, 180)], testZones, 'UTC'), ctx),
+    ).toEqual([]);
   });
 
   it('keeps nights a day apart in one episode, as a stuck valve flows night after night', () => {
     const night = [...repeat(0, 2), ...repeat(480, 3), ...repeat(0, 19)];
-    const findings = detectOpenValve(buildTimeline(hours(T0, [...night, ...night]), [], testZones, 'UTC'), testContext());
+    const findings = detectOpenValve(
+      buildTimeline(hours(T0, [...night, ...night]), [], testZones, 'UTC'),
+      testContext(),
+    );
     expect(findings).toHaveLength(1);
     expect(findings[0]!.evidence['openHours']).toBe(6);
   });

@@ -100,8 +100,20 @@ export function detectLongRuns(runs: readonly ZoneRun[], ctx: WatchContext): Fin
             periodEndUtc: last.run.startUtc + last.run.minutes * 60_000,
             detectedAtUtc: first.run.startUtc + first.run.minutes * 60_000,
             ongoing: last.run === lastRun,
-            evidence: { longRuns: episode.length, longestMinutes: longest, usualMinutes: usual, extraMinutes, designGpm: zone.designGpm },
-            series: [{ label: `${zoneName(ctx.zones, zone.zoneId)} run length, minutes`, unit: 'min', points: shown.map((r) => ({ atUtc: r.startUtc, value: r.minutes })) }],
+            evidence: {
+              longRuns: episode.length,
+              longestMinutes: longest,
+              usualMinutes: usual,
+              extraMinutes,
+              designGpm: zone.designGpm,
+            },
+            series: [
+              {
+                label: `${zoneName(ctx.zones, zone.zoneId)} run length, minutes`,
+                unit: 'min',
+                points: shown.map((r) => ({ atUtc: r.startUtc, value: r.minutes })),
+              },
+            ],
             waterLostGal: lost,
             explanation: `${zoneName(ctx.zones, zone.zoneId)} ran up to ${longest} minutes where it usually runs ${Math.round(usual)}, ${episode.length} time${episode.length === 1 ? '' : 's'}, about ${gal(lost)} extra: check the program, the seasonal adjustment and the valve.`,
             pricingMonth: localHourOf(first.run.startUtc, ctx.site.timeZone).month,
@@ -123,20 +135,32 @@ export function detectLongRuns(runs: readonly ZoneRun[], ctx: WatchContext): Fin
 export function detectOpenValve(timeline: readonly TimelineHour[], ctx: WatchContext): Finding[] {
   const t = ctx.thresholds;
   const known = ctx.zones.filter((z) => z.designGpm > 0);
-  const limitGpm = known.length > 0 ? t.openValveShareOfSmallestZone * Math.min(...known.map((z) => z.designGpm)) : t.openValveFallbackGpm;
+  const limitGpm =
+    known.length > 0
+      ? t.openValveShareOfSmallestZone * Math.min(...known.map((z) => z.designGpm))
+      : t.openValveFallbackGpm;
   const limitGph = limitGpm * 60;
   const lastHour = timeline[timeline.length - 1]?.startUtc ?? 0;
   const open = timeline.filter(
-    (h) => h.gallons !== null && h.shares.length === 0 && inLocalWindow(h.local.hour, ctx.site.irrigationWindow) && h.gallons >= limitGph,
+    (h) =>
+      h.gallons !== null &&
+      h.shares.length === 0 &&
+      inLocalWindow(h.local.hour, ctx.site.irrigationWindow) &&
+      h.gallons >= limitGph,
   );
-  const episodes = groupConsecutive(open, (a, b) => b.startUtc - a.startUtc <= 24 * HOUR_MS).filter((g) => g.length >= t.openValveMinHours);
+  const episodes = groupConsecutive(open, (a, b) => b.startUtc - a.startUtc <= 24 * HOUR_MS).filter(
+    (g) => g.length >= t.openValveMinHours,
+  );
   return episodes.map((episode) => {
     const start = episode[0]!.startUtc;
     const end = episode[episode.length - 1]!.startUtc + HOUR_MS;
     const rateGph = median(episode.map((h) => h.gallons!));
     // Between flagged nights the valve most likely kept flowing; the days count too.
     const lost = rateGph * ((end - start) / HOUR_MS);
-    const likely = known.length > 0 ? [...known].sort((a, b) => Math.abs(a.designGpm * 60 - rateGph) - Math.abs(b.designGpm * 60 - rateGph))[0]! : null;
+    const likely =
+      known.length > 0
+        ? [...known].sort((a, b) => Math.abs(a.designGpm * 60 - rateGph) - Math.abs(b.designGpm * 60 - rateGph))[0]!
+        : null;
     return completeFinding(
       {
         kind: 'runaway-zone',
@@ -145,12 +169,19 @@ export function detectOpenValve(timeline: readonly TimelineHour[], ctx: WatchCon
         periodEndUtc: end,
         detectedAtUtc: itemAtCount(episode, t.openValveMinHours).startUtc + HOUR_MS,
         ongoing: lastHour - episode[episode.length - 1]!.startUtc < 24 * HOUR_MS,
-        evidence: { openHours: episode.length, medianGph: rateGph, limitGph, ...(likely ? { closestZoneGpm: likely.designGpm } : {}) },
+        evidence: {
+          openHours: episode.length,
+          medianGph: rateGph,
+          limitGph,
+          ...(likely ? { closestZoneGpm: likely.designGpm } : {}),
+        },
         series: [
           {
             label: 'Meter, gallons per hour',
             unit: 'gal/h',
-            points: timeline.filter((h) => h.startUtc >= start - 24 * HOUR_MS && h.startUtc < end && h.gallons !== null).map((h) => ({ atUtc: h.startUtc, value: h.gallons! })),
+            points: timeline
+              .filter((h) => h.startUtc >= start - 24 * HOUR_MS && h.startUtc < end && h.gallons !== null)
+              .map((h) => ({ atUtc: h.startUtc, value: h.gallons! })),
           },
         ],
         waterLostGal: lost,

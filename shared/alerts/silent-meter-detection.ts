@@ -14,10 +14,21 @@ export function detectNoReads(timeline: readonly TimelineHour[], ctx: WatchConte
   const gaps: Array<{ start: number; end: number; ongoing: boolean; month: string }> = [];
   const missing = timeline.filter((h) => h.gallons === null);
   for (const g of groupConsecutive(missing, (a, b) => b.startUtc - a.startUtc === HOUR_MS)) {
-    gaps.push({ start: g[0]!.startUtc, end: g[g.length - 1]!.startUtc + HOUR_MS, ongoing: false, month: g[0]!.local.month });
+    gaps.push({
+      start: g[0]!.startUtc,
+      end: g[g.length - 1]!.startUtc + HOUR_MS,
+      ongoing: false,
+      month: g[0]!.local.month,
+    });
   }
   const last = timeline[timeline.length - 1];
-  if (last) gaps.push({ start: last.startUtc + HOUR_MS, end: Math.max(last.startUtc + HOUR_MS, ctx.asOfUtc), ongoing: true, month: last.local.month });
+  if (last)
+    gaps.push({
+      start: last.startUtc + HOUR_MS,
+      end: Math.max(last.startUtc + HOUR_MS, ctx.asOfUtc),
+      ongoing: true,
+      month: last.local.month,
+    });
   return gaps
     .filter((g) => (g.end - g.start) / HOUR_MS >= t.silentHours)
     .map((g) => {
@@ -48,7 +59,13 @@ export function detectZeroWhileRunning(timeline: readonly TimelineHour[], ctx: W
   const days = new Map<string, { date: string; first: number; last: number; expected: number; metered: number }>();
   for (const h of timeline) {
     if (h.gallons === null || h.expectedGal <= 0) continue;
-    const day = days.get(h.local.date) ?? { date: h.local.date, first: h.startUtc, last: h.startUtc, expected: 0, metered: 0 };
+    const day = days.get(h.local.date) ?? {
+      date: h.local.date,
+      first: h.startUtc,
+      last: h.startUtc,
+      expected: 0,
+      metered: 0,
+    };
     day.last = h.startUtc;
     day.expected += h.expectedGal;
     day.metered += h.gallons;
@@ -59,7 +76,9 @@ export function detectZeroWhileRunning(timeline: readonly TimelineHour[], ctx: W
     .sort((a, b) => a.first - b.first)
     .map((d) => ({ ...d, zero: d.metered <= t.zeroFlowMaxShare * d.expected }));
   const lastDay = judged[judged.length - 1];
-  const episodes = groupConsecutive(judged, (a, b) => a.zero && b.zero).filter((g) => g[0]!.zero && g.length >= t.zeroFlowMinDays);
+  const episodes = groupConsecutive(judged, (a, b) => a.zero && b.zero).filter(
+    (g) => g[0]!.zero && g.length >= t.zeroFlowMinDays,
+  );
   return episodes.map((episode) => {
     const unmeasured = episode.reduce((s, d) => s + d.expected - d.metered, 0);
     const first = episode[0]!;
@@ -72,10 +91,23 @@ export function detectZeroWhileRunning(timeline: readonly TimelineHour[], ctx: W
         periodEndUtc: last.last + HOUR_MS,
         detectedAtUtc: itemAtCount(episode, t.zeroFlowMinDays).last + HOUR_MS,
         ongoing: last === lastDay,
-        evidence: { days: episode.length, expectedGal: episode.reduce((s, d) => s + d.expected, 0), meteredGal: episode.reduce((s, d) => s + d.metered, 0), unmeasuredGal: unmeasured },
+        evidence: {
+          days: episode.length,
+          expectedGal: episode.reduce((s, d) => s + d.expected, 0),
+          meteredGal: episode.reduce((s, d) => s + d.metered, 0),
+          unmeasuredGal: unmeasured,
+        },
         series: [
-          { label: 'Expected from runs, gallons per day', unit: 'gal', points: judged.map((d) => ({ atUtc: d.first, value: d.expected })) },
-          { label: 'Metered while running, gallons per day', unit: 'gal', points: judged.map((d) => ({ atUtc: d.first, value: d.metered })) },
+          {
+            label: 'Expected from runs, gallons per day',
+            unit: 'gal',
+            points: judged.map((d) => ({ atUtc: d.first, value: d.expected })),
+          },
+          {
+            label: 'Metered while running, gallons per day',
+            unit: 'gal',
+            points: judged.map((d) => ({ atUtc: d.first, value: d.metered })),
+          },
         ],
         waterLostGal: null,
         severity: 'act-soon',

@@ -22,13 +22,20 @@ describe('watchSite', () => {
   });
 
   it('gives the same keys when run again with more data, so the job files no duplicate', () => {
-    const later = watchSite({ ...input, meterHours: hours(T0, [...repeat(0, 240), ...repeat(30, 96)]), asOfUtc: T0 + 336 * HOUR_MS });
+    const later = watchSite({
+      ...input,
+      meterHours: hours(T0, [...repeat(0, 240), ...repeat(30, 96)]),
+      asOfUtc: T0 + 336 * HOUR_MS,
+    });
     expect(later.map((f) => f.key)).toEqual(watchSite(input).map((f) => f.key));
     expect(later[0]!.periodEndUtc).toBeGreaterThan(watchSite(input)[0]!.periodEndUtc);
   });
 
-  it('applies the site\'s own thresholds', () => {
-    const strict = watchSite({ ...input, site: { ...input.site, thresholds: { continuousFlowHours: 96, nightFlowMinNights: 4 } } });
+  it("applies the site's own thresholds", () => {
+    const strict = watchSite({
+      ...input,
+      site: { ...input.site, thresholds: { continuousFlowHours: 96, nightFlowMinNights: 4 } },
+    });
     expect(strict).toEqual([]);
   });
 

@@ -14,11 +14,22 @@ import type { SiteWatchInput, WatchContext } from './watch-inputs';
 import { detectOverVolume } from './zone-over-volume';
 
 export function watchSite(input: SiteWatchInput): Finding[] {
-  const ctx: WatchContext = { site: input.site, zones: input.zones, thresholds: resolveThresholds(input.site.thresholds), asOfUtc: input.asOfUtc };
+  const ctx: WatchContext = {
+    site: input.site,
+    zones: input.zones,
+    thresholds: resolveThresholds(input.site.thresholds),
+    asOfUtc: input.asOfUtc,
+  };
   const findings: Finding[] = [...detectLongRuns(input.runs, ctx)];
   if (input.meterHours && input.meterHours.length > 0) {
-    const shiftMinutes = estimateControllerShiftMinutes(input.meterHours, input.runs, input.zones, ctx.thresholds.controllerClockSearchMinutes);
-    const runs = shiftMinutes === 0 ? input.runs : input.runs.map((r) => ({ ...r, startUtc: r.startUtc + shiftMinutes * 60_000 }));
+    const shiftMinutes = estimateControllerShiftMinutes(
+      input.meterHours,
+      input.runs,
+      input.zones,
+      ctx.thresholds.controllerClockSearchMinutes,
+    );
+    const runs =
+      shiftMinutes === 0 ? input.runs : input.runs.map((r) => ({ ...r, startUtc: r.startUtc + shiftMinutes * 60_000 }));
     const timeline = buildTimeline(input.meterHours, runs, input.zones, input.site.timeZone);
     findings.push(
       ...detectContinuousFlow(timeline, ctx),

@@ -21,7 +21,11 @@ export function testSite(overrides: Partial<SiteFacts> = {}): SiteFacts {
   };
 }
 
-export function testContext(overrides: Partial<AlertThresholds> = {}, site: Partial<SiteFacts> = {}, zones: ZoneFacts[] = testZones): WatchContext {
+export function testContext(
+  overrides: Partial<AlertThresholds> = {},
+  site: Partial<SiteFacts> = {},
+  zones: ZoneFacts[] = testZones,
+): WatchContext {
   return { site: testSite(site), zones, thresholds: resolveThresholds(overrides), asOfUtc: T0 + 90 * 24 * HOUR_MS };
 }
 

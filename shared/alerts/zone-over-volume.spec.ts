@@ -9,7 +9,9 @@ const DAY = 24 * HOUR_MS;
 describe('detectOverVolume with a controller flow sensor', () => {
   it('flags a zone after two runs in a row at 1.5 × design or more', () => {
     // Zone A: 10 gpm × 30 min = 300 gal expected. Nights 0–2 normal, nights 3–4 draw 650 gal.
-    const runs = [0, 1, 2, 3, 4].map((d) => run('A', T0 + d * DAY + 22 * HOUR_MS, 30, { measuredGallons: d >= 3 ? 650 : 305 }));
+    const runs = [0, 1, 2, 3, 4].map((d) =>
+      run('A', T0 + d * DAY + 22 * HOUR_MS, 30, { measuredGallons: d >= 3 ? 650 : 305 }),
+    );
     const [f, ...rest] = detectOverVolume([], runs, testContext());
     expect(rest).toEqual([]);
     expect(f).toMatchObject({ subKind: 'over-volume', zoneId: 'A', periodStartUtc: runs[3]!.startUtc, ongoing: true });
@@ -36,7 +38,11 @@ describe('detectOverVolume from the site meter', () => {
     const runs = [];
     for (let d = 0; d < count; d++) {
       const base = T0 + d * DAY;
-      runs.push(run('A', base + 22 * HOUR_MS, 40), run('B', base + 22 * HOUR_MS + 40 * 60_000, 40), run('C', base + 23 * HOUR_MS + 20 * 60_000, 40));
+      runs.push(
+        run('A', base + 22 * HOUR_MS, 40),
+        run('B', base + 22 * HOUR_MS + 40 * 60_000, 40),
+        run('C', base + 23 * HOUR_MS + 20 * 60_000, 40),
+      );
       values.push(...repeat(0, 22), 400 * aFactor(d) + 200, 200 + 320);
     }
     values.push(0);
@@ -58,7 +64,7 @@ describe('detectOverVolume from the site meter', () => {
     expect(detectOverVolume(gappy, runs, testContext())).toEqual([]);
   });
 
-  it('takes a leak\'s steady flow off before judging zones', () => {
+  it("takes a leak's steady flow off before judging zones", () => {
     const { timeline, runs } = nights(5, () => 1);
     const leaking = timeline.map((h) => ({ ...h, gallons: h.gallons! + 60 }));
     expect(detectOverVolume(leaking, runs, testContext())).toEqual([]);

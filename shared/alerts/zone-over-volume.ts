@@ -29,7 +29,12 @@ function checksFromSensor(runs: readonly ZoneRun[], gpm: Map<string, number>, ct
     if (!runWatered(run) || run.measuredGallons === undefined || !design) return;
     const expectedGal = design * run.minutes;
     const measuredGal = run.measuredGallons;
-    checks.push({ runIndex, expectedGal, measuredGal, heavy: isHeavy(expectedGal, measuredGal, t.overVolumeRatio, t.overVolumeMinExcessGal) });
+    checks.push({
+      runIndex,
+      expectedGal,
+      measuredGal,
+      heavy: isHeavy(expectedGal, measuredGal, t.overVolumeRatio, t.overVolumeMinExcessGal),
+    });
   });
   return checks;
 }
@@ -61,34 +66,46 @@ function checksFromMeter(timeline: readonly TimelineHour[], runs: readonly ZoneR
     const excess = block.map(({ h }) => h.gallons! - base - h.expectedGal);
     const zoneIds = new Set(block.flatMap(({ h }) => h.shares.map((s) => s.zoneId)));
     for (const zoneId of zoneIds) {
-      const zoneRuns = new Set(block.flatMap(({ h }) => h.shares.filter((s) => s.zoneId === zoneId).map((s) => s.runIndex)));
+      const zoneRuns = new Set(
+        block.flatMap(({ h }) => h.shares.filter((s) => s.zoneId === zoneId).map((s) => s.runIndex)),
+      );
       // Runs with their own flow sensor are judged by it.
       if ([...zoneRuns].some((r) => runs[r]!.measuredGallons !== undefined)) continue;
-      const own = block.map(({ h }) => h.shares.filter((s) => s.zoneId === zoneId).reduce((s, x) => s + x.expectedGal, 0));
+      const own = block.map(({ h }) =>
+        h.shares.filter((s) => s.zoneId === zoneId).reduce((s, x) => s + x.expectedGal, 0),
+      );
       const expectedGal = own.reduce((s, v) => s + v, 0);
       if (expectedGal <= 0) continue;
       const extraGal = own.reduce((s, v, k) => s + (v > 0 ? excess[k]! : 0), 0);
       // Hours without this zone must look normal, or the extra water may be someone else's.
-      const othersNormal = block.every(({ h }, k) => own[k]! > 0 || Math.abs(excess[k]!) <= t.overVolumeHourTolerance * h.expectedGal + ROUNDING_GAL);
+      const othersNormal = block.every(
+        ({ h }, k) => own[k]! > 0 || Math.abs(excess[k]!) <= t.overVolumeHourTolerance * h.expectedGal + ROUNDING_GAL,
+      );
       // A heavy zone shows extra in every hour it holds a real part of, more than design-record error could explain;
       // a neighbour sharing one heavy hour, or a small slice of an hour whose big zone runs a little high, does not.
       const everyHourHeavy = own.every(
         (v, k) =>
           v < 0.25 * expectedGal ||
-          (1 + excess[k]! / v >= 1 + (t.overVolumeRatio - 1) / 2 && excess[k]! > t.overVolumeHourTolerance * block[k]!.h.expectedGal + ROUNDING_GAL),
+          (1 + excess[k]! / v >= 1 + (t.overVolumeRatio - 1) / 2 &&
+            excess[k]! > t.overVolumeHourTolerance * block[k]!.h.expectedGal + ROUNDING_GAL),
       );
       if (!othersNormal || !everyHourHeavy) continue;
       const measuredGal = expectedGal + extraGal;
       const heavy = isHeavy(expectedGal, measuredGal, t.overVolumeRatio, t.overVolumeMinExcessGal);
       // A zone run split over several starts in one block (cycle and soak) shares one verdict.
       const perRun = expectedGal / zoneRuns.size;
-      for (const runIndex of zoneRuns) checks.push({ runIndex, expectedGal: perRun, measuredGal: measuredGal / zoneRuns.size, heavy });
+      for (const runIndex of zoneRuns)
+        checks.push({ runIndex, expectedGal: perRun, measuredGal: measuredGal / zoneRuns.size, heavy });
     }
   }
   return checks;
 }
 
-export function detectOverVolume(timeline: readonly TimelineHour[], runs: readonly ZoneRun[], ctx: WatchContext): Finding[] {
+export function detectOverVolume(
+  timeline: readonly TimelineHour[],
+  runs: readonly ZoneRun[],
+  ctx: WatchContext,
+): Finding[] {
   const t = ctx.thresholds;
   const gpm = new Map(ctx.zones.map((z) => [z.zoneId, z.designGpm]));
   const checks = [...checksFromSensor(runs, gpm, ctx), ...checksFromMeter(timeline, runs, ctx)];
@@ -103,13 +120,19 @@ export function detectOverVolume(timeline: readonly TimelineHour[], runs: readon
   for (const [zoneId, zoneChecks] of [...byZone].sort(([a], [b]) => a.localeCompare(b))) {
     zoneChecks.sort((a, b) => runs[a.runIndex]!.startUtc - runs[b.runIndex]!.startUtc);
     const lastIndex = zoneChecks[zoneChecks.length - 1]!.runIndex;
-    const episodes = groupConsecutive(zoneChecks, (a, b) => a.heavy && b.heavy).filter((g) => g[0]!.heavy && g.length >= t.overVolumeMinRuns);
+    const episodes = groupConsecutive(zoneChecks, (a, b) => a.heavy && b.heavy).filter(
+      (g) => g[0]!.heavy && g.length >= t.overVolumeMinRuns,
+    );
     for (const episode of episodes) {
       const firstRun = runs[episode[0]!.runIndex]!;
       const lastRun = runs[episode[episode.length - 1]!.runIndex]!;
       const lost = episode.reduce((s, c) => s + (c.measuredGal - c.expectedGal), 0);
       const ratio = median(episode.map((c) => c.measuredGal / c.expectedGal));
-      const recent = zoneChecks.filter((c) => runs[c.runIndex]!.startUtc >= firstRun.startUtc - 30 * 86_400_000 && runs[c.runIndex]!.startUtc <= lastRun.startUtc);
+      const recent = zoneChecks.filter(
+        (c) =>
+          runs[c.runIndex]!.startUtc >= firstRun.startUtc - 30 * 86_400_000 &&
+          runs[c.runIndex]!.startUtc <= lastRun.startUtc,
+      );
       const at = (c: RunCheck) => runs[c.runIndex]!.startUtc;
       drafts.push({
         kind: 'runaway-zone',
@@ -121,8 +144,16 @@ export function detectOverVolume(timeline: readonly TimelineHour[], runs: readon
         ongoing: episode[episode.length - 1]!.runIndex === lastIndex,
         evidence: { heavyRuns: episode.length, medianRatio: ratio, designGpm: gpm.get(zoneId) ?? 0, extraGal: lost },
         series: [
-          { label: `${zoneName(ctx.zones, zoneId)} measured per run, gallons`, unit: 'gal', points: recent.map((c) => ({ atUtc: at(c), value: c.measuredGal })) },
-          { label: `${zoneName(ctx.zones, zoneId)} design flow × minutes, gallons`, unit: 'gal', points: recent.map((c) => ({ atUtc: at(c), value: c.expectedGal })) },
+          {
+            label: `${zoneName(ctx.zones, zoneId)} measured per run, gallons`,
+            unit: 'gal',
+            points: recent.map((c) => ({ atUtc: at(c), value: c.measuredGal })),
+          },
+          {
+            label: `${zoneName(ctx.zones, zoneId)} design flow × minutes, gallons`,
+            unit: 'gal',
+            points: recent.map((c) => ({ atUtc: at(c), value: c.expectedGal })),
+          },
         ],
         waterLostGal: lost,
         explanation: `${zoneName(ctx.zones, zoneId)} used ${ratio.toFixed(1)} times its design flow on ${episode.length} runs in a row, about ${formatVolume(lost, 'gal')} extra: look for a broken pipe, a missing nozzle or a split drip line.`,
@@ -130,13 +161,17 @@ export function detectOverVolume(timeline: readonly TimelineHour[], runs: readon
       });
     }
   }
-  const findings = overlappingGroups(drafts).map((group) => completeFinding(group.length === 1 ? group[0]! : mergeSuspects(group), ctx.site, t));
+  const findings = overlappingGroups(drafts).map((group) =>
+    completeFinding(group.length === 1 ? group[0]! : mergeSuspects(group), ctx.site, t),
+  );
   return findings;
 }
 
 /** Drafts whose periods overlap, transitively: zones blamed for the same heavy waterings. */
 function overlappingGroups(drafts: FindingDraft[]): FindingDraft[][] {
-  const sorted = [...drafts].sort((a, b) => a.periodStartUtc - b.periodStartUtc || (a.zoneId ?? '').localeCompare(b.zoneId ?? ''));
+  const sorted = [...drafts].sort(
+    (a, b) => a.periodStartUtc - b.periodStartUtc || (a.zoneId ?? '').localeCompare(b.zoneId ?? ''),
+  );
   const groups: FindingDraft[][] = [];
   let reach = Number.NEGATIVE_INFINITY;
   for (const d of sorted) {

@@ -73,7 +73,16 @@ export interface SiteBudgetDto {
   station: { id: number; name: string };
   rainCredit: { kind: RainCreditKind; value: number | null; description: string };
   months: BudgetMonthDto[];
-  totals: { gallons: number; litres: number; indoorGallons: number | null; etoMm: number; rainMm: number; filledDays: number; cost: number | null; currency: string | null };
+  totals: {
+    gallons: number;
+    litres: number;
+    indoorGallons: number | null;
+    etoMm: number;
+    rainMm: number;
+    filledDays: number;
+    cost: number | null;
+    currency: string | null;
+  };
   indoor: { occupants: number; gallonsPerPersonPerDay: number } | null;
   formula: string;
   sources: string[];
@@ -96,7 +105,14 @@ export interface ComplianceDto {
   etwuGallons: number;
   sitewideEtaf: number;
   regularAreaEtaf: number | null;
-  zones: { zoneId: number; zoneName: string; areaFt2: number; etaf: number; gallons: number; specialLandscapeArea: boolean }[];
+  zones: {
+    zoneId: number;
+    zoneName: string;
+    areaFt2: number;
+    etaf: number;
+    gallons: number;
+    specialLandscapeArea: boolean;
+  }[];
   complies: boolean;
   reasons: string[];
   steps: BudgetStep[];

@@ -3,8 +3,13 @@ import { effectiveIrrigationEfficiency, effectivePlantFactor, validateHydrozone,
 
 // Invented zone.
 const zone: Hydrozone = {
-  id: 'z1', name: 'Front lawn', areaFt2: 1200, plantWaterUse: 'moderate', plantFactor: 0.5,
-  irrigationMethod: 'spray', specialLandscapeArea: false,
+  id: 'z1',
+  name: 'Front lawn',
+  areaFt2: 1200,
+  plantWaterUse: 'moderate',
+  plantFactor: 0.5,
+  irrigationMethod: 'spray',
+  specialLandscapeArea: false,
 };
 
 describe('hydrozone validation', () => {
@@ -13,12 +18,18 @@ describe('hydrozone validation', () => {
   });
 
   it('when the area is zero, then it says area must be > 0', () => {
-    expect(validateHydrozone({ ...zone, areaFt2: 0 })).toEqual([{ field: 'areaFt2', message: 'Area must be greater than 0 ft² (got 0)' }]);
+    expect(validateHydrozone({ ...zone, areaFt2: 0 })).toEqual([
+      { field: 'areaFt2', message: 'Area must be greater than 0 ft² (got 0)' },
+    ]);
   });
 
   it('when the plant factor is outside 0..1 or outside its category, then it says which', () => {
-    expect(validateHydrozone({ ...zone, plantFactor: 1.2 })[0]!.message).toBe('Plant factor must be between 0 and 1 (got 1.2)');
-    expect(validateHydrozone({ ...zone, plantFactor: 0.3 })[0]!.message).toBe('Plant factor 0.3 is outside the moderate range 0.4–0.6');
+    expect(validateHydrozone({ ...zone, plantFactor: 1.2 })[0]!.message).toBe(
+      'Plant factor must be between 0 and 1 (got 1.2)',
+    );
+    expect(validateHydrozone({ ...zone, plantFactor: 0.3 })[0]!.message).toBe(
+      'Plant factor 0.3 is outside the moderate range 0.4–0.6',
+    );
   });
 
   it('when neither plant factor nor category is given, then it asks for one', () => {
@@ -38,6 +49,9 @@ describe('hydrozone validation', () => {
     expect(effectivePlantFactor({ ...categoryOnly, plantWaterUse: 'low' })).toBe(0.2);
     expect(effectiveIrrigationEfficiency(zone).efficiency).toBe(0.75);
     expect(effectiveIrrigationEfficiency({ ...zone, irrigationMethod: 'drip' }).efficiency).toBe(0.81);
-    expect(effectiveIrrigationEfficiency({ ...zone, efficiencyOverride: 0.68 })).toEqual({ efficiency: 0.68, source: 'Entered for this hydrozone' });
+    expect(effectiveIrrigationEfficiency({ ...zone, efficiencyOverride: 0.68 })).toEqual({
+      efficiency: 0.68,
+      source: 'Entered for this hydrozone',
+    });
   });
 });

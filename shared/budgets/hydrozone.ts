@@ -11,26 +11,43 @@ export type PlantWaterUseCategory = (typeof PLANT_WATER_USE_CATEGORIES)[number];
  * The gaps between ranges (0.3–0.4, 0.6–0.7) are as the ordinance prints them.
  * `default` is the midpoint, used when only the category is known: common practice, no source.
  */
-export const PLANT_FACTOR_RANGES: Readonly<Record<PlantWaterUseCategory, { min: number; max: number; default: number }>> = {
+export const PLANT_FACTOR_RANGES: Readonly<
+  Record<PlantWaterUseCategory, { min: number; max: number; default: number }>
+> = {
   'very-low': { min: 0, max: 0.1, default: 0.05 },
   low: { min: 0.1, max: 0.3, default: 0.2 },
   moderate: { min: 0.4, max: 0.6, default: 0.5 },
   high: { min: 0.7, max: 1.0, default: 0.85 },
 };
 
-export const IRRIGATION_METHODS = ['drip', 'subsurface-drip', 'bubbler', 'microspray', 'spray', 'rotor', 'rotary-nozzle'] as const;
+export const IRRIGATION_METHODS = [
+  'drip',
+  'subsurface-drip',
+  'bubbler',
+  'microspray',
+  'spray',
+  'rotor',
+  'rotary-nozzle',
+] as const;
 export type IrrigationMethod = (typeof IRRIGATION_METHODS)[number];
 
 /** Default irrigation efficiency per method and where the figure comes from, for the "how computed" view. */
-export const DEFAULT_IRRIGATION_EFFICIENCY: Readonly<Record<IrrigationMethod, { efficiency: number; source: string }>> = {
-  drip: { efficiency: 0.81, source: 'MWELO App. B note c: 0.81 for drip system devices' },
-  'subsurface-drip': { efficiency: 0.81, source: 'MWELO App. B note c: 0.81 for drip system devices' },
-  bubbler: { efficiency: 0.81, source: 'Treated as a low-volume (drip-class) device: common practice, no source' },
-  microspray: { efficiency: 0.75, source: 'Treated as an overhead spray device: common practice, no source' },
-  spray: { efficiency: 0.75, source: 'MWELO App. B note c: 0.75 for overhead spray devices' },
-  rotor: { efficiency: 0.75, source: 'Overhead device, MWELO App. B note c value 0.75 applied: common practice, no source' },
-  'rotary-nozzle': { efficiency: 0.75, source: 'Overhead device, MWELO App. B note c value 0.75 applied: common practice, no source' },
-};
+export const DEFAULT_IRRIGATION_EFFICIENCY: Readonly<Record<IrrigationMethod, { efficiency: number; source: string }>> =
+  {
+    drip: { efficiency: 0.81, source: 'MWELO App. B note c: 0.81 for drip system devices' },
+    'subsurface-drip': { efficiency: 0.81, source: 'MWELO App. B note c: 0.81 for drip system devices' },
+    bubbler: { efficiency: 0.81, source: 'Treated as a low-volume (drip-class) device: common practice, no source' },
+    microspray: { efficiency: 0.75, source: 'Treated as an overhead spray device: common practice, no source' },
+    spray: { efficiency: 0.75, source: 'MWELO App. B note c: 0.75 for overhead spray devices' },
+    rotor: {
+      efficiency: 0.75,
+      source: 'Overhead device, MWELO App. B note c value 0.75 applied: common practice, no source',
+    },
+    'rotary-nozzle': {
+      efficiency: 0.75,
+      source: 'Overhead device, MWELO App. B note c value 0.75 applied: common practice, no source',
+    },
+  };
 
 export interface Hydrozone {
   id: string;
@@ -105,6 +122,7 @@ export function effectivePlantFactor(zone: Hydrozone): number {
 
 /** The irrigation efficiency used in calculations, with where it came from. */
 export function effectiveIrrigationEfficiency(zone: Hydrozone): { efficiency: number; source: string } {
-  if (zone.efficiencyOverride !== undefined) return { efficiency: zone.efficiencyOverride, source: 'Entered for this hydrozone' };
+  if (zone.efficiencyOverride !== undefined)
+    return { efficiency: zone.efficiencyOverride, source: 'Entered for this hydrozone' };
   return DEFAULT_IRRIGATION_EFFICIENCY[zone.irrigationMethod];
 }

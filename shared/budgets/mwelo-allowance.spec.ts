@@ -4,18 +4,42 @@ import { estimatedTotalWaterUse, maximumAppliedWaterAllowance, mweloCompliance }
 // Invented site; the published Fresno example is in test/reference/mwelo.test.ts.
 describe('MWELO allowance', () => {
   it('rejects an SLA larger than the landscape area, or an ETAF outside (0, 1]', () => {
-    expect(() => maximumAppliedWaterAllowance({ etoInPerYear: 50, landscapeAreaFt2: 100, specialLandscapeAreaFt2: 200, etaf: 0.55 })).toThrow(/exceeds the landscape area/);
-    expect(() => maximumAppliedWaterAllowance({ etoInPerYear: 50, landscapeAreaFt2: 100, specialLandscapeAreaFt2: 0, etaf: 0 })).toThrow(/ETAF/);
+    expect(() =>
+      maximumAppliedWaterAllowance({
+        etoInPerYear: 50,
+        landscapeAreaFt2: 100,
+        specialLandscapeAreaFt2: 200,
+        etaf: 0.55,
+      }),
+    ).toThrow(/exceeds the landscape area/);
+    expect(() =>
+      maximumAppliedWaterAllowance({ etoInPerYear: 50, landscapeAreaFt2: 100, specialLandscapeAreaFt2: 0, etaf: 0 }),
+    ).toThrow(/ETAF/);
   });
 
   it('never gives a negative allowance when effective rain exceeds ETo', () => {
-    expect(maximumAppliedWaterAllowance({ etoInPerYear: 10, landscapeAreaFt2: 100, specialLandscapeAreaFt2: 0, etaf: 0.55, effectivePrecipitationInPerYear: 12 }).gallons).toBe(0);
+    expect(
+      maximumAppliedWaterAllowance({
+        etoInPerYear: 10,
+        landscapeAreaFt2: 100,
+        specialLandscapeAreaFt2: 0,
+        etaf: 0.55,
+        effectivePrecipitationInPerYear: 12,
+      }).gallons,
+    ).toBe(0);
   });
 
   it('flags a design whose use exceeds the allowance and whose regular ETAF is too high', () => {
     // All turf on spray: ETAF = 0.7/0.75 = 0.933 > 0.55.
-    const etwu = estimatedTotalWaterUse(50, [{ areaFt2: 10_000, plantFactor: 0.7, irrigationEfficiency: 0.75, specialLandscapeArea: false }]);
-    const mawa = maximumAppliedWaterAllowance({ etoInPerYear: 50, landscapeAreaFt2: 10_000, specialLandscapeAreaFt2: 0, etaf: 0.55 });
+    const etwu = estimatedTotalWaterUse(50, [
+      { areaFt2: 10_000, plantFactor: 0.7, irrigationEfficiency: 0.75, specialLandscapeArea: false },
+    ]);
+    const mawa = maximumAppliedWaterAllowance({
+      etoInPerYear: 50,
+      landscapeAreaFt2: 10_000,
+      specialLandscapeAreaFt2: 0,
+      etaf: 0.55,
+    });
     const result = mweloCompliance(etwu, mawa, 0.55);
     expect(result.complies).toBe(false);
     expect(result.reasons).toHaveLength(2);

@@ -18,7 +18,10 @@ export function gallonsPerInchSquareFoot(factor: GallonsPerInchFactor): number {
 export type MweloProjectType = 'residential' | 'non-residential';
 
 /** Maximum ETAF for regular landscape areas, MWELO § 492.4(a). */
-export const MWELO_MAX_ETAF: Readonly<Record<MweloProjectType, number>> = { residential: 0.55, 'non-residential': 0.45 };
+export const MWELO_MAX_ETAF: Readonly<Record<MweloProjectType, number>> = {
+  residential: 0.55,
+  'non-residential': 0.45,
+};
 /** ETAF of special landscape areas (MWELO § 491, from memory per REFERENCE.md §3). */
 export const SLA_ETAF = 1.0;
 /** ETAF of existing, non-rehabilitated landscapes, MWELO § 493.1. */
@@ -54,15 +57,23 @@ export function maximumAppliedWaterAllowance(inputs: MawaInputs): MawaResult {
   requireNonNegative('Landscape area', la);
   requireNonNegative('Special landscape area', sla);
   requireNonNegative('Effective precipitation', eppt);
-  if (sla > la) throw new RangeError(`Special landscape area ${sla} ft² exceeds the landscape area ${la} ft² it is part of`);
+  if (sla > la)
+    throw new RangeError(`Special landscape area ${sla} ft² exceeds the landscape area ${la} ft² it is part of`);
   if (!(etaf > 0 && etaf <= 1)) throw new RangeError(`ETAF must be greater than 0 and at most 1 (got ${etaf})`);
   const k = gallonsPerInchSquareFoot(inputs.factor ?? 'ordinance');
   const gallons = Math.max(0, etoInPerYear - eppt) * k * (etaf * la + (1 - etaf) * sla);
-  return { gallons, formula: `(ETo − Eppt) × ${k === MWELO_CONVERSION_FACTOR ? '0.62' : '0.623377'} × [ETAF × LA + (1 − ETAF) × SLA]` };
+  return {
+    gallons,
+    formula: `(ETo − Eppt) × ${k === MWELO_CONVERSION_FACTOR ? '0.62' : '0.623377'} × [ETAF × LA + (1 − ETAF) × SLA]`,
+  };
 }
 
 /** MAWA for an existing landscape = 0.8 × ETo × LA × 0.62 (MWELO § 493.1). */
-export function existingLandscapeAllowance(etoInPerYear: number, landscapeAreaFt2: number, factor: GallonsPerInchFactor = 'ordinance'): MawaResult {
+export function existingLandscapeAllowance(
+  etoInPerYear: number,
+  landscapeAreaFt2: number,
+  factor: GallonsPerInchFactor = 'ordinance',
+): MawaResult {
   requireNonNegative('ETo', etoInPerYear);
   requireNonNegative('Landscape area', landscapeAreaFt2);
   const k = gallonsPerInchSquareFoot(factor);
@@ -89,7 +100,11 @@ export interface EtwuResult {
  * ETWU per hydrozone = ETo × 0.62 × ETAF × area with ETAF = PF/IE (MWELO App. B note d); special landscape
  * areas use ETAF 1.0.
  */
-export function estimatedTotalWaterUse(etoInPerYear: number, zones: readonly EtwuZone[], factor: GallonsPerInchFactor = 'ordinance'): EtwuResult {
+export function estimatedTotalWaterUse(
+  etoInPerYear: number,
+  zones: readonly EtwuZone[],
+  factor: GallonsPerInchFactor = 'ordinance',
+): EtwuResult {
   requireNonNegative('ETo', etoInPerYear);
   const k = gallonsPerInchSquareFoot(factor);
   let regularArea = 0;
@@ -97,10 +112,14 @@ export function estimatedTotalWaterUse(etoInPerYear: number, zones: readonly Etw
   let slaArea = 0;
   let slaEtafArea = 0;
   const rows = zones.map((zone, index) => {
-    if (!(zone.areaFt2 > 0)) throw new RangeError(`Zone ${index + 1}: area must be greater than 0 ft² (got ${zone.areaFt2})`);
-    if (!(zone.plantFactor >= 0 && zone.plantFactor <= 1)) throw new RangeError(`Zone ${index + 1}: plant factor must be 0..1 (got ${zone.plantFactor})`);
+    if (!(zone.areaFt2 > 0))
+      throw new RangeError(`Zone ${index + 1}: area must be greater than 0 ft² (got ${zone.areaFt2})`);
+    if (!(zone.plantFactor >= 0 && zone.plantFactor <= 1))
+      throw new RangeError(`Zone ${index + 1}: plant factor must be 0..1 (got ${zone.plantFactor})`);
     if (!(zone.irrigationEfficiency > 0 && zone.irrigationEfficiency <= 1)) {
-      throw new RangeError(`Zone ${index + 1}: irrigation efficiency must be in (0, 1] (got ${zone.irrigationEfficiency})`);
+      throw new RangeError(
+        `Zone ${index + 1}: irrigation efficiency must be in (0, 1] (got ${zone.irrigationEfficiency})`,
+      );
     }
     const etaf = zone.specialLandscapeArea ? SLA_ETAF : zone.plantFactor / zone.irrigationEfficiency;
     if (zone.specialLandscapeArea) {
@@ -130,7 +149,9 @@ export interface MweloCompliance {
 export function mweloCompliance(etwu: EtwuResult, mawa: MawaResult, maxEtaf: number): MweloCompliance {
   const reasons: string[] = [];
   if (etwu.gallons > mawa.gallons) {
-    reasons.push(`Estimated use ${Math.round(etwu.gallons)} gal/yr exceeds the allowance ${Math.round(mawa.gallons)} gal/yr`);
+    reasons.push(
+      `Estimated use ${Math.round(etwu.gallons)} gal/yr exceeds the allowance ${Math.round(mawa.gallons)} gal/yr`,
+    );
   }
   if (etwu.regularAreaEtaf !== null && etwu.regularAreaEtaf > maxEtaf) {
     reasons.push(`Regular-area ETAF ${etwu.regularAreaEtaf.toFixed(2)} exceeds the maximum ${maxEtaf}`);

@@ -1,10 +1,21 @@
 import { describe, expect, it } from 'vitest';
-import { adviseRunTime, dripZoneFlowGpm, planCycleSoak, precipitationRateInPerHour, runMinutesForDepth } from './run-time-advice';
+import {
+  adviseRunTime,
+  dripZoneFlowGpm,
+  planCycleSoak,
+  precipitationRateInPerHour,
+  runMinutesForDepth,
+} from './run-time-advice';
 
 // Invented zones; published PR examples are in test/reference/irrigation-formulas.test.ts.
 describe('run-time advice', () => {
   it('drip flow: 40 × 1 gph + 12 × 2 gph = 64 gph = 1.0667 gpm', () => {
-    expect(dripZoneFlowGpm([{ count: 40, gallonsPerHour: 1 }, { count: 12, gallonsPerHour: 2 }])).toBeCloseTo(64 / 60, 12);
+    expect(
+      dripZoneFlowGpm([
+        { count: 40, gallonsPerHour: 1 },
+        { count: 12, gallonsPerHour: 2 },
+      ]),
+    ).toBeCloseTo(64 / 60, 12);
     expect(() => dripZoneFlowGpm([{ count: 2.5, gallonsPerHour: 1 }])).toThrow(/whole number/);
   });
 
@@ -20,8 +31,14 @@ describe('run-time advice', () => {
   });
 
   it('cycle-and-soak from the soil: intake 0.5 in/h under PR 1.5 in/h allows 20-minute cycles', () => {
-    expect(planCycleSoak(40, { soilIntakeInPerHour: 0.5, prInPerHour: 1.5 })).toMatchObject({ cycles: 2, minutesPerCycle: 20 });
-    expect(planCycleSoak(40, { soilIntakeInPerHour: 2, prInPerHour: 1.5 })).toMatchObject({ cycles: 1, minutesPerCycle: 40 });
+    expect(planCycleSoak(40, { soilIntakeInPerHour: 0.5, prInPerHour: 1.5 })).toMatchObject({
+      cycles: 2,
+      minutesPerCycle: 20,
+    });
+    expect(planCycleSoak(40, { soilIntakeInPerHour: 2, prInPerHour: 1.5 })).toMatchObject({
+      cycles: 1,
+      minutesPerCycle: 40,
+    });
   });
 
   it('advice for a drip zone includes the pressure regulator and filter caution', () => {

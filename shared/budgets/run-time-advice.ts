@@ -45,7 +45,8 @@ export interface EmitterGroup {
 export function dripZoneFlowGpm(emitters: readonly EmitterGroup[]): number {
   if (emitters.length === 0) throw new RangeError('A drip zone needs at least one emitter group');
   return emitters.reduce((sum, group, i) => {
-    if (!Number.isInteger(group.count) || group.count <= 0) throw new RangeError(`Emitter group ${i + 1}: count must be a whole number above 0`);
+    if (!Number.isInteger(group.count) || group.count <= 0)
+      throw new RangeError(`Emitter group ${i + 1}: count must be a whole number above 0`);
     requirePositive(`Emitter group ${i + 1} flow`, group.gallonsPerHour);
     return sum + (group.count * group.gallonsPerHour) / 60;
   }, 0);
@@ -86,7 +87,12 @@ export function planCycleSoak(
     requirePositive('Soil intake rate', limit.soilIntakeInPerHour);
     requirePositive('Precipitation rate', limit.prInPerHour);
     if (limit.soilIntakeInPerHour >= limit.prInPerHour) {
-      return { totalMinutes, cycles: totalMinutes > 0 ? 1 : 0, minutesPerCycle: totalMinutes, limitSource: 'soil takes water faster than it is applied: one cycle' };
+      return {
+        totalMinutes,
+        cycles: totalMinutes > 0 ? 1 : 0,
+        minutesPerCycle: totalMinutes,
+        limitSource: 'soil takes water faster than it is applied: one cycle',
+      };
     }
     maxMinutes = (60 * limit.soilIntakeInPerHour) / limit.prInPerHour;
     limitSource = 'soil intake rate ÷ precipitation rate × 60 (common practice, no source)';
@@ -127,7 +133,9 @@ export function adviseRunTime(input: RunTimeAdviceInput): RunTimeAdvice {
       'Drip zones usually need a pressure regulator (around 25–30 psi) and a filter upstream of the emitters (common practice, no source).',
     );
   } else if (input.prInPerHour > 1) {
-    cautions.unshift('Precipitation rate above 1 in/h: expect runoff on most soils unless run in short cycles (common practice, no source).');
+    cautions.unshift(
+      'Precipitation rate above 1 in/h: expect runoff on most soils unless run in short cycles (common practice, no source).',
+    );
   }
   return { minutesPerWeek, minutesPerWateringDay, cycleSoak, cautions };
 }

@@ -4,8 +4,22 @@ import type { Hydrozone } from './hydrozone';
 import { siteBudgetForPeriod, zoneBudgetForDay, zoneBudgetForPeriod } from './water-budget';
 
 // Invented zones and weather; hand calculations in the comments.
-const lawn: Hydrozone = { id: 'lawn', name: 'Lawn', areaFt2: 1000, plantFactor: 0.5, irrigationMethod: 'spray', specialLandscapeArea: false };
-const shrubs: Hydrozone = { id: 'shrubs', name: 'Shrubs', areaFt2: 500, plantFactor: 0.2, irrigationMethod: 'drip', specialLandscapeArea: false };
+const lawn: Hydrozone = {
+  id: 'lawn',
+  name: 'Lawn',
+  areaFt2: 1000,
+  plantFactor: 0.5,
+  irrigationMethod: 'spray',
+  specialLandscapeArea: false,
+};
+const shrubs: Hydrozone = {
+  id: 'shrubs',
+  name: 'Shrubs',
+  areaFt2: 500,
+  plantFactor: 0.2,
+  irrigationMethod: 'drip',
+  specialLandscapeArea: false,
+};
 const quarter = { kind: 'fixed-fraction', fraction: 0.25 } as const;
 
 describe('zoneBudgetForDay', () => {
@@ -32,15 +46,29 @@ describe('zoneBudgetForDay', () => {
   it('lists the steps with formulas for the "how computed" view', () => {
     const b = zoneBudgetForDay(lawn, { date: '2026-07-01', etoMm: 5.08, rainMm: 0 }, { kind: 'none' });
     expect(b.steps.map((s) => s.label)).toEqual([
-      'Reference ET', 'Plant factor', 'Irrigation efficiency', 'Area', 'Gross irrigation', 'Effective rain', 'Rain credit', 'Budget', 'Budget (metric)',
+      'Reference ET',
+      'Plant factor',
+      'Irrigation efficiency',
+      'Area',
+      'Gross irrigation',
+      'Effective rain',
+      'Rain credit',
+      'Budget',
+      'Budget (metric)',
     ]);
-    expect(b.steps.find((s) => s.label === 'Gross irrigation')!.formula).toBe('ETo (in) × PF × area (ft²) × 0.623377 ÷ IE');
+    expect(b.steps.find((s) => s.label === 'Gross irrigation')!.formula).toBe(
+      'ETo (in) × PF × area (ft²) × 0.623377 ÷ IE',
+    );
     expect(b.steps.find((s) => s.label === 'Irrigation efficiency')!.formula).toMatch(/MWELO App. B note c/);
   });
 
   it('rejects an invalid hydrozone or negative weather', () => {
-    expect(() => zoneBudgetForDay({ ...lawn, areaFt2: -5 }, { date: '2026-07-01', etoMm: 5, rainMm: 0 }, quarter)).toThrow(/Area must be greater than 0/);
-    expect(() => zoneBudgetForDay(lawn, { date: '2026-07-01', etoMm: -1, rainMm: 0 }, quarter)).toThrow(/ETo on 2026-07-01/);
+    expect(() =>
+      zoneBudgetForDay({ ...lawn, areaFt2: -5 }, { date: '2026-07-01', etoMm: 5, rainMm: 0 }, quarter),
+    ).toThrow(/Area must be greater than 0/);
+    expect(() => zoneBudgetForDay(lawn, { date: '2026-07-01', etoMm: -1, rainMm: 0 }, quarter)).toThrow(
+      /ETo on 2026-07-01/,
+    );
   });
 });
 

@@ -1,4 +1,8 @@
-import { GALLONS_PER_INCH_SQUARE_FOOT, MILLIMETRES_PER_INCH, SQUARE_METRES_PER_SQUARE_FOOT } from '../units/area-depth-units';
+import {
+  GALLONS_PER_INCH_SQUARE_FOOT,
+  MILLIMETRES_PER_INCH,
+  SQUARE_METRES_PER_SQUARE_FOOT,
+} from '../units/area-depth-units';
 import { describeEffectiveRainMethod, effectiveRainMm, type EffectiveRainMethod } from '../weather/effective-rain';
 import { assertValidHydrozone, effectiveIrrigationEfficiency, effectivePlantFactor, type Hydrozone } from './hydrozone';
 
@@ -52,7 +56,11 @@ function checkDay(day: BudgetWeatherDay): void {
 }
 
 /** A hydrozone's irrigation budget for one day, with every step for the "how computed" view. */
-export function zoneBudgetForDay(zone: Hydrozone, day: BudgetWeatherDay, rainMethod: EffectiveRainMethod): ZoneDailyBudget {
+export function zoneBudgetForDay(
+  zone: Hydrozone,
+  day: BudgetWeatherDay,
+  rainMethod: EffectiveRainMethod,
+): ZoneDailyBudget {
   assertValidHydrozone(zone);
   checkDay(day);
   const pf = effectivePlantFactor(zone);
@@ -69,19 +77,49 @@ export function zoneBudgetForDay(zone: Hydrozone, day: BudgetWeatherDay, rainMet
   const litres = (Math.max(0, demandMm - peffMm) * areaM2) / ie.efficiency;
   const steps: BudgetStep[] = [
     { label: 'Reference ET', formula: 'ETo (in) = ETo (mm) ÷ 25.4', value: etoIn, unit: 'in' },
-    { label: 'Plant factor', formula: zone.plantFactor === undefined ? `default for "${zone.plantWaterUse}" plants` : 'entered', value: pf, unit: '' },
+    {
+      label: 'Plant factor',
+      formula: zone.plantFactor === undefined ? `default for "${zone.plantWaterUse}" plants` : 'entered',
+      value: pf,
+      unit: '',
+    },
     { label: 'Irrigation efficiency', formula: ie.source, value: ie.efficiency, unit: '' },
     { label: 'Area', formula: 'entered', value: zone.areaFt2, unit: 'ft²' },
-    { label: 'Gross irrigation', formula: 'ETo (in) × PF × area (ft²) × 0.623377 ÷ IE', value: grossGallons, unit: 'gal' },
+    {
+      label: 'Gross irrigation',
+      formula: 'ETo (in) × PF × area (ft²) × 0.623377 ÷ IE',
+      value: grossGallons,
+      unit: 'gal',
+    },
     { label: 'Effective rain', formula: describeEffectiveRainMethod(rainMethod), value: peffIn, unit: 'in' },
-    { label: 'Rain credit', formula: 'effective rain (in) × area (ft²) × 0.623377 ÷ IE', value: rainCreditGallons, unit: 'gal' },
+    {
+      label: 'Rain credit',
+      formula: 'effective rain (in) × area (ft²) × 0.623377 ÷ IE',
+      value: rainCreditGallons,
+      unit: 'gal',
+    },
     { label: 'Budget', formula: 'max(0, gross irrigation − rain credit)', value: gallons, unit: 'gal' },
-    { label: 'Budget (metric)', formula: 'max(0, ETo (mm) × PF − effective rain (mm)) × area (m²) ÷ IE; 1 mm over 1 m² = 1 L', value: litres, unit: 'L' },
+    {
+      label: 'Budget (metric)',
+      formula: 'max(0, ETo (mm) × PF − effective rain (mm)) × area (m²) ÷ IE; 1 mm over 1 m² = 1 L',
+      value: litres,
+      unit: 'L',
+    },
   ];
   return {
-    zoneId: zone.id, date: day.date, filled: day.filled ?? false, etoMm: day.etoMm, rainMm: day.rainMm,
-    effectiveRainMm: peffMm, plantFactor: pf, irrigationEfficiency: ie.efficiency,
-    grossGallons, rainCreditGallons, gallons, litres, steps,
+    zoneId: zone.id,
+    date: day.date,
+    filled: day.filled ?? false,
+    etoMm: day.etoMm,
+    rainMm: day.rainMm,
+    effectiveRainMm: peffMm,
+    plantFactor: pf,
+    irrigationEfficiency: ie.efficiency,
+    grossGallons,
+    rainCreditGallons,
+    gallons,
+    litres,
+    steps,
   };
 }
 
@@ -119,7 +157,16 @@ export function zoneBudgetForPeriod(
 ): ZonePeriodBudget {
   if (days.length === 0) throw new RangeError('A budget period needs at least one day of weather');
   const seen = new Set<string>();
-  const totals = { etoMm: 0, rainMm: 0, effectiveRainMm: 0, grossGallons: 0, rainCreditGallons: 0, gallons: 0, litres: 0, filledDays: 0 };
+  const totals = {
+    etoMm: 0,
+    rainMm: 0,
+    effectiveRainMm: 0,
+    grossGallons: 0,
+    rainCreditGallons: 0,
+    gallons: 0,
+    litres: 0,
+    filledDays: 0,
+  };
   const daily: ZonePeriodBudget['daily'] = [];
   for (const day of days) {
     if (seen.has(day.date)) throw new RangeError(`Weather for ${day.date} appears more than once`);

@@ -4,7 +4,9 @@ import { formatCell, neutraliseFormula, quoteField, toCsv, type CsvColumn } from
 
 describe('formula-injection neutralising', () => {
   it('when text starts with =, +, -, @, tab or CR, then it gets a leading apostrophe', () => {
-    expect(neutraliseFormula('=HYPERLINK("http://example.invalid","Click")')).toBe('\'=HYPERLINK("http://example.invalid","Click")');
+    expect(neutraliseFormula('=HYPERLINK("http://example.invalid","Click")')).toBe(
+      '\'=HYPERLINK("http://example.invalid","Click")',
+    );
     expect(neutraliseFormula('+1')).toBe("'+1");
     expect(neutraliseFormula('-2')).toBe("'-2");
     expect(neutraliseFormula('@SUM(A1:A9)')).toBe("'@SUM(A1:A9)");
@@ -43,7 +45,9 @@ describe('cells', () => {
   });
 
   it('when a formula also holds quotes and commas, then it is neutralised first and then quoted', () => {
-    expect(formatCell('=HYPERLINK("http://example.invalid","x")')).toBe('"\'=HYPERLINK(""http://example.invalid"",""x"")"');
+    expect(formatCell('=HYPERLINK("http://example.invalid","x")')).toBe(
+      '"\'=HYPERLINK(""http://example.invalid"",""x"")"',
+    );
   });
 });
 

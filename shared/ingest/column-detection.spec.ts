@@ -31,7 +31,11 @@ describe('detectColumns on every sample file', () => {
 
   it('interval-long-hourly: meter, timestamp, value, gal from "Usage (Gal)", 60 min from spacing', () => {
     const d = detect('meters/interval-long-hourly.csv');
-    expect(d.mapping).toMatchObject({ columns: { meter: 0, timestamp: 1, value: 2 }, unit: 'gal', intervalMinutes: 60 });
+    expect(d.mapping).toMatchObject({
+      columns: { meter: 0, timestamp: 1, value: 2 },
+      unit: 'gal',
+      intervalMinutes: 60,
+    });
     expect(d.confidence).toBe(1);
   });
 
@@ -65,21 +69,43 @@ describe('detectColumns on every sample file', () => {
   });
 
   it('tab-delimited with an interval column', () => {
-    expect(detect('meters/interval-long-tab-delimited.csv').mapping?.columns).toEqual({ meter: 0, timestamp: 1, value: 2, intervalMinutes: 3 });
+    expect(detect('meters/interval-long-tab-delimited.csv').mapping?.columns).toEqual({
+      meter: 0,
+      timestamp: 1,
+      value: 2,
+      intervalMinutes: 3,
+    });
   });
 
   it('register: "Register Reading" is the value', () => {
-    expect(detect('meters/register-monthly.csv').mapping?.columns).toEqual({ meter: 0, timestamp: 1, value: 2, unit: 3 });
+    expect(detect('meters/register-monthly.csv').mapping?.columns).toEqual({
+      meter: 0,
+      timestamp: 1,
+      value: 2,
+      unit: 3,
+    });
   });
 
   it('runtime with duration, cause and measured gallons', () => {
     expect(detect('runtime/runtime-start-duration.csv').mapping?.columns).toEqual({
-      controller: 0, station: 1, start: 2, duration: 3, cause: 4, measuredGallons: 5,
+      controller: 0,
+      station: 1,
+      start: 2,
+      duration: 3,
+      cause: 4,
+      measuredGallons: 5,
     });
   });
 
   it('runtime with a date column and time-only start/end', () => {
-    expect(detect('runtime/runtime-start-end.csv').mapping?.columns).toEqual({ controller: 0, station: 1, date: 2, start: 3, end: 4, cause: 5 });
+    expect(detect('runtime/runtime-start-end.csv').mapping?.columns).toEqual({
+      controller: 0,
+      station: 1,
+      date: 2,
+      start: 3,
+      end: 4,
+      cause: 5,
+    });
   });
 
   it('unknown columns: no kind, confidence 0, a reason', () => {
@@ -91,31 +117,62 @@ describe('detectColumns on every sample file', () => {
 
 describe('detectColumns on messy headers', () => {
   it('"Serial, Read Date, Usage (CCF)" with US dates', () => {
-    const d = detectColumns(['Serial', 'Read Date', 'Usage (CCF)'], [
-      ['RM-IRR-0142', '11/1/2026 1:00 AM', '0.12'],
-      ['RM-IRR-0142', '11/1/2026 2:00 AM', '0.10'],
-    ]);
-    expect(d.mapping).toMatchObject({ kind: 'interval-long', columns: { meter: 0, timestamp: 1, value: 2 }, unit: 'ccf', intervalMinutes: 60 });
+    const d = detectColumns(
+      ['Serial', 'Read Date', 'Usage (CCF)'],
+      [
+        ['RM-IRR-0142', '11/1/2026 1:00 AM', '0.12'],
+        ['RM-IRR-0142', '11/1/2026 2:00 AM', '0.10'],
+      ],
+    );
+    expect(d.mapping).toMatchObject({
+      kind: 'interval-long',
+      columns: { meter: 0, timestamp: 1, value: 2 },
+      unit: 'ccf',
+      intervalMinutes: 60,
+    });
   });
 
   it('a comma-delimited file never gets decimal comma, even when values look like it', () => {
-    const d = detectColumns(['Meter', 'Interval Start', 'Usage (Gal)'], [['M', '2026-11-01 00:00', '1,234']], { delimiter: ',' });
+    const d = detectColumns(['Meter', 'Interval Start', 'Usage (Gal)'], [['M', '2026-11-01 00:00', '1,234']], {
+      delimiter: ',',
+    });
     expect(d.mapping?.decimalComma).toBeUndefined();
   });
 
   it('samples whose timestamps do not parse lower the confidence', () => {
-    const d = detectColumns(['Meter', 'Timestamp', 'Usage (Gal)', 'Interval (min)'], [['M', 'tomorrow', '1', '60'], ['M', 'later', '1', '60']]);
+    const d = detectColumns(
+      ['Meter', 'Timestamp', 'Usage (Gal)', 'Interval (min)'],
+      [
+        ['M', 'tomorrow', '1', '60'],
+        ['M', 'later', '1', '60'],
+      ],
+    );
     expect(d.confidence).toBeLessThan(0.7);
   });
 
   it('"Interval End" stamps: the mapping says timestamps mark interval ends', () => {
-    const d = detectColumns(['Meter', 'Interval End', 'Usage (Gal)'], [['M', '2026-11-01 00:15', '1'], ['M', '2026-11-01 00:30', '1']]);
-    expect(d.mapping).toMatchObject({ columns: { meter: 0, timestamp: 1, value: 2 }, timestampMarksEnd: true, intervalMinutes: 15 });
+    const d = detectColumns(
+      ['Meter', 'Interval End', 'Usage (Gal)'],
+      [
+        ['M', '2026-11-01 00:15', '1'],
+        ['M', '2026-11-01 00:30', '1'],
+      ],
+    );
+    expect(d.mapping).toMatchObject({
+      columns: { meter: 0, timestamp: 1, value: 2 },
+      timestampMarksEnd: true,
+      intervalMinutes: 15,
+    });
   });
 
   it('"HE 1"…"HE 24" wide headers and a header unit', () => {
     const header = ['Date', ...Array.from({ length: 24 }, (_, i) => `HE ${i + 1}`), 'Total (kgal)'];
     const d = detectColumns(header, []);
-    expect(d.mapping).toMatchObject({ kind: 'interval-wide', columns: { date: 0 }, intervalColumns: { first: 1, count: 24 }, unit: 'kgal' });
+    expect(d.mapping).toMatchObject({
+      kind: 'interval-wide',
+      columns: { date: 0 },
+      intervalColumns: { first: 1, count: 24 },
+      unit: 'kgal',
+    });
   });
 });

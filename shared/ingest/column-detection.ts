@@ -28,7 +28,7 @@ interface Found {
 
 function longestSlotRun(roles: HeaderRole[]): { first: number; count: number } {
   let best = { first: -1, count: 0 };
-  for (let i = 0; i < roles.length; ) {
+  for (let i = 0; i < roles.length;) {
     if (roles[i] !== 'interval-slot') {
       i++;
       continue;
@@ -63,7 +63,9 @@ function inferIntervalMinutes(rows: string[][], columns: Partial<Record<MappedFi
   for (const row of rows) {
     const cell = (i: number | undefined) => (i === undefined ? '' : (row[i] ?? ''));
     const parsed =
-      columns.timestamp !== undefined ? parseTimestamp(cell(columns.timestamp)) : combineDateAndTime(cell(columns.date), cell(columns.time));
+      columns.timestamp !== undefined
+        ? parseTimestamp(cell(columns.timestamp))
+        : combineDateAndTime(cell(columns.date), cell(columns.time));
     if (!parsed.ok) continue;
     const ms = parsed.kind === 'instant' ? parsed.utcMs : wallTimeAsUtcMs(parsed.wall);
     const key = meterCol === undefined ? '' : (row[meterCol] ?? '').trim();
@@ -89,7 +91,11 @@ function chooseKind(found: Found, slotRun: { count: number }): { kind: UploadKin
 }
 
 /** Guesses the kind and mapping; `kind: null` when the header matches nothing this reader knows. */
-export function detectColumns(header: string[], sampleRows: string[][] = [], options: DetectionOptions = {}): ColumnDetection {
+export function detectColumns(
+  header: string[],
+  sampleRows: string[][] = [],
+  options: DetectionOptions = {},
+): ColumnDetection {
   const roles = header.map(classifyHeader);
   const found: Found = {
     roles,
@@ -130,7 +136,9 @@ export function detectColumns(header: string[], sampleRows: string[][] = [], opt
     if (kind === 'interval-wide') {
       take('date', found.first('date') ?? found.first('timestamp'));
       mapping.intervalColumns = slotRun;
-      reasons.push(`"${header[slotRun.first]}" … "${header[slotRun.first + slotRun.count - 1]}" → ${slotRun.count} intervals.`);
+      reasons.push(
+        `"${header[slotRun.first]}" … "${header[slotRun.first + slotRun.count - 1]}" → ${slotRun.count} intervals.`,
+      );
     } else {
       const date = found.first('date');
       const time = found.first('time');
@@ -144,13 +152,15 @@ export function detectColumns(header: string[], sampleRows: string[][] = [], opt
         mapping.timestampMarksEnd = true;
         reasons.push('Timestamps mark the end of each interval.');
       } else take('timestamp', found.first('start') ?? date ?? time);
-      const value = kind === 'register' ? (found.first('registerValue') ?? found.first('usageValue')) : found.first('usageValue');
+      const value =
+        kind === 'register' ? (found.first('registerValue') ?? found.first('usageValue')) : found.first('usageValue');
       take('value', value);
       if (kind === 'interval-long') {
         take('intervalMinutes', found.first('intervalMinutes') ?? found.first('duration'));
         if (columns.intervalMinutes === undefined) {
           mapping.intervalMinutes = inferIntervalMinutes(sampleRows, columns);
-          if (mapping.intervalMinutes) reasons.push(`Interval length ${mapping.intervalMinutes} min, from the sample rows' spacing.`);
+          if (mapping.intervalMinutes)
+            reasons.push(`Interval length ${mapping.intervalMinutes} min, from the sample rows' spacing.`);
           else {
             reasons.push('Interval length not found; choose it.');
             doubts++;
@@ -160,7 +170,10 @@ export function detectColumns(header: string[], sampleRows: string[][] = [], opt
     }
     take('unit', found.first('unit'));
     if (columns.unit === undefined) {
-      const unitSource = columns.value !== undefined ? [columns.value] : header.map((_, i) => i).filter((i) => roles[i] !== 'interval-slot');
+      const unitSource =
+        columns.value !== undefined
+          ? [columns.value]
+          : header.map((_, i) => i).filter((i) => roles[i] !== 'interval-slot');
       for (const i of unitSource) {
         const unit = unitFromText(header[i] ?? '');
         if (unit) {

@@ -39,8 +39,7 @@ export function sniffDelimiter(sample: string, maxLines = 20): Delimiter {
     const first = counts[0] ?? 0;
     if (first === 0) continue;
     const consistent = counts.every((c) => c === first);
-    const better =
-      !best || (consistent && !best.consistent) || (consistent === best.consistent && first > best.count);
+    const better = !best || (consistent && !best.consistent) || (consistent === best.consistent && first > best.count);
     if (better) best = { delimiter, count: first, consistent };
   }
   return best?.delimiter ?? ',';

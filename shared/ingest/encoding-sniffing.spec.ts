@@ -56,7 +56,11 @@ describe('decodeText', () => {
   });
 
   it('drops the UTF-8 BOM', () => {
-    expect(decodeText(bytes(0xef, 0xbb, 0xbf, ...utf8('Meter')))).toEqual({ ok: true, text: 'Meter', encoding: 'utf-8' });
+    expect(decodeText(bytes(0xef, 0xbb, 0xbf, ...utf8('Meter')))).toEqual({
+      ok: true,
+      text: 'Meter',
+      encoding: 'utf-8',
+    });
   });
 
   it('refuses a zip', () => {

@@ -72,7 +72,8 @@ export function sniffEncoding(bytes: Uint8Array): SniffedEncoding {
   return { kind: 'windows-1252' };
 }
 
-export type DecodedText = { ok: true; text: string; encoding: 'utf-8' | 'windows-1252' } | { ok: false; message: string };
+export type DecodedText =
+  { ok: true; text: string; encoding: 'utf-8' | 'windows-1252' } | { ok: false; message: string };
 
 /**
  * Decodes a whole (small) upload with the WHATWG `TextDecoder`, which browsers and Node both provide, and drops

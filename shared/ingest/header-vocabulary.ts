@@ -44,10 +44,16 @@ const slotPatterns = [
 
 const rules: Array<[HeaderRole, RegExp]> = [
   ['unit', /^(?:unit|units|uom|unit of measure|measure unit|volume unit)$/],
-  ['intervalMinutes', /\binterval (?:length|len|minutes|mins?|duration)\b|\binterval \((?:min|mins|minutes)\)|^(?:resolution|int min|interval min)$/],
+  [
+    'intervalMinutes',
+    /\binterval (?:length|len|minutes|mins?|duration)\b|\binterval \((?:min|mins|minutes)\)|^(?:resolution|int min|interval min)$/,
+  ],
   ['controller', /\b(?:controller|ctrl|clock|timer) ?(?:id|#|no|name|serial)?\b/],
   ['station', /^(?!.*time ?zone)(?:.*\b(?:station|zone|valve|sta)\b.*)$/],
-  ['duration', /\b(?:run ?time|runtime|duration|minutes run|mins run|watering (?:time|minutes))\b|^(?:minutes|mins|min)$/],
+  [
+    'duration',
+    /\b(?:run ?time|runtime|duration|minutes run|mins run|watering (?:time|minutes))\b|^(?:minutes|mins|min)$/,
+  ],
   ['cause', /\b(?:cause|reason|trigger|run type|event type|start type|origin)\b/],
   ['end', /\b(?:end|ended|stop|stopped|finish|finished)\b/],
   ['start', /\b(?:start|started|begin|began|beginning)\b/],
@@ -56,7 +62,10 @@ const rules: Array<[HeaderRole, RegExp]> = [
   ['time', /\b(?:time|hour|time of day)\b/],
   ['registerValue', /\b(?:register|cumulative|index|reading|read|dial|totali[sz]er)\b/],
   ['measuredGallons', /\b(?:measured|flow|actual|metered)\b/],
-  ['usageValue', /\b(?:usage|consumption|volume|use|used|gallons|gal|gals|kgal|ccf|hcf|cf|m3|m³|quantity|qty|amount|value)\b/],
+  [
+    'usageValue',
+    /\b(?:usage|consumption|volume|use|used|gallons|gal|gals|kgal|ccf|hcf|cf|m3|m³|quantity|qty|amount|value)\b/,
+  ],
   ['meter', /\b(?:meter|serial|device|service point|sp id|meter ?#)\b|#$/],
 ];
 

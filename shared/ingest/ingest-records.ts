@@ -34,7 +34,6 @@ export type IngestRecord = IntervalRecord | RegisterRecord | RuntimeRecord;
 
 /** One row's (or one wide-row cell's) outcome. `row` and `column` are 1-based, as a spreadsheet shows them. */
 export type RowOutcome<R> =
-  | { ok: true; record: R; warnings?: string[] }
-  | { ok: false; row: number; column: number | null; message: string };
+  { ok: true; record: R; warnings?: string[] } | { ok: false; row: number; column: number | null; message: string };
 
 export type RowError = Extract<RowOutcome<unknown>, { ok: false }>;

@@ -1,7 +1,17 @@
 /** One-reading-per-row interval files → interval records. */
 import { createInstantResolver } from './local-instant-resolver';
 import { parseNumber, parseVolume } from './number-parsing';
-import { cellText, isBlankRow, nowMs, readRef, readTimestamp, readUnit, rowError, toIso, type ReadOptions } from './row-cells';
+import {
+  cellText,
+  isBlankRow,
+  nowMs,
+  readRef,
+  readTimestamp,
+  readUnit,
+  rowError,
+  toIso,
+  type ReadOptions,
+} from './row-cells';
 import type { IntervalRecord, RowOutcome } from './ingest-records';
 import type { ColumnMapping } from './upload-kind';
 
@@ -29,7 +39,12 @@ export function createIntervalLongReader(mapping: ColumnMapping, options: ReadOp
         const parsed = parseNumber(cellText(cells, minutesCol));
         if (!parsed.ok) return rowError(mapping, row, minutesCol, parsed.message);
         if (!Number.isInteger(parsed.value) || parsed.value <= 0 || parsed.value > 1440) {
-          return rowError(mapping, row, minutesCol, `${parsed.value} is not an interval length in whole minutes (1–1440)`);
+          return rowError(
+            mapping,
+            row,
+            minutesCol,
+            `${parsed.value} is not an interval length in whole minutes (1–1440)`,
+          );
         }
         minutes = parsed.value;
       }

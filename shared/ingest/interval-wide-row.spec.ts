@@ -5,7 +5,13 @@ import type { ColumnMapping } from './upload-kind';
 
 const now = new Date('2026-12-01T00:00:00Z');
 const hours = Array.from({ length: 24 }, (_, i) => `Hr ${String(i + 1).padStart(2, '0')}`);
-const mapping: ColumnMapping = { kind: 'interval-wide', header: ['Meter', 'Read Date', ...hours], columns: { meter: 0, date: 1 }, intervalColumns: { first: 2, count: 24 }, unit: 'gal' };
+const mapping: ColumnMapping = {
+  kind: 'interval-wide',
+  header: ['Meter', 'Read Date', ...hours],
+  columns: { meter: 0, date: 1 },
+  intervalColumns: { first: 2, count: 24 },
+  unit: 'gal',
+};
 const records = (outs: RowOutcome<IntervalRecord>[]) => outs.flatMap((o) => (o.ok ? [o.record] : []));
 
 describe('createIntervalWideReader', () => {
@@ -13,7 +19,13 @@ describe('createIntervalWideReader', () => {
     const reader = createIntervalWideReader(mapping, { timeZone: 'America/Denver', now });
     const out = reader.read(['OFFICE-PARK-01', '2026-11-10', ...Array(24).fill('2')], 2);
     expect(records(out)).toHaveLength(24);
-    expect(records(out)[0]).toEqual({ meterRef: 'OFFICE-PARK-01', startUtc: '2026-11-10T07:00:00.000Z', minutes: 60, volume: 2, unit: 'gal' });
+    expect(records(out)[0]).toEqual({
+      meterRef: 'OFFICE-PARK-01',
+      startUtc: '2026-11-10T07:00:00.000Z',
+      minutes: 60,
+      volume: 2,
+      unit: 'gal',
+    });
   });
 
   it('fall-back with 24 columns: Hr 02 becomes one 120-minute record; totals are kept', () => {
@@ -35,7 +47,13 @@ describe('createIntervalWideReader', () => {
     cells[2] = '4';
     const errors = reader.read(['M', '2026-03-08', ...cells], 4).filter((o) => !o.ok);
     expect(errors).toEqual([
-      { ok: false, row: 4, column: 5, message: 'Hr 03: this clock time does not exist on 2026-03-08 in America/Los_Angeles (clocks spring forward); it should be empty' },
+      {
+        ok: false,
+        row: 4,
+        column: 5,
+        message:
+          'Hr 03: this clock time does not exist on 2026-03-08 in America/Los_Angeles (clocks spring forward); it should be empty',
+      },
     ]);
   });
 

@@ -49,7 +49,14 @@ export function createIntervalWideReader(mapping: ColumnMapping, options: ReadOp
           const text = cellText(cells, col);
           const value = parseVolume(text, mapping);
           if (text !== '' && (!value.ok || value.value !== 0)) {
-            outcomes.push(rowError(mapping, row, col, `this clock time does not exist on ${key.slice(0, 10)} in ${options.timeZone} (clocks spring forward); it should be empty`));
+            outcomes.push(
+              rowError(
+                mapping,
+                row,
+                col,
+                `this clock time does not exist on ${key.slice(0, 10)} in ${options.timeZone} (clocks spring forward); it should be empty`,
+              ),
+            );
           }
           continue;
         }
@@ -58,7 +65,14 @@ export function createIntervalWideReader(mapping: ColumnMapping, options: ReadOp
         if (texts.every((t) => t === '')) continue;
         const missing = texts.findIndex((t) => t === '');
         if (missing >= 0) {
-          outcomes.push(rowError(mapping, row, cols[missing]!, 'is empty, but the repeated DST hour needs all its columns to make one interval'));
+          outcomes.push(
+            rowError(
+              mapping,
+              row,
+              cols[missing]!,
+              'is empty, but the repeated DST hour needs all its columns to make one interval',
+            ),
+          );
           continue;
         }
         let volume = 0;
@@ -72,13 +86,21 @@ export function createIntervalWideReader(mapping: ColumnMapping, options: ReadOp
         }
         if (bad) continue;
         if (slot.startUtcMs + slot.minutes * 60_000 > now) {
-          outcomes.push(rowError(mapping, row, cols[0]!, `${toIso(slot.startUtcMs)} is in the future (interval not yet over)`));
+          outcomes.push(
+            rowError(mapping, row, cols[0]!, `${toIso(slot.startUtcMs)} is in the future (interval not yet over)`),
+          );
           continue;
         }
         outcomes.push({
           ok: true,
           // Summing decimals of a folded hour can leave float noise; volumes never need more than 6 places.
-          record: { meterRef: meter.ref, startUtc: toIso(slot.startUtcMs), minutes: slot.minutes, volume: Math.round(volume * 1e6) / 1e6, unit: unit.unit },
+          record: {
+            meterRef: meter.ref,
+            startUtc: toIso(slot.startUtcMs),
+            minutes: slot.minutes,
+            volume: Math.round(volume * 1e6) / 1e6,
+            unit: unit.unit,
+          },
         });
       }
       return outcomes;

@@ -12,7 +12,9 @@ const iso = (r: { ok: boolean; utcMs?: number }) => (r.ok ? new Date(r.utcMs!).t
 describe('createInstantResolver: fall-back', () => {
   it('Los Angeles hourly: the second 01:00 of a meter maps to the later (PST) instant', () => {
     const r = createInstantResolver('America/Los_Angeles');
-    const got = ['2026-11-01 00:00', '2026-11-01 01:00', '2026-11-01 01:00', '2026-11-01 02:00'].map((t) => iso(r.resolve('M1', stamp(t))));
+    const got = ['2026-11-01 00:00', '2026-11-01 01:00', '2026-11-01 01:00', '2026-11-01 02:00'].map((t) =>
+      iso(r.resolve('M1', stamp(t))),
+    );
     expect(got).toEqual(['2026-11-01T07:00', '2026-11-01T08:00', '2026-11-01T09:00', '2026-11-01T10:00']);
   });
 
@@ -21,17 +23,31 @@ describe('createInstantResolver: fall-back', () => {
     const labels = ['01:00', '01:15', '01:30', '01:45', '01:00', '01:15', '01:30', '01:45', '02:00'];
     const got = labels.map((t) => iso(r.resolve('M1', stamp(`2026-11-01 ${t}`))));
     expect(got).toEqual([
-      '2026-11-01T07:00', '2026-11-01T07:15', '2026-11-01T07:30', '2026-11-01T07:45',
-      '2026-11-01T08:00', '2026-11-01T08:15', '2026-11-01T08:30', '2026-11-01T08:45',
+      '2026-11-01T07:00',
+      '2026-11-01T07:15',
+      '2026-11-01T07:30',
+      '2026-11-01T07:45',
+      '2026-11-01T08:00',
+      '2026-11-01T08:15',
+      '2026-11-01T08:30',
+      '2026-11-01T08:45',
       '2026-11-01T09:00',
     ]);
   });
 
   it('tracks order per meter: interleaved meters each get their own first occurrence', () => {
     const r = createInstantResolver('America/Los_Angeles');
-    const seq: Array<[string, string]> = [['A', '01:00'], ['B', '01:00'], ['A', '01:00'], ['B', '01:00']];
+    const seq: Array<[string, string]> = [
+      ['A', '01:00'],
+      ['B', '01:00'],
+      ['A', '01:00'],
+      ['B', '01:00'],
+    ];
     expect(seq.map(([m, t]) => iso(r.resolve(m, stamp(`2026-11-01 ${t}`))))).toEqual([
-      '2026-11-01T08:00', '2026-11-01T08:00', '2026-11-01T09:00', '2026-11-01T09:00',
+      '2026-11-01T08:00',
+      '2026-11-01T08:00',
+      '2026-11-01T09:00',
+      '2026-11-01T09:00',
     ]);
   });
 
@@ -48,7 +64,8 @@ describe('createInstantResolver: spring-forward', () => {
     const result = r.resolve('M', stamp('2026-03-08 02:30'));
     expect(result).toEqual({
       ok: false,
-      message: "2026-03-08 02:30 does not exist in America/Denver (clocks spring forward past it); check the export's clock or the site's time zone",
+      message:
+        "2026-03-08 02:30 does not exist in America/Denver (clocks spring forward past it); check the export's clock or the site's time zone",
     });
   });
 });

@@ -23,8 +23,12 @@ describe('validateMapping', () => {
   });
 
   it('no meter column and no fixed meter → meter problem; a fixed meter fixes it', () => {
-    expect(validateMapping(longMapping({ columns: { timestamp: 1, value: 2 } })).map((p) => p.field)).toEqual(['meter']);
-    expect(validateMapping(longMapping({ columns: { timestamp: 1, value: 2 }, fixedMeterRef: 'SCHOOL-02' }))).toEqual([]);
+    expect(validateMapping(longMapping({ columns: { timestamp: 1, value: 2 } })).map((p) => p.field)).toEqual([
+      'meter',
+    ]);
+    expect(validateMapping(longMapping({ columns: { timestamp: 1, value: 2 }, fixedMeterRef: 'SCHOOL-02' }))).toEqual(
+      [],
+    );
   });
 
   it('no unit anywhere → unit problem', () => {
@@ -33,7 +37,9 @@ describe('validateMapping', () => {
 
   it('an interval length outside the accepted set → problem', () => {
     expect(validateMapping(longMapping({ intervalMinutes: 7 }))[0]?.message).toMatch(/5, 15, 30, 60, 1440/);
-    expect(validateMapping(longMapping({ intervalMinutes: undefined })).map((p) => p.field)).toEqual(['intervalMinutes']);
+    expect(validateMapping(longMapping({ intervalMinutes: undefined })).map((p) => p.field)).toEqual([
+      'intervalMinutes',
+    ]);
   });
 
   it('a column beyond the header and a column used twice are problems', () => {
@@ -51,7 +57,11 @@ describe('validateMapping', () => {
   });
 
   it('runtime needs controller, station, start and a duration or end', () => {
-    const problems = validateMapping({ kind: 'runtime', header: ['Controller', 'Station', 'Cause'], columns: { controller: 0, station: 1, cause: 2 } });
+    const problems = validateMapping({
+      kind: 'runtime',
+      header: ['Controller', 'Station', 'Cause'],
+      columns: { controller: 0, station: 1, cause: 2 },
+    });
     expect(problems).toEqual([
       { field: 'start', message: 'Choose the run start column.' },
       { field: 'duration', message: 'Choose the run time column or the run end column.' },
@@ -60,12 +70,25 @@ describe('validateMapping', () => {
 
   it('wide needs 24/48/96 interval columns', () => {
     const header = ['Meter', 'Date', ...Array.from({ length: 20 }, (_, i) => `Hr ${i + 1}`)];
-    const problems = validateMapping({ kind: 'interval-wide', header, columns: { meter: 0, date: 1 }, unit: 'gal', intervalColumns: { first: 2, count: 20 } });
-    expect(problems).toEqual([{ field: 'intervalColumns', message: 'A one-row-per-day file needs 24, 48 or 96 interval columns; found 20.' }]);
+    const problems = validateMapping({
+      kind: 'interval-wide',
+      header,
+      columns: { meter: 0, date: 1 },
+      unit: 'gal',
+      intervalColumns: { first: 2, count: 20 },
+    });
+    expect(problems).toEqual([
+      { field: 'intervalColumns', message: 'A one-row-per-day file needs 24, 48 or 96 interval columns; found 20.' },
+    ]);
   });
 
   it('register needs a timestamp', () => {
-    const problems = validateMapping({ kind: 'register', header: ['Meter', 'Reading'], columns: { meter: 0, value: 1 }, unit: 'ccf' });
+    const problems = validateMapping({
+      kind: 'register',
+      header: ['Meter', 'Reading'],
+      columns: { meter: 0, value: 1 },
+      unit: 'ccf',
+    });
     expect(problems).toEqual([{ field: 'timestamp', message: 'Choose the timestamp column.' }]);
   });
 });

@@ -28,15 +28,18 @@ export function validateMapping(mapping: ColumnMapping): MappingProblem[] {
   const used = new Map<number, MappedField>();
   for (const [field, index] of Object.entries(c) as Array<[MappedField, number]>) {
     const other = used.get(index);
-    if (other) problems.push({ field, message: `"${mapping.header[index]}" is already the ${FIELD_LABELS[other]} column.` });
+    if (other)
+      problems.push({ field, message: `"${mapping.header[index]}" is already the ${FIELD_LABELS[other]} column.` });
     used.set(index, field);
   }
 
   const needsMeter = () => {
-    if (!has('meter') && !mapping.fixedMeterRef?.trim()) problems.push(required('meter', ', or choose the meter for a single-meter file'));
+    if (!has('meter') && !mapping.fixedMeterRef?.trim())
+      problems.push(required('meter', ', or choose the meter for a single-meter file'));
   };
   const needsUnit = () => {
-    if (!has('unit') && !mapping.unit) problems.push({ field: 'unit', message: 'Choose the unit column, or the unit the volumes are in.' });
+    if (!has('unit') && !mapping.unit)
+      problems.push({ field: 'unit', message: 'Choose the unit column, or the unit the volumes are in.' });
     if (mapping.unit && !(VOLUME_UNITS as readonly string[]).includes(mapping.unit)) {
       problems.push({ field: 'unit', message: `Unknown unit "${mapping.unit}".` });
     }
@@ -53,9 +56,13 @@ export function validateMapping(mapping: ColumnMapping): MappingProblem[] {
       if (!has('value')) problems.push(required('value'));
       needsUnit();
       if (!has('intervalMinutes')) {
-        if (mapping.intervalMinutes === undefined) problems.push(required('intervalMinutes', ', or choose the interval length'));
+        if (mapping.intervalMinutes === undefined)
+          problems.push(required('intervalMinutes', ', or choose the interval length'));
         else if (!(INTERVAL_MINUTES as readonly number[]).includes(mapping.intervalMinutes)) {
-          problems.push({ field: 'intervalMinutes', message: `Interval length must be one of ${INTERVAL_MINUTES.join(', ')} minutes.` });
+          problems.push({
+            field: 'intervalMinutes',
+            message: `Interval length must be one of ${INTERVAL_MINUTES.join(', ')} minutes.`,
+          });
         }
       }
       break;
@@ -65,7 +72,10 @@ export function validateMapping(mapping: ColumnMapping): MappingProblem[] {
       needsUnit();
       const run = mapping.intervalColumns;
       if (!run || !(WIDE_COLUMN_COUNTS as readonly number[]).includes(run.count)) {
-        problems.push({ field: 'intervalColumns', message: `A one-row-per-day file needs 24, 48 or 96 interval columns${run ? `; found ${run.count}` : ''}.` });
+        problems.push({
+          field: 'intervalColumns',
+          message: `A one-row-per-day file needs 24, 48 or 96 interval columns${run ? `; found ${run.count}` : ''}.`,
+        });
       } else if (run.first < 0 || run.first + run.count > mapping.header.length) {
         problems.push({ field: 'intervalColumns', message: 'The interval columns run past the end of the header.' });
       }
@@ -81,7 +91,8 @@ export function validateMapping(mapping: ColumnMapping): MappingProblem[] {
       if (!has('controller')) problems.push(required('controller'));
       if (!has('station')) problems.push(required('station'));
       if (!has('start')) problems.push(required('start'));
-      if (!has('duration') && !has('end')) problems.push({ field: 'duration', message: 'Choose the run time column or the run end column.' });
+      if (!has('duration') && !has('end'))
+        problems.push({ field: 'duration', message: 'Choose the run time column or the run end column.' });
       break;
   }
   return problems;

@@ -2,35 +2,64 @@ import { describe, expect, it } from 'vitest';
 import { differenceRegisterReads, type RegisterPeriod } from './register-differencing';
 import type { RegisterRecord } from './ingest-records';
 
-const read = (day: string, value: number, meterRef = 'M'): RegisterRecord => ({ meterRef, atUtc: `2026-${day}T07:00:00.000Z`, value, unit: 'ccf' });
-const register = (over: Partial<RegisterPeriod> = {}): RegisterPeriod => ({ installedUtc: '2020-01-01T00:00:00.000Z', removedUtc: null, multiplier: 1, digits: 4, ...over });
+const read = (day: string, value: number, meterRef = 'M'): RegisterRecord => ({
+  meterRef,
+  atUtc: `2026-${day}T07:00:00.000Z`,
+  value,
+  unit: 'ccf',
+});
+const register = (over: Partial<RegisterPeriod> = {}): RegisterPeriod => ({
+  installedUtc: '2020-01-01T00:00:00.000Z',
+  removedUtc: null,
+  multiplier: 1,
+  digits: 4,
+  ...over,
+});
 
 describe('differenceRegisterReads', () => {
   it('consecutive reads become volumes over the span between them', () => {
-    const out = differenceRegisterReads({ meterRef: 'M', registers: [register()] }, [read('06-01', 100), read('07-01', 168)]);
-    expect(out.volumes).toEqual([{ meterRef: 'M', startUtc: '2026-06-01T07:00:00.000Z', minutes: 30 * 1440, volume: 68, unit: 'ccf' }]);
+    const out = differenceRegisterReads({ meterRef: 'M', registers: [register()] }, [
+      read('06-01', 100),
+      read('07-01', 168),
+    ]);
+    expect(out.volumes).toEqual([
+      { meterRef: 'M', startUtc: '2026-06-01T07:00:00.000Z', minutes: 30 * 1440, volume: 68, unit: 'ccf' },
+    ]);
     expect(out.problems).toEqual([]);
   });
 
   it('rollover: 9,998 → 0,003 on a 4-digit register is 5 units', () => {
-    const out = differenceRegisterReads({ meterRef: 'M', registers: [register()] }, [read('06-01', 9998), read('07-01', 3)]);
+    const out = differenceRegisterReads({ meterRef: 'M', registers: [register()] }, [
+      read('06-01', 9998),
+      read('07-01', 3),
+    ]);
     expect(out.volumes.map((v) => v.volume)).toEqual([5]);
     expect(out.rollovers).toEqual([{ atUtc: '2026-07-01T07:00:00.000Z', from: 9998, to: 3, volume: 5 }]);
   });
 
   it('the multiplier scales register units to volume', () => {
-    const out = differenceRegisterReads({ meterRef: 'M', registers: [register({ multiplier: 10 })] }, [read('06-01', 9998), read('07-01', 3)]);
+    const out = differenceRegisterReads({ meterRef: 'M', registers: [register({ multiplier: 10 })] }, [
+      read('06-01', 9998),
+      read('07-01', 3),
+    ]);
     expect(out.volumes[0]!.volume).toBe(50);
   });
 
   it('a drop that is not a plausible rollover is reported, not produced, and the newer read becomes the base', () => {
-    const out = differenceRegisterReads({ meterRef: 'M', registers: [register()] }, [read('09-01', 5210), read('10-01', 5190), read('11-01', 5350)]);
+    const out = differenceRegisterReads({ meterRef: 'M', registers: [register()] }, [
+      read('09-01', 5210),
+      read('10-01', 5190),
+      read('11-01', 5350),
+    ]);
     expect(out.volumes.map((v) => [v.startUtc.slice(5, 10), v.volume])).toEqual([['10-01', 160]]);
     expect(out.problems).toMatchObject([{ kind: 'negative', severity: 'error', atUtc: '2026-10-01T07:00:00.000Z' }]);
   });
 
   it('without a digit count, any drop is reported', () => {
-    const out = differenceRegisterReads({ meterRef: 'M', registers: [register({ digits: null })] }, [read('06-01', 9998), read('07-01', 3)]);
+    const out = differenceRegisterReads({ meterRef: 'M', registers: [register({ digits: null })] }, [
+      read('06-01', 9998),
+      read('07-01', 3),
+    ]);
     expect(out.volumes).toEqual([]);
     expect(out.problems.map((p) => p.kind)).toEqual(['negative']);
   });
@@ -63,12 +92,21 @@ describe('differenceRegisterReads', () => {
       read('11-01', 160),
       read('08-02', 151, 'OTHER'),
     ]);
-    expect(out.problems.map((p) => p.kind)).toEqual(['duplicate', 'not-sorted', 'too-many-digits', 'outside-install', 'other-meter']);
+    expect(out.problems.map((p) => p.kind)).toEqual([
+      'duplicate',
+      'not-sorted',
+      'too-many-digits',
+      'outside-install',
+      'other-meter',
+    ]);
     expect(out.volumes.map((v) => v.volume)).toEqual([50]);
   });
 
   it('a unit change between reads is not differenced', () => {
-    const out = differenceRegisterReads({ meterRef: 'M', registers: [register()] }, [read('06-01', 1), { ...read('07-01', 2), unit: 'gal' }]);
+    const out = differenceRegisterReads({ meterRef: 'M', registers: [register()] }, [
+      read('06-01', 1),
+      { ...read('07-01', 2), unit: 'gal' },
+    ]);
     expect(out.volumes).toEqual([]);
     expect(out.problems.map((p) => p.kind)).toEqual(['unit-changed']);
   });

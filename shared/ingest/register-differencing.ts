@@ -25,7 +25,15 @@ export interface MeterRegisterFacts {
   registers: RegisterPeriod[];
 }
 
-export type RegisterProblemKind = 'other-meter' | 'not-sorted' | 'duplicate' | 'outside-install' | 'too-many-digits' | 'unit-changed' | 'negative' | 'meter-swap';
+export type RegisterProblemKind =
+  | 'other-meter'
+  | 'not-sorted'
+  | 'duplicate'
+  | 'outside-install'
+  | 'too-many-digits'
+  | 'unit-changed'
+  | 'negative'
+  | 'meter-swap';
 
 export interface RegisterProblem {
   kind: RegisterProblemKind;
@@ -48,15 +56,21 @@ const round6 = (x: number) => Math.round(x * 1e6) / 1e6;
 function periodsContaining(registers: RegisterPeriod[], atMs: number): number[] {
   return registers
     .map((p, i) => ({ p, i }))
-    .filter(({ p }) => Date.parse(p.installedUtc) <= atMs && (p.removedUtc === null || atMs <= Date.parse(p.removedUtc)))
+    .filter(
+      ({ p }) => Date.parse(p.installedUtc) <= atMs && (p.removedUtc === null || atMs <= Date.parse(p.removedUtc)),
+    )
     .map(({ i }) => i);
 }
 
 /** Differences `reads` (sorted by time, one meter) into volumes, reporting what it will not difference. */
 export function differenceRegisterReads(facts: MeterRegisterFacts, reads: RegisterRecord[]): RegisterDifferences {
   const out: RegisterDifferences = { volumes: [], rollovers: [], problems: [] };
-  const problem = (kind: RegisterProblemKind, read: RegisterRecord, message: string, severity: 'error' | 'notice' = 'error') =>
-    out.problems.push({ kind, severity, meterRef: facts.meterRef, atUtc: read.atUtc, message });
+  const problem = (
+    kind: RegisterProblemKind,
+    read: RegisterRecord,
+    message: string,
+    severity: 'error' | 'notice' = 'error',
+  ) => out.problems.push({ kind, severity, meterRef: facts.meterRef, atUtc: read.atUtc, message });
   type Placed = { read: RegisterRecord; atMs: number; period: number };
   let prev: Placed | null = null;
 
@@ -96,7 +110,12 @@ export function differenceRegisterReads(facts: MeterRegisterFacts, reads: Regist
       continue;
     }
     if (prev.period !== period) {
-      problem('meter-swap', read, 'first read on a replacement register; not differenced against the old one', 'notice');
+      problem(
+        'meter-swap',
+        read,
+        'first read on a replacement register; not differenced against the old one',
+        'notice',
+      );
       prev = current;
       continue;
     }
@@ -109,12 +128,21 @@ export function differenceRegisterReads(facts: MeterRegisterFacts, reads: Regist
     if (units < 0) {
       const wrapped = range === null ? null : read.value + range - prev.read.value;
       if (wrapped === null || wrapped >= range! / 2) {
-        problem('negative', read, `register went down from ${prev.read.value} to ${read.value}, which is not a plausible rollover; not differenced`);
+        problem(
+          'negative',
+          read,
+          `register went down from ${prev.read.value} to ${read.value}, which is not a plausible rollover; not differenced`,
+        );
         prev = current;
         continue;
       }
       units = wrapped;
-      out.rollovers.push({ atUtc: read.atUtc, from: prev.read.value, to: read.value, volume: round6(units * register.multiplier) });
+      out.rollovers.push({
+        atUtc: read.atUtc,
+        from: prev.read.value,
+        to: read.value,
+        volume: round6(units * register.multiplier),
+      });
     }
     out.volumes.push({
       meterRef: facts.meterRef,

@@ -1,7 +1,17 @@
 /** Register-read files → register records (cumulative values; differencing is `register-differencing.ts`). */
 import { createInstantResolver } from './local-instant-resolver';
 import { parseVolume } from './number-parsing';
-import { cellText, isBlankRow, nowMs, readRef, readTimestamp, readUnit, rowError, toIso, type ReadOptions } from './row-cells';
+import {
+  cellText,
+  isBlankRow,
+  nowMs,
+  readRef,
+  readTimestamp,
+  readUnit,
+  rowError,
+  toIso,
+  type ReadOptions,
+} from './row-cells';
 import type { RegisterRecord, RowOutcome } from './ingest-records';
 import type { ColumnMapping } from './upload-kind';
 
@@ -27,7 +37,10 @@ export function createRegisterReader(mapping: ColumnMapping, options: ReadOption
       if (!value.ok) return rowError(mapping, row, valueCol, value.message);
       const unit = readUnit(mapping, cells, row);
       if (!unit.ok) return unit;
-      return { ok: true, record: { meterRef: meter.ref, atUtc: toIso(instant.utcMs), value: value.value, unit: unit.unit } };
+      return {
+        ok: true,
+        record: { meterRef: meter.ref, atUtc: toIso(instant.utcMs), value: value.value, unit: unit.unit },
+      };
     },
   };
 }

@@ -21,7 +21,12 @@ export function nowMs(options: ReadOptions): number {
 /** `column` is 0-based here and 1-based in the result, as a spreadsheet numbers columns. */
 export function rowError(mapping: ColumnMapping, row: number, column: number | null, message: string): RowError {
   const name = column === null ? null : mapping.header[column];
-  return { ok: false, row, column: column === null ? null : column + 1, message: name ? `${name}: ${message}` : message };
+  return {
+    ok: false,
+    row,
+    column: column === null ? null : column + 1,
+    message: name ? `${name}: ${message}` : message,
+  };
 }
 
 export function cellText(cells: string[], column: number | undefined): string {
@@ -41,7 +46,8 @@ export function readRef(
   options: ReadOptions,
 ): { ok: true; ref: string } | RowError {
   const column = mapping.columns[field];
-  const ref = column === undefined && field === 'meter' ? (mapping.fixedMeterRef ?? '').trim() : cellText(cells, column);
+  const ref =
+    column === undefined && field === 'meter' ? (mapping.fixedMeterRef ?? '').trim() : cellText(cells, column);
   if (ref === '') return rowError(mapping, row, column ?? null, `the ${field} is empty`);
   if (options.knownRefs && !options.knownRefs.has(ref)) {
     return rowError(mapping, row, column ?? null, `unknown ${field} "${ref}"; add it to the site or fix the file`);
@@ -93,7 +99,11 @@ export function toIso(utcMs: number): string {
 }
 
 /** Unit from the row's unit column, else the mapping's unit. */
-export function readUnit(mapping: ColumnMapping, cells: string[], row: number): { ok: true; unit: VolumeUnit } | RowError {
+export function readUnit(
+  mapping: ColumnMapping,
+  cells: string[],
+  row: number,
+): { ok: true; unit: VolumeUnit } | RowError {
   const column = mapping.columns.unit;
   if (column === undefined) {
     return mapping.unit ? { ok: true, unit: mapping.unit } : rowError(mapping, row, null, 'no unit chosen');

@@ -65,14 +65,22 @@ export interface Interpretation {
  * count the header as row 1, so the first data row is row 2 (what a spreadsheet shows).
  */
 export function interpretRows(rows: string[][], options: InterpretOptions): Interpretation {
-  const result: Interpretation = { fileProblems: [], detection: null, mapping: null, mappingProblems: [], records: [], errors: [] };
+  const result: Interpretation = {
+    fileProblems: [],
+    detection: null,
+    mapping: null,
+    mappingProblems: [],
+    records: [],
+    errors: [],
+  };
   const nonBlank = rows.filter((r) => r.some((c) => c.trim() !== ''));
   if (nonBlank.length === 0) {
     result.fileProblems.push('The file is empty.');
     return result;
   }
   const [header, ...data] = rows;
-  if (data.every((r) => r.every((c) => c.trim() === ''))) result.fileProblems.push('The file has a header but no data rows.');
+  if (data.every((r) => r.every((c) => c.trim() === '')))
+    result.fileProblems.push('The file has a header but no data rows.');
 
   result.detection = detectColumns(header!, data.slice(0, options.sampleSize ?? 20), { delimiter: options.delimiter });
   const base = options.mapping ?? result.detection.mapping;

@@ -62,25 +62,42 @@ export function createRuntimeReader(mapping: ColumnMapping, options: ReadOptions
         let parsedEnd = end.parsed;
         // Time-only end before time-only start on one date: the run crossed midnight.
         const endAlone = parseTimestamp(cellText(cells, c.end));
-        if (!endAlone.ok && parsedEnd.kind === 'wall' && start.parsed.kind === 'wall' && wallTimeAsUtcMs(parsedEnd.wall) < wallTimeAsUtcMs(start.parsed.wall)) {
+        if (
+          !endAlone.ok &&
+          parsedEnd.kind === 'wall' &&
+          start.parsed.kind === 'wall' &&
+          wallTimeAsUtcMs(parsedEnd.wall) < wallTimeAsUtcMs(start.parsed.wall)
+        ) {
           parsedEnd = { ...parsedEnd, wall: addWallMinutes(parsedEnd.wall, 24 * 60) };
         }
         const endAt = resolver.resolveNotBefore(parsedEnd, startAt.utcMs);
         if (!endAt.ok) return rowError(mapping, row, end.column, endAt.message);
         minutes = (endAt.utcMs - startAt.utcMs) / 60_000;
         if (minutes < 0) return rowError(mapping, row, end.column, 'the run ends before it starts');
-        if (minutes > MAX_RUN_MINUTES) return rowError(mapping, row, end.column, `a ${minutes}-minute run is longer than a day`);
+        if (minutes > MAX_RUN_MINUTES)
+          return rowError(mapping, row, end.column, `a ${minutes}-minute run is longer than a day`);
       }
 
       let cause: RuntimeCause | null = null;
       if (c.cause !== undefined) {
         const parsed = parseRuntimeCause(cellText(cells, c.cause));
         if (parsed === undefined) {
-          return rowError(mapping, row, c.cause, `"${cellText(cells, c.cause)}" is not a cause this reader knows (scheduled, manual, rain skip, wind skip)`);
+          return rowError(
+            mapping,
+            row,
+            c.cause,
+            `"${cellText(cells, c.cause)}" is not a cause this reader knows (scheduled, manual, rain skip, wind skip)`,
+          );
         }
         cause = parsed;
       }
-      const record: RuntimeRecord = { controllerRef: controller.ref, station, startUtc: toIso(startAt.utcMs), minutes, cause };
+      const record: RuntimeRecord = {
+        controllerRef: controller.ref,
+        station,
+        startUtc: toIso(startAt.utcMs),
+        minutes,
+        cause,
+      };
       const gallonsText = cellText(cells, c.measuredGallons);
       if (gallonsText !== '') {
         const gallons = parseVolume(gallonsText, mapping);

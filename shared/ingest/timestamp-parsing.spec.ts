@@ -1,29 +1,87 @@
 import { describe, expect, it } from 'vitest';
 import { combineDateAndTime, parseTimeOfDay, parseTimestamp, spreadsheetSerialToWall } from './timestamp-parsing';
 
-const wall = (year: number, month: number, day: number, hour = 0, minute = 0, second = 0) => ({ year, month, day, hour, minute, second });
+const wall = (year: number, month: number, day: number, hour = 0, minute = 0, second = 0) => ({
+  year,
+  month,
+  day,
+  hour,
+  minute,
+  second,
+});
 
 describe('parseTimestamp', () => {
   it('ISO without offset → local wall time', () => {
-    expect(parseTimestamp('2026-11-01T01:30')).toEqual({ ok: true, kind: 'wall', wall: wall(2026, 11, 1, 1, 30), dateOnly: false });
-    expect(parseTimestamp('2026-11-01 01:30:15')).toEqual({ ok: true, kind: 'wall', wall: wall(2026, 11, 1, 1, 30, 15), dateOnly: false });
+    expect(parseTimestamp('2026-11-01T01:30')).toEqual({
+      ok: true,
+      kind: 'wall',
+      wall: wall(2026, 11, 1, 1, 30),
+      dateOnly: false,
+    });
+    expect(parseTimestamp('2026-11-01 01:30:15')).toEqual({
+      ok: true,
+      kind: 'wall',
+      wall: wall(2026, 11, 1, 1, 30, 15),
+      dateOnly: false,
+    });
   });
 
   it('the common yyyy-mm-dd hh:mm form reads like the general ISO path, leap days and refusals included', () => {
-    expect(parseTimestamp('2024-02-29 23:59')).toEqual({ ok: true, kind: 'wall', wall: wall(2024, 2, 29, 23, 59), dateOnly: false });
-    expect(parseTimestamp(' 2026-11-01t01:30:05 ')).toEqual({ ok: true, kind: 'wall', wall: wall(2026, 11, 1, 1, 30, 5), dateOnly: false });
-    expect(parseTimestamp('2026-02-29 10:00')).toEqual({ ok: false, message: '"2026-02-29 10:00" is not a calendar date' });
-    expect(parseTimestamp('2100-02-29 10:00')).toEqual({ ok: false, message: '"2100-02-29 10:00" is not a calendar date' });
-    expect(parseTimestamp('2026-04-31 10:00')).toEqual({ ok: false, message: '"2026-04-31 10:00" is not a calendar date' });
-    expect(parseTimestamp('2026-11-01 25:00')).toEqual({ ok: false, message: '"2026-11-01 25:00" has an impossible time of day' });
-    expect(parseTimestamp('2026-11-01 10:60:00')).toEqual({ ok: false, message: '"2026-11-01 10:60:00" has an impossible time of day' });
+    expect(parseTimestamp('2024-02-29 23:59')).toEqual({
+      ok: true,
+      kind: 'wall',
+      wall: wall(2024, 2, 29, 23, 59),
+      dateOnly: false,
+    });
+    expect(parseTimestamp(' 2026-11-01t01:30:05 ')).toEqual({
+      ok: true,
+      kind: 'wall',
+      wall: wall(2026, 11, 1, 1, 30, 5),
+      dateOnly: false,
+    });
+    expect(parseTimestamp('2026-02-29 10:00')).toEqual({
+      ok: false,
+      message: '"2026-02-29 10:00" is not a calendar date',
+    });
+    expect(parseTimestamp('2100-02-29 10:00')).toEqual({
+      ok: false,
+      message: '"2100-02-29 10:00" is not a calendar date',
+    });
+    expect(parseTimestamp('2026-04-31 10:00')).toEqual({
+      ok: false,
+      message: '"2026-04-31 10:00" is not a calendar date',
+    });
+    expect(parseTimestamp('2026-11-01 25:00')).toEqual({
+      ok: false,
+      message: '"2026-11-01 25:00" has an impossible time of day',
+    });
+    expect(parseTimestamp('2026-11-01 10:60:00')).toEqual({
+      ok: false,
+      message: '"2026-11-01 10:60:00" has an impossible time of day',
+    });
   });
 
   it('ISO with Z or an offset → exact instant', () => {
-    expect(parseTimestamp('2026-11-01T08:30:00Z')).toEqual({ ok: true, kind: 'instant', utcMs: Date.UTC(2026, 10, 1, 8, 30) });
-    expect(parseTimestamp('2026-11-01T01:30:00-07:00')).toEqual({ ok: true, kind: 'instant', utcMs: Date.UTC(2026, 10, 1, 8, 30) });
-    expect(parseTimestamp('2026-11-01 01:30-0800')).toEqual({ ok: true, kind: 'instant', utcMs: Date.UTC(2026, 10, 1, 9, 30) });
-    expect(parseTimestamp('2026-11-01T05:30+05:30')).toEqual({ ok: true, kind: 'instant', utcMs: Date.UTC(2026, 10, 1, 0, 0) });
+    expect(parseTimestamp('2026-11-01T08:30:00Z')).toEqual({
+      ok: true,
+      kind: 'instant',
+      utcMs: Date.UTC(2026, 10, 1, 8, 30),
+    });
+    expect(parseTimestamp('2026-11-01T01:30:00-07:00')).toEqual({
+      ok: true,
+      kind: 'instant',
+      utcMs: Date.UTC(2026, 10, 1, 8, 30),
+    });
+    expect(parseTimestamp('2026-11-01 01:30-0800')).toEqual({
+      ok: true,
+      kind: 'instant',
+      utcMs: Date.UTC(2026, 10, 1, 9, 30),
+    });
+    expect(parseTimestamp('2026-11-01T05:30+05:30')).toEqual({
+      ok: true,
+      kind: 'instant',
+      utcMs: Date.UTC(2026, 10, 1, 0, 0),
+    });
   });
 
   it('yyyy-mm-dd → date only at local midnight', () => {
@@ -92,7 +150,12 @@ describe('parseTimeOfDay', () => {
 
 describe('combineDateAndTime', () => {
   it('joins a date column and a time column', () => {
-    expect(combineDateAndTime('11/8/2026', '2:30 PM')).toEqual({ ok: true, kind: 'wall', wall: wall(2026, 11, 8, 14, 30), dateOnly: false });
+    expect(combineDateAndTime('11/8/2026', '2:30 PM')).toEqual({
+      ok: true,
+      kind: 'wall',
+      wall: wall(2026, 11, 8, 14, 30),
+      dateOnly: false,
+    });
   });
 
   it('a time of 24:00 rolls to the next day', () => {

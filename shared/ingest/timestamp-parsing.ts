@@ -14,8 +14,7 @@ export type ParsedTimestamp =
 
 export type ParsedTimeOfDay = { ok: true; minutes: number; seconds: number } | { ok: false; message: string };
 
-const iso =
-  /^(\d{4})-(\d{2})-(\d{2})(?:[T ](\d{1,2}):(\d{2})(?::(\d{2})(?:\.\d+)?)?)?\s*(Z|[+-]\d{2}(?::?\d{2})?)?$/i;
+const iso = /^(\d{4})-(\d{2})-(\d{2})(?:[T ](\d{1,2}):(\d{2})(?::(\d{2})(?:\.\d+)?)?)?\s*(Z|[+-]\d{2}(?::?\d{2})?)?$/i;
 const us = /^(\d{1,2})\/(\d{1,2})\/(\d{4})(?:\s+(\d{1,2}):(\d{2})(?::(\d{2}))?\s*([AP]\.?M\.?)?)?$/i;
 const serial = /^\d{1,7}(?:\.\d+)?$/;
 const clock = /^(\d{1,2}):(\d{2})(?::(\d{2}))?\s*([AP]\.?M\.?)?$/i;
@@ -38,7 +37,8 @@ function validDate(y: number, m: number, d: number): boolean {
 /** Hour 24:00 is accepted as the next day's midnight (interval-end labels use it). */
 function buildWall(y: number, mo: number, d: number, h: number, mi: number, s: number): WallTime | string {
   if (!validDate(y, mo, d)) return 'is not a calendar date';
-  if (h === 24 && mi === 0 && s === 0) return addWallMinutes({ year: y, month: mo, day: d, hour: 0, minute: 0, second: 0 }, 24 * 60);
+  if (h === 24 && mi === 0 && s === 0)
+    return addWallMinutes({ year: y, month: mo, day: d, hour: 0, minute: 0, second: 0 }, 24 * 60);
   if (h > 23 || mi > 59 || s > 59) return 'has an impossible time of day';
   return { year: y, month: mo, day: d, hour: h, minute: mi, second: s };
 }
@@ -90,13 +90,23 @@ function parsePlainIso(t: string): ParsedTimestamp | null {
   const sep = t.charCodeAt(10);
   if (sep !== 32 && sep !== 84 && sep !== 116) return null;
   if (n === 19 && t.charCodeAt(16) !== 58) return null;
-  const y0 = digitAt(t, 0), y1 = digitAt(t, 1), y2 = digitAt(t, 2), y3 = digitAt(t, 3);
-  const mo0 = digitAt(t, 5), mo1 = digitAt(t, 6), d0 = digitAt(t, 8), d1 = digitAt(t, 9);
-  const h0 = digitAt(t, 11), h1 = digitAt(t, 12), mi0 = digitAt(t, 14), mi1 = digitAt(t, 15);
+  const y0 = digitAt(t, 0),
+    y1 = digitAt(t, 1),
+    y2 = digitAt(t, 2),
+    y3 = digitAt(t, 3);
+  const mo0 = digitAt(t, 5),
+    mo1 = digitAt(t, 6),
+    d0 = digitAt(t, 8),
+    d1 = digitAt(t, 9);
+  const h0 = digitAt(t, 11),
+    h1 = digitAt(t, 12),
+    mi0 = digitAt(t, 14),
+    mi1 = digitAt(t, 15);
   if ((y0 | y1 | y2 | y3 | mo0 | mo1 | d0 | d1 | h0 | h1 | mi0 | mi1) < 0) return null;
   let second = 0;
   if (n === 19) {
-    const s0 = digitAt(t, 17), s1 = digitAt(t, 18);
+    const s0 = digitAt(t, 17),
+      s1 = digitAt(t, 18);
     if ((s0 | s1) < 0) return null;
     second = s0 * 10 + s1;
   }

@@ -15,7 +15,6 @@ export const UPLOAD_KINDS = ['interval-long', 'interval-wide', 'register', 'runt
  */
 export type UploadKind = (typeof UPLOAD_KINDS)[number];
 
-
 /** Interval lengths the product accepts; anything else inferred from samples is left for a person to choose. */
 export const INTERVAL_MINUTES = [5, 15, 30, 60, 1440] as const;
 

@@ -7,7 +7,8 @@ function slots(result: ReturnType<typeof layoutWideDay>): WideSlot[] {
   if (!result.ok) throw new Error(result.message);
   return result.slots;
 }
-const intervals = (s: WideSlot[]) => s.filter((x): x is Extract<WideSlot, { kind: 'interval' }> => x.kind === 'interval');
+const intervals = (s: WideSlot[]) =>
+  s.filter((x): x is Extract<WideSlot, { kind: 'interval' }> => x.kind === 'interval');
 
 describe('layoutWideDay', () => {
   it('an ordinary day: 24 hourly columns from local midnight', () => {
@@ -44,13 +45,22 @@ describe('layoutWideDay', () => {
   it('fall-back, 96 columns: the four quarter-hours of the repeated hour fold into one 120-minute interval', () => {
     const iv = intervals(slots(layoutWideDay(day(2026, 11, 1), 96, 'America/Denver')));
     expect(iv).toHaveLength(93);
-    expect(iv[4]).toEqual({ kind: 'interval', columns: [4, 5, 6, 7], startUtcMs: Date.UTC(2026, 10, 1, 7), minutes: 120 });
+    expect(iv[4]).toEqual({
+      kind: 'interval',
+      columns: [4, 5, 6, 7],
+      startUtcMs: Date.UTC(2026, 10, 1, 7),
+      minutes: 120,
+    });
     expect(iv.reduce((sum, x) => sum + x.minutes, 0)).toBe(25 * 60);
   });
 
   it('fall-back, 25 columns: elapsed hours, 01:00 twice', () => {
     const iv = intervals(slots(layoutWideDay(day(2026, 11, 1), 25, 'America/Los_Angeles')));
-    expect(iv.map((x) => iso(x.startUtcMs)).slice(1, 4)).toEqual(['2026-11-01T08:00', '2026-11-01T09:00', '2026-11-01T10:00']);
+    expect(iv.map((x) => iso(x.startUtcMs)).slice(1, 4)).toEqual([
+      '2026-11-01T08:00',
+      '2026-11-01T09:00',
+      '2026-11-01T10:00',
+    ]);
   });
 
   it('25 columns on an ordinary day do not fit', () => {

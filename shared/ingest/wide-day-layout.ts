@@ -43,7 +43,8 @@ function firstInstant(wall: WallTime, zone: string): number | null {
 /** Lays out `count` interval columns over the local date `date` (time fields ignored) in `zone`. */
 export function layoutWideDay(date: WallTime, count: number, zone: string): WideDayLayout {
   const step = stepFor(count);
-  if (step === undefined) return { ok: false, message: `${count} interval columns is not an hourly, half-hourly or 15-minute day` };
+  if (step === undefined)
+    return { ok: false, message: `${count} interval columns is not an hourly, half-hourly or 15-minute day` };
   const midnight: WallTime = { year: date.year, month: date.month, day: date.day, hour: 0, minute: 0, second: 0 };
   const dayHours = localDayHours(date.year, date.month, date.day, zone);
   const dayStart = firstInstant(midnight, zone);
@@ -82,14 +83,24 @@ export function layoutWideDay(date: WallTime, count: number, zone: string): Wide
     }
     if (fold) {
       // The folded run ends where this unambiguous clock time begins.
-      slots.push({ kind: 'interval', columns: fold.columns, startUtcMs: fold.startUtcMs, minutes: (r.utcMs - fold.startUtcMs) / 60_000 });
+      slots.push({
+        kind: 'interval',
+        columns: fold.columns,
+        startUtcMs: fold.startUtcMs,
+        minutes: (r.utcMs - fold.startUtcMs) / 60_000,
+      });
       fold = null;
     }
     slots.push({ kind: 'interval', columns: [k], startUtcMs: r.utcMs, minutes: step });
   }
   if (fold) {
     const end = firstInstant(addWallMinutes(midnight, 24 * 60), zone) ?? dayStart + dayHours * 3_600_000;
-    slots.push({ kind: 'interval', columns: fold.columns, startUtcMs: fold.startUtcMs, minutes: (end - fold.startUtcMs) / 60_000 });
+    slots.push({
+      kind: 'interval',
+      columns: fold.columns,
+      startUtcMs: fold.startUtcMs,
+      minutes: (end - fold.startUtcMs) / 60_000,
+    });
   }
   return { ok: true, slots, dayHours };
 }

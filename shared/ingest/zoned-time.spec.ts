@@ -1,7 +1,21 @@
 import { describe, expect, it } from 'vitest';
-import { addWallMinutes, localDayHours, resolveLocalTime, resolveWallMs, resolveWallMsAfresh, zoneOffsetMinutes } from './zoned-time';
+import {
+  addWallMinutes,
+  localDayHours,
+  resolveLocalTime,
+  resolveWallMs,
+  resolveWallMsAfresh,
+  zoneOffsetMinutes,
+} from './zoned-time';
 
-const at = (year: number, month: number, day: number, hour: number, minute = 0) => ({ year, month, day, hour, minute, second: 0 });
+const at = (year: number, month: number, day: number, hour: number, minute = 0) => ({
+  year,
+  month,
+  day,
+  hour,
+  minute,
+  second: 0,
+});
 const LA = 'America/Los_Angeles';
 const DEN = 'America/Denver';
 
@@ -43,7 +57,10 @@ describe('resolveLocalTime', () => {
   });
 
   it('a zone without DST never has gaps or folds', () => {
-    expect(resolveLocalTime(at(2026, 3, 8, 2, 30), 'America/Phoenix')).toEqual({ kind: 'unique', utcMs: Date.UTC(2026, 2, 8, 9, 30) });
+    expect(resolveLocalTime(at(2026, 3, 8, 2, 30), 'America/Phoenix')).toEqual({
+      kind: 'unique',
+      utcMs: Date.UTC(2026, 2, 8, 9, 30),
+    });
   });
 });
 
@@ -64,7 +81,17 @@ describe('addWallMinutes', () => {
 
 describe('remembered steady wall hours', () => {
   // Zones with 1 h and 30 min DST shifts, half-hour and 45-minute offsets, no DST, and a southern-hemisphere one.
-  const zones = [LA, DEN, 'America/Phoenix', 'Europe/London', 'Australia/Lord_Howe', 'Asia/Kolkata', 'Pacific/Chatham', 'America/Santiago', 'Asia/Tehran'];
+  const zones = [
+    LA,
+    DEN,
+    'America/Phoenix',
+    'Europe/London',
+    'Australia/Lord_Howe',
+    'Asia/Kolkata',
+    'Pacific/Chatham',
+    'America/Santiago',
+    'Asia/Tehran',
+  ];
   it.each(zones)('every quarter hour of 2025–2026 in %s resolves as when worked out afresh', (zone) => {
     for (let ms = Date.UTC(2025, 0, 1); ms < Date.UTC(2027, 0, 1); ms += 15 * 60_000) {
       const expected = resolveWallMsAfresh(ms, zone);

@@ -15,9 +15,7 @@ export interface WallTime {
 }
 
 export type LocalResolution =
-  | { kind: 'unique'; utcMs: number }
-  | { kind: 'ambiguous'; earlierUtcMs: number; laterUtcMs: number }
-  | { kind: 'gap' };
+  { kind: 'unique'; utcMs: number } | { kind: 'ambiguous'; earlierUtcMs: number; laterUtcMs: number } | { kind: 'gap' };
 
 const MINUTE = 60_000;
 const DAY = 86_400_000;
@@ -111,7 +109,14 @@ function intlOffsetMinutes(utcMs: number, zone: string): number {
   for (const part of formatterFor(zone).formatToParts(new Date(whole))) {
     if (part.type !== 'literal') parts[part.type] = Number(part.value);
   }
-  const local = Date.UTC(parts['year']!, parts['month']! - 1, parts['day']!, parts['hour']! % 24, parts['minute']!, parts['second']!);
+  const local = Date.UTC(
+    parts['year']!,
+    parts['month']! - 1,
+    parts['day']!,
+    parts['hour']! % 24,
+    parts['minute']!,
+    parts['second']!,
+  );
   return Math.round((local - whole) / MINUTE);
 }
 

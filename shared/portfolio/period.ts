@@ -51,8 +51,18 @@ export function resolvePeriod(kind: PortfolioPeriod, today: string, from?: strin
   if (kind === 'water-year') {
     const start = waterYearStart(anchor);
     const endYear = Number(start.slice(0, 4)) + 1;
-    return { kind, from: start, to: `${endYear}-09-30`, label: `Water year ${endYear} (Oct ${endYear - 1} – Sep ${endYear})` };
+    return {
+      kind,
+      from: start,
+      to: `${endYear}-09-30`,
+      label: `Water year ${endYear} (Oct ${endYear - 1} – Sep ${endYear})`,
+    };
   }
   const month = anchor.slice(0, 7);
-  return { kind, from: `${month}-01`, to: lastDayOfMonth(month), label: `${MONTH_NAMES[Number(month.slice(5)) - 1]} ${month.slice(0, 4)}` };
+  return {
+    kind,
+    from: `${month}-01`,
+    to: lastDayOfMonth(month),
+    label: `${MONTH_NAMES[Number(month.slice(5)) - 1]} ${month.slice(0, 4)}`,
+  };
 }

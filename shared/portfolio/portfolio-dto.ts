@@ -5,7 +5,14 @@ export const PORTFOLIO_PERIODS = ['month', 'water-year', 'custom'] as const;
 export type PortfolioPeriod = (typeof PORTFOLIO_PERIODS)[number];
 export const PORTFOLIO_CONDITIONS = ['over-budget', 'no-recent-data', 'open-alerts'] as const;
 export type PortfolioCondition = (typeof PORTFOLIO_CONDITIONS)[number];
-export const PORTFOLIO_SORTS = ['name', 'useGallons', 'budgetGallons', 'percentOfBudget', 'openAlerts', 'lastDataAt'] as const;
+export const PORTFOLIO_SORTS = [
+  'name',
+  'useGallons',
+  'budgetGallons',
+  'percentOfBudget',
+  'openAlerts',
+  'lastDataAt',
+] as const;
 export type PortfolioSort = (typeof PORTFOLIO_SORTS)[number];
 /** A site whose latest reading is older than this has "no recent data". */
 export const RECENT_DATA_DAYS = 3;
@@ -68,7 +75,13 @@ export interface SiteOverviewDto {
   site: { id: number; name: string; timeZone: string; organisationName: string };
   from: string;
   to: string;
-  figures: UseAgainstBudget & { overBudgetGallons: number; lastDataAt: string | null; openAlerts: number; daysWithData: number; days: number };
+  figures: UseAgainstBudget & {
+    overBudgetGallons: number;
+    lastDataAt: string | null;
+    openAlerts: number;
+    daysWithData: number;
+    days: number;
+  };
   days: OverviewDay[];
   uploads: { id: number; date: string; fileName: string; status: string; accepted: number }[];
   alerts: { id: number; date: string; title: string; status: string }[];

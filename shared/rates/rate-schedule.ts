@@ -41,11 +41,13 @@ function checkTierBounds(bounds: (number | null)[], label: string, problems: str
   bounds.forEach((bound, i) => {
     const isLast = i === bounds.length - 1;
     if (isLast && bound !== null) problems.push(`The last tier must be open-ended (no upper ${label})`);
-    if (!isLast && bound === null) problems.push(`Tier ${i + 1} needs an upper ${label}; only the last tier is open-ended`);
+    if (!isLast && bound === null)
+      problems.push(`Tier ${i + 1} needs an upper ${label}; only the last tier is open-ended`);
     if (bound !== null) {
       if (!(bound > 0)) problems.push(`Tier ${i + 1} upper ${label} must be greater than 0`);
       const previous = i > 0 ? bounds[i - 1] : null;
-      if (previous != null && bound <= previous) problems.push(`Tier ${i + 1} upper ${label} must be above tier ${i}'s`);
+      if (previous != null && bound <= previous)
+        problems.push(`Tier ${i + 1} upper ${label} must be above tier ${i}'s`);
     }
   });
 }
@@ -56,12 +58,21 @@ export function validateRateSchedule(schedule: RateSchedule): string[] {
   if (!BILLING_UNITS.includes(schedule.unit)) problems.push(`Unknown billing unit "${schedule.unit}"`);
   if (!(schedule.fixedChargePerPeriod >= 0)) problems.push('Fixed charge must be zero or more');
   const charge = schedule.volumeCharge;
-  const prices =
-    charge.kind === 'uniform' ? [charge.pricePerUnit] : charge.tiers.map((tier) => tier.pricePerUnit);
+  const prices = charge.kind === 'uniform' ? [charge.pricePerUnit] : charge.tiers.map((tier) => tier.pricePerUnit);
   prices.forEach((price, i) => {
     if (!(price >= 0) || !Number.isFinite(price)) problems.push(`Price ${i + 1} must be zero or more`);
   });
-  if (charge.kind === 'tiered') checkTierBounds(charge.tiers.map((t) => t.upToUnits), 'bound (units)', problems);
-  if (charge.kind === 'budget-based') checkTierBounds(charge.tiers.map((t) => t.upToPercentOfBudget), 'bound (% of budget)', problems);
+  if (charge.kind === 'tiered')
+    checkTierBounds(
+      charge.tiers.map((t) => t.upToUnits),
+      'bound (units)',
+      problems,
+    );
+  if (charge.kind === 'budget-based')
+    checkTierBounds(
+      charge.tiers.map((t) => t.upToPercentOfBudget),
+      'bound (% of budget)',
+      problems,
+    );
   return problems;
 }

@@ -6,16 +6,39 @@ import { costOfBudget, costOfGap, costOfVolume } from './water-cost';
 // Invented rates; every expected figure is a hand calculation in the comment beside it.
 const CCF = 172_800 / 231; // gallons per CCF
 
-const uniform: RateSchedule = { name: 'Uniform', unit: 'ccf', currency: 'USD', fixedChargePerPeriod: 20, volumeCharge: { kind: 'uniform', pricePerUnit: 4 } };
+const uniform: RateSchedule = {
+  name: 'Uniform',
+  unit: 'ccf',
+  currency: 'USD',
+  fixedChargePerPeriod: 20,
+  volumeCharge: { kind: 'uniform', pricePerUnit: 4 },
+};
 const tiered: RateSchedule = {
-  name: 'Tiered', unit: 'ccf', currency: 'USD', fixedChargePerPeriod: 15,
-  volumeCharge: { kind: 'tiered', tiers: [{ upToUnits: 10, pricePerUnit: 3 }, { upToUnits: 30, pricePerUnit: 5 }, { upToUnits: null, pricePerUnit: 8 }] },
+  name: 'Tiered',
+  unit: 'ccf',
+  currency: 'USD',
+  fixedChargePerPeriod: 15,
+  volumeCharge: {
+    kind: 'tiered',
+    tiers: [
+      { upToUnits: 10, pricePerUnit: 3 },
+      { upToUnits: 30, pricePerUnit: 5 },
+      { upToUnits: null, pricePerUnit: 8 },
+    ],
+  },
 };
 const budgetBased: RateSchedule = {
-  name: 'Budget-based', unit: 'kgal', currency: 'USD', fixedChargePerPeriod: 10,
+  name: 'Budget-based',
+  unit: 'kgal',
+  currency: 'USD',
+  fixedChargePerPeriod: 10,
   volumeCharge: {
     kind: 'budget-based',
-    tiers: [{ upToPercentOfBudget: 100, pricePerUnit: 2 }, { upToPercentOfBudget: 150, pricePerUnit: 6 }, { upToPercentOfBudget: null, pricePerUnit: 12 }],
+    tiers: [
+      { upToPercentOfBudget: 100, pricePerUnit: 2 },
+      { upToPercentOfBudget: 150, pricePerUnit: 6 },
+      { upToPercentOfBudget: null, pricePerUnit: 12 },
+    ],
   },
 };
 
@@ -67,7 +90,13 @@ describe('rate schedule validation', () => {
   it('requires ascending bounds and an open-ended last tier', () => {
     const bad: RateSchedule = {
       ...tiered,
-      volumeCharge: { kind: 'tiered', tiers: [{ upToUnits: 30, pricePerUnit: 3 }, { upToUnits: 10, pricePerUnit: 5 }] },
+      volumeCharge: {
+        kind: 'tiered',
+        tiers: [
+          { upToUnits: 30, pricePerUnit: 3 },
+          { upToUnits: 10, pricePerUnit: 5 },
+        ],
+      },
     };
     expect(validateRateSchedule(bad)).toEqual([
       'The last tier must be open-ended (no upper bound (units))',
@@ -77,9 +106,12 @@ describe('rate schedule validation', () => {
   });
 
   it('rejects negative prices and fixed charges', () => {
-    expect(validateRateSchedule({ ...uniform, fixedChargePerPeriod: -1, volumeCharge: { kind: 'uniform', pricePerUnit: -2 } })).toEqual([
-      'Fixed charge must be zero or more',
-      'Price 1 must be zero or more',
-    ]);
+    expect(
+      validateRateSchedule({
+        ...uniform,
+        fixedChargePerPeriod: -1,
+        volumeCharge: { kind: 'uniform', pricePerUnit: -2 },
+      }),
+    ).toEqual(['Fixed charge must be zero or more', 'Price 1 must be zero or more']);
   });
 });

@@ -35,7 +35,8 @@ function fillTiers(units: number, tiers: { upTo: number | null; price: number; l
   for (const tier of tiers) {
     const upper = tier.upTo ?? Number.POSITIVE_INFINITY;
     const inTier = Math.max(0, Math.min(units, upper) - lower);
-    if (inTier > 0) lines.push({ label: tier.label, units: inTier, pricePerUnit: tier.price, amount: inTier * tier.price });
+    if (inTier > 0)
+      lines.push({ label: tier.label, units: inTier, pricePerUnit: tier.price, amount: inTier * tier.price });
     lower = upper;
     if (units <= upper) break;
   }
@@ -54,14 +55,20 @@ export function costOfVolume(schedule: RateSchedule, volumeGal: number, budgetGa
   let lines: CostLine[];
   switch (charge.kind) {
     case 'uniform':
-      lines = units > 0 ? [{ label: 'Uniform rate', units, pricePerUnit: charge.pricePerUnit, amount: units * charge.pricePerUnit }] : [];
+      lines =
+        units > 0
+          ? [{ label: 'Uniform rate', units, pricePerUnit: charge.pricePerUnit, amount: units * charge.pricePerUnit }]
+          : [];
       break;
     case 'tiered':
-      lines = fillTiers(units, charge.tiers.map((t, i) => ({ upTo: t.upToUnits, price: t.pricePerUnit, label: `Tier ${i + 1}` })));
+      lines = fillTiers(
+        units,
+        charge.tiers.map((t, i) => ({ upTo: t.upToUnits, price: t.pricePerUnit, label: `Tier ${i + 1}` })),
+      );
       break;
     case 'budget-based': {
       if (budgetGal === undefined || !(budgetGal >= 0)) {
-        throw new RangeError('A budget-based rate needs the period\'s water budget (zero or more gallons)');
+        throw new RangeError("A budget-based rate needs the period's water budget (zero or more gallons)");
       }
       const budgetUnits = fromGallons(budgetGal, schedule.unit);
       lines = fillTiers(
@@ -69,7 +76,10 @@ export function costOfVolume(schedule: RateSchedule, volumeGal: number, budgetGa
         charge.tiers.map((t, i) => ({
           upTo: t.upToPercentOfBudget === null ? null : (budgetUnits * t.upToPercentOfBudget) / 100,
           price: t.pricePerUnit,
-          label: t.upToPercentOfBudget === null ? `Tier ${i + 1} (above budget tiers)` : `Tier ${i + 1} (to ${t.upToPercentOfBudget} % of budget)`,
+          label:
+            t.upToPercentOfBudget === null
+              ? `Tier ${i + 1} (above budget tiers)`
+              : `Tier ${i + 1} (to ${t.upToPercentOfBudget} % of budget)`,
         })),
       );
       break;

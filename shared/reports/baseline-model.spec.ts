@@ -14,7 +14,10 @@ function year(use: (i: number) => number): MeteredPeriod[] {
 
 describe('baseline model', () => {
   it('when use = 2,000 + 400·ETo − 120·rain exactly, then the ETo + rain model recovers it with CV(RMSE) ≈ 0', () => {
-    const model = fitBaselineModel(year((i) => 2000 + 400 * ETO[i]! - 120 * RAIN[i]!), 'eto-rain');
+    const model = fitBaselineModel(
+      year((i) => 2000 + 400 * ETO[i]! - 120 * RAIN[i]!),
+      'eto-rain',
+    );
     expect(model.coefficients.map((c) => c.term)).toEqual(['base use', 'ETo', 'rain']);
     expect(model.coefficients[0]!.value).toBeCloseTo(2000, 6);
     expect(model.coefficients[1]!.value).toBeCloseTo(400, 8);
@@ -26,7 +29,10 @@ describe('baseline model', () => {
   });
 
   it('when use is noisy, then the coefficients stay near the truth and the fitted values leave NMBE ≈ 0', () => {
-    const model = fitBaselineModel(year((i) => 2000 + 400 * ETO[i]! - 120 * RAIN[i]! + NOISE[i]!), 'eto-rain');
+    const model = fitBaselineModel(
+      year((i) => 2000 + 400 * ETO[i]! - 120 * RAIN[i]! + NOISE[i]!),
+      'eto-rain',
+    );
     expect(Math.abs(model.coefficients[1]!.value - 400)).toBeLessThan(3 * model.coefficients[1]!.standardError);
     expect(model.statistics.cvRmsePercent).toBeGreaterThan(0.5);
     // OLS with an intercept makes the residuals sum to zero, whatever the data.
@@ -36,14 +42,20 @@ describe('baseline model', () => {
   });
 
   it('when the per-day model sees use = 60 gal/day + 400·ETo exactly, then it recovers the per-day base use', () => {
-    const model = fitBaselineModel(year((i) => 60 * DAYS[i]! + 400 * ETO[i]!), 'eto-per-day');
+    const model = fitBaselineModel(
+      year((i) => 60 * DAYS[i]! + 400 * ETO[i]!),
+      'eto-per-day',
+    );
     expect(model.coefficients[0]).toMatchObject({ term: 'base use', unit: 'gal/day' });
     expect(model.coefficients[0]!.value).toBeCloseTo(60, 8);
     expect(model.coefficients[1]!.value).toBeCloseTo(400, 8);
   });
 
   it('when the per-day model is fitted to noisy totals, then weighting by days keeps the totals unbiased (NMBE ≈ 0)', () => {
-    const model = fitBaselineModel(year((i) => 60 * DAYS[i]! + 400 * ETO[i]! - 100 * RAIN[i]! + NOISE[i]!), 'eto-rain-per-day');
+    const model = fitBaselineModel(
+      year((i) => 60 * DAYS[i]! + 400 * ETO[i]! - 100 * RAIN[i]! + NOISE[i]!),
+      'eto-rain-per-day',
+    );
     expect(Math.abs(model.statistics.nmbePercent)).toBeLessThan(1e-9);
     expect(model.statistics.cvRmsePercent).toBeGreaterThan(0.5);
   });

@@ -27,7 +27,12 @@ export interface MeteredPeriod extends WeatherPeriod {
  */
 export type BaselineModelForm = 'eto' | 'eto-rain' | 'eto-per-day' | 'eto-rain-per-day';
 
-export const BASELINE_MODEL_FORMS: readonly BaselineModelForm[] = ['eto', 'eto-rain', 'eto-per-day', 'eto-rain-per-day'];
+export const BASELINE_MODEL_FORMS: readonly BaselineModelForm[] = [
+  'eto',
+  'eto-rain',
+  'eto-per-day',
+  'eto-rain-per-day',
+];
 
 export interface BaselineCoefficient {
   term: 'base use' | 'ETo' | 'rain';
@@ -71,7 +76,8 @@ export function periodScale(form: BaselineModelForm, period: WeatherPeriod): num
 
 export function checkWeatherPeriod(period: WeatherPeriod): void {
   if (!(period.days > 0)) throw new RangeError(`Period "${period.label}": days must be positive`);
-  if (!(period.etoMm >= 0) || !(period.rainMm >= 0)) throw new RangeError(`Period "${period.label}": ETo and rain must be zero or more`);
+  if (!(period.etoMm >= 0) || !(period.rainMm >= 0))
+    throw new RangeError(`Period "${period.label}": ETo and rain must be zero or more`);
 }
 
 export function fitBaselineModel(baseline: readonly MeteredPeriod[], form: BaselineModelForm): BaselineModel {
@@ -98,14 +104,21 @@ export function fitBaselineModel(baseline: readonly MeteredPeriod[], form: Basel
   const { coefficients, standardErrors } = solution;
   const rows = baseline.map((period, i) => {
     const fittedGal = scales[i]! * design[i]!.reduce((sum, x, j) => sum + x * coefficients[j]!, 0);
-    return { label: period.label, days: period.days, actualGal: period.useGal, fittedGal, residualGal: period.useGal - fittedGal };
+    return {
+      label: period.label,
+      days: period.days,
+      actualGal: period.useGal,
+      fittedGal,
+      residualGal: period.useGal - fittedGal,
+    };
   });
   const baseUnit = isPerDay(form) ? 'gal/day' : 'gal/period';
   const terms: BaselineCoefficient[] = [
     { term: 'base use', value: coefficients[0]!, standardError: standardErrors[0]!, unit: baseUnit },
     { term: 'ETo', value: coefficients[1]!, standardError: standardErrors[1]!, unit: 'gal/mm' },
   ];
-  if (usesRain(form)) terms.push({ term: 'rain', value: coefficients[2]!, standardError: standardErrors[2]!, unit: 'gal/mm' });
+  if (usesRain(form))
+    terms.push({ term: 'rain', value: coefficients[2]!, standardError: standardErrors[2]!, unit: 'gal/mm' });
   const etoPerDay = baseline.map((period) => period.etoMm / period.days);
   return {
     form,

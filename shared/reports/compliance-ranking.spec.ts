@@ -23,7 +23,18 @@ describe('compliance ranking', () => {
   it('when the input order changes, then the ranking does not', () => {
     const expected = rankByPercentOfBudget(sites).map((s) => s.siteId);
     expect(rankByPercentOfBudget([...sites].reverse()).map((s) => s.siteId)).toEqual(expected);
-    expect(rankByPercentOfBudget([sites[5]!, sites[0]!, sites[7]!, sites[3]!, sites[1]!, sites[6]!, sites[2]!, sites[4]!]).map((s) => s.siteId)).toEqual(expected);
+    expect(
+      rankByPercentOfBudget([
+        sites[5]!,
+        sites[0]!,
+        sites[7]!,
+        sites[3]!,
+        sites[1]!,
+        sites[6]!,
+        sites[2]!,
+        sites[4]!,
+      ]).map((s) => s.siteId),
+    ).toEqual(expected);
   });
 
   it('when given extra fields, then they are kept and the input is not reordered', () => {
@@ -34,6 +45,8 @@ describe('compliance ranking', () => {
   });
 
   it('when a percent is NaN, then it refuses rather than sorting unpredictably', () => {
-    expect(() => rankByPercentOfBudget([{ siteId: 1, siteName: 'X', percentOfBudget: Number.NaN }])).toThrow(RangeError);
+    expect(() => rankByPercentOfBudget([{ siteId: 1, siteName: 'X', percentOfBudget: Number.NaN }])).toThrow(
+      RangeError,
+    );
   });
 });

@@ -20,7 +20,8 @@ const compareText = (a: string, b: string): number => (a < b ? -1 : a > b ? 1 : 
  */
 export function rankByPercentOfBudget<T extends RankableSite>(sites: readonly T[]): RankedSite<T>[] {
   for (const site of sites) {
-    if (site.percentOfBudget !== null && !Number.isFinite(site.percentOfBudget)) throw new RangeError(`Site ${site.siteId}: percent of budget must be a finite number or null`);
+    if (site.percentOfBudget !== null && !Number.isFinite(site.percentOfBudget))
+      throw new RangeError(`Site ${site.siteId}: percent of budget must be a finite number or null`);
   }
   const sorted = [...sites].sort((a, b) => {
     if (a.percentOfBudget === null || b.percentOfBudget === null) {
@@ -28,7 +29,11 @@ export function rankByPercentOfBudget<T extends RankableSite>(sites: readonly T[
     } else if (a.percentOfBudget !== b.percentOfBudget) {
       return b.percentOfBudget - a.percentOfBudget;
     }
-    return compareText(a.siteName.toLowerCase(), b.siteName.toLowerCase()) || compareText(a.siteName, b.siteName) || a.siteId - b.siteId;
+    return (
+      compareText(a.siteName.toLowerCase(), b.siteName.toLowerCase()) ||
+      compareText(a.siteName, b.siteName) ||
+      a.siteId - b.siteId
+    );
   });
   return sorted.map((site, index) => ({ ...site, rank: index + 1 }));
 }

@@ -31,7 +31,11 @@ describe('data completeness', () => {
   });
 
   it('when 3 distinct days of a 10-day range have data (one repeated, one outside), then 0.3', () => {
-    const result = dailyCompleteness(['2025-06-01', '2025-06-01', '2025-06-05', '2025-06-10', '2025-06-11'], '2025-06-01', '2025-06-10');
+    const result = dailyCompleteness(
+      ['2025-06-01', '2025-06-01', '2025-06-05', '2025-06-10', '2025-06-11'],
+      '2025-06-01',
+      '2025-06-10',
+    );
     expect(result).toEqual({ expectedDays: 10, presentDays: 3, share: 0.3 });
   });
 

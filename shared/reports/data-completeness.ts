@@ -7,8 +7,10 @@ const MS_PER_DAY = 86_400_000;
 
 /** present / expected as a share from 0 to 1; extra readings (duplicates, out-of-range) never push it past 1. */
 export function completenessShare(present: number, expected: number): number {
-  if (!Number.isInteger(present) || present < 0) throw new RangeError(`Present count must be a whole number, 0 or more (got ${present})`);
-  if (!Number.isInteger(expected) || expected < 0) throw new RangeError(`Expected count must be a whole number, 0 or more (got ${expected})`);
+  if (!Number.isInteger(present) || present < 0)
+    throw new RangeError(`Present count must be a whole number, 0 or more (got ${present})`);
+  if (!Number.isInteger(expected) || expected < 0)
+    throw new RangeError(`Expected count must be a whole number, 0 or more (got ${expected})`);
   if (expected === 0) return 1;
   return Math.min(present, expected) / expected;
 }
@@ -17,7 +19,8 @@ function parseIsoDate(date: string): number {
   const match = /^(\d{4})-(\d{2})-(\d{2})$/.exec(date);
   const ms = match ? Date.UTC(Number(match[1]), Number(match[2]) - 1, Number(match[3])) : Number.NaN;
   // Date.UTC rolls 2025-02-30 over to March; reject it instead.
-  if (!match || new Date(ms).toISOString().slice(0, 10) !== date) throw new RangeError(`Not a calendar date (YYYY-MM-DD): "${date}"`);
+  if (!match || new Date(ms).toISOString().slice(0, 10) !== date)
+    throw new RangeError(`Not a calendar date (YYYY-MM-DD): "${date}"`);
   return ms;
 }
 
@@ -29,7 +32,11 @@ export function daysInRange(from: string, to: string): number {
 }
 
 /** Share of days in [from, to] with at least one reading; `datesWithData` may repeat and may stray outside. */
-export function dailyCompleteness(datesWithData: Iterable<string>, from: string, to: string): { expectedDays: number; presentDays: number; share: number } {
+export function dailyCompleteness(
+  datesWithData: Iterable<string>,
+  from: string,
+  to: string,
+): { expectedDays: number; presentDays: number; share: number } {
   const start = parseIsoDate(from);
   const end = parseIsoDate(to);
   const expectedDays = daysInRange(from, to);

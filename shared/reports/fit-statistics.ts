@@ -21,7 +21,11 @@ export interface FitStatistics {
   nmbePercent: number;
 }
 
-export function fitStatistics(actual: readonly number[], fitted: readonly number[], parameterCount: number): FitStatistics {
+export function fitStatistics(
+  actual: readonly number[],
+  fitted: readonly number[],
+  parameterCount: number,
+): FitStatistics {
   const n = actual.length;
   const p = parameterCount;
   if (fitted.length !== n) throw new RangeError('Actual and fitted values must have the same length');

@@ -31,13 +31,20 @@ const COLLINEAR_TOLERANCE = 1e-9;
  * Minimises Σ wᵢ (yᵢ − xᵢβ)². `design` holds one row per observation (include a column of ones for an intercept).
  * Weights default to 1 (ordinary least squares).
  */
-export function solveLeastSquares(design: readonly (readonly number[])[], y: readonly number[], weights?: readonly number[]): LeastSquaresFit {
+export function solveLeastSquares(
+  design: readonly (readonly number[])[],
+  y: readonly number[],
+  weights?: readonly number[],
+): LeastSquaresFit {
   const n = design.length;
   const p = design[0]?.length ?? 0;
   if (p === 0) throw new RangeError('The design matrix has no columns');
-  if (y.length !== n || (weights && weights.length !== n)) throw new RangeError('Design rows, observations and weights must have the same length');
-  if (n <= p) throw new RangeError(`Need more observations (${n}) than parameters (${p}) to estimate a residual variance`);
-  for (const row of design) if (row.length !== p) throw new RangeError('Every design row must have the same number of columns');
+  if (y.length !== n || (weights && weights.length !== n))
+    throw new RangeError('Design rows, observations and weights must have the same length');
+  if (n <= p)
+    throw new RangeError(`Need more observations (${n}) than parameters (${p}) to estimate a residual variance`);
+  for (const row of design)
+    if (row.length !== p) throw new RangeError('Every design row must have the same number of columns');
   const all = [...y, ...design.flat(), ...(weights ?? [])];
   if (!all.every(Number.isFinite)) throw new RangeError('Design, observations and weights must be finite numbers');
   if (weights && !weights.every((w) => w > 0)) throw new RangeError('Weights must be positive');
@@ -110,8 +117,15 @@ function householderInPlace(a: number[][], b: number[]): number[] {
       s = -s / a[k]![k]!;
       for (let i = k; i < n; i++) set(i, get(i) + s * a[i]![k]!);
     };
-    for (let j = k + 1; j < p; j++) reflect((i) => a[i]![j]!, (i, v) => (a[i]![j] = v));
-    reflect((i) => b[i]!, (i, v) => (b[i] = v));
+    for (let j = k + 1; j < p; j++)
+      reflect(
+        (i) => a[i]![j]!,
+        (i, v) => (a[i]![j] = v),
+      );
+    reflect(
+      (i) => b[i]!,
+      (i, v) => (b[i] = v),
+    );
     rDiagonal[k] = -norm;
   }
   return rDiagonal;

@@ -12,19 +12,37 @@ const NOISE = [900, -1200, 400, -300, 1500, -800, -600, 1100, -700, 200, -900, 4
 const truth = (i: number): number => 2000 + 400 * ETO[i]! - 120 * RAIN[i]!;
 
 function months(use: (i: number) => number, etoShift = 0): MeteredPeriod[] {
-  return DAYS.map((days, i) => ({ label: `M${i + 1}`, days, etoMm: ETO[i]! + etoShift, rainMm: RAIN[i]!, useGal: use(i) }));
+  return DAYS.map((days, i) => ({
+    label: `M${i + 1}`,
+    days,
+    etoMm: ETO[i]! + etoShift,
+    rainMm: RAIN[i]!,
+    useGal: use(i),
+  }));
 }
 
 const CCF_GAL = 172_800 / 231;
-const uniform: RateSchedule = { name: 'Invented uniform', unit: 'ccf', currency: 'USD', fixedChargePerPeriod: 25, volumeCharge: { kind: 'uniform', pricePerUnit: 5 } };
+const uniform: RateSchedule = {
+  name: 'Invented uniform',
+  unit: 'ccf',
+  currency: 'USD',
+  fixedChargePerPeriod: 25,
+  volumeCharge: { kind: 'uniform', pricePerUnit: 5 },
+};
 
 describe('weather-normalised savings', () => {
-  const model = fitBaselineModel(months((i) => truth(i) + NOISE[i]!), 'eto-rain');
+  const model = fitBaselineModel(
+    months((i) => truth(i) + NOISE[i]!),
+    'eto-rain',
+  );
 
   it('when the site uses 70 % of what the baseline predicts in a hotter year, then savings are 30 % of the prediction', () => {
     // A hotter reporting year (+5 mm ETo each month): comparing raw use would understate the savings.
     const hotter = months(() => 0, 5);
-    const predicted = hotter.map((p) => model.coefficients[0]!.value + model.coefficients[1]!.value * p.etoMm + model.coefficients[2]!.value * p.rainMm);
+    const predicted = hotter.map(
+      (p) =>
+        model.coefficients[0]!.value + model.coefficients[1]!.value * p.etoMm + model.coefficients[2]!.value * p.rainMm,
+    );
     const reporting = hotter.map((p, i) => ({ ...p, useGal: 0.7 * predicted[i]! }));
     const savings = calculateSavings(model, reporting);
     expect(savings.savedPercent).toBeCloseTo(30, 10);
@@ -44,7 +62,10 @@ describe('weather-normalised savings', () => {
   });
 
   it('when no price is given, then money is null rather than zero', () => {
-    const savings = calculateSavings(model, months((i) => truth(i)));
+    const savings = calculateSavings(
+      model,
+      months((i) => truth(i)),
+    );
     expect(savings.savedMoney).toBeNull();
     expect(savings.periods[0]!.savedMoney).toBeNull();
   });
@@ -65,7 +86,10 @@ describe('weather-normalised savings', () => {
     expect(at68.uncertainty.confidence).toBe(0.68);
     expect(at68.uncertainty.degreesOfFreedom).toBe(9);
     expect(at90.uncertainty.standardErrorGal).toBeCloseTo(at68.uncertainty.standardErrorGal, 9);
-    expect(at90.uncertainty.plusMinusGal / at68.uncertainty.plusMinusGal).toBeCloseTo(at90.uncertainty.t / at68.uncertainty.t, 12);
+    expect(at90.uncertainty.plusMinusGal / at68.uncertainty.plusMinusGal).toBeCloseTo(
+      at90.uncertainty.t / at68.uncertainty.t,
+      12,
+    );
     expect(at68.uncertainty.fractional).toBeCloseTo(at68.uncertainty.plusMinusGal / at68.savedGal, 12);
   });
 });
@@ -92,7 +116,8 @@ describe('savings uncertainty', () => {
     const shift = 8; // the reporting year is a little hotter
     // Base use per day for the per-day forms, per period otherwise, so each form is fitted to its own truth.
     const base = (i: number): number => (form.endsWith('-per-day') ? 65 * DAYS[i]! : 2000);
-    const expected = (i: number, etoShift: number): number => base(i) + 400 * (ETO[i]! + etoShift) - (form.includes('rain') ? 120 * RAIN[i]! : 0);
+    const expected = (i: number, etoShift: number): number =>
+      base(i) + 400 * (ETO[i]! + etoShift) - (form.includes('rain') ? 120 * RAIN[i]! : 0);
     let covered = 0;
     const worlds = 2000;
     for (let w = 0; w < worlds; w++) {

@@ -75,13 +75,19 @@ export function calculateSavings(
   });
   const negative = periods.filter((p) => p.predictedGal < 0).map((p) => p.label);
   if (negative.length > 0) {
-    warnings.push(`The baseline model predicts negative use for ${negative.join(', ')}; its weather lies outside what the baseline saw.`);
+    warnings.push(
+      `The baseline model predicts negative use for ${negative.join(', ')}; its weather lies outside what the baseline saw.`,
+    );
   }
   const [low, high] = model.etoPerDayRange;
   // 5 % slack so a reporting month just past the baseline's extremes is not flagged.
-  const outside = reporting.filter((p) => p.etoMm / p.days < low * 0.95 || p.etoMm / p.days > high * 1.05).map((p) => p.label);
+  const outside = reporting
+    .filter((p) => p.etoMm / p.days < low * 0.95 || p.etoMm / p.days > high * 1.05)
+    .map((p) => p.label);
   if (outside.length > 0) {
-    warnings.push(`ETo in ${outside.join(', ')} is outside the baseline's range, so those predictions are extrapolations.`);
+    warnings.push(
+      `ETo in ${outside.join(', ')} is outside the baseline's range, so those predictions are extrapolations.`,
+    );
   }
 
   const predictedGal = prediction.totalGal;

@@ -4,7 +4,13 @@ import type { FitStatistics } from './fit-statistics';
 import type { SavingsPeriod, SavingsUncertainty } from './savings-calculation';
 import type { GuidelineCheck } from './savings-verdict';
 
-export const SAVINGS_CHANGE_KINDS = ['spray-to-drip', 'pressure-regulation', 'controller-replacement', 'replanting', 'other'] as const;
+export const SAVINGS_CHANGE_KINDS = [
+  'spray-to-drip',
+  'pressure-regulation',
+  'controller-replacement',
+  'replanting',
+  'other',
+] as const;
 export type SavingsChangeKind = (typeof SAVINGS_CHANGE_KINDS)[number];
 
 export const SAVINGS_CHANGE_LABELS: Record<SavingsChangeKind, string> = {
@@ -54,7 +60,13 @@ export interface SavingsReportDto {
   station: { id: number; name: string };
   baselineMonths: (SavingsMonthDto & { fittedGal: number | null })[];
   reportingMonths: SavingsMonthDto[];
-  model: { form: BaselineModelForm; equation: string; coefficients: BaselineCoefficient[]; statistics: FitStatistics; baselineDays: number };
+  model: {
+    form: BaselineModelForm;
+    equation: string;
+    coefficients: BaselineCoefficient[];
+    statistics: FitStatistics;
+    baselineDays: number;
+  };
   savings: {
     periods: SavingsPeriod[];
     predictedGal: number;
@@ -65,7 +77,14 @@ export interface SavingsReportDto {
     currency: string | null;
     uncertainty: SavingsUncertainty;
   };
-  verdict: { canClaimSavings: boolean; baselineModelAcceptable: boolean; route: 'prescriptive' | 'uncertainty' | null; checks: GuidelineCheck[]; reasons: string[]; summary: string };
+  verdict: {
+    canClaimSavings: boolean;
+    baselineModelAcceptable: boolean;
+    route: 'prescriptive' | 'uncertainty' | null;
+    checks: GuidelineCheck[];
+    reasons: string[];
+    summary: string;
+  };
   warnings: string[];
   /** The method in plain words, as printed on the PDF. */
   method: string[];

@@ -11,10 +11,20 @@ const NOISE = [900, -1200, 400, -300, 1500, -800, -600, 1100, -700, 200, -900, 4
 const truth = (i: number): number => 2000 + 400 * ETO[i]! - 120 * RAIN[i]!;
 
 function months(use: (i: number) => number, count = 12): MeteredPeriod[] {
-  return DAYS.slice(0, count).map((days, i) => ({ label: `M${i + 1}`, days, etoMm: ETO[i]!, rainMm: RAIN[i]!, useGal: use(i) }));
+  return DAYS.slice(0, count).map((days, i) => ({
+    label: `M${i + 1}`,
+    days,
+    etoMm: ETO[i]!,
+    rainMm: RAIN[i]!,
+    useGal: use(i),
+  }));
 }
 
-const fit = (noiseScale: number, count = 12): BaselineModel => fitBaselineModel(months((i) => truth(i) + noiseScale * NOISE[i]!, count), 'eto-rain');
+const fit = (noiseScale: number, count = 12): BaselineModel =>
+  fitBaselineModel(
+    months((i) => truth(i) + noiseScale * NOISE[i]!, count),
+    'eto-rain',
+  );
 const reportingAt = (share: number): MeteredPeriod[] => months((i) => share * truth(i));
 
 describe('Guideline 14 verdict', () => {
@@ -36,7 +46,9 @@ describe('Guideline 14 verdict', () => {
     expect(verdict.canClaimSavings).toBe(false);
     expect(verdict.baselineModelAcceptable).toBe(false);
     expect(verdict.checks.find((c) => c.id === 'cv-rmse')!.passed).toBe(false);
-    expect(verdict.summary).toMatch(/^The baseline model is not good enough to claim savings because its CV\(RMSE\) is \d+\.\d %, above the 25 % Guideline 14 allows with 12 to 60 months/);
+    expect(verdict.summary).toMatch(
+      /^The baseline model is not good enough to claim savings because its CV\(RMSE\) is \d+\.\d %, above the 25 % Guideline 14 allows with 12 to 60 months/,
+    );
     expect(verdict.reasons.join(' ')).toMatch(/uncertain by ±\d+ % of their size at 68 % confidence/);
   });
 
@@ -46,7 +58,9 @@ describe('Guideline 14 verdict', () => {
     expect(verdict.baselineModelAcceptable).toBe(false);
     expect(verdict.route).toBe('uncertainty');
     expect(verdict.canClaimSavings).toBe(true);
-    expect(verdict.summary).toMatch(/uncertainty route.*although the baseline's CV\(RMSE\) of \d+\.\d % is above the 25 %/);
+    expect(verdict.summary).toMatch(
+      /uncertainty route.*although the baseline's CV\(RMSE\) of \d+\.\d % is above the 25 %/,
+    );
   });
 
   it('when savings were computed at 90 % confidence, then the uncertainty check is still judged at 68 %', () => {
@@ -78,7 +92,9 @@ describe('Guideline 14 verdict', () => {
     const verdict = judgeSavings(model, calculateSavings(model, reportingAt(0.99)));
     expect(verdict.baselineModelAcceptable).toBe(true);
     expect(verdict.canClaimSavings).toBe(false);
-    expect(verdict.summary).toMatch(/^The baseline model meets Guideline 14, but the savings cannot be claimed because the savings \(1\.0 %\) are not above 10 %.*uncertain by ±\d+ %/);
+    expect(verdict.summary).toMatch(
+      /^The baseline model meets Guideline 14, but the savings cannot be claimed because the savings \(1\.0 %\) are not above 10 %.*uncertain by ±\d+ %/,
+    );
   });
 
   it('when use went up, then there are no savings to claim', () => {
@@ -92,11 +108,16 @@ describe('Guideline 14 verdict', () => {
     const model = fit(1, 8);
     const verdict = judgeSavings(model, calculateSavings(model, reportingAt(0.7).slice(0, 8)));
     expect(verdict.warnings.join(' ')).toMatch(/baseline covers 243 days .*about 12 months/);
-    expect(judgeSavings(fit(1), calculateSavings(fit(1), reportingAt(0.7))).warnings.join(' ')).not.toMatch(/baseline covers/);
+    expect(judgeSavings(fit(1), calculateSavings(fit(1), reportingAt(0.7))).warnings.join(' ')).not.toMatch(
+      /baseline covers/,
+    );
   });
 
   it('when residuals trend month to month, then it warns the uncertainty is understated', () => {
-    const drifting = fitBaselineModel(months((i) => truth(i) + 300 * (i < 6 ? i : 11 - i)), 'eto');
+    const drifting = fitBaselineModel(
+      months((i) => truth(i) + 300 * (i < 6 ? i : 11 - i)),
+      'eto',
+    );
     expect(drifting.residualLagOneAutocorrelation!).toBeGreaterThan(0.5); // guard on the invented drift
     const verdict = judgeSavings(drifting, calculateSavings(drifting, reportingAt(0.7)));
     expect(verdict.warnings.join(' ')).toMatch(/residuals are correlated/);

@@ -3,11 +3,13 @@ import { regularisedIncompleteBeta, studentTCdf, studentTQuantile, twoSidedT } f
 
 describe("Student's t", () => {
   it('when ν = 1 (Cauchy), then the CDF is ½ + atan(t)/π', () => {
-    for (const t of [-30, -2, -0.3, 0, 0.7, 1, 5, 100]) expect(studentTCdf(t, 1)).toBeCloseTo(0.5 + Math.atan(t) / Math.PI, 13);
+    for (const t of [-30, -2, -0.3, 0, 0.7, 1, 5, 100])
+      expect(studentTCdf(t, 1)).toBeCloseTo(0.5 + Math.atan(t) / Math.PI, 13);
   });
 
   it('when ν = 2, then the CDF is ½ + t/(2√(2 + t²)) and the quantile its inverse', () => {
-    for (const t of [-4, -1, 0.5, 3, 12]) expect(studentTCdf(t, 2)).toBeCloseTo(0.5 + t / (2 * Math.sqrt(2 + t * t)), 13);
+    for (const t of [-4, -1, 0.5, 3, 12])
+      expect(studentTCdf(t, 2)).toBeCloseTo(0.5 + t / (2 * Math.sqrt(2 + t * t)), 13);
     // Inverting by hand: t = (2p − 1)·√(2/(1 − (2p − 1)²)); p = 0.9 → 0.8·√(2/0.36).
     expect(studentTQuantile(0.9, 2)).toBeCloseTo(0.8 * Math.sqrt(2 / 0.36), 10);
   });

@@ -57,12 +57,15 @@ export function regularisedIncompleteBeta(x: number, a: number, b: number): numb
   if (x >= 1) return 1;
   const front = Math.exp(logGamma(a + b) - logGamma(a) - logGamma(b) + a * Math.log(x) + b * Math.log(1 - x));
   // The fraction converges fast only on this side; use the symmetry I_x(a,b) = 1 − I_{1−x}(b,a) on the other.
-  return x < (a + 1) / (a + b + 2) ? (front * betaContinuedFraction(x, a, b)) / a : 1 - (front * betaContinuedFraction(1 - x, b, a)) / b;
+  return x < (a + 1) / (a + b + 2)
+    ? (front * betaContinuedFraction(x, a, b)) / a
+    : 1 - (front * betaContinuedFraction(1 - x, b, a)) / b;
 }
 
 export function studentTCdf(t: number, degreesOfFreedom: number): number {
   if (!(degreesOfFreedom > 0)) throw new RangeError('Degrees of freedom must be positive');
-  const tail = 0.5 * regularisedIncompleteBeta(degreesOfFreedom / (degreesOfFreedom + t * t), degreesOfFreedom / 2, 0.5);
+  const tail =
+    0.5 * regularisedIncompleteBeta(degreesOfFreedom / (degreesOfFreedom + t * t), degreesOfFreedom / 2, 0.5);
   return t >= 0 ? 1 - tail : tail;
 }
 

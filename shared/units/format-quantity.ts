@@ -10,7 +10,14 @@ export interface QuantityFormatOptions {
 
 // Whole gallons and litres are precise enough for budgets; bigger units need decimals to be useful.
 const VOLUME_DEFAULT_DIGITS: Readonly<Record<VolumeUnit, number>> = {
-  gal: 0, l: 0, ft3: 0, kgal: 2, ccf: 2, m3: 2, 'acre-in': 3, 'acre-ft': 3,
+  gal: 0,
+  l: 0,
+  ft3: 0,
+  kgal: 2,
+  ccf: 2,
+  m3: 2,
+  'acre-in': 3,
+  'acre-ft': 3,
 };
 
 function formatNumber(value: number, digits: number, locale: string): string {

@@ -45,7 +45,8 @@ export interface UploadDto extends UploadCounts {
 }
 
 /** The answer to a POST of a file: the upload, or the earlier upload of the same file. */
-export type UploadResult = { outcome: 'imported'; upload: UploadDto } | { outcome: 'already-imported'; upload: UploadDto; message: string };
+export type UploadResult =
+  { outcome: 'imported'; upload: UploadDto } | { outcome: 'already-imported'; upload: UploadDto; message: string };
 
 export const REJECTION_KINDS = ['rejected', 'conflict', 'notice'] as const;
 export type RejectionKind = (typeof REJECTION_KINDS)[number];

@@ -18,7 +18,9 @@ export function actualVapourPressureFromRhExtremes(
   rhMaxPct: number,
   rhMinPct: number,
 ): number {
-  return (saturationVapourPressureKpa(tMinC) * (rhMaxPct / 100) + saturationVapourPressureKpa(tMaxC) * (rhMinPct / 100)) / 2;
+  return (
+    (saturationVapourPressureKpa(tMinC) * (rhMaxPct / 100) + saturationVapourPressureKpa(tMaxC) * (rhMinPct / 100)) / 2
+  );
 }
 
 /** From RHmax only, % (FAO-56 Eq. 18): used when RHmin is unreliable. */

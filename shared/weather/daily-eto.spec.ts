@@ -84,17 +84,23 @@ describe('computeDailyEto', () => {
   });
 
   it('when RHmin exceeds RHmax or dew point exceeds Tmax, then it throws', () => {
-    expect(inputError(() => computeDailyEto({ ...temps, rhMaxPct: 50, rhMinPct: 60 }, site)).issues[0]!.field).toBe('rhMinPct');
+    expect(inputError(() => computeDailyEto({ ...temps, rhMaxPct: 50, rhMinPct: 60 }, site)).issues[0]!.field).toBe(
+      'rhMinPct',
+    );
     expect(inputError(() => computeDailyEto({ ...temps, dewPointC: 25 }, site)).issues[0]!.field).toBe('dewPointC');
   });
 
   it('when the date is missing or malformed, then it throws', () => {
     expect(inputError(() => computeDailyEto({ tMaxC: 20, tMinC: 10 }, site)).issues[0]!.field).toBe('date');
-    expect(inputError(() => computeDailyEto({ date: '2025-02-30', tMaxC: 20, tMinC: 10 }, site)).message).toMatch(/that month has 28 days/);
+    expect(inputError(() => computeDailyEto({ date: '2025-02-30', tMaxC: 20, tMinC: 10 }, site)).message).toMatch(
+      /that month has 28 days/,
+    );
   });
 
   it('when measured Rs exceeds extraterrestrial radiation, then it throws', () => {
-    const error = inputError(() => computeDailyEto({ date: '2025-12-21', tMaxC: 5, tMinC: 0, solarRadiationMj: 30 }, site));
+    const error = inputError(() =>
+      computeDailyEto({ date: '2025-12-21', tMaxC: 5, tMinC: 0, solarRadiationMj: 30 }, site),
+    );
     expect(error.issues[0]!.field).toBe('solarRadiationMj');
   });
 });

@@ -171,7 +171,12 @@ export function computeDailyEto(obs: DailyWeatherObservation, site: WeatherStati
   const hasRadiation = obs.solarRadiationMj !== undefined || obs.sunshineHours !== undefined;
   if (!hasHumidity && !hasWind && !hasRadiation) {
     notes.push('Only temperatures available: Hargreaves equation (FAO-56 Eq. 52).');
-    return { etoMm: hargreavesEtoMm(obs.tMaxC, obs.tMinC, raMj), method: 'hargreaves', notes, steps: { dayOfYear, raMj, meanTempC } };
+    return {
+      etoMm: hargreavesEtoMm(obs.tMaxC, obs.tMinC, raMj),
+      method: 'hargreaves',
+      notes,
+      steps: { dayOfYear, raMj, meanTempC },
+    };
   }
 
   const pressureKpa = atmosphericPressureKpa(site.elevationM);
@@ -192,7 +197,9 @@ export function computeDailyEto(obs: DailyWeatherObservation, site: WeatherStati
     windSpeed2mMs = windSpeedAt2m(obs.windSpeedMs, heightM);
     if (heightM !== 2) notes.push(`Wind measured at ${heightM} m converted to 2 m (FAO-56 Eq. 47).`);
     if (windSpeed2mMs < MINIMUM_WIND_SPEED_2M) {
-      notes.push(`Wind at 2 m raised from ${windSpeed2mMs.toFixed(2)} to ${MINIMUM_WIND_SPEED_2M} m/s (FAO-56 p.63 lower limit).`);
+      notes.push(
+        `Wind at 2 m raised from ${windSpeed2mMs.toFixed(2)} to ${MINIMUM_WIND_SPEED_2M} m/s (FAO-56 p.63 lower limit).`,
+      );
       windSpeed2mMs = MINIMUM_WIND_SPEED_2M;
     }
   }
@@ -206,19 +213,26 @@ export function computeDailyEto(obs: DailyWeatherObservation, site: WeatherStati
     rsMj = solarRadiationFromSunshineMj(raMj, Math.min(obs.sunshineHours, dayLength), dayLength);
     notes.push('Solar radiation from sunshine hours (FAO-56 Eq. 35, a = 0.25, b = 0.50).');
     if (obs.sunshineHours > dayLength + 0.1) {
-      notes.push(`Sunshine ${obs.sunshineHours} h exceeds the day length ${dayLength.toFixed(1)} h; limited to the day length.`);
+      notes.push(
+        `Sunshine ${obs.sunshineHours} h exceeds the day length ${dayLength.toFixed(1)} h; limited to the day length.`,
+      );
     }
   } else {
     const exposure = site.exposure ?? 'interior';
     rsMj = solarRadiationFromTemperatureMj(raMj, obs.tMaxC, obs.tMinC, KRS[exposure]);
     method = 'penman-monteith-estimated-rs';
-    notes.push(`No radiation data: Rs estimated from the temperature range (FAO-56 Eq. 50, kRs ${KRS[exposure]}, ${exposure}).`);
+    notes.push(
+      `No radiation data: Rs estimated from the temperature range (FAO-56 Eq. 50, kRs ${KRS[exposure]}, ${exposure}).`,
+    );
   }
 
   const rsoMj = clearSkyRadiationMj(raMj, site.elevationM);
   if (obs.solarRadiationMj !== undefined && rsMj > raMj) {
     const issues = new IssueList();
-    issues.add('solarRadiationMj', `Rs ${rsMj} MJ/m²/d exceeds the extraterrestrial radiation ${raMj.toFixed(1)} for this day and latitude`);
+    issues.add(
+      'solarRadiationMj',
+      `Rs ${rsMj} MJ/m²/d exceeds the extraterrestrial radiation ${raMj.toFixed(1)} for this day and latitude`,
+    );
     issues.throwIfAny();
   }
   const rnsMj = netShortwaveRadiationMj(rsMj);
@@ -226,7 +240,16 @@ export function computeDailyEto(obs: DailyWeatherObservation, site: WeatherStati
   const rnMj = netRadiationMj(rnsMj, rnl.rnlMj);
   // Daily soil heat flux under a grass reference is small enough to ignore (FAO-56 Eq. 42).
   const pm = penmanMonteith(
-    { slopeKpaPerC, psychrometricKpaPerC, netRadiationMj: rnMj, soilHeatFluxMj: 0, meanTempC, windSpeed2mMs, esKpa, eaKpa },
+    {
+      slopeKpaPerC,
+      psychrometricKpaPerC,
+      netRadiationMj: rnMj,
+      soilHeatFluxMj: 0,
+      meanTempC,
+      windSpeed2mMs,
+      esKpa,
+      eaKpa,
+    },
     FAO56_DAILY,
   );
   // Dew and condensation can make the equation slightly negative on calm humid nights; a daily budget counts that as 0.
@@ -236,9 +259,23 @@ export function computeDailyEto(obs: DailyWeatherObservation, site: WeatherStati
     method,
     notes,
     steps: {
-      dayOfYear, raMj, pressureKpa, psychrometricKpaPerC, meanTempC, slopeKpaPerC, esKpa, eaKpa, windSpeed2mMs,
-      daylightHours: dayLength, rsMj, rsoMj, rnsMj, rnlMj: rnl.rnlMj, rnMj,
-      radiationTermMm: pm.radiationTermMm, aerodynamicTermMm: pm.aerodynamicTermMm,
+      dayOfYear,
+      raMj,
+      pressureKpa,
+      psychrometricKpaPerC,
+      meanTempC,
+      slopeKpaPerC,
+      esKpa,
+      eaKpa,
+      windSpeed2mMs,
+      daylightHours: dayLength,
+      rsMj,
+      rsoMj,
+      rnsMj,
+      rnlMj: rnl.rnlMj,
+      rnMj,
+      radiationTermMm: pm.radiationTermMm,
+      aerodynamicTermMm: pm.aerodynamicTermMm,
     },
   };
 }

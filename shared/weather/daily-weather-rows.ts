@@ -53,7 +53,9 @@ const OBSERVATION_COLUMNS: Record<string, keyof DailyWeatherObservation | 'date'
 /** The columns each format takes, for error messages and the upload form's help text. */
 export const WEATHER_FILE_COLUMNS: Readonly<Record<WeatherUploadFormat, string>> = {
   'eto-rain': 'date, eto_mm (or eto_in), rain_mm (or rain_in)',
-  observations: `date, tmax_c, tmin_c, and any of ${Object.keys(OBSERVATION_COLUMNS).filter((c) => !['date', 'tmax_c', 'tmin_c'].includes(c)).join(', ')}`,
+  observations: `date, tmax_c, tmin_c, and any of ${Object.keys(OBSERVATION_COLUMNS)
+    .filter((c) => !['date', 'tmax_c', 'tmin_c'].includes(c))
+    .join(', ')}`,
 };
 
 function cellNumber(text: string | undefined): number | null | 'bad' {
@@ -65,7 +67,9 @@ function cellNumber(text: string | undefined): number | null | 'bad' {
 
 function headerIssues(header: string[], allowed: readonly string[], required: string[][]): RowIssue[] {
   const issues: RowIssue[] = [];
-  for (const name of header) if (!allowed.includes(name)) issues.push({ row: 1, field: name || '(blank)', message: `unknown column; expected ${allowed.join(', ')}` });
+  for (const name of header)
+    if (!allowed.includes(name))
+      issues.push({ row: 1, field: name || '(blank)', message: `unknown column; expected ${allowed.join(', ')}` });
   const seen = new Set<string>();
   for (const name of header) {
     if (seen.has(name)) issues.push({ row: 1, field: name, message: 'column appears twice' });
@@ -73,8 +77,10 @@ function headerIssues(header: string[], allowed: readonly string[], required: st
   }
   for (const options of required) {
     const present = options.filter((o) => header.includes(o));
-    if (present.length === 0) issues.push({ row: 1, field: options.join(' or '), message: 'required column is missing' });
-    if (present.length > 1) issues.push({ row: 1, field: present.join(', '), message: 'give only one of these columns' });
+    if (present.length === 0)
+      issues.push({ row: 1, field: options.join(' or '), message: 'required column is missing' });
+    if (present.length > 1)
+      issues.push({ row: 1, field: present.join(', '), message: 'give only one of these columns' });
   }
   return issues;
 }
@@ -91,7 +97,8 @@ export function interpretWeatherRows(
       ? headerIssues(header, ETO_RAIN_COLUMNS, [['date'], ['eto_mm', 'eto_in'], ['rain_mm', 'rain_in']])
       : headerIssues(header, Object.keys(OBSERVATION_COLUMNS), [['date'], ['tmax_c'], ['tmin_c']]);
   if (issues.length > 0) return { days: [], issues };
-  if (rows.length === 0) return { days: [], issues: [{ row: 2, field: '(file)', message: 'the file has a header but no days' }] };
+  if (rows.length === 0)
+    return { days: [], issues: [{ row: 2, field: '(file)', message: 'the file has a header but no days' }] };
 
   const days: ImportedDay[] = [];
   const firstRowOfDate = new Map<string, number>();
@@ -108,9 +115,11 @@ export function interpretWeatherRows(
     } catch (error) {
       problems.push({ row, field: 'date', message: (error as Error).message });
     }
-    if (cells.length !== header.length) problems.push({ row, field: '(row)', message: `has ${cells.length} cells; the header has ${header.length}` });
+    if (cells.length !== header.length)
+      problems.push({ row, field: '(row)', message: `has ${cells.length} cells; the header has ${header.length}` });
     const previous = firstRowOfDate.get(date);
-    if (previous !== undefined) problems.push({ row, field: 'date', message: `${date} is already given on row ${previous}` });
+    if (previous !== undefined)
+      problems.push({ row, field: 'date', message: `${date} is already given on row ${previous}` });
     else if (date) firstRowOfDate.set(date, row);
 
     const number = (name: string): number | null => {
@@ -137,7 +146,8 @@ export function interpretWeatherRows(
         const check = validateEto(etoMm);
         if (!check.ok) problems.push({ row, field: etoColumn, message: check.message });
       }
-      if (problems.length === 0) days.push({ row, date, etoMm, rainMm, method: 'measured', observations: null, notes: [] });
+      if (problems.length === 0)
+        days.push({ row, date, etoMm, rainMm, method: 'measured', observations: null, notes: [] });
     } else {
       const obs: DailyWeatherObservation = { date } as DailyWeatherObservation;
       for (const [column, key] of Object.entries(OBSERVATION_COLUMNS)) {
@@ -152,10 +162,20 @@ export function interpretWeatherRows(
           const result = computeDailyEto(obs, station);
           const check = validateEto(result.etoMm);
           if (!check.ok) problems.push({ row, field: 'eto', message: `computed ${check.message}` });
-          else days.push({ row, date, etoMm: result.etoMm, rainMm, method: result.method, observations: obs, notes: result.notes });
+          else
+            days.push({
+              row,
+              date,
+              etoMm: result.etoMm,
+              rainMm,
+              method: result.method,
+              observations: obs,
+              notes: result.notes,
+            });
         } catch (error) {
           if (error instanceof WeatherInputError) {
-            for (const issue of error.issues) problems.push({ row, field: columnOf(issue.field), message: issue.message });
+            for (const issue of error.issues)
+              problems.push({ row, field: columnOf(issue.field), message: issue.message });
           } else {
             problems.push({ row, field: '(row)', message: (error as Error).message });
           }

@@ -10,7 +10,8 @@ describe('day of year', () => {
 
   it('agrees with counting days for every date of a leap year', () => {
     let count = 0;
-    for (let m = 1; m <= 12; m++) for (let d = 1; d <= daysInMonth(2028, m); d++) expect(dayOfYear(2028, m, d)).toBe(++count);
+    for (let m = 1; m <= 12; m++)
+      for (let d = 1; d <= daysInMonth(2028, m); d++) expect(dayOfYear(2028, m, d)).toBe(++count);
   });
 
   it('when a date is malformed, then it throws a clear error', () => {

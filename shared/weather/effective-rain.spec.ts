@@ -10,7 +10,7 @@ describe('effective rain', () => {
     expect(effectiveRainMm({ kind: 'fixed-fraction', fraction: 0.25 }, 12, 5)).toBe(3);
   });
 
-  it('threshold ignores small rain and caps the rest at the day\'s demand', () => {
+  it("threshold ignores small rain and caps the rest at the day's demand", () => {
     const method = { kind: 'threshold', minimumMm: 5 } as const;
     expect(effectiveRainMm(method, 4.9, 6)).toBe(0);
     expect(effectiveRainMm(method, 5.5, 6)).toBe(5.5);

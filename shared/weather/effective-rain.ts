@@ -10,9 +10,7 @@
  *   Common practice, no source.
  */
 export type EffectiveRainMethod =
-  | { kind: 'none' }
-  | { kind: 'fixed-fraction'; fraction: number }
-  | { kind: 'threshold'; minimumMm: number };
+  { kind: 'none' } | { kind: 'fixed-fraction'; fraction: number } | { kind: 'threshold'; minimumMm: number };
 
 export const MWELO_EFFECTIVE_RAIN_FRACTION = 0.25;
 

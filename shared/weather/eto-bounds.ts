@@ -12,7 +12,10 @@ export function validateEto(etoMm: number): EtoCheck {
   if (!Number.isFinite(etoMm)) return { ok: false, message: `ETo ${etoMm} is not a number` };
   if (etoMm < ETO_DAILY_BOUNDS_MM.min) return { ok: false, message: `ETo ${etoMm} mm/d is negative` };
   if (etoMm > ETO_DAILY_BOUNDS_MM.max) {
-    return { ok: false, message: `ETo ${etoMm} mm/d is above ${ETO_DAILY_BOUNDS_MM.max} mm/d, beyond any plausible daily value` };
+    return {
+      ok: false,
+      message: `ETo ${etoMm} mm/d is above ${ETO_DAILY_BOUNDS_MM.max} mm/d, beyond any plausible daily value`,
+    };
   }
   return { ok: true };
 }

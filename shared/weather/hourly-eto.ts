@@ -1,4 +1,9 @@
-import { atmosphericPressureKpa, psychrometricConstantKpaPerC, saturationVapourPressureKpa, vapourPressureSlopeKpaPerC } from './atmosphere';
+import {
+  atmosphericPressureKpa,
+  psychrometricConstantKpaPerC,
+  saturationVapourPressureKpa,
+  vapourPressureSlopeKpaPerC,
+} from './atmosphere';
 import {
   STEFAN_BOLTZMANN_HOURLY,
   blackbodyRadiationMj,
@@ -106,13 +111,17 @@ export function computeHourlyEto(
   const eaKpa = esKpa * (obs.rhPct / 100); // FAO-56 Eq. 54
   const windSpeed2mMs = windSpeedAt2m(obs.windSpeedMs, obs.windHeightM ?? 2);
 
-  const omega = solarTimeAngleRad(obs.clockHourMidpoint, site.longitudeDegEast, site.timeZoneMeridianDegEast, obs.dayOfYear);
+  const omega = solarTimeAngleRad(
+    obs.clockHourMidpoint,
+    site.longitudeDegEast,
+    site.timeZoneMeridianDegEast,
+    obs.dayOfYear,
+  );
   const ra = extraterrestrialRadiationPeriod(latitudeRad, obs.dayOfYear, omega, periodHours);
   const rsoMj = clearSkyRadiationMj(ra.raMj, site.elevationM);
   const rsMj = obs.solarRadiationMj ?? 0;
   const rnsMj = netShortwaveRadiationMj(rsMj);
-  const relativeShortwave =
-    rsoMj > MIN_RSO_FOR_RATIO_MJ ? Math.min(1, rsMj / rsoMj) : (obs.rsOverRsoWhenDark ?? 0.8);
+  const relativeShortwave = rsoMj > MIN_RSO_FOR_RATIO_MJ ? Math.min(1, rsMj / rsoMj) : (obs.rsOverRsoWhenDark ?? 0.8);
   const blackbodyMj = blackbodyRadiationMj(obs.tempC, STEFAN_BOLTZMANN_HOURLY * periodHours);
   const humidityFactor = 0.34 - 0.14 * Math.sqrt(eaKpa);
   const cloudinessFactor = Math.max(0, 1.35 * relativeShortwave - 0.35);
@@ -132,17 +141,43 @@ export function computeHourlyEto(
   }
   const soilHeatFluxMj = soilFraction * rnMj;
   const pm = penmanMonteith(
-    { slopeKpaPerC, psychrometricKpaPerC, netRadiationMj: rnMj, soilHeatFluxMj, meanTempC: obs.tempC, windSpeed2mMs, esKpa, eaKpa },
+    {
+      slopeKpaPerC,
+      psychrometricKpaPerC,
+      netRadiationMj: rnMj,
+      soilHeatFluxMj,
+      meanTempC: obs.tempC,
+      windSpeed2mMs,
+      esKpa,
+      eaKpa,
+    },
     { cn: constants.cn * periodHours, cd: constants.cd },
   );
   return {
     etoMm: pm.etMm,
     isDaytime,
     steps: {
-      pressureKpa, psychrometricKpaPerC, slopeKpaPerC, esKpa, eaKpa, windSpeed2mMs,
-      omegaRad: ra.omegaRad, omega1Rad: ra.omega1Rad, omega2Rad: ra.omega2Rad, raMj: ra.raMj,
-      rsoMj, rnsMj, blackbodyMj, humidityFactor, relativeShortwave, cloudinessFactor, rnlMj, rnMj, soilHeatFluxMj,
-      radiationTermMm: pm.radiationTermMm, aerodynamicTermMm: pm.aerodynamicTermMm,
+      pressureKpa,
+      psychrometricKpaPerC,
+      slopeKpaPerC,
+      esKpa,
+      eaKpa,
+      windSpeed2mMs,
+      omegaRad: ra.omegaRad,
+      omega1Rad: ra.omega1Rad,
+      omega2Rad: ra.omega2Rad,
+      raMj: ra.raMj,
+      rsoMj,
+      rnsMj,
+      blackbodyMj,
+      humidityFactor,
+      relativeShortwave,
+      cloudinessFactor,
+      rnlMj,
+      rnMj,
+      soilHeatFluxMj,
+      radiationTermMm: pm.radiationTermMm,
+      aerodynamicTermMm: pm.aerodynamicTermMm,
     },
   };
 }

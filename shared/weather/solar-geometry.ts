@@ -74,10 +74,7 @@ export function solarTimeAngleRad(
   dayOfYear: number,
 ): number {
   const lzMinusLmWest = longitudeDegEast - timeZoneMeridianDegEast;
-  return (
-    (Math.PI / 12) *
-    (clockHourMidpoint + 0.06667 * lzMinusLmWest + seasonalCorrectionHours(dayOfYear) - 12)
-  );
+  return (Math.PI / 12) * (clockHourMidpoint + 0.06667 * lzMinusLmWest + seasonalCorrectionHours(dayOfYear) - 12);
 }
 
 export interface HourlyExtraterrestrialRadiation {

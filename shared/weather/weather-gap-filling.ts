@@ -49,9 +49,11 @@ export function fillWeatherGaps(
   parseIsoDate(endDate);
   const normalByMonth = new Map<number, MonthlyWeatherNormal>();
   for (const normal of normals) {
-    if (normal.month < 1 || normal.month > 12) throw new RangeError(`Monthly normal has month ${normal.month}; it must be 1–12`);
+    if (normal.month < 1 || normal.month > 12)
+      throw new RangeError(`Monthly normal has month ${normal.month}; it must be 1–12`);
     if (normalByMonth.has(normal.month)) throw new RangeError(`Monthly normals list month ${normal.month} twice`);
-    if (!(normal.etoMm >= 0) || !(normal.rainMm >= 0)) throw new RangeError(`Monthly normal for month ${normal.month} must not be negative`);
+    if (!(normal.etoMm >= 0) || !(normal.rainMm >= 0))
+      throw new RangeError(`Monthly normal for month ${normal.month} must not be negative`);
     normalByMonth.set(normal.month, normal);
   }
 

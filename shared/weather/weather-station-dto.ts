@@ -11,7 +11,13 @@ export type StationSourceKind = (typeof STATION_SOURCE_KINDS)[number];
  * How a day's ETo was obtained. `measured`: given as ETo in an upload; the Penman–Monteith variants and
  * Hargreaves: computed from observations; `normal-filled`: missing, taken from the monthly normals.
  */
-export const DAILY_WEATHER_METHODS = ['measured', 'penman-monteith', 'penman-monteith-estimated-rs', 'hargreaves', 'normal-filled'] as const;
+export const DAILY_WEATHER_METHODS = [
+  'measured',
+  'penman-monteith',
+  'penman-monteith-estimated-rs',
+  'hargreaves',
+  'normal-filled',
+] as const;
 export type DailyWeatherMethod = (typeof DAILY_WEATHER_METHODS)[number];
 
 export const DAILY_WEATHER_METHOD_LABELS: Readonly<Record<DailyWeatherMethod, string>> = {

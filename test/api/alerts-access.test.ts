@@ -1,5 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createOrganisation, createSite, createTestApp, createUser, createWorld, shareSite, signedIn, type Client, type TestApp, type World } from '../support/test-app';
+import {
+  createOrganisation,
+  createSite,
+  createTestApp,
+  createUser,
+  createWorld,
+  shareSite,
+  signedIn,
+  type Client,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 import { leakingSite, runWatch } from './watch-fixtures';
 
 let app: TestApp;
@@ -15,7 +26,11 @@ beforeAll(async () => {
   siteId = (await createSite(app.db, world.org.id)).id;
   await leakingSite(app.db, siteId);
   await runWatch(admin);
-  alertId = ((await app.db.query("SELECT id FROM alert WHERE site_id = ? AND sub_kind = 'continuous-flow'", [siteId])) as { id: number }[])[0]!.id;
+  alertId = (
+    (await app.db.query("SELECT id FROM alert WHERE site_id = ? AND sub_kind = 'continuous-flow'", [siteId])) as {
+      id: number;
+    }[]
+  )[0]!.id;
 });
 afterAll(async () => app?.stop());
 
@@ -56,27 +71,55 @@ describe('who may see and act on alerts', () => {
   it('when a manager acknowledges then resolves with a note, then the status and history follow', async () => {
     const manager = await signedIn(app, world.users.manager.email);
     await manager.post(`/api/alerts/${alertId}/notes`, {}).expect(400);
-    const acked = (await manager.post(`/api/alerts/${alertId}/acknowledge`, { note: 'Looking into it' }).expect(200)).body;
+    const acked = (await manager.post(`/api/alerts/${alertId}/acknowledge`, { note: 'Looking into it' }).expect(200))
+      .body;
     expect(acked.status).toBe('acknowledged');
     await manager.post(`/api/alerts/${alertId}/acknowledge`, {}).expect(409);
-    const resolved = (await manager.post(`/api/alerts/${alertId}/resolve`, { note: 'Valve replaced.' }).expect(200)).body;
+    const resolved = (await manager.post(`/api/alerts/${alertId}/resolve`, { note: 'Valve replaced.' }).expect(200))
+      .body;
     expect(resolved.status).toBe('resolved');
-    expect(resolved.events.map((e: { action: string }) => e.action)).toEqual(['opened', 'note', 'acknowledged', 'resolved']);
+    expect(resolved.events.map((e: { action: string }) => e.action)).toEqual([
+      'opened',
+      'note',
+      'acknowledged',
+      'resolved',
+    ]);
     const inbox = (await manager.get(`/api/alerts?status=resolved&siteId=${siteId}`).expect(200)).body;
     expect(inbox.items.map((a: { id: number }) => a.id)).toContain(alertId);
-    expect((await manager.get(`/api/alerts?status=open&siteId=${siteId}&kind=leak`).expect(200)).body.items.map((a: { id: number }) => a.id)).not.toContain(alertId);
+    expect(
+      (await manager.get(`/api/alerts?status=open&siteId=${siteId}&kind=leak`).expect(200)).body.items.map(
+        (a: { id: number }) => a.id,
+      ),
+    ).not.toContain(alertId);
   });
 
   it('when settings are read and changed, then explanations come along and only editors may change them', async () => {
     const contractor = await signedIn(app, world.users.contractor.email);
     const settings = (await contractor.get(`/api/sites/${siteId}/watch-settings`).expect(200)).body;
     expect(settings.canEdit).toBe(false);
-    expect(settings.thresholds.find((t: { name: string }) => t.name === 'continuousFlowHours')).toMatchObject({ value: 24, unit: 'h', overridden: false, explanation: expect.stringContaining('leak') });
-    await contractor.put(`/api/sites/${siteId}/watch-settings`, { thresholds: { continuousFlowHours: 36 } }).expect(403);
+    expect(settings.thresholds.find((t: { name: string }) => t.name === 'continuousFlowHours')).toMatchObject({
+      value: 24,
+      unit: 'h',
+      overridden: false,
+      explanation: expect.stringContaining('leak'),
+    });
+    await contractor
+      .put(`/api/sites/${siteId}/watch-settings`, { thresholds: { continuousFlowHours: 36 } })
+      .expect(403);
     const manager = await signedIn(app, world.users.manager.email);
     await manager.put(`/api/sites/${siteId}/watch-settings`, { thresholds: { nightStartHour: 30 } }).expect(400);
-    const saved = (await manager.put(`/api/sites/${siteId}/watch-settings`, { thresholds: { continuousFlowHours: 36 }, irrigationWindow: { startHour: 22, endHour: 6 } }).expect(200)).body;
-    expect(saved.thresholds.find((t: { name: string }) => t.name === 'continuousFlowHours')).toMatchObject({ value: 36, overridden: true });
+    const saved = (
+      await manager
+        .put(`/api/sites/${siteId}/watch-settings`, {
+          thresholds: { continuousFlowHours: 36 },
+          irrigationWindow: { startHour: 22, endHour: 6 },
+        })
+        .expect(200)
+    ).body;
+    expect(saved.thresholds.find((t: { name: string }) => t.name === 'continuousFlowHours')).toMatchObject({
+      value: 36,
+      overridden: true,
+    });
     expect(saved.irrigationWindow).toEqual({ startHour: 22, endHour: 6 });
   });
 });

@@ -9,8 +9,13 @@ beforeAll(async () => {
 });
 afterAll(async () => app?.stop());
 
-async function queuedFor(email: string): Promise<{ subject: string; body_text: string; body_html: string | null; dedupe_key: string }[]> {
-  return app.db.query('SELECT subject, body_text, body_html, dedupe_key FROM mail_message WHERE to_address = ? ORDER BY id', [email]);
+async function queuedFor(
+  email: string,
+): Promise<{ subject: string; body_text: string; body_html: string | null; dedupe_key: string }[]> {
+  return app.db.query(
+    'SELECT subject, body_text, body_html, dedupe_key FROM mail_message WHERE to_address = ? ORDER BY id',
+    [email],
+  );
 }
 
 describe('watch e-mail', () => {
@@ -20,15 +25,27 @@ describe('watch e-mail', () => {
     const site = await createSite(app.db, world.org.id, { name: `Quail Hollow Commons ${Date.now()}` });
     const quiet = await createSite(app.db, world.org.id);
     await leakingSite(app.db, site.id);
-    await (await signedIn(app, world.users.manager.email)).put('/api/me/notifications', { frequency: 'none', siteIds: null }).expect(200);
-    await (await signedIn(app, world.users.contractor.email)).put('/api/me/notifications', { frequency: 'each', siteIds: null }).expect(200);
+    await (
+      await signedIn(app, world.users.manager.email)
+    )
+      .put('/api/me/notifications', { frequency: 'none', siteIds: null })
+      .expect(200);
+    await (
+      await signedIn(app, world.users.contractor.email)
+    )
+      .put('/api/me/notifications', { frequency: 'each', siteIds: null })
+      .expect(200);
     const auditor = await signedIn(app, world.users.auditor.email);
     // The auditor follows only the quiet site, so the leak is not theirs to hear about.
-    expect((await auditor.put('/api/me/notifications', { frequency: 'daily', siteIds: [quiet.id] }).expect(200)).body).toEqual({ frequency: 'daily', siteIds: [quiet.id] });
+    expect(
+      (await auditor.put('/api/me/notifications', { frequency: 'daily', siteIds: [quiet.id] }).expect(200)).body,
+    ).toEqual({ frequency: 'daily', siteIds: [quiet.id] });
     expect((await admin.get('/api/me/notifications').expect(200)).body).toEqual({ frequency: 'daily', siteIds: null });
 
     const run = await runWatch(admin);
-    const alerts = Number(((await app.db.query('SELECT COUNT(*) AS n FROM alert WHERE site_id = ?', [site.id])) as [{ n: string }])[0].n);
+    const alerts = Number(
+      ((await app.db.query('SELECT COUNT(*) AS n FROM alert WHERE site_id = ?', [site.id])) as [{ n: string }])[0].n,
+    );
     expect(alerts).toBeGreaterThanOrEqual(1);
 
     const digest = await queuedFor(world.users.admin.email);
@@ -48,7 +65,9 @@ describe('watch e-mail', () => {
     const again = await runWatch(admin);
     expect(again.alertsRaised).toBeGreaterThanOrEqual(1);
     expect(await queuedFor(world.users.admin.email)).toHaveLength(1);
-    expect((await queuedFor(world.users.auditor.email)).map((m) => m.dedupe_key)).toEqual([expect.stringMatching(/^watch-digest:/)]);
+    expect((await queuedFor(world.users.auditor.email)).map((m) => m.dedupe_key)).toEqual([
+      expect.stringMatching(/^watch-digest:/),
+    ]);
   });
 
   it('when a preference names a site the user cannot see, then it is refused', async () => {

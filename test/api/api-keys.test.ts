@@ -1,6 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { createSite, createTestApp, createWorld, signedIn, type Client, type TestApp, type World } from '../support/test-app';
+import {
+  createSite,
+  createTestApp,
+  createWorld,
+  signedIn,
+  type Client,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 
 /** The API-key list behind the settings page: administrators only, and never across organisations. */
 let app: TestApp;
@@ -37,7 +45,9 @@ describe('API keys across organisations and roles', () => {
     const res = await otherAdmin.delete(`/api/api-keys/${key.id}`).expect(404);
     expect(res.body.error.code).toBe('not_found');
     expect(await keyAnswer(key.secret)).toBe(404);
-    const mine = ((await admin.get('/api/api-keys').expect(200)).body as Array<{ id: number; revokedAt: string | null }>).find((k) => k.id === key.id);
+    const mine = (
+      (await admin.get('/api/api-keys').expect(200)).body as Array<{ id: number; revokedAt: string | null }>
+    ).find((k) => k.id === key.id);
     expect(mine).toMatchObject({ revokedAt: null });
   });
 
@@ -60,7 +70,13 @@ describe('API keys across organisations and roles', () => {
     await admin.delete(`/api/api-keys/${key.id}`).expect(204);
     expect(await keyAnswer(key.secret)).toBe(401);
     await admin.delete(`/api/api-keys/${key.id}`).expect(404);
-    const listed = ((await admin.get('/api/api-keys').expect(200)).body as Array<{ id: number; revokedAt: string | null; secret?: string }>).find((k) => k.id === key.id);
+    const listed = (
+      (await admin.get('/api/api-keys').expect(200)).body as Array<{
+        id: number;
+        revokedAt: string | null;
+        secret?: string;
+      }>
+    ).find((k) => k.id === key.id);
     expect(listed?.revokedAt).toEqual(expect.any(String));
     expect(listed?.secret).toBeUndefined();
   });

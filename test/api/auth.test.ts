@@ -1,7 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { startServer } from '../../backend/src/server';
 import { testConfig } from '../support/test-env';
-import { Client, createTestApp, createUser, createWorld, signedIn, TEST_PASSWORD, type TestApp, type World } from '../support/test-app';
+import {
+  Client,
+  createTestApp,
+  createUser,
+  createWorld,
+  signedIn,
+  TEST_PASSWORD,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 
 let app: TestApp;
 let world: World;
@@ -44,7 +53,9 @@ describe('sign-in', () => {
   it('when the body has unknown fields or a malformed e-mail, then 400 naming the fields', async () => {
     const client = new Client(app.server.url);
     await client.fetchCsrf();
-    const res = await client.post('/api/auth/sign-in', { email: 'not-an-email', password: 'x', remember: true }).expect(400);
+    const res = await client
+      .post('/api/auth/sign-in', { email: 'not-an-email', password: 'x', remember: true })
+      .expect(400);
     expect(res.body.error.details).toEqual(
       expect.arrayContaining([
         { field: 'email', message: 'must be an e-mail address' },
@@ -66,7 +77,8 @@ describe('sign-in', () => {
   });
 
   it('when successful sign-ins repeat, then they do not count against the limit', async () => {
-    for (let i = 0; i < 7; i++) expect((await new Client(app.server.url).signIn(world.users.admin.email)).status).toBe(200);
+    for (let i = 0; i < 7; i++)
+      expect((await new Client(app.server.url).signIn(world.users.admin.email)).status).toBe(200);
   });
 
   it('when signed out, then /me is 401 and the old session cookie no longer works', async () => {
@@ -80,7 +92,9 @@ describe('sign-in', () => {
 describe('CSRF', () => {
   it('when a state-changing request has no token, then 403 csrf_invalid and nothing changes', async () => {
     const client = await signedIn(app, world.users.manager.email);
-    const res = await client.agent.post('/api/sites').send({ name: 'Sneaky', kind: 'park', address: 'x', timeZone: 'UTC' });
+    const res = await client.agent
+      .post('/api/sites')
+      .send({ name: 'Sneaky', kind: 'park', address: 'x', timeZone: 'UTC' });
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('csrf_invalid');
     const list = await client.get('/api/sites?q=Sneaky').expect(200);
@@ -124,12 +138,16 @@ describe('health', () => {
     const lines: string[] = [];
     const spy = vi.spyOn(process.stderr, 'write').mockImplementation((chunk) => (lines.push(String(chunk)), true));
     try {
-      await expect(startServer(testConfig({ RILLMARK_DB_PORT: '1', RILLMARK_LOG_LEVEL: 'warn' }), { dbAttempts: 3 })).rejects.toThrow(
+      await expect(
+        startServer(testConfig({ RILLMARK_DB_PORT: '1', RILLMARK_LOG_LEVEL: 'warn' }), { dbAttempts: 3 }),
+      ).rejects.toThrow(
         /Cannot reach MariaDB at 127\.0\.0\.1:1\/\w+ after 3 attempts .*Is it running\? Start it with: npm run db:start/,
       );
     } finally {
       spy.mockRestore();
     }
-    expect(lines.filter((l) => /MariaDB at 127\.0\.0\.1:1\/\w+ is not reachable .* retry \d\/2/.test(l))).toHaveLength(2);
+    expect(lines.filter((l) => /MariaDB at 127\.0\.0\.1:1\/\w+ is not reachable .* retry \d\/2/.test(l))).toHaveLength(
+      2,
+    );
   });
 });

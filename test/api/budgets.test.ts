@@ -1,6 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { etoRainCsv, normals, stationForSite } from '../support/budget-fixtures';
-import { createSite, createTestApp, createWorld, signedIn, type Client, type TestApp, type World } from '../support/test-app';
+import {
+  createSite,
+  createTestApp,
+  createWorld,
+  signedIn,
+  type Client,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 
 /**
  * A small invented site worked by hand. Formulas: MWELO (2015) App. B — ETo × PF × area × conversion ÷ IE,
@@ -24,21 +32,59 @@ beforeAll(async () => {
   manager = await signedIn(app, world.users.manager.email);
   siteId = (await createSite(app.db, world.org.id, { kind: 'park' })).id;
   // Shrubs: 1,000 ft², PF 0.5 entered, drip (IE 0.81), 100 emitters × 1 gph.
-  shrubId = (await manager.post(`/api/sites/${siteId}/hydrozones`, {
-    name: 'Shrub bed', area: 1000, areaUnit: 'ft2', plantFactor: 0.5, irrigationMethod: 'drip', emitterCount: 100, emitterGph: 1,
-  }).expect(201)).body.id;
+  shrubId = (
+    await manager
+      .post(`/api/sites/${siteId}/hydrozones`, {
+        name: 'Shrub bed',
+        area: 1000,
+        areaUnit: 'ft2',
+        plantFactor: 0.5,
+        irrigationMethod: 'drip',
+        emitterCount: 100,
+        emitterGph: 1,
+      })
+      .expect(201)
+  ).body.id;
   // Turf: 100 m² entered in metric, "high" category (default PF 0.85), rotors (IE 0.75), recreation turf SLA.
-  await manager.post(`/api/sites/${siteId}/hydrozones`, {
-    name: 'Play lawn', area: 100, areaUnit: 'm2', plantWaterUse: 'high', irrigationMethod: 'rotor', specialLandscapeArea: true, specialLandscapeKind: 'recreation-turf',
-  }).expect(201);
+  await manager
+    .post(`/api/sites/${siteId}/hydrozones`, {
+      name: 'Play lawn',
+      area: 100,
+      areaUnit: 'm2',
+      plantWaterUse: 'high',
+      irrigationMethod: 'rotor',
+      specialLandscapeArea: true,
+      specialLandscapeKind: 'recreation-turf',
+    })
+    .expect(201);
   const stationId = await stationForSite(manager, siteId);
-  await manager.put(`/api/weather-stations/${stationId}/normals`, { normals: normals({ etoMm: 150, rainMm: 20 }, { 7: { etoMm: 186, rainMm: 0 } }) }).expect(200);
+  await manager
+    .put(`/api/weather-stations/${stationId}/normals`, {
+      normals: normals({ etoMm: 150, rainMm: 20 }, { 7: { etoMm: 186, rainMm: 0 } }),
+    })
+    .expect(200);
   // June 2025: 5.08 mm (0.2 in) every day, no rain. July: 6 mm a day, 8 mm of rain on the 10th, the 15th missing.
-  await manager.postText(`/api/weather-stations/${stationId}/daily?format=eto-rain`, etoRainCsv('2025-06-01', 30, () => [5.08, 0])).expect(200);
-  await manager.postText(`/api/weather-stations/${stationId}/daily?format=eto-rain`, etoRainCsv('2025-07-01', 31, (d) => [6, d === '2025-07-10' ? 8 : 0], ['2025-07-15'])).expect(200);
-  await manager.post(`/api/sites/${siteId}/rate-schedules`, {
-    name: 'Irrigation uniform', unit: 'ccf', fixedChargePerPeriod: 20, volumeCharge: { kind: 'uniform', pricePerUnit: 4 }, effectiveFrom: '2025-01-01',
-  }).expect(201);
+  await manager
+    .postText(
+      `/api/weather-stations/${stationId}/daily?format=eto-rain`,
+      etoRainCsv('2025-06-01', 30, () => [5.08, 0]),
+    )
+    .expect(200);
+  await manager
+    .postText(
+      `/api/weather-stations/${stationId}/daily?format=eto-rain`,
+      etoRainCsv('2025-07-01', 31, (d) => [6, d === '2025-07-10' ? 8 : 0], ['2025-07-15']),
+    )
+    .expect(200);
+  await manager
+    .post(`/api/sites/${siteId}/rate-schedules`, {
+      name: 'Irrigation uniform',
+      unit: 'ccf',
+      fixedChargePerPeriod: 20,
+      volumeCharge: { kind: 'uniform', pricePerUnit: 4 },
+      effectiveFrom: '2025-01-01',
+    })
+    .expect(201);
 });
 afterAll(async () => app?.stop());
 
@@ -72,8 +118,12 @@ describe('site budget', () => {
     expect(june.cost.total).toBeCloseTo(Math.round((20 + 4 * ccf) * 100) / 100, 2);
   });
 
-  it('when the meter also serves 10 people at 50 gal a day, then June\'s cost covers landscape + 15,000 gal indoor', async () => {
-    const june = (await manager.get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-06&occupants=10&gallonsPerPersonPerDay=50`).expect(200)).body.months[0];
+  it("when the meter also serves 10 people at 50 gal a day, then June's cost covers landscape + 15,000 gal indoor", async () => {
+    const june = (
+      await manager
+        .get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-06&occupants=10&gallonsPerPersonPerDay=50`)
+        .expect(200)
+    ).body.months[0];
     expect(june.indoorGallons).toBe(10 * 50 * 30);
     const ccf = (june.gallons + 15000) / GAL_PER_CCF;
     expect(june.cost.total).toBeCloseTo(Math.round((20 + 4 * ccf) * 100) / 100, 2);
@@ -82,7 +132,9 @@ describe('site budget', () => {
   });
 
   it('when July misses a day and 25 % of rain is credited, then the day is filled from normals and flagged, and the credit is hand-checkable', async () => {
-    const res = await manager.get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-07&rain=fixed-fraction&rainValue=0.25`).expect(200);
+    const res = await manager
+      .get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-07&rain=fixed-fraction&rainValue=0.25`)
+      .expect(200);
     const july = res.body.months[1];
     expect(july.filledDays).toBe(1);
     expect(july.methods).toEqual(expect.arrayContaining(['measured', 'normal-filled']));
@@ -102,15 +154,30 @@ describe('site budget', () => {
     expect(bad.body.error.details[0].field).toBe('from');
     const backwards = await manager.get(`/api/sites/${siteId}/budget?from=2025-07&to=2025-06`).expect(400);
     expect(backwards.body.error.details[0].field).toBe('to');
-    const fraction = await manager.get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-06&rain=fixed-fraction&rainValue=3`).expect(400);
+    const fraction = await manager
+      .get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-06&rain=fixed-fraction&rainValue=3`)
+      .expect(400);
     expect(fraction.body.error.details[0].field).toBe('rainValue');
   });
 
   it('when a month has missing days and no normals, then 400 says the weather is incomplete instead of a short budget', async () => {
     const other = (await createSite(app.db, world.org.id)).id;
-    await manager.post(`/api/sites/${other}/hydrozones`, { name: 'Bed', area: 500, areaUnit: 'ft2', plantFactor: 0.3, irrigationMethod: 'drip' }).expect(201);
+    await manager
+      .post(`/api/sites/${other}/hydrozones`, {
+        name: 'Bed',
+        area: 500,
+        areaUnit: 'ft2',
+        plantFactor: 0.3,
+        irrigationMethod: 'drip',
+      })
+      .expect(201);
     const stationId = await stationForSite(manager, other);
-    await manager.postText(`/api/weather-stations/${stationId}/daily?format=eto-rain`, etoRainCsv('2025-06-01', 20, () => [5, 0])).expect(200);
+    await manager
+      .postText(
+        `/api/weather-stations/${stationId}/daily?format=eto-rain`,
+        etoRainCsv('2025-06-01', 20, () => [5, 0]),
+      )
+      .expect(200);
     const res = await manager.get(`/api/sites/${other}/budget?from=2025-06&to=2025-06`).expect(400);
     expect(res.body.error.message).toMatch(/2025-06-21.*no normal for month 6/);
   });
@@ -119,7 +186,15 @@ describe('site budget', () => {
     const bare = (await createSite(app.db, world.org.id)).id;
     const res = await manager.get(`/api/sites/${bare}/budget?from=2025-06&to=2025-06`).expect(400);
     expect(res.body.error.details[0].field).toBe('hydrozones');
-    await manager.post(`/api/sites/${bare}/hydrozones`, { name: 'Bed', area: 500, areaUnit: 'ft2', plantFactor: 0.3, irrigationMethod: 'drip' }).expect(201);
+    await manager
+      .post(`/api/sites/${bare}/hydrozones`, {
+        name: 'Bed',
+        area: 500,
+        areaUnit: 'ft2',
+        plantFactor: 0.3,
+        irrigationMethod: 'drip',
+      })
+      .expect(201);
     const noStation = await manager.get(`/api/sites/${bare}/budget?from=2025-06&to=2025-06`).expect(400);
     expect(noStation.body.error.details[0].field).toBe('weatherStation');
   });
@@ -151,7 +226,9 @@ describe('MWELO compliance', () => {
 
 describe('run-time advice', () => {
   it('when a drip zone has 100 × 1 gph emitters, then PR, minutes and the safety cautions follow the hand calculation', async () => {
-    const res = await manager.get(`/api/sites/${siteId}/hydrozones/${shrubId}/advice?month=2025-06&daysPerWeek=3`).expect(200);
+    const res = await manager
+      .get(`/api/sites/${siteId}/hydrozones/${shrubId}/advice?month=2025-06&daysPerWeek=3`)
+      .expect(200);
     const flow = (100 * 1) / 60;
     const pr = (96.25 * flow) / 1000;
     const weeklyIn = ((6.0 * 0.5) / 0.81) * (7 / 30);

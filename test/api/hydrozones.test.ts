@@ -1,6 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '@shared/auth/roles';
-import { createSite, createTestApp, createWorld, shareSite, signedIn, suffix, type Client, type TestApp, type World } from '../support/test-app';
+import {
+  createSite,
+  createTestApp,
+  createWorld,
+  shareSite,
+  signedIn,
+  suffix,
+  type Client,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 
 /** Hydrozones are technical data: `contribute` may change them, `read` may only look, strangers see nothing. */
 let app: TestApp;
@@ -12,7 +22,14 @@ let site: { id: number };
 const clients = new Map<string, Client>();
 type Who = `${'owner' | 'firm' | 'utility' | 'stranger'}.${Role}`;
 const client = (who: Who) => clients.get(who)!;
-const zone = (over: object = {}) => ({ name: `Zone ${suffix()}`, area: 800, areaUnit: 'ft2', plantWaterUse: 'low', irrigationMethod: 'drip', ...over });
+const zone = (over: object = {}) => ({
+  name: `Zone ${suffix()}`,
+  area: 800,
+  areaUnit: 'ft2',
+  plantWaterUse: 'low',
+  irrigationMethod: 'drip',
+  ...over,
+});
 
 beforeAll(async () => {
   app = await createTestApp();
@@ -24,7 +41,8 @@ beforeAll(async () => {
   await shareSite(app.db, site.id, firm.org.id, 'contribute');
   await shareSite(app.db, site.id, utility.org.id, 'read');
   for (const [label, w] of Object.entries({ owner, firm, utility, stranger })) {
-    for (const role of ['admin', 'manager', 'contractor', 'auditor'] as Role[]) clients.set(`${label}.${role}`, await signedIn(app, w.users[role].email));
+    for (const role of ['admin', 'manager', 'contractor', 'auditor'] as Role[])
+      clients.set(`${label}.${role}`, await signedIn(app, w.users[role].email));
   }
 });
 afterAll(async () => app?.stop());
@@ -53,7 +71,9 @@ describe('hydrozone access by role', () => {
     const edited = await c.patch(`/api/sites/${site.id}/hydrozones/${target.id}`, { notes: `by ${who}` });
     expect(edited.status).toBe(create === 201 ? 200 : create);
     if (edited.status === 200) expect(edited.body.notes).toBe(`by ${who}`);
-    expect((await c.delete(`/api/sites/${site.id}/hydrozones/${target.id}`)).status).toBe(create === 201 ? 204 : create);
+    expect((await c.delete(`/api/sites/${site.id}/hydrozones/${target.id}`)).status).toBe(
+      create === 201 ? 204 : create,
+    );
   });
 
   it('when a hydrozone is looked up through another site, then 404', async () => {
@@ -66,7 +86,8 @@ describe('hydrozone access by role', () => {
 
 describe('hydrozone input', () => {
   const post = (body: object) => client('owner.manager').post(`/api/sites/${site.id}/hydrozones`, zone(body));
-  const fieldOf = (res: { body: { error: { details: { field: string }[] } } }) => res.body.error.details.map((d) => d.field);
+  const fieldOf = (res: { body: { error: { details: { field: string }[] } } }) =>
+    res.body.error.details.map((d) => d.field);
 
   it.each([
     ['zero area', { area: 0 }, 'area'],
@@ -90,7 +111,9 @@ describe('hydrozone input', () => {
 
   it('when an edit would make the zone invalid, then 400 and the zone keeps its values', async () => {
     const z = (await post({}).expect(201)).body;
-    const res = await client('owner.manager').patch(`/api/sites/${site.id}/hydrozones/${z.id}`, { efficiencyOverride: 0 }).expect(400);
+    const res = await client('owner.manager')
+      .patch(`/api/sites/${site.id}/hydrozones/${z.id}`, { efficiencyOverride: 0 })
+      .expect(400);
     expect(fieldOf(res)).toContain('efficiencyOverride');
     const after = (await client('owner.manager').get(`/api/sites/${site.id}/hydrozones/${z.id}`).expect(200)).body;
     expect(after.efficiencyOverride).toBeNull();

@@ -11,7 +11,8 @@ let app: TestApp;
 /** How many messages with this subject the local fake SMTP server has received. */
 async function received(subject: string): Promise<number> {
   const res = await fetch(`http://${app.config.mail.host}:${app.config.mail.fakeServerHttpPort}/messages`);
-  return ((await res.json()) as { messages: { subject: string }[] }).messages.filter((m) => m.subject === subject).length;
+  return ((await res.json()) as { messages: { subject: string }[] }).messages.filter((m) => m.subject === subject)
+    .length;
 }
 
 beforeAll(async () => {
@@ -27,7 +28,9 @@ describe('mail queue', () => {
     const queueDown = new MailQueue(app.db, down);
     const queueUp = new MailQueue(app.db, up);
     try {
-      await app.db.transaction((em) => queueDown.enqueue(em, { to: 'ops@test.example', subject, text: 'hello' }, `test:${subject}`));
+      await app.db.transaction((em) =>
+        queueDown.enqueue(em, { to: 'ops@test.example', subject, text: 'hello' }, `test:${subject}`),
+      );
       const first = await queueDown.deliverDue();
       expect(first.retrying).toBeGreaterThanOrEqual(1);
       const row = await app.db.getRepository(MailMessageEntity).findOneByOrFail({ dedupeKey: `test:${subject}` });
@@ -38,11 +41,16 @@ describe('mail queue', () => {
       // Not due yet (back-off): nothing is sent; make it due, as time passing would.
       await queueUp.deliverDue();
       expect(await received(subject)).toBe(0);
-      await app.db.getRepository(MailMessageEntity).update({ id: row.id }, { nextAttemptAt: new Date(Date.now() - 1000) });
+      await app.db
+        .getRepository(MailMessageEntity)
+        .update({ id: row.id }, { nextAttemptAt: new Date(Date.now() - 1000) });
       await queueUp.deliverDue();
       await queueUp.deliverDue();
       expect(await received(subject)).toBe(1);
-      expect(await app.db.getRepository(MailMessageEntity).findOneByOrFail({ id: row.id })).toMatchObject({ status: 'sent', attempts: 2 });
+      expect(await app.db.getRepository(MailMessageEntity).findOneByOrFail({ id: row.id })).toMatchObject({
+        status: 'sent',
+        attempts: 2,
+      });
     } finally {
       down.close();
       up.close();
@@ -54,8 +62,12 @@ describe('mail queue', () => {
     const mailer = createSmtpMailer(testConfig().mail);
     const queue = new MailQueue(app.db, mailer);
     try {
-      const firstTime = await app.db.transaction((em) => queue.enqueue(em, { to: 'a@test.example', subject, text: 'x' }, `k:${subject}`));
-      const secondTime = await app.db.transaction((em) => queue.enqueue(em, { to: 'a@test.example', subject, text: 'x' }, `k:${subject}`));
+      const firstTime = await app.db.transaction((em) =>
+        queue.enqueue(em, { to: 'a@test.example', subject, text: 'x' }, `k:${subject}`),
+      );
+      const secondTime = await app.db.transaction((em) =>
+        queue.enqueue(em, { to: 'a@test.example', subject, text: 'x' }, `k:${subject}`),
+      );
       expect([firstTime, secondTime]).toEqual([true, false]);
       await Promise.all([queue.deliverDue(), new MailQueue(app.db, mailer).deliverDue()]);
       expect(await received(subject)).toBe(1);
@@ -121,7 +133,10 @@ describe('job lease', () => {
       await new Promise((r) => setTimeout(r, 200));
       return 'done';
     };
-    const results = await Promise.all([new JobLease(app.db, name, 'x').runExclusive(10_000, work), new JobLease(app.db, name, 'y').runExclusive(10_000, work)]);
+    const results = await Promise.all([
+      new JobLease(app.db, name, 'x').runExclusive(10_000, work),
+      new JobLease(app.db, name, 'y').runExclusive(10_000, work),
+    ]);
     expect(runs).toBe(1);
     expect(results.filter((r) => r === 'done')).toHaveLength(1);
     expect(results.filter((r) => r === null)).toHaveLength(1);

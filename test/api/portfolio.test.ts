@@ -1,7 +1,17 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DailyUseRepository } from '../../backend/src/components/readings/data/daily-use-repository';
 import { normals, etoRainCsv, stationForSite } from '../support/budget-fixtures';
-import { createSite, createTestApp, createWorld, shareSite, signedIn, suffix, type Client, type TestApp, type World } from '../support/test-app';
+import {
+  createSite,
+  createTestApp,
+  createWorld,
+  shareSite,
+  signedIn,
+  suffix,
+  type Client,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 
 /**
  * One budgeted site worked by hand. June 2025 in Los Angeles: 5.08 mm (0.2 in) ETo a day, no rain, so
@@ -28,10 +38,24 @@ async function hourlyReadings(siteId: number, fromUtc: string, hours: number, ga
     `INSERT INTO meter (site_id, ref, unit, register_multiplier, purpose, water_source) VALUES (?, ?, 'gal', 1, 'dedicated-irrigation', 'recycled')`,
     [siteId, `M-${suffix()}`],
   );
-  const [upload] = await app.db.query(`INSERT INTO upload (site_id, file_name, status) VALUES (?, 'readings.csv', 'done') RETURNING id`, [siteId]);
+  const [upload] = await app.db.query(
+    `INSERT INTO upload (site_id, file_name, status) VALUES (?, 'readings.csv', 'done') RETURNING id`,
+    [siteId],
+  );
   const start = Date.parse(fromUtc);
-  const rows = Array.from({ length: hours }, (_, h) => [meter.insertId, new Date(start + h * 3_600_000), 60, gallons(h), gallons(h), 'gal', upload.id]);
-  await app.db.query('INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?', [rows]);
+  const rows = Array.from({ length: hours }, (_, h) => [
+    meter.insertId,
+    new Date(start + h * 3_600_000),
+    60,
+    gallons(h),
+    gallons(h),
+    'gal',
+    upload.id,
+  ]);
+  await app.db.query(
+    'INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?',
+    [rows],
+  );
   await app.db.transaction((em) => new DailyUseRepository(app.db).rebuildSite(em, siteId));
 }
 
@@ -47,17 +71,43 @@ beforeAll(async () => {
   budgeted = await createSite(app.db, owner.org.id, { name: `=Sum Park ${suffix()}` });
   unbudgeted = await createSite(app.db, owner.org.id, { name: `Bare Yard ${suffix()}` });
   privateSite = await createSite(app.db, owner.org.id, { name: `Quiet Court ${suffix()}` });
-  await app.db.query('INSERT INTO site_tag (site_id, tag) VALUES (?, ?), (?, ?)', [budgeted.id, tag, unbudgeted.id, tag]);
+  await app.db.query('INSERT INTO site_tag (site_id, tag) VALUES (?, ?), (?, ?)', [
+    budgeted.id,
+    tag,
+    unbudgeted.id,
+    tag,
+  ]);
   await shareSite(app.db, budgeted.id, contractorOrg.org.id, 'contribute');
   await shareSite(app.db, budgeted.id, utility.org.id, 'read');
 
-  await manager.post(`/api/sites/${budgeted.id}/hydrozones`, { name: 'Shrub bed', area: 1000, areaUnit: 'ft2', plantFactor: 0.5, irrigationMethod: 'drip' }).expect(201);
+  await manager
+    .post(`/api/sites/${budgeted.id}/hydrozones`, {
+      name: 'Shrub bed',
+      area: 1000,
+      areaUnit: 'ft2',
+      plantFactor: 0.5,
+      irrigationMethod: 'drip',
+    })
+    .expect(201);
   const stationId = await stationForSite(manager, budgeted.id);
-  await manager.put(`/api/weather-stations/${stationId}/normals`, { normals: normals({ etoMm: 150, rainMm: 20 }) }).expect(200);
-  await manager.postText(`/api/weather-stations/${stationId}/daily?format=eto-rain`, etoRainCsv('2025-06-01', 30, () => [5.08, 0])).expect(200);
-  await manager.post(`/api/sites/${budgeted.id}/rate-schedules`, {
-    name: 'Uniform', unit: 'ccf', fixedChargePerPeriod: 20, volumeCharge: { kind: 'uniform', pricePerUnit: 4 }, effectiveFrom: '2025-01-01',
-  }).expect(201);
+  await manager
+    .put(`/api/weather-stations/${stationId}/normals`, { normals: normals({ etoMm: 150, rainMm: 20 }) })
+    .expect(200);
+  await manager
+    .postText(
+      `/api/weather-stations/${stationId}/daily?format=eto-rain`,
+      etoRainCsv('2025-06-01', 30, () => [5.08, 0]),
+    )
+    .expect(200);
+  await manager
+    .post(`/api/sites/${budgeted.id}/rate-schedules`, {
+      name: 'Uniform',
+      unit: 'ccf',
+      fixedChargePerPeriod: 20,
+      volumeCharge: { kind: 'uniform', pricePerUnit: 4 },
+      effectiveFrom: '2025-01-01',
+    })
+    .expect(201);
   // 1 June 00:00 PDT = 07:00 UTC; 720 hours later is 1 July 00:00 PDT.
   await hourlyReadings(budgeted.id, '2025-06-01T07:00:00Z', 720, () => 4);
   // The unbudgeted site: 10 gal at 02:00 local on each of the first 10 days (a night leak), nothing else.
@@ -71,7 +121,9 @@ const june = '/api/portfolio?period=month&from=2025-06-01';
 
 describe('portfolio', () => {
   it("when the manager opens June, then the budgeted site's use, budget and percent match the hand sums", async () => {
-    const body = (await manager.get(`${june}&sort=name&dir=asc&pageSize=200&organisationId=${owner.org.id}`).expect(200)).body;
+    const body = (
+      await manager.get(`${june}&sort=name&dir=asc&pageSize=200&organisationId=${owner.org.id}`).expect(200)
+    ).body;
     expect(body.period).toMatchObject({ from: '2025-06-01', to: '2025-06-30' });
     expect(body.sites.total).toBe(3);
     const row = body.sites.items.find((r: { siteId: number }) => r.siteId === budgeted.id);
@@ -112,7 +164,11 @@ describe('portfolio', () => {
   });
 
   it('when a contractor, an auditor or another organisation asks, then each sees only what is shared with it', async () => {
-    for (const [world, expected] of [[contractorOrg, [budgeted.id]], [utility, [budgeted.id]], [stranger, []]] as const) {
+    for (const [world, expected] of [
+      [contractorOrg, [budgeted.id]],
+      [utility, [budgeted.id]],
+      [stranger, []],
+    ] as const) {
       for (const role of ['manager', 'contractor', 'auditor'] as const) {
         const client = await signedIn(app, world.users[role].email);
         const body = (await client.get(june).expect(200)).body;
@@ -130,7 +186,8 @@ describe('portfolio', () => {
 
 describe('site dashboard', () => {
   it('when the overview covers June, then daily use and the ETo-spread budget add up to the month', async () => {
-    const body = (await manager.get(`/api/sites/${budgeted.id}/overview?from=2025-06-01&to=2025-06-30`).expect(200)).body;
+    const body = (await manager.get(`/api/sites/${budgeted.id}/overview?from=2025-06-01&to=2025-06-30`).expect(200))
+      .body;
     expect(body.days).toHaveLength(30);
     expect(body.days[0]).toMatchObject({ date: '2025-06-01', useGallons: 96, etoMm: 5.08, rainMm: 0 });
     expect(body.days[0].budgetGallons).toBeCloseTo(BUDGET / 30, 6);
@@ -146,7 +203,9 @@ describe('site dashboard', () => {
     expect(body.days[0].hours[3]).toBe(0);
     expect(body.days[10].hours[2]).toBeNull();
     expect(body.days[9].hours[2]).toBe(10);
-    const total = body.days.flatMap((d: { hours: (number | null)[] }) => d.hours).reduce((s: number, g: number | null) => s + (g ?? 0), 0);
+    const total = body.days
+      .flatMap((d: { hours: (number | null)[] }) => d.hours)
+      .reduce((s: number, g: number | null) => s + (g ?? 0), 0);
     expect(total).toBe(100);
   });
 
@@ -166,9 +225,13 @@ describe('site dashboard', () => {
   it('when the monthly table is exported, then the CSV has units in its headers and the site name cannot run as a formula', async () => {
     const res = await manager.get(`/api/sites/${budgeted.id}/monthly?from=2025-06&to=2025-06&format=csv`).expect(200);
     expect(res.headers['content-type']).toMatch(/text\/csv/);
-    expect(res.headers['content-disposition']).toMatch(/attachment; filename="Sum-Park-[a-f0-9]+-monthly-2025-06-to-2025-06\.csv"/);
+    expect(res.headers['content-disposition']).toMatch(
+      /attachment; filename="Sum-Park-[a-f0-9]+-monthly-2025-06-to-2025-06\.csv"/,
+    );
     const [header, row] = res.text.trim().split(/\r?\n/);
-    expect(header).toBe('Site,Month,Use (gal),Budget (gal),Variance (gal),Percent of budget (%),ETo (mm),Rain (mm),Cost,Currency,Flags');
+    expect(header).toBe(
+      'Site,Month,Use (gal),Budget (gal),Variance (gal),Percent of budget (%),ETo (mm),Rain (mm),Cost,Currency,Flags',
+    );
     expect(row!.startsWith(`'=Sum Park`)).toBe(true);
     expect(row).toContain(',2025-06,2880,');
   });
@@ -176,8 +239,16 @@ describe('site dashboard', () => {
 
 describe('open alerts', () => {
   it('when the site has one open and one resolved alert, then the portfolio counts one and the overview marks both', async () => {
-    const base = { kind: 'leak', subKind: 'night-flow', start: new Date('2025-06-10T09:00:00Z'), end: new Date('2025-06-10T13:00:00Z') };
-    for (const [status, key] of [['open', `a-${suffix()}`], ['resolved', `b-${suffix()}`]] as const) {
+    const base = {
+      kind: 'leak',
+      subKind: 'night-flow',
+      start: new Date('2025-06-10T09:00:00Z'),
+      end: new Date('2025-06-10T13:00:00Z'),
+    };
+    for (const [status, key] of [
+      ['open', `a-${suffix()}`],
+      ['resolved', `b-${suffix()}`],
+    ] as const) {
       await app.db.query(
         `INSERT INTO alert (site_id, kind, sub_kind, finding_key, condition_key, period_start_utc, period_end_utc, severity, status, evidence, explanation, first_detected_at, last_seen_at)
          VALUES (?, ?, ?, ?, ?, ?, ?, 'act-soon', ?, '{}', 'Water ran every night hour.', NOW(3), NOW(3))`,
@@ -186,9 +257,16 @@ describe('open alerts', () => {
     }
     const body = (await manager.get(`${june}&condition=open-alerts&organisationId=${owner.org.id}`).expect(200)).body;
     expect(body.alertsAvailable).toBe(true);
-    expect(body.sites.items.map((r: { siteId: number; openAlerts: number }) => [r.siteId, r.openAlerts])).toEqual([[unbudgeted.id, 1]]);
-    const overview = (await manager.get(`/api/sites/${unbudgeted.id}/overview?from=2025-06-01&to=2025-06-30`).expect(200)).body;
-    expect(overview.alerts.map((a: { date: string; status: string }) => [a.date, a.status])).toEqual([['2025-06-10', 'open'], ['2025-06-10', 'resolved']]);
+    expect(body.sites.items.map((r: { siteId: number; openAlerts: number }) => [r.siteId, r.openAlerts])).toEqual([
+      [unbudgeted.id, 1],
+    ]);
+    const overview = (
+      await manager.get(`/api/sites/${unbudgeted.id}/overview?from=2025-06-01&to=2025-06-30`).expect(200)
+    ).body;
+    expect(overview.alerts.map((a: { date: string; status: string }) => [a.date, a.status])).toEqual([
+      ['2025-06-10', 'open'],
+      ['2025-06-10', 'resolved'],
+    ]);
     expect(overview.figures.openAlerts).toBe(1);
   });
 });
@@ -199,13 +277,26 @@ describe('cached monthly budgets follow their inputs', () => {
   it('when a hydrozone is added, changed or removed after a month was cached, then the next read shows the new budget', async () => {
     const site = await createSite(app.db, owner.org.id, { name: `Cache ${suffix()}` });
     const stationId = await stationForSite(manager, site.id);
-    await manager.postText(`/api/weather-stations/${stationId}/daily?format=eto-rain`, etoRainCsv('2025-06-01', 30, () => [5.08, 0])).expect(200);
+    await manager
+      .postText(
+        `/api/weather-stations/${stationId}/daily?format=eto-rain`,
+        etoRainCsv('2025-06-01', 30, () => [5.08, 0]),
+      )
+      .expect(200);
     const budgetOf = async () => {
       const res = await manager.get(`/api/sites/${site.id}/monthly?from=2025-06&to=2025-06`).expect(200);
       return res.body.months[0].budgetGallons as number | null;
     };
     expect(await budgetOf()).toBeNull(); // no hydrozones yet: cached as "no budget"
-    const zone = await manager.post(`/api/sites/${site.id}/hydrozones`, { name: 'Shrubs', area: 1000, areaUnit: 'ft2', plantFactor: 0.5, irrigationMethod: 'drip' }).expect(201);
+    const zone = await manager
+      .post(`/api/sites/${site.id}/hydrozones`, {
+        name: 'Shrubs',
+        area: 1000,
+        areaUnit: 'ft2',
+        plantFactor: 0.5,
+        irrigationMethod: 'drip',
+      })
+      .expect(201);
     expect(await budgetOf()).toBeCloseTo(BUDGET, 0);
     await manager.patch(`/api/sites/${site.id}/hydrozones/${zone.body.id}`, { area: 2000 }).expect(200);
     expect(await budgetOf()).toBeCloseTo(2 * BUDGET, 0);

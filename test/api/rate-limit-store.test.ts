@@ -6,11 +6,19 @@ import { testConfig } from '../support/test-env';
 
 let pool: Pool;
 const hits = async (bucket: string) =>
-  ((await pool.query<RowDataPacket[]>('SELECT hits FROM rate_limit_hit WHERE bucket = ?', [bucket]))[0][0]?.['hits'] as number | undefined);
+  (await pool.query<RowDataPacket[]>('SELECT hits FROM rate_limit_hit WHERE bucket = ?', [bucket]))[0][0]?.['hits'] as
+    number | undefined;
 
 beforeAll(() => {
   const { db } = testConfig();
-  pool = createPool({ host: db.host, port: db.port, user: db.user, password: db.password, database: db.database, timezone: 'Z' });
+  pool = createPool({
+    host: db.host,
+    port: db.port,
+    user: db.user,
+    password: db.password,
+    database: db.database,
+    timezone: 'Z',
+  });
 });
 afterAll(async () => pool?.end());
 
@@ -32,10 +40,16 @@ describe('sign-in counters in MariaDB', () => {
     const store = new MariaDbRateLimitStore(pool, 'test');
     store.init({ windowMs: 60_000 } as never);
     const stale = `stale-${suffix()}`;
-    await pool.query('INSERT INTO rate_limit_hit (bucket, hits, reset_at) VALUES (?, 7, ?)', [`test:${stale}`, new Date(Date.now() - 1_000)]);
+    await pool.query('INSERT INTO rate_limit_hit (bucket, hits, reset_at) VALUES (?, 7, ?)', [
+      `test:${stale}`,
+      new Date(Date.now() - 1_000),
+    ]);
     expect((await store.increment(stale)).totalHits).toBe(1);
     const gone = `gone-${suffix()}`;
-    await pool.query('INSERT INTO rate_limit_hit (bucket, hits, reset_at) VALUES (?, 3, ?)', [`test:${gone}`, new Date(Date.now() - 1_000)]);
+    await pool.query('INSERT INTO rate_limit_hit (bucket, hits, reset_at) VALUES (?, 3, ?)', [
+      `test:${gone}`,
+      new Date(Date.now() - 1_000),
+    ]);
     await store.prune();
     expect(await hits(`test:${gone}`)).toBeUndefined();
     expect(await hits(`test:${stale}`)).toBe(1);

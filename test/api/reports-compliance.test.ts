@@ -1,5 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createOrganisation, createSite, createTestApp, createUser, createWorld, shareSite, signedIn, type Client, type TestApp, type World } from '../support/test-app';
+import {
+  createOrganisation,
+  createSite,
+  createTestApp,
+  createUser,
+  createWorld,
+  shareSite,
+  signedIn,
+  type Client,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 import { insertMonthlyUse, pdfText, weatherForSite } from '../support/report-fixtures';
 
 let app: TestApp;
@@ -14,7 +25,9 @@ const USE_JUNE = [90_000, 140_000, 40_000, 200_000];
 
 async function mailsTo(address: string): Promise<{ subject: string; text: string }[]> {
   const res = await fetch(`http://${app.config.mail.host}:${app.config.mail.fakeServerHttpPort}/messages`);
-  return ((await res.json()) as { messages: { to: string; subject: string; text: string }[] }).messages.filter((m) => m.to.includes(address));
+  return ((await res.json()) as { messages: { to: string; subject: string; text: string }[] }).messages.filter((m) =>
+    m.to.includes(address),
+  );
 }
 
 beforeAll(async () => {
@@ -25,9 +38,20 @@ beforeAll(async () => {
   auditor = await signedIn(app, (await createUser(app.db, utility.id, 'auditor')).email);
   const names = ['Alder Court', 'Birch Commons', '=HYPERLINK("x")', 'Unshared Yard'];
   for (const [i, name] of names.entries()) {
-    const site = await createSite(app.db, owner.org.id, { name: `${name}`, kind: i === 1 ? 'office-park' : 'hoa-common-area' });
+    const site = await createSite(app.db, owner.org.id, {
+      name: `${name}`,
+      kind: i === 1 ? 'office-park' : 'hoa-common-area',
+    });
     sites.push(site);
-    await manager.post(`/api/sites/${site.id}/hydrozones`, { name: 'Shrubs', area: 20_000, areaUnit: 'ft2', plantFactor: 0.5, irrigationMethod: 'drip' }).expect(201);
+    await manager
+      .post(`/api/sites/${site.id}/hydrozones`, {
+        name: 'Shrubs',
+        area: 20_000,
+        areaUnit: 'ft2',
+        plantFactor: 0.5,
+        irrigationMethod: 'drip',
+      })
+      .expect(201);
     await weatherForSite(manager, site.id, '2024-06-01', '2025-06-30');
     await insertMonthlyUse(app.db, site.id, '2025-06', USE_JUNE[i]!, i === 2 ? 15 : 30);
     await insertMonthlyUse(app.db, site.id, '2024-06', 100_000);
@@ -38,18 +62,21 @@ beforeAll(async () => {
 afterAll(async () => app?.stop());
 
 describe('compliance ranking', () => {
-  it('when the manager ranks June, then the order and percentages match each site\'s budget page', async () => {
+  it("when the manager ranks June, then the order and percentages match each site's budget page", async () => {
     const r = (await manager.get('/api/reports/compliance?year=2025&month=2025-06&pageSize=200').expect(200)).body;
     const mine = r.items.filter((row: { siteId: number }) => sites.some((s) => s.id === row.siteId));
     expect(mine).toHaveLength(4);
     const expected: { siteId: number; percent: number }[] = [];
     for (const [i, s] of sites.entries()) {
-      const budget = (await manager.get(`/api/sites/${s.id}/budget?from=2025-06&to=2025-06`).expect(200)).body.months[0].gallons;
+      const budget = (await manager.get(`/api/sites/${s.id}/budget?from=2025-06&to=2025-06`).expect(200)).body.months[0]
+        .gallons;
       expected.push({ siteId: s.id, percent: (100 * USE_JUNE[i]!) / budget });
     }
     expected.sort((a, b) => b.percent - a.percent);
     expect(mine.map((row: { siteId: number }) => row.siteId)).toEqual(expected.map((e) => e.siteId));
-    mine.forEach((row: { percentOfBudget: number }, i: number) => expect(row.percentOfBudget).toBeCloseTo(expected[i]!.percent, 3));
+    mine.forEach((row: { percentOfBudget: number }, i: number) =>
+      expect(row.percentOfBudget).toBeCloseTo(expected[i]!.percent, 3),
+    );
     const gappy = mine.find((row: { siteId: number }) => row.siteId === sites[2]!.id);
     expect(gappy.completeness).toBeCloseTo(0.5, 6);
     const alder = mine.find((row: { siteId: number }) => row.siteId === sites[0]!.id);
@@ -63,16 +90,24 @@ describe('compliance ranking', () => {
   it('when filtered by area or customer type, then only matching sites remain', async () => {
     const byTag = (await manager.get('/api/reports/compliance?year=2025&month=2025-06&tag=north').expect(200)).body;
     expect(byTag.items.map((r: { siteName: string }) => r.siteName)).toEqual(['Birch Commons']);
-    const byKind = (await manager.get('/api/reports/compliance?year=2025&month=2025-06&kind=office-park').expect(200)).body;
+    const byKind = (await manager.get('/api/reports/compliance?year=2025&month=2025-06&kind=office-park').expect(200))
+      .body;
     expect(byKind.items.every((r: { siteKind: string }) => r.siteKind === 'office-park')).toBe(true);
-    const sorted = (await manager.get('/api/reports/compliance?year=2025&month=2025-06&sort=name&dir=asc&pageSize=2').expect(200)).body;
+    const sorted = (
+      await manager.get('/api/reports/compliance?year=2025&month=2025-06&sort=name&dir=asc&pageSize=2').expect(200)
+    ).body;
     expect(sorted.items).toHaveLength(2);
     expect(sorted.total).toBe(4);
   });
 
   it('when a utility auditor asks, then only shared sites are ranked, and a contractor is refused', async () => {
     const r = (await auditor.get('/api/reports/compliance?year=2025&month=2025-06').expect(200)).body;
-    expect(r.items.map((row: { siteId: number }) => row.siteId).sort()).toEqual(sites.slice(0, 3).map((s) => s.id).sort());
+    expect(r.items.map((row: { siteId: number }) => row.siteId).sort()).toEqual(
+      sites
+        .slice(0, 3)
+        .map((s) => s.id)
+        .sort(),
+    );
     const contractor = await signedIn(app, owner.users.contractor.email);
     await contractor.get('/api/reports/compliance?year=2025').expect(403);
     await auditor.post(`/api/reports/compliance/${sites[3]!.id}/notice`, {}).expect(404);
@@ -89,7 +124,12 @@ describe('compliance ranking', () => {
 
   it('when an auditor sends a notice twice, then the manager gets one e-mail and the site logs it once', async () => {
     const site = sites[1]!;
-    const sent = await auditor.post(`/api/reports/compliance/${site.id}/notice`, { month: '2025-06', message: 'Please check the north valves.' }).expect(201);
+    const sent = await auditor
+      .post(`/api/reports/compliance/${site.id}/notice`, {
+        month: '2025-06',
+        message: 'Please check the north valves.',
+      })
+      .expect(201);
     expect(sent.body.recipients).toBe(2); // the owner's admin and manager
     const again = await auditor.post(`/api/reports/compliance/${site.id}/notice`, { month: '2025-06' }).expect(409);
     expect(again.body.error.message).toMatch(/already sent/);
@@ -104,7 +144,10 @@ describe('compliance ranking', () => {
     expect(mails).toHaveLength(1);
     expect(mails[0]!.text).toMatch(/used 140,000 gal in 2025-06, \d+ % of its water budget of [\d,]+ gal/);
     expect(mails[0]!.text).toContain('Please check the north valves.');
-    const log = await app.db.query("SELECT user_id AS userId, organisation_id AS org FROM audit_entry WHERE entity = 'site' AND entity_id = ? AND action = 'compliance-notice'", [String(site.id)]);
+    const log = await app.db.query(
+      "SELECT user_id AS userId, organisation_id AS org FROM audit_entry WHERE entity = 'site' AND entity_id = ? AND action = 'compliance-notice'",
+      [String(site.id)],
+    );
     expect(log).toHaveLength(1);
     expect(Number(log[0].org)).toBe(owner.org.id);
     const ranked = (await manager.get('/api/reports/compliance?year=2025&month=2025-06&tag=north').expect(200)).body;
@@ -113,4 +156,3 @@ describe('compliance ranking', () => {
     await contractor.post(`/api/reports/compliance/${sites[0]!.id}/notice`, {}).expect(403);
   });
 });
-

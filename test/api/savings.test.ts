@@ -1,5 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createOrganisation, createSite, createTestApp, createUser, createWorld, shareSite, signedIn, type Client, type TestApp, type World } from '../support/test-app';
+import {
+  createOrganisation,
+  createSite,
+  createTestApp,
+  createUser,
+  createWorld,
+  shareSite,
+  signedIn,
+  type Client,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 import { insertMonthlyUse, pdfText, monthEto, monthsBetween, weatherForSite } from '../support/report-fixtures';
 
 let app: TestApp;
@@ -14,8 +25,15 @@ const trueUse = (month: string) => 3000 + 800 * monthEto(month);
 const smallNoise = [0.02, -0.015, 0.01, -0.02, 0.005, 0.015, -0.01, -0.005, 0.02, -0.02, 0.01, -0.01];
 const bigNoise = [0.35, -0.3, 0.25, -0.4, 0.3, -0.35, 0.4, -0.25, 0.3, -0.3, 0.35, -0.35];
 const project = {
-  title: 'Greenbelt drip retrofit', changeKind: 'spray-to-drip', changeDescription: 'Spray heads on the slope replaced by inline drip.',
-  installedOn: '2025-01-15', baselineFrom: '2024-01', baselineTo: '2024-12', reportingFrom: '2025-02', reportingTo: '2025-09', modelForm: 'eto',
+  title: 'Greenbelt drip retrofit',
+  changeKind: 'spray-to-drip',
+  changeDescription: 'Spray heads on the slope replaced by inline drip.',
+  installedOn: '2025-01-15',
+  baselineFrom: '2024-01',
+  baselineTo: '2024-12',
+  reportingFrom: '2025-02',
+  reportingTo: '2025-09',
+  modelForm: 'eto',
 };
 
 async function siteWithUse(name: string, noise: number[]): Promise<number> {
@@ -23,7 +41,15 @@ async function siteWithUse(name: string, noise: number[]): Promise<number> {
   await weatherForSite(manager, site.id, '2024-01-01', '2025-09-30');
   for (const [i, m] of BASELINE.entries()) await insertMonthlyUse(app.db, site.id, m, trueUse(m) * (1 + noise[i]!));
   for (const m of REPORTING) await insertMonthlyUse(app.db, site.id, m, 0.7 * trueUse(m));
-  await manager.post(`/api/sites/${site.id}/rate-schedules`, { name: 'Landscape rate', unit: 'kgal', fixedChargePerPeriod: 10, volumeCharge: { kind: 'uniform', pricePerUnit: 4 }, effectiveFrom: '2024-01-01' }).expect(201);
+  await manager
+    .post(`/api/sites/${site.id}/rate-schedules`, {
+      name: 'Landscape rate',
+      unit: 'kgal',
+      fixedChargePerPeriod: 10,
+      volumeCharge: { kind: 'uniform', pricePerUnit: 4 },
+      effectiveFrom: '2024-01-01',
+    })
+    .expect(201);
   return site.id;
 }
 
@@ -38,12 +64,21 @@ describe('savings projects', () => {
   it('when contractors and managers write and auditors read, then access follows the site levels and other organisations get 404', async () => {
     const site = await createSite(app.db, owner.org.id);
     const created = await manager.post(`/api/sites/${site.id}/savings-projects`, project).expect(201);
-    expect(created.body).toMatchObject({ siteId: site.id, title: project.title, installedOn: '2025-01-15', createdBy: owner.users.manager.id });
+    expect(created.body).toMatchObject({
+      siteId: site.id,
+      title: project.title,
+      installedOn: '2025-01-15',
+      createdBy: owner.users.manager.id,
+    });
 
     const contractor = await signedIn(app, owner.users.contractor.email);
     await contractor.patch(`/api/savings-projects/${created.body.id}`, { title: 'Slope drip retrofit' }).expect(200);
     const auditor = await signedIn(app, owner.users.auditor.email);
-    expect((await auditor.get(`/api/sites/${site.id}/savings-projects`).expect(200)).body.map((p: { title: string }) => p.title)).toEqual(['Slope drip retrofit']);
+    expect(
+      (await auditor.get(`/api/sites/${site.id}/savings-projects`).expect(200)).body.map(
+        (p: { title: string }) => p.title,
+      ),
+    ).toEqual(['Slope drip retrofit']);
     await auditor.post(`/api/sites/${site.id}/savings-projects`, project).expect(403);
 
     // A contractor firm with a contribute share may create; one with a read share may only look.
@@ -54,7 +89,11 @@ describe('savings projects', () => {
     await shareSite(app.db, site.id, firm.id, 'read');
     await firmContractor.get(`/api/savings-projects/${created.body.id}`).expect(200);
     await firmContractor.post(`/api/sites/${site.id}/savings-projects`, project).expect(403);
-    await app.db.query('UPDATE site_share SET access = ? WHERE site_id = ? AND organisation_id = ?', ['contribute', site.id, firm.id]);
+    await app.db.query('UPDATE site_share SET access = ? WHERE site_id = ? AND organisation_id = ?', [
+      'contribute',
+      site.id,
+      firm.id,
+    ]);
     await firmContractor.post(`/api/sites/${site.id}/savings-projects`, project).expect(201);
 
     const stranger = await signedIn(app, (await createWorld(app.db)).users.admin.email);
@@ -64,7 +103,9 @@ describe('savings projects', () => {
 
   it('when the baseline ends after installation, then 400 names the field', async () => {
     const site = await createSite(app.db, owner.org.id);
-    const res = await manager.post(`/api/sites/${site.id}/savings-projects`, { ...project, baselineTo: '2025-01' }).expect(400);
+    const res = await manager
+      .post(`/api/sites/${site.id}/savings-projects`, { ...project, baselineTo: '2025-01' })
+      .expect(400);
     expect(res.body.error.details[0].field).toBe('baselineTo');
   });
 
@@ -107,7 +148,10 @@ describe('savings projects', () => {
   it('when exported, then the CSV neutralises a formula site name and the PDF states the site, the savings and the method', async () => {
     const siteId = await siteWithUse('=HYPERLINK("x")', smallNoise);
     const id = (await manager.post(`/api/sites/${siteId}/savings-projects`, project).expect(201)).body.id;
-    const csv = await manager.get(`/api/savings-projects/${id}/report?format=csv`).expect(200).expect('content-type', /text\/csv/);
+    const csv = await manager
+      .get(`/api/savings-projects/${id}/report?format=csv`)
+      .expect(200)
+      .expect('content-type', /text\/csv/);
     expect(csv.text).toContain(`"'=HYPERLINK(""x"")"`);
     expect(csv.text).not.toMatch(/(^|,)=HYPERLINK/m);
     expect(csv.text.split('\r\n')[0]).toContain('Metered use (gal)');
@@ -115,11 +159,12 @@ describe('savings projects', () => {
     const r = (await manager.get(`/api/savings-projects/${id}/report`).expect(200)).body;
     const text = await pdfText(manager, `/api/savings-projects/${id}/report.pdf`);
     expect(text).toContain('=HYPERLINK("x")');
-    expect(text).toContain(`${Math.round(r.savings.savedGal).toLocaleString('en-US')} gal (${r.savings.savedPercent.toFixed(1)} %)`);
+    expect(text).toContain(
+      `${Math.round(r.savings.savedGal).toLocaleString('en-US')} gal (${r.savings.savedPercent.toFixed(1)} %)`,
+    );
     expect(text).toContain('to predict what the site would have used without the change');
     expect(text).toContain('ASHRAE Guideline 14');
     // The Guideline 14 threshold, spelled out because the shipped font subset has no ≤ sign.
     expect(text).toContain('at most 20 %');
   });
 });
-

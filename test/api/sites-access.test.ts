@@ -1,6 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Role } from '@shared/auth/roles';
-import { Client, createSite, createTestApp, createWorld, shareSite, signedIn, suffix, type TestApp, type World } from '../support/test-app';
+import {
+  Client,
+  createSite,
+  createTestApp,
+  createWorld,
+  shareSite,
+  signedIn,
+  suffix,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 
 /**
  * Who may do what on sites, as a table. The owner organisation shares site A with a contractor firm
@@ -52,27 +62,36 @@ const matrix: [Who, number, number, number, number, number][] = [
 ];
 
 describe('site access matrix', () => {
-  it.each(matrix)('%s: read A %i, edit A %i, delete A %i, share A %i, read B %i', async (who, read, edit, del, share, readB) => {
-    const c = client(who);
-    expect((await c.get(`/api/sites/${siteA.id}`)).status).toBe(read);
-    const note = `edited by ${who} ${suffix()}`;
-    const patched = await c.patch(`/api/sites/${siteA.id}`, { notes: note });
-    expect(patched.status).toBe(edit);
-    if (edit === 200) expect(patched.body.notes).toBe(note);
-    const shared = await c.put(`/api/sites/${siteA.id}/shares/${stranger.org.id}`, { access: 'read' });
-    expect(shared.status).toBe(share);
-    if (shared.status === 200) await c.delete(`/api/sites/${siteA.id}/shares/${stranger.org.id}`).expect(204);
-    // Delete is tried on a site of its own, so the other rows keep site A.
-    const victim = await createSite(app.db, owner.org.id);
-    await shareSite(app.db, victim.id, firm.org.id, 'contribute');
-    await shareSite(app.db, victim.id, utility.org.id, 'read');
-    expect((await c.delete(`/api/sites/${victim.id}`)).status).toBe(del);
-    expect((await c.get(`/api/sites/${siteB.id}`)).status).toBe(readB);
-  });
+  it.each(matrix)(
+    '%s: read A %i, edit A %i, delete A %i, share A %i, read B %i',
+    async (who, read, edit, del, share, readB) => {
+      const c = client(who);
+      expect((await c.get(`/api/sites/${siteA.id}`)).status).toBe(read);
+      const note = `edited by ${who} ${suffix()}`;
+      const patched = await c.patch(`/api/sites/${siteA.id}`, { notes: note });
+      expect(patched.status).toBe(edit);
+      if (edit === 200) expect(patched.body.notes).toBe(note);
+      const shared = await c.put(`/api/sites/${siteA.id}/shares/${stranger.org.id}`, { access: 'read' });
+      expect(shared.status).toBe(share);
+      if (shared.status === 200) await c.delete(`/api/sites/${siteA.id}/shares/${stranger.org.id}`).expect(204);
+      // Delete is tried on a site of its own, so the other rows keep site A.
+      const victim = await createSite(app.db, owner.org.id);
+      await shareSite(app.db, victim.id, firm.org.id, 'contribute');
+      await shareSite(app.db, victim.id, utility.org.id, 'read');
+      expect((await c.delete(`/api/sites/${victim.id}`)).status).toBe(del);
+      expect((await c.get(`/api/sites/${siteB.id}`)).status).toBe(readB);
+    },
+  );
 });
 
 describe('creating sites and managing users, by role', () => {
-  const body = () => ({ name: `New ${suffix()}`, kind: 'park', address: '5 Fern Row, Nowhere', timeZone: 'America/Denver', tags: ['demo'] });
+  const body = () => ({
+    name: `New ${suffix()}`,
+    kind: 'park',
+    address: '5 Fern Row, Nowhere',
+    timeZone: 'America/Denver',
+    tags: ['demo'],
+  });
   it.each([
     ['owner.admin', 201, 200],
     ['owner.manager', 201, 403],
@@ -83,7 +102,11 @@ describe('creating sites and managing users, by role', () => {
   ] as [Who, number, number][])('%s: create site %i, list users %i', async (who, create, users) => {
     expect((await client(who).post('/api/sites', body())).status).toBe(create);
     expect((await client(who).get('/api/users')).status).toBe(users);
-    const invite = await client(who).post('/api/users/invitations', { email: `x-${suffix()}@test.example`, displayName: 'X', role: 'manager' });
+    const invite = await client(who).post('/api/users/invitations', {
+      email: `x-${suffix()}@test.example`,
+      displayName: 'X',
+      role: 'manager',
+    });
     expect(invite.status).toBe(users === 200 ? 201 : 403);
   });
 
@@ -110,7 +133,15 @@ describe('creating sites and managing users, by role', () => {
 describe('isolation between organisations', () => {
   it('when another organisation lists sites, tags or searches by name, then none of ours appear', async () => {
     const tag = `secret-${suffix()}`;
-    const mine = await client('owner.manager').post('/api/sites', { name: `Hidden ${suffix()}`, kind: 'park', address: '1 Quiet Lane', timeZone: 'UTC', tags: [tag] }).expect(201);
+    const mine = await client('owner.manager')
+      .post('/api/sites', {
+        name: `Hidden ${suffix()}`,
+        kind: 'park',
+        address: '1 Quiet Lane',
+        timeZone: 'UTC',
+        tags: [tag],
+      })
+      .expect(201);
     const c = client('stranger.admin');
     const list = await c.get('/api/sites?pageSize=200').expect(200);
     expect(list.body.items.every((s: { organisationId: number }) => s.organisationId === stranger.org.id)).toBe(true);
@@ -142,7 +173,7 @@ describe('isolation between organisations', () => {
     expect(after).toEqual(before);
   });
 
-  it("when an admin of another organisation targets our users, then 404 and no e-mail is sent", async () => {
+  it('when an admin of another organisation targets our users, then 404 and no e-mail is sent', async () => {
     const c = client('stranger.admin');
     await c.patch(`/api/users/${owner.users.manager.id}`, { role: 'auditor' }).expect(404);
     await c.post(`/api/users/${owner.users.manager.id}/password-reset`).expect(404);
@@ -157,6 +188,8 @@ describe('isolation between organisations', () => {
     expect(seenByFirm.body.shares).toEqual([]);
     expect(seenByFirm.body.access).toBe('contribute');
     const seenByOwner = await client('owner.admin').get(`/api/sites/${siteA.id}`).expect(200);
-    expect(seenByOwner.body.shares.map((s: { organisationId: number }) => s.organisationId).sort()).toEqual([firm.org.id, utility.org.id].sort());
+    expect(seenByOwner.body.shares.map((s: { organisationId: number }) => s.organisationId).sort()).toEqual(
+      [firm.org.id, utility.org.id].sort(),
+    );
   });
 });

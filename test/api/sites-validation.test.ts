@@ -12,7 +12,14 @@ beforeAll(async () => {
 });
 afterAll(async () => app?.stop());
 
-const good = () => ({ name: `Valid ${suffix()}`, kind: 'office-park', address: '12 Birch Row, Nowhere', timeZone: 'America/Los_Angeles', notes: 'ok', tags: ['drip'] });
+const good = () => ({
+  name: `Valid ${suffix()}`,
+  kind: 'office-park',
+  address: '12 Birch Row, Nowhere',
+  timeZone: 'America/Los_Angeles',
+  notes: 'ok',
+  tags: ['drip'],
+});
 const siteCount = async () => (await manager.get('/api/sites?pageSize=1').expect(200)).body.total as number;
 
 describe('bad site input gets a clear error naming the field, and nothing is written', () => {
@@ -22,9 +29,24 @@ describe('bad site input gets a clear error naming the field, and nothing is wri
     ['an over-long name', { name: 'x'.repeat(121) }, 'name', 'must be at most 120 characters'],
     ['an over-long address', { address: 'y'.repeat(301) }, 'address', 'must be at most 300 characters'],
     ['an empty name', { name: '   ' }, 'name', 'is required'],
-    ['an unknown kind', { kind: 'golf-course' }, 'kind', 'must be one of hoa-common-area, office-park, school-ground, streetscape, park, other'],
-    ['an invalid time zone', { timeZone: 'Pacific Standard Time' }, 'timeZone', 'must be an IANA time zone such as America/Los_Angeles'],
-    ['a made-up time zone', { timeZone: 'Mars/Olympus_Mons' }, 'timeZone', 'must be an IANA time zone such as America/Los_Angeles'],
+    [
+      'an unknown kind',
+      { kind: 'golf-course' },
+      'kind',
+      'must be one of hoa-common-area, office-park, school-ground, streetscape, park, other',
+    ],
+    [
+      'an invalid time zone',
+      { timeZone: 'Pacific Standard Time' },
+      'timeZone',
+      'must be an IANA time zone such as America/Los_Angeles',
+    ],
+    [
+      'a made-up time zone',
+      { timeZone: 'Mars/Olympus_Mons' },
+      'timeZone',
+      'must be an IANA time zone such as America/Los_Angeles',
+    ],
     ['a tag with spaces', { tags: ['two words'] }, 'tags.0', 'may hold lower-case letters, digits and dashes'],
     ['too many tags', { tags: Array.from({ length: 21 }, (_, i) => `t${i}`) }, 'tags', 'at most 20 tags'],
   ])('when creating with %s, then 400 on that field', async (_label, change, field, message) => {
@@ -64,7 +86,11 @@ describe('bad site input gets a clear error naming the field, and nothing is wri
   });
 
   it('when the body is not JSON, then 400 with a plain message', async () => {
-    const res = await manager.agent.post('/api/sites').set('x-xsrf-token', (manager as unknown as { csrf: string }).csrf).set('content-type', 'application/json').send('{"name": ');
+    const res = await manager.agent
+      .post('/api/sites')
+      .set('x-xsrf-token', (manager as unknown as { csrf: string }).csrf)
+      .set('content-type', 'application/json')
+      .send('{"name": ');
     expect(res.status).toBe(400);
     expect(res.body.error.message).toBe('The request body is not valid JSON.');
   });
@@ -80,12 +106,23 @@ describe('site lists are paged, sorted and filtered on the server', () => {
     const world2 = await createWorld(app.db);
     const admin = await signedIn(app, world2.users.admin.email);
     for (const name of ['Aspen Court', 'Birch Yard', 'Cedar Walk', 'Dogwood Green', 'Elm Plaza']) {
-      await admin.post('/api/sites', { ...good(), name, tags: name.startsWith('C') || name.startsWith('E') ? ['reclaimed'] : [] }).expect(201);
+      await admin
+        .post('/api/sites', {
+          ...good(),
+          name,
+          tags: name.startsWith('C') || name.startsWith('E') ? ['reclaimed'] : [],
+        })
+        .expect(201);
     }
     const p0 = (await admin.get('/api/sites?sort=name&dir=desc&pageSize=2&page=0').expect(200)).body;
     const p1 = (await admin.get('/api/sites?sort=name&dir=desc&pageSize=2&page=1').expect(200)).body;
     expect(p0.total).toBe(5);
-    expect([...p0.items, ...p1.items].map((s: { name: string }) => s.name)).toEqual(['Elm Plaza', 'Dogwood Green', 'Cedar Walk', 'Birch Yard']);
+    expect([...p0.items, ...p1.items].map((s: { name: string }) => s.name)).toEqual([
+      'Elm Plaza',
+      'Dogwood Green',
+      'Cedar Walk',
+      'Birch Yard',
+    ]);
     const tagged = (await admin.get('/api/sites?tag=reclaimed').expect(200)).body;
     expect(tagged.items.map((s: { name: string }) => s.name)).toEqual(['Cedar Walk', 'Elm Plaza']);
     const searched = (await admin.get('/api/sites?q=og').expect(200)).body;

@@ -1,7 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { equipSite, siteReadings, uploadFile, SAMPLES } from '../support/ingest-fixtures';
-import { createSite, createTestApp, createWorld, shareSite, signedIn, type Client, type TestApp, type World } from '../support/test-app';
+import {
+  createSite,
+  createTestApp,
+  createWorld,
+  shareSite,
+  signedIn,
+  type Client,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 
 let app: TestApp;
 let world: World;
@@ -51,7 +60,10 @@ describe('who may upload', () => {
 
   it('when an upload is sent without the CSRF header from a browser session, then it is refused', async () => {
     const siteId = await equippedSite();
-    await manager.agent.post(`/api/sites/${siteId}/uploads`).attach('file', `${SAMPLES}/meters/interval-long-hourly.csv`).expect(403);
+    await manager.agent
+      .post(`/api/sites/${siteId}/uploads`)
+      .attach('file', `${SAMPLES}/meters/interval-long-hourly.csv`)
+      .expect(403);
   });
 });
 
@@ -59,8 +71,16 @@ describe('size limit', () => {
   it('when a file is over RILLMARK_UPLOAD_MAX_MB, then it is refused with 413 naming the limit, and nothing is stored', async () => {
     const siteId = await equippedSite();
     const row = 'SCHOOL-01,2026-11-20 00:00,1.00\n';
-    const big = Buffer.from('Meter #,Interval Start,Usage (Gal)\n' + row.repeat(Math.ceil((1.2 * 1024 * 1024) / row.length)));
-    const res = await uploadFile(manager, siteId, big, { overrides: JSON.stringify({ intervalMinutes: 60 }) }, "big.csv");
+    const big = Buffer.from(
+      'Meter #,Interval Start,Usage (Gal)\n' + row.repeat(Math.ceil((1.2 * 1024 * 1024) / row.length)),
+    );
+    const res = await uploadFile(
+      manager,
+      siteId,
+      big,
+      { overrides: JSON.stringify({ intervalMinutes: 60 }) },
+      'big.csv',
+    );
     expect(res.status, JSON.stringify(res.body)).toBe(413);
     expect(res.body.error.message).toMatch(/upload limit of 1 MB \(RILLMARK_UPLOAD_MAX_MB\)/);
     expect(await siteReadings(app.db, siteId)).toEqual([]);
@@ -82,14 +102,20 @@ describe('API keys', () => {
     return res.body;
   }
   const machine = (siteId: number, secret: string) =>
-    request(app.server.url).post(`/api/sites/${siteId}/uploads`).set('Authorization', `Bearer ${secret}`).attach('file', `${SAMPLES}/meters/interval-long-hourly.csv`);
+    request(app.server.url)
+      .post(`/api/sites/${siteId}/uploads`)
+      .set('Authorization', `Bearer ${secret}`)
+      .attach('file', `${SAMPLES}/meters/interval-long-hourly.csv`);
 
   it('when a script uploads with a key, then the upload is stored under the key and its status can be read', async () => {
     const siteId = await equippedSite();
     const key = await newKey([siteId]);
     const res = await machine(siteId, key.secret).expect(201);
     expect(res.body.upload).toMatchObject({ accepted: 98, viaApiKey: `Nightly ${siteId}` });
-    await request(app.server.url).get(`/api/uploads/${res.body.upload.id}`).set('Authorization', `Bearer ${key.secret}`).expect(200);
+    await request(app.server.url)
+      .get(`/api/uploads/${res.body.upload.id}`)
+      .set('Authorization', `Bearer ${key.secret}`)
+      .expect(200);
     const listed = (await admin.get('/api/api-keys').expect(200)).body.find((k: { id: number }) => k.id === key.id);
     expect(listed).toMatchObject({ siteIds: [siteId], revokedAt: null, lastUsedAt: expect.any(String) });
     expect(listed.secret).toBeUndefined();
@@ -106,14 +132,17 @@ describe('API keys', () => {
     await machine(siteId, key.secret.slice(0, -1) + (key.secret.endsWith('A') ? 'B' : 'A')).expect(401);
   });
 
-  it("when a key is used on a site outside its scope, or for anything but uploads, then it is refused", async () => {
+  it('when a key is used on a site outside its scope, or for anything but uploads, then it is refused', async () => {
     const mine = await equippedSite();
     const another = await equippedSite();
     const key = await newKey([mine]);
     await machine(another, key.secret).expect(404);
     expect(await siteReadings(app.db, another)).toEqual([]);
     await request(app.server.url).get('/api/sites').set('Authorization', `Bearer ${key.secret}`).expect(403);
-    await request(app.server.url).post(`/api/uploads/1/rollback`).set('Authorization', `Bearer ${key.secret}`).expect(403);
+    await request(app.server.url)
+      .post(`/api/uploads/1/rollback`)
+      .set('Authorization', `Bearer ${key.secret}`)
+      .expect(403);
   });
 
   it('when a manager tries to make a key, then only administrators may', async () => {

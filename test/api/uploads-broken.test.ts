@@ -1,6 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { catalogue, equipSite, siteReadings, uploadFile } from '../support/ingest-fixtures';
-import { createSite, createTestApp, createWorld, signedIn, type Client, type TestApp, type World } from '../support/test-app';
+import {
+  createSite,
+  createTestApp,
+  createWorld,
+  signedIn,
+  type Client,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 
 let app: TestApp;
 let world: World;
@@ -14,7 +22,9 @@ beforeAll(async () => {
 afterAll(async () => app?.stop());
 
 /** A site that already holds data (the hourly sample), so each test can check nothing stored was touched. */
-async function siteWithData(timeZone: string): Promise<{ siteId: number; before: Awaited<ReturnType<typeof siteReadings>> }> {
+async function siteWithData(
+  timeZone: string,
+): Promise<{ siteId: number; before: Awaited<ReturnType<typeof siteReadings>> }> {
   const site = await createSite(app.db, world.org.id, { timeZone });
   await equipSite(manager, site.id);
   const first = await uploadFile(manager, site.id, 'meters/interval-long-hourly.csv');
@@ -22,7 +32,9 @@ async function siteWithData(timeZone: string): Promise<{ siteId: number; before:
   return { siteId: site.id, before: await siteReadings(app.db, site.id) };
 }
 
-async function rejections(uploadId: number): Promise<Array<{ row: number; column: number | null; kind: string; message: string }>> {
+async function rejections(
+  uploadId: number,
+): Promise<Array<{ row: number; column: number | null; kind: string; message: string }>> {
   return (await manager.get(`/api/uploads/${uploadId}/rejections`).expect(200)).body.items;
 }
 
@@ -32,14 +44,21 @@ describe('whole-file problems: refused with a message naming the file, nothing s
     ['broken/zip-renamed.csv', /"zip-renamed\.csv": This is a zip file .* renamed \.csv/],
     ['broken/header-only.csv', /"header-only\.csv": The file has a header but no data rows\./],
     ['broken/unknown-columns.csv', /"unknown-columns\.csv": No known layout/],
-    ['broken/missing-required-field.csv', /"missing-required-field\.csv": The column mapping is incomplete: Choose the run start column\./],
+    [
+      'broken/missing-required-field.csv',
+      /"missing-required-field\.csv": The column mapping is incomplete: Choose the run start column\./,
+    ],
   ];
   it.each(cases)('when %s is sent, then it is refused with its own reason', async (path, message) => {
     const { siteId, before } = await siteWithData(catalogue.files[path]!.timeZone);
     const res = await uploadFile(manager, siteId, path);
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(message);
-    if (path.includes('missing-required')) expect(res.body.error.details).toContainEqual({ field: 'mapping.start', message: 'Choose the run start column.' });
+    if (path.includes('missing-required'))
+      expect(res.body.error.details).toContainEqual({
+        field: 'mapping.start',
+        message: 'Choose the run start column.',
+      });
     expect(await siteReadings(app.db, siteId)).toEqual(before);
     const history = (await manager.get(`/api/sites/${siteId}/uploads`).expect(200)).body.items;
     expect(history[0]).toMatchObject({ status: 'failed', errorSummary: expect.stringMatching(message) });
@@ -73,7 +92,10 @@ describe('row problems: the valid rows are kept, each bad row is listed with row
     const res = await uploadFile(manager, siteId, 'broken/register-not-a-rollover.csv');
     expect(res.body.upload).toMatchObject({ status: 'done', accepted: 3, rejected: 1 });
     const listed = await rejections(res.body.upload.id);
-    expect(listed.find((r) => r.kind === 'rejected')).toMatchObject({ row: 3, message: expect.stringContaining('not a plausible rollover') });
+    expect(listed.find((r) => r.kind === 'rejected')).toMatchObject({
+      row: 3,
+      message: expect.stringContaining('not a plausible rollover'),
+    });
     expect((await siteReadings(app.db, siteId)).length).toBe(before.length + 1);
   });
 
@@ -91,16 +113,30 @@ describe('row problems: the valid rows are kept, each bad row is listed with row
 
   it('when a reading is older than the meter, then that row is refused naming the install date', async () => {
     const { siteId } = await siteWithData('America/Los_Angeles');
-    const csv = 'Meter #,Interval Start,Usage (Gal)\nHOA-NORTH-01,2019-06-01 00:00,10\nHOA-NORTH-01,2026-11-20 00:00,11\nHOA-NORTH-01,2026-11-20 01:00,12\n';
-    const res = await uploadFile(manager, siteId, Buffer.from(csv), { overrides: JSON.stringify({ intervalMinutes: 60 }) }, 'old.csv');
+    const csv =
+      'Meter #,Interval Start,Usage (Gal)\nHOA-NORTH-01,2019-06-01 00:00,10\nHOA-NORTH-01,2026-11-20 00:00,11\nHOA-NORTH-01,2026-11-20 01:00,12\n';
+    const res = await uploadFile(
+      manager,
+      siteId,
+      Buffer.from(csv),
+      { overrides: JSON.stringify({ intervalMinutes: 60 }) },
+      'old.csv',
+    );
     expect(res.body.upload, JSON.stringify(res.body)).toMatchObject({ accepted: 2, rejected: 1 });
-    expect((await rejections(res.body.upload.id))[0]).toMatchObject({ row: 2, column: 2, message: expect.stringContaining('before meter HOA-NORTH-01 was installed (2020-01-01)') });
+    expect((await rejections(res.body.upload.id))[0]).toMatchObject({
+      row: 2,
+      column: 2,
+      message: expect.stringContaining('before meter HOA-NORTH-01 was installed (2020-01-01)'),
+    });
   });
 
   it('when the rejected rows are downloaded as CSV, then each line names the file, row, column and reason', async () => {
     const { siteId } = await siteWithData('America/Los_Angeles');
     const res = await uploadFile(manager, siteId, 'broken/unknown-meter.csv');
-    const csv = await manager.get(`/api/uploads/${res.body.upload.id}/rejections?format=csv`).expect(200).expect('content-type', /text\/csv/);
+    const csv = await manager
+      .get(`/api/uploads/${res.body.upload.id}/rejections?format=csv`)
+      .expect(200)
+      .expect('content-type', /text\/csv/);
     const lines = csv.text.trim().split('\r\n');
     expect(lines[0]).toBe('file,row,column,kind,reason');
     expect(lines[1]).toMatch(/^unknown-meter\.csv,4,1,rejected,.*HOA-SOUTH-99/);

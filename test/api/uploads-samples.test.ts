@@ -1,6 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { catalogue, equipSite, siteReadings, siteRuns, uploadFile } from '../support/ingest-fixtures';
-import { createSite, createTestApp, createWorld, signedIn, type Client, type TestApp, type World } from '../support/test-app';
+import {
+  createSite,
+  createTestApp,
+  createWorld,
+  signedIn,
+  type Client,
+  type TestApp,
+  type World,
+} from '../support/test-app';
 
 let app: TestApp;
 let world: World;
@@ -20,23 +28,39 @@ async function equippedSite(timeZone: string): Promise<number> {
   return site.id;
 }
 
-const good = Object.entries(catalogue.files).filter(([path, spec]) => !path.startsWith('broken/') && spec.records !== undefined);
+const good = Object.entries(catalogue.files).filter(
+  ([path, spec]) => !path.startsWith('broken/') && spec.records !== undefined,
+);
 
 describe('every sample file imports with the counts samples/catalogue.json gives', () => {
   it.each(good)('%s', async (path, spec) => {
     const siteId = await equippedSite(spec.timeZone);
-    const fields: Record<string, string> = spec.mappingOverrides ? { overrides: JSON.stringify(spec.mappingOverrides) } : {};
+    const fields: Record<string, string> = spec.mappingOverrides
+      ? { overrides: JSON.stringify(spec.mappingOverrides) }
+      : {};
     const res = await uploadFile(manager, siteId, path, fields);
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     const upload = res.body.upload;
-    expect(upload).toMatchObject({ status: 'done', kind: spec.kind, accepted: spec.records, rejected: spec.errors, duplicate: 0, conflicting: 0 });
+    expect(upload).toMatchObject({
+      status: 'done',
+      kind: spec.kind,
+      accepted: spec.records,
+      rejected: spec.errors,
+      duplicate: 0,
+      conflicting: 0,
+    });
     expect(upload.sha256).toMatch(/^[0-9a-f]{64}$/);
     if (spec.kind === 'runtime') {
       expect(await siteRuns(app.db, siteId)).toBe(spec.records);
     } else if (spec.kind === 'register') {
       expect((await siteReadings(app.db, siteId)).length).toBe(spec.differenced!.volumes);
-      const rejections = (await manager.get(`/api/uploads/${upload.id}/rejections`).expect(200)).body.items as Array<{ kind: string; message: string }>;
-      expect(rejections.filter((r) => r.kind === 'notice' && /replacement register/.test(r.message)).length).toBe(spec.differenced!.problems.includes('meter-swap') ? 1 : 0);
+      const rejections = (await manager.get(`/api/uploads/${upload.id}/rejections`).expect(200)).body.items as Array<{
+        kind: string;
+        message: string;
+      }>;
+      expect(rejections.filter((r) => r.kind === 'notice' && /replacement register/.test(r.message)).length).toBe(
+        spec.differenced!.problems.includes('meter-swap') ? 1 : 0,
+      );
     } else {
       const stored = await siteReadings(app.db, siteId);
       expect(stored.length).toBe(spec.records);
@@ -49,8 +73,16 @@ describe('a mapping confirmed in the browser', () => {
   it('when the page sends the whole mapping it showed, then the file is read with it', async () => {
     const siteId = await equippedSite('America/Los_Angeles');
     // The hourly sample's columns, with the volume read as kgal instead of the header's gallons.
-    const mapping = { kind: 'interval-long', header: ['Meter #', 'Interval Start', 'Usage (Gal)'], columns: { meter: 0, timestamp: 1, value: 2 }, unit: 'kgal', intervalMinutes: 60 };
-    const res = await uploadFile(manager, siteId, 'meters/interval-long-hourly.csv', { mapping: JSON.stringify(mapping) });
+    const mapping = {
+      kind: 'interval-long',
+      header: ['Meter #', 'Interval Start', 'Usage (Gal)'],
+      columns: { meter: 0, timestamp: 1, value: 2 },
+      unit: 'kgal',
+      intervalMinutes: 60,
+    };
+    const res = await uploadFile(manager, siteId, 'meters/interval-long-hourly.csv', {
+      mapping: JSON.stringify(mapping),
+    });
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     expect(res.body.upload).toMatchObject({ accepted: 98, mapping: { unit: 'kgal' } });
     const first = (await siteReadings(app.db, siteId))[0]!;
@@ -59,8 +91,19 @@ describe('a mapping confirmed in the browser', () => {
 
   it('when the mapping names a column the file does not have, then it is refused naming the field', async () => {
     const siteId = await equippedSite('America/Los_Angeles');
-    const mapping = { kind: 'interval-long', header: [], columns: { meter: 0, timestamp: 1, value: 7 }, unit: 'gal', intervalMinutes: 60 };
-    const res = await uploadFile(manager, siteId, 'meters/interval-long-hourly.csv', { mapping: JSON.stringify(mapping) }).expect(400);
-    expect(res.body.error.details).toContainEqual({ field: 'mapping.value', message: expect.stringContaining('is not in the header') });
+    const mapping = {
+      kind: 'interval-long',
+      header: [],
+      columns: { meter: 0, timestamp: 1, value: 7 },
+      unit: 'gal',
+      intervalMinutes: 60,
+    };
+    const res = await uploadFile(manager, siteId, 'meters/interval-long-hourly.csv', {
+      mapping: JSON.stringify(mapping),
+    }).expect(400);
+    expect(res.body.error.details).toContainEqual({
+      field: 'mapping.value',
+      message: expect.stringContaining('is not in the header'),
+    });
   });
 });

@@ -5,7 +5,12 @@ let app: TestApp;
 let world: World;
 let admin: Client;
 
-interface Mail { to: string; subject: string; text: string; html: string | null }
+interface Mail {
+  to: string;
+  subject: string;
+  text: string;
+  html: string | null;
+}
 
 /** Reads the local fake SMTP server's message list, as the development outbox page does. */
 async function mailTo(address: string): Promise<Mail> {
@@ -30,7 +35,9 @@ afterAll(async () => app?.stop());
 describe('inviting users', () => {
   it('when an admin invites someone, then an e-mail with a one-time link arrives and accepting it signs them in with that role', async () => {
     const email = `new-${suffix()}@test.example`;
-    const invited = await admin.post('/api/users/invitations', { email, displayName: 'Rowan Test', role: 'contractor' }).expect(201);
+    const invited = await admin
+      .post('/api/users/invitations', { email, displayName: 'Rowan Test', role: 'contractor' })
+      .expect(201);
     expect(invited.body).toMatchObject({ email, role: 'contractor', status: 'invited' });
 
     const mail = await mailTo(email);
@@ -39,10 +46,16 @@ describe('inviting users', () => {
     const token = linkToken(mail);
 
     const visitor = new Client(app.server.url);
-    expect((await visitor.get(`/api/auth/tokens/${token}`).expect(200)).body).toEqual({ email, displayName: 'Rowan Test', purpose: 'invite' });
+    expect((await visitor.get(`/api/auth/tokens/${token}`).expect(200)).body).toEqual({
+      email,
+      displayName: 'Rowan Test',
+      purpose: 'invite',
+    });
     await visitor.fetchCsrf();
     await visitor.post('/api/auth/accept-invite', { token, password: 'short' }).expect(400);
-    const accepted = await visitor.post('/api/auth/accept-invite', { token, password: 'a-long-enough-secret' }).expect(200);
+    const accepted = await visitor
+      .post('/api/auth/accept-invite', { token, password: 'a-long-enough-secret' })
+      .expect(200);
     expect(accepted.body.organisation).toMatchObject({ organisationId: world.org.id, role: 'contractor' });
 
     // The link works once.
@@ -53,12 +66,16 @@ describe('inviting users', () => {
   });
 
   it('when the invitee is already a member, then 409 on email', async () => {
-    const res = await admin.post('/api/users/invitations', { email: world.users.manager.email, displayName: 'Dup', role: 'manager' }).expect(409);
+    const res = await admin
+      .post('/api/users/invitations', { email: world.users.manager.email, displayName: 'Dup', role: 'manager' })
+      .expect(409);
     expect(res.body.error.details).toEqual([{ field: 'email', message: 'is already a member' }]);
   });
 
   it('when the role is not one of ours, then 400 naming role', async () => {
-    const res = await admin.post('/api/users/invitations', { email: `r-${suffix()}@test.example`, displayName: 'R', role: 'superuser' }).expect(400);
+    const res = await admin
+      .post('/api/users/invitations', { email: `r-${suffix()}@test.example`, displayName: 'R', role: 'superuser' })
+      .expect(400);
     expect(res.body.error.details[0].field).toBe('role');
   });
 });
@@ -73,7 +90,9 @@ describe('password reset and account changes', () => {
     await visitor.fetchCsrf();
     await visitor.post('/api/auth/reset-password', { token, password: 'brand-new-password-1' }).expect(204);
     expect((await new Client(app.server.url).signIn(world2.users.auditor.email)).status).toBe(401);
-    expect((await new Client(app.server.url).signIn(world2.users.auditor.email, 'brand-new-password-1')).status).toBe(200);
+    expect((await new Client(app.server.url).signIn(world2.users.auditor.email, 'brand-new-password-1')).status).toBe(
+      200,
+    );
     await visitor.post('/api/auth/reset-password', { token, password: 'another-password-2' }).expect(404);
   });
 
@@ -81,9 +100,13 @@ describe('password reset and account changes', () => {
     const world3 = await createWorld(app.db);
     const admin3 = await signedIn(app, world3.users.admin.email);
     const manager = await signedIn(app, world3.users.manager.email);
-    await manager.post('/api/sites', { name: `M ${suffix()}`, kind: 'park', address: 'a', timeZone: 'UTC' }).expect(201);
+    await manager
+      .post('/api/sites', { name: `M ${suffix()}`, kind: 'park', address: 'a', timeZone: 'UTC' })
+      .expect(201);
     await admin3.patch(`/api/users/${world3.users.manager.id}`, { role: 'auditor' }).expect(200);
-    await manager.post('/api/sites', { name: `M ${suffix()}`, kind: 'park', address: 'a', timeZone: 'UTC' }).expect(403);
+    await manager
+      .post('/api/sites', { name: `M ${suffix()}`, kind: 'park', address: 'a', timeZone: 'UTC' })
+      .expect(403);
     await admin3.patch(`/api/users/${world3.users.manager.id}`, { status: 'disabled' }).expect(200);
     await manager.get('/api/sites').expect(401);
   });

@@ -8,15 +8,27 @@ export const thisHour = () => Math.floor(Date.now() / HOUR) * HOUR;
 
 export async function addMeter(db: DataSource, siteId: number): Promise<number> {
   const r: { insertId: number } = await db.query(
-    "INSERT INTO meter (site_id, ref, unit, purpose, water_source) VALUES (?, ?, 'gal', 'dedicated-irrigation', 'potable')", [siteId, `M-${siteId}`]);
+    "INSERT INTO meter (site_id, ref, unit, purpose, water_source) VALUES (?, ?, 'gal', 'dedicated-irrigation', 'potable')",
+    [siteId, `M-${siteId}`],
+  );
   return r.insertId;
 }
 
 /** Hourly readings of `gallons` each for the hours [fromMs, toMs); upload 0 marks them as test data. */
-export async function addHours(db: DataSource, meterId: number, fromMs: number, toMs: number, gallons: number): Promise<void> {
+export async function addHours(
+  db: DataSource,
+  meterId: number,
+  fromMs: number,
+  toMs: number,
+  gallons: number,
+): Promise<void> {
   const rows: unknown[][] = [];
   for (let t = fromMs; t < toMs; t += HOUR) rows.push([meterId, new Date(t), 60, gallons, gallons, 'gal', 0]);
-  if (rows.length) await db.query('INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?', [rows]);
+  if (rows.length)
+    await db.query(
+      'INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?',
+      [rows],
+    );
 }
 
 /** A site whose meter has flowed every hour for `hours` hours, ending `endHoursAgo` hours before this hour. */
@@ -28,7 +40,18 @@ export async function leakingSite(db: DataSource, siteId: number, hours = 48, en
 }
 
 /** Runs the watch for the admin's organisation, waiting out a run another test file may be holding. */
-export async function runWatch(admin: Client, body: object = {}): Promise<{ sitesChecked: number; sitesSkipped: number; alertsRaised: number; alertsUpdated: number; alertsReopened: number; mailsQueued: number; errors: { siteId: number; message: string }[] }> {
+export async function runWatch(
+  admin: Client,
+  body: object = {},
+): Promise<{
+  sitesChecked: number;
+  sitesSkipped: number;
+  alertsRaised: number;
+  alertsUpdated: number;
+  alertsReopened: number;
+  mailsQueued: number;
+  errors: { siteId: number; message: string }[];
+}> {
   for (let i = 0; i < 100; i++) {
     const res = await admin.post('/api/watch/runs', body);
     if (res.status === 201) return res.body;
@@ -39,6 +62,8 @@ export async function runWatch(admin: Client, body: object = {}): Promise<{ site
 }
 
 export async function alertCount(app: TestApp, siteId: number): Promise<number> {
-  const [{ n }] = (await app.db.query('SELECT COUNT(*) AS n FROM alert WHERE site_id = ?', [siteId])) as [{ n: string }];
+  const [{ n }] = (await app.db.query('SELECT COUNT(*) AS n FROM alert WHERE site_id = ?', [siteId])) as [
+    { n: string },
+  ];
   return Number(n);
 }

@@ -1,7 +1,15 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { JobLease } from '../../backend/src/jobs/job-lease';
 import { WATCH_LEASE_NAME } from '../../backend/src/components/watch/watch-module';
-import { createSite, createWorld, signedIn, type Client, type TestApp, type World, createTestApp } from '../support/test-app';
+import {
+  createSite,
+  createWorld,
+  signedIn,
+  type Client,
+  type TestApp,
+  type World,
+  createTestApp,
+} from '../support/test-app';
 import { addHours, alertCount, HOUR, leakingSite, runWatch, thisHour } from './watch-fixtures';
 
 let app: TestApp;
@@ -23,14 +31,20 @@ describe('the nightly watch run', () => {
     expect(first.errors).toEqual([]);
     const raised = await alertCount(app, site.id);
     expect(raised).toBeGreaterThanOrEqual(1);
-    const kinds: { kind: string; sub_kind: string }[] = await app.db.query('SELECT kind, sub_kind FROM alert WHERE site_id = ?', [site.id]);
+    const kinds: { kind: string; sub_kind: string }[] = await app.db.query(
+      'SELECT kind, sub_kind FROM alert WHERE site_id = ?',
+      [site.id],
+    );
     expect(kinds).toContainEqual({ kind: 'leak', sub_kind: 'continuous-flow' });
 
     const second = await runWatch(admin);
     expect(second.alertsRaised).toBe(0);
     expect(await alertCount(app, site.id)).toBe(raised);
     // A re-check of the same range files the same findings again: still no new alert.
-    const recheck = await runWatch(admin, { from: new Date(thisHour() - 3 * 86_400_000).toISOString(), to: new Date().toISOString() });
+    const recheck = await runWatch(admin, {
+      from: new Date(thisHour() - 3 * 86_400_000).toISOString(),
+      to: new Date().toISOString(),
+    });
     expect(recheck.sitesChecked).toBeGreaterThanOrEqual(1);
     expect(recheck.alertsRaised).toBe(0);
     expect(await alertCount(app, site.id)).toBe(raised);
@@ -49,7 +63,10 @@ describe('the nightly watch run', () => {
     const third = await runWatch(orgAdmin);
     expect(third).toMatchObject({ sitesChecked: 1, sitesSkipped: 0, alertsRaised: 0 });
     expect(third.alertsUpdated).toBeGreaterThanOrEqual(1);
-    const [alert] = (await app.db.query("SELECT period_end_utc FROM alert WHERE site_id = ? AND sub_kind = 'continuous-flow'", [site.id])) as { period_end_utc: Date }[];
+    const [alert] = (await app.db.query(
+      "SELECT period_end_utc FROM alert WHERE site_id = ? AND sub_kind = 'continuous-flow'",
+      [site.id],
+    )) as { period_end_utc: Date }[];
     expect(alert!.period_end_utc.getTime()).toBe(thisHour());
   });
 
@@ -57,7 +74,9 @@ describe('the nightly watch run', () => {
     const site = await createSite(app.db, world.org.id);
     const meterId = await leakingSite(app.db, site.id, 36, 6);
     await runWatch(admin);
-    const [alert] = (await app.db.query("SELECT id FROM alert WHERE site_id = ? AND sub_kind = 'continuous-flow'", [site.id])) as { id: number }[];
+    const [alert] = (await app.db.query("SELECT id FROM alert WHERE site_id = ? AND sub_kind = 'continuous-flow'", [
+      site.id,
+    ])) as { id: number }[];
     await admin.post(`/api/alerts/${alert!.id}/resolve`, { note: 'Replaced the cracked lateral.' }).expect(200);
     const before = await alertCount(app, site.id);
 
@@ -78,14 +97,23 @@ describe('the nightly watch run', () => {
     await leakingSite(app.db, bad.id);
     await leakingSite(app.db, good.id);
     // Written behind the API's back, as a corrupt row would be: a negative threshold makes the detectors refuse the site.
-    await app.db.query("INSERT INTO site_watch_settings (site_id, thresholds, irrigation_start_hour, irrigation_end_hour) VALUES (?, '{\"silentHours\":-5}', 21, 7)", [bad.id]);
+    await app.db.query(
+      'INSERT INTO site_watch_settings (site_id, thresholds, irrigation_start_hour, irrigation_end_hour) VALUES (?, \'{"silentHours":-5}\', 21, 7)',
+      [bad.id],
+    );
     const run = await runWatch(orgAdmin);
     expect(run.sitesChecked).toBe(1);
-    expect(run.errors).toEqual([expect.objectContaining({ siteId: bad.id, message: expect.stringContaining('silentHours') })]);
+    expect(run.errors).toEqual([
+      expect.objectContaining({ siteId: bad.id, message: expect.stringContaining('silentHours') }),
+    ]);
     expect(await alertCount(app, good.id)).toBeGreaterThanOrEqual(1);
     expect(await alertCount(app, bad.id)).toBe(0);
     const history = (await orgAdmin.get('/api/watch/runs').expect(200)).body;
-    expect(history.items[0]).toMatchObject({ trigger: 'manual', status: 'done', errors: [expect.objectContaining({ siteId: bad.id })] });
+    expect(history.items[0]).toMatchObject({
+      trigger: 'manual',
+      status: 'done',
+      errors: [expect.objectContaining({ siteId: bad.id })],
+    });
   });
 
   it('when another instance holds the watch lease, then "run now" is refused until it is released', async () => {

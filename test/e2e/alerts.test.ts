@@ -21,7 +21,9 @@ beforeAll(async () => {
   db = opened.db;
   await seedDemo(db);
   const org = await db.getRepository(OrganisationEntity).findOneByOrFail({ name: 'Cobalt Ridge Property Services' });
-  const utility = await db.getRepository(OrganisationEntity).findOneByOrFail({ name: 'Verdella Valley Water Agency — Conservation Office' });
+  const utility = await db
+    .getRepository(OrganisationEntity)
+    .findOneByOrFail({ name: 'Verdella Valley Water Agency — Conservation Office' });
   siteName = `Larkspur Terrace Greens ${suffix()}`;
   const site = await createSite(db, org.id, { name: siteName });
   await shareSite(db, site.id, utility.id, 'read');

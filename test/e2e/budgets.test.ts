@@ -26,7 +26,7 @@ afterAll(async () => server?.stop());
 const number = (text: string) => Number(text.replace(/[^0-9.\-]/g, ''));
 
 describe('demo site budget in the browser', () => {
-  it('when the manager opens a month\'s working, then each hydrozone\'s budget equals ETo × PF × area × 144/231 ÷ IE', async () => {
+  it("when the manager opens a month's working, then each hydrozone's budget equals ETo × PF × area × 144/231 ÷ IE", async () => {
     const browser = await openBrowser(DESKTOP);
     const { page } = browser;
     try {
@@ -52,7 +52,13 @@ describe('demo site budget in the browser', () => {
       let zonesTotal = 0;
       for (const zone of await working.all()) {
         const value = async (label: string) =>
-          number(await zone.locator('tr', { has: page.getByRole('rowheader', { name: label, exact: true }) }).locator('td').last().innerText());
+          number(
+            await zone
+              .locator('tr', { has: page.getByRole('rowheader', { name: label, exact: true }) })
+              .locator('td')
+              .last()
+              .innerText(),
+          );
         const etoIn = await value('Reference ET for the month');
         const pf = await value('Plant factor (PF)');
         const ie = await value('Irrigation efficiency (IE)');
@@ -63,7 +69,9 @@ describe('demo site budget in the browser', () => {
         expect(Math.abs(budget - (etoIn * pf * area * (144 / 231)) / ie) / budget).toBeLessThan(0.0005 / etoIn + 1e-6);
         zonesTotal += budget;
       }
-      const monthBudget = number(await table.locator('tbody tr.mat-mdc-row').first().locator('td.mat-column-budget').innerText());
+      const monthBudget = number(
+        await table.locator('tbody tr.mat-mdc-row').first().locator('td.mat-column-budget').innerText(),
+      );
       expect(Math.abs(monthBudget - zonesTotal)).toBeLessThanOrEqual(1);
       await screenshot(page, 'budget-how-computed');
     } finally {

@@ -49,16 +49,26 @@ async function openPortfolioMonth(page: Page): Promise<void> {
   for (let i = 0; i < Math.abs(steps); i++) {
     const before = (await page.locator('rm-period-picker .label').innerText()).trim();
     await page.getByRole('button', { name: steps > 0 ? 'Previous month' : 'Next month' }).click();
-    await page.waitForFunction((b) => document.querySelector('rm-period-picker .label')?.textContent?.trim() !== b, before);
+    await page.waitForFunction(
+      (b) => document.querySelector('rm-period-picker .label')?.textContent?.trim() !== b,
+      before,
+    );
   }
   expect((await page.locator('rm-period-picker .label').innerText()).trim()).toBe('Nov 2026');
-  await page.getByRole('table', { name: 'Sites in the portfolio' }).locator('tbody tr td.mat-column-siteName a').first().waitFor();
+  await page
+    .getByRole('table', { name: 'Sites in the portfolio' })
+    .locator('tbody tr td.mat-column-siteName a')
+    .first()
+    .waitFor();
   await page.locator('rm-sites-table mat-progress-bar').waitFor({ state: 'detached' });
 }
 
 /** The worst site of the month is on top (sorted by percent of budget, descending); opens its workspace. */
 async function openWorstSite(page: Page): Promise<{ siteName: string; siteId: number }> {
-  const link = page.getByRole('table', { name: 'Sites in the portfolio' }).locator('tbody tr td.mat-column-siteName a').first();
+  const link = page
+    .getByRole('table', { name: 'Sites in the portfolio' })
+    .locator('tbody tr td.mat-column-siteName a')
+    .first();
   const siteName = (await link.innerText()).trim();
   await link.click();
   await page.waitForURL(/\/sites\/\d+\/overview/);
@@ -68,7 +78,10 @@ async function openWorstSite(page: Page): Promise<{ siteName: string; siteId: nu
 }
 
 /** Runs `walk` at desktop and then phone width, each in a fresh browser; an error on the page fails it. */
-async function atEachWidth(failureShot: string, walk: (page: Page, width: 'desktop' | 'phone') => Promise<void>): Promise<void> {
+async function atEachWidth(
+  failureShot: string,
+  walk: (page: Page, width: 'desktop' | 'phone') => Promise<void>,
+): Promise<void> {
   for (const viewport of [DESKTOP, PHONE]) {
     const width = viewport === DESKTOP ? 'desktop' : 'phone';
     const browser = await openBrowser(viewport);
@@ -89,62 +102,69 @@ async function atEachWidth(failureShot: string, walk: (page: Page, width: 'deskt
 const roles = DEMO_USERS.filter((u) => DEMO_ORGANISATIONS.find((o) => o.key === u.organisation)!.key !== 'harrowgate');
 
 describe('dashboard in the browser', () => {
-  it.each(roles.map((u) => [`${u.role} (${u.organisation})`, u] as const))('%s opens the portfolio and a site overview whose monthly figure matches the API', async (name, user) => {
-    const tag = name.replace(/[^a-z]+/gi, '-').replace(/-$/, '');
-    await atEachWidth(`dashboard-${tag}-failure`, async (page, width) => {
-      await signIn(page, user);
-      await openPortfolioMonth(page);
-      await expect(page.getByRole('list', { name: 'Headline figures' }).innerText()).resolves.toMatch(/gal/);
-      await screenshot(page, `dashboard-${tag}-portfolio-${width}`);
+  it.each(roles.map((u) => [`${u.role} (${u.organisation})`, u] as const))(
+    '%s opens the portfolio and a site overview whose monthly figure matches the API',
+    async (name, user) => {
+      const tag = name.replace(/[^a-z]+/gi, '-').replace(/-$/, '');
+      await atEachWidth(`dashboard-${tag}-failure`, async (page, width) => {
+        await signIn(page, user);
+        await openPortfolioMonth(page);
+        await expect(page.getByRole('list', { name: 'Headline figures' }).innerText()).resolves.toMatch(/gal/);
+        await screenshot(page, `dashboard-${tag}-portfolio-${width}`);
 
-      const { siteName, siteId } = await openWorstSite(page);
-      await page.locator('rm-daily-chart canvas, rm-daily-chart + p, .panel .rm-state').first().waitFor();
-      await page.waitForTimeout(300);
-      await screenshot(page, `dashboard-${tag}-overview-${width}`);
-      // The page scrolls inside the shell, so the flow grid gets its own picture.
-      const grid = page.locator('section.panel', { has: page.getByRole('heading', { name: 'Hour-by-day flow' }) });
-      await grid.scrollIntoViewIfNeeded();
-      await page.waitForTimeout(200);
-      await grid.screenshot({ path: resolve(ARTIFACTS, `dashboard-${tag}-grid-${width}.png`) });
+        const { siteName, siteId } = await openWorstSite(page);
+        await page.locator('rm-daily-chart canvas, rm-daily-chart + p, .panel .rm-state').first().waitFor();
+        await page.waitForTimeout(300);
+        await screenshot(page, `dashboard-${tag}-overview-${width}`);
+        // The page scrolls inside the shell, so the flow grid gets its own picture.
+        const grid = page.locator('section.panel', { has: page.getByRole('heading', { name: 'Hour-by-day flow' }) });
+        await grid.scrollIntoViewIfNeeded();
+        await page.waitForTimeout(200);
+        await grid.screenshot({ path: resolve(ARTIFACTS, `dashboard-${tag}-grid-${width}.png`) });
 
-      // The monthly table is the site's next tab; it ends at the chosen month.
-      await page.getByRole('tab', { name: 'Monthly table', exact: true }).click();
-      await page.waitForURL(new RegExp(`/sites/${siteId}/monthly$`));
-      await page.getByLabel('Last month shown').fill(MONTH);
-      const row = page.locator(`table[aria-label="Monthly use against budget"] tr[data-month="${MONTH}"]`);
-      await row.waitFor();
-      const shown = (await row.locator('td.mat-column-use').innerText()).trim();
-      const api = await page.evaluate(async ([id, month]) => {
-        const res = await fetch(`/api/sites/${id}/monthly?from=${month}&to=${month}`);
-        return (await res.json()) as { months: { month: string; useGallons: number }[] };
-      }, [siteId, MONTH] as const);
-      expect(shown).toBe(Math.round(api.months[0]!.useGallons).toLocaleString('en-US'));
-      expect(api.months[0]!.useGallons).toBeGreaterThan(0);
-      await page.locator('rm-site-monthly mat-progress-bar').waitFor({ state: 'detached' });
-      await screenshot(page, `dashboard-${tag}-monthly-${width}`);
-      // The export link points at the CSV of the same table.
-      const href = await page.getByRole('link', { name: 'Export CSV' }).getAttribute('href');
-      expect(href).toMatch(new RegExp(`/api/sites/${siteId}/monthly\\?from=\\d{4}-\\d{2}&to=${MONTH}&format=csv`));
+        // The monthly table is the site's next tab; it ends at the chosen month.
+        await page.getByRole('tab', { name: 'Monthly table', exact: true }).click();
+        await page.waitForURL(new RegExp(`/sites/${siteId}/monthly$`));
+        await page.getByLabel('Last month shown').fill(MONTH);
+        const row = page.locator(`table[aria-label="Monthly use against budget"] tr[data-month="${MONTH}"]`);
+        await row.waitFor();
+        const shown = (await row.locator('td.mat-column-use').innerText()).trim();
+        const api = await page.evaluate(
+          async ([id, month]) => {
+            const res = await fetch(`/api/sites/${id}/monthly?from=${month}&to=${month}`);
+            return (await res.json()) as { months: { month: string; useGallons: number }[] };
+          },
+          [siteId, MONTH] as const,
+        );
+        expect(shown).toBe(Math.round(api.months[0]!.useGallons).toLocaleString('en-US'));
+        expect(api.months[0]!.useGallons).toBeGreaterThan(0);
+        await page.locator('rm-site-monthly mat-progress-bar').waitFor({ state: 'detached' });
+        await screenshot(page, `dashboard-${tag}-monthly-${width}`);
+        // The export link points at the CSV of the same table.
+        const href = await page.getByRole('link', { name: 'Export CSV' }).getAttribute('href');
+        expect(href).toMatch(new RegExp(`/api/sites/${siteId}/monthly\\?from=\\d{4}-\\d{2}&to=${MONTH}&format=csv`));
 
-      // Why: the site's open alerts, then one alert's evidence (from the inbox when this site has none open).
-      const alertsTab = page.getByRole('tab', { name: 'Alerts', exact: true });
-      await alertsTab.focus(); // at phone width the tab bar scrolls a focused tab into view; Enter then opens it
-      await page.keyboard.press('Enter');
-      await page.waitForURL(new RegExp(`/sites/${siteId}/alerts$`));
-      await page.locator('table[aria-label="Alerts at this site"]').waitFor();
-      await page.locator('rm-site-alerts mat-progress-bar').waitFor({ state: 'detached' });
-      let alertLink = page.locator('table[aria-label="Alerts at this site"] tbody a[href^="/alerts/"]').first();
-      if (!(await alertLink.count())) {
-        await page.goto(new URL('/alerts', page.url()).href);
-        alertLink = page.locator('tbody a[href^="/alerts/"]').first();
-        await alertLink.waitFor();
-      }
-      await alertLink.click();
-      await page.getByRole('heading', { name: 'Evidence' }).waitFor();
-      await page.waitForTimeout(600);
-      await screenshot(page, `dashboard-${tag}-alert-${width}`);
-    });
-  }, 150_000);
+        // Why: the site's open alerts, then one alert's evidence (from the inbox when this site has none open).
+        const alertsTab = page.getByRole('tab', { name: 'Alerts', exact: true });
+        await alertsTab.focus(); // at phone width the tab bar scrolls a focused tab into view; Enter then opens it
+        await page.keyboard.press('Enter');
+        await page.waitForURL(new RegExp(`/sites/${siteId}/alerts$`));
+        await page.locator('table[aria-label="Alerts at this site"]').waitFor();
+        await page.locator('rm-site-alerts mat-progress-bar').waitFor({ state: 'detached' });
+        let alertLink = page.locator('table[aria-label="Alerts at this site"] tbody a[href^="/alerts/"]').first();
+        if (!(await alertLink.count())) {
+          await page.goto(new URL('/alerts', page.url()).href);
+          alertLink = page.locator('tbody a[href^="/alerts/"]').first();
+          await alertLink.waitFor();
+        }
+        await alertLink.click();
+        await page.getByRole('heading', { name: 'Evidence' }).waitFor();
+        await page.waitForTimeout(600);
+        await screenshot(page, `dashboard-${tag}-alert-${width}`);
+      });
+    },
+    150_000,
+  );
 
   it('a manager opens a site from the portfolio and goes through every tab of its workspace', async () => {
     const manager = DEMO_USERS.find((u) => u.role === 'manager')!;
@@ -161,7 +181,11 @@ describe('dashboard in the browser', () => {
       expect(header).toMatch(/Use, 1(–\d+)? \w{3} \d{4}\s+[\d,]+ gal/);
       expect(header).toMatch(/Of budget\s+(\d[\d,]* %|—)/);
       const openAlerts = Number(/Open alerts\s+(\d+)/.exec(header)![1]);
-      const apiOpen = await page.evaluate(async (id) => ((await (await fetch(`/api/alerts?status=open&siteId=${id}&pageSize=1`)).json()) as { total: number }).total, siteId);
+      const apiOpen = await page.evaluate(
+        async (id) =>
+          ((await (await fetch(`/api/alerts?status=open&siteId=${id}&pageSize=1`)).json()) as { total: number }).total,
+        siteId,
+      );
       expect(openAlerts).toBe(apiOpen);
       expect(await page.getByText('America/Los_Angeles').first().isVisible()).toBe(true);
 
@@ -189,7 +213,9 @@ describe('dashboard in the browser', () => {
       const meters = page.getByRole('table', { name: 'Meters' });
       expect(await meters.locator('tbody tr').count()).toBeGreaterThan(0);
       expect(await meters.locator('tbody tr').first().innerText()).toMatch(/gal|CCF|kgal|ft³|m³|L|acre/);
-      expect(await page.getByRole('note').filter({ hasText: 'mains power' }).innerText()).toMatch(/licensed professionals/);
+      expect(await page.getByRole('note').filter({ hasText: 'mains power' }).innerText()).toMatch(
+        /licensed professionals/,
+      );
       // A manager may change equipment.
       await page.getByRole('button', { name: 'Add meter' }).waitFor();
 
@@ -198,9 +224,17 @@ describe('dashboard in the browser', () => {
       const alertRows = alertsTable.locator('tbody tr', { has: page.locator('a[href^="/alerts/"]') });
       expect(await alertRows.count()).toBe(Math.min(apiOpen, 25));
       // Every status: as many rows as the API has alerts for the site, each linking to the alert's own page.
-      const apiAll = await page.evaluate(async (id) => ((await (await fetch(`/api/alerts?siteId=${id}&pageSize=25`)).json()) as { total: number }).total, siteId);
+      const apiAll = await page.evaluate(
+        async (id) => ((await (await fetch(`/api/alerts?siteId=${id}&pageSize=25`)).json()) as { total: number }).total,
+        siteId,
+      );
       await page.getByRole('radio', { name: 'All' }).click();
-      await page.waitForFunction(([n]) => document.querySelectorAll('table[aria-label="Alerts at this site"] tbody tr a[href^="/alerts/"]').length === n, [Math.min(apiAll, 25)] as const);
+      await page.waitForFunction(
+        ([n]) =>
+          document.querySelectorAll('table[aria-label="Alerts at this site"] tbody tr a[href^="/alerts/"]').length ===
+          n,
+        [Math.min(apiAll, 25)] as const,
+      );
       await screenshot(page, `site-alerts-all-${width}`);
       if (apiAll > 0) {
         await alertRows.first().getByRole('link').click();

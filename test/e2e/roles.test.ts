@@ -36,7 +36,9 @@ async function expectRightSites(page: Page, user: DemoUser): Promise<void> {
 
 /** The demo sites a user's organisation owns or has been shared, from the scenario itself. */
 function expectedSites(user: DemoUser): string[] {
-  return DEMO_SITES.filter((s) => s.organisation === user.organisation || s.shares.some((sh) => sh.organisation === user.organisation))
+  return DEMO_SITES.filter(
+    (s) => s.organisation === user.organisation || s.shares.some((sh) => sh.organisation === user.organisation),
+  )
     .map((s) => s.name)
     .sort();
 }
@@ -62,66 +64,75 @@ async function siteNamesOnScreen(page: Page): Promise<string[]> {
 const roles = DEMO_USERS.filter((u) => DEMO_ORGANISATIONS.find((o) => o.key === u.organisation)!.key !== 'harrowgate');
 
 describe('each demo role in the browser', () => {
-  it.each(roles.map((u) => [u.role, u] as const))('%s signs in, sees exactly its sites and only its actions', async (role, user) => {
-    const browser = await openBrowser(DESKTOP);
-    const requests: string[] = [];
-    const cspViolations: string[] = [];
-    browser.page.on('request', (r) => requests.push(r.url()));
-    browser.page.on('console', (m) => m.text().includes('Content Security Policy') && cspViolations.push(m.text()));
-    try {
-      const { page } = browser;
-      await signIn(page, user);
-      await expectRightSites(page, user);
+  it.each(roles.map((u) => [u.role, u] as const))(
+    '%s signs in, sees exactly its sites and only its actions',
+    async (role, user) => {
+      const browser = await openBrowser(DESKTOP);
+      const requests: string[] = [];
+      const cspViolations: string[] = [];
+      browser.page.on('request', (r) => requests.push(r.url()));
+      browser.page.on('console', (m) => m.text().includes('Content Security Policy') && cspViolations.push(m.text()));
+      try {
+        const { page } = browser;
+        await signIn(page, user);
+        await expectRightSites(page, user);
 
-      const canCreate = role === 'admin' || role === 'manager';
-      expect(await page.getByRole('link', { name: 'New site' }).count()).toBe(canCreate ? 1 : 0);
-      const nav = page.getByRole('navigation', { name: 'Main' });
-      expect(await nav.getByRole('link', { name: 'Users' }).count()).toBe(role === 'admin' ? 1 : 0);
-      expect(await nav.getByRole('link', { name: 'Uploads' }).count()).toBe(role === 'auditor' ? 0 : 1);
-      await screenshot(page, `${role}-sites-desktop`);
+        const canCreate = role === 'admin' || role === 'manager';
+        expect(await page.getByRole('link', { name: 'New site' }).count()).toBe(canCreate ? 1 : 0);
+        const nav = page.getByRole('navigation', { name: 'Main' });
+        expect(await nav.getByRole('link', { name: 'Users' }).count()).toBe(role === 'admin' ? 1 : 0);
+        expect(await nav.getByRole('link', { name: 'Uploads' }).count()).toBe(role === 'auditor' ? 0 : 1);
+        await screenshot(page, `${role}-sites-desktop`);
 
-      // Open the first site: editable for admin and manager, read-only for the others.
-      const firstRow = page.getByRole('table', { name: 'Sites' }).locator('tbody tr').first();
-      const firstName = (await firstRow.locator('td.mat-column-name').innerText()).trim();
-      await firstRow.click();
-      await page.waitForURL(/\/sites\/\d+$/);
-      await page.getByRole('heading', { name: firstName, level: 1 }).waitFor();
-      if (canCreate) await page.getByRole('button', { name: 'Save changes' }).waitFor();
-      else await page.getByText('Your access:').waitFor();
-      expect(await page.getByRole('button', { name: 'Save changes' }).count()).toBe(canCreate ? 1 : 0);
-      expect(await page.getByRole('button', { name: /delete/i }).count()).toBe(role === 'admin' ? 1 : 0);
-      await screenshot(page, `${role}-site-desktop`);
+        // Open the first site: editable for admin and manager, read-only for the others.
+        const firstRow = page.getByRole('table', { name: 'Sites' }).locator('tbody tr').first();
+        const firstName = (await firstRow.locator('td.mat-column-name').innerText()).trim();
+        await firstRow.click();
+        await page.waitForURL(/\/sites\/\d+$/);
+        await page.getByRole('heading', { name: firstName, level: 1 }).waitFor();
+        if (canCreate) await page.getByRole('button', { name: 'Save changes' }).waitFor();
+        else await page.getByText('Your access:').waitFor();
+        expect(await page.getByRole('button', { name: 'Save changes' }).count()).toBe(canCreate ? 1 : 0);
+        expect(await page.getByRole('button', { name: /delete/i }).count()).toBe(role === 'admin' ? 1 : 0);
+        await screenshot(page, `${role}-site-desktop`);
 
-      // The shipped fonts are in use (a CSP-blocked stylesheet once left the icons as raw words).
-      const fonts = await page.evaluate(async () => {
-        await document.fonts.ready;
-        return [...document.fonts].filter((f) => f.status === 'loaded').map((f) => f.family.replace(/"/g, ''));
-      });
-      expect(fonts).toEqual(expect.arrayContaining(['Open Sans', 'Material Symbols Outlined']));
-      expect(cspViolations).toEqual([]);
-      // Nothing may leave for a font host or CDN: every request stays on the app's own origin.
-      expect(requests.filter((u) => !u.startsWith(server.url) && !u.startsWith('data:'))).toEqual([]);
-    } finally {
-      await browser.close();
-    }
-  });
+        // The shipped fonts are in use (a CSP-blocked stylesheet once left the icons as raw words).
+        const fonts = await page.evaluate(async () => {
+          await document.fonts.ready;
+          return [...document.fonts].filter((f) => f.status === 'loaded').map((f) => f.family.replace(/"/g, ''));
+        });
+        expect(fonts).toEqual(expect.arrayContaining(['Open Sans', 'Material Symbols Outlined']));
+        expect(cspViolations).toEqual([]);
+        // Nothing may leave for a font host or CDN: every request stays on the app's own origin.
+        expect(requests.filter((u) => !u.startsWith(server.url) && !u.startsWith('data:'))).toEqual([]);
+      } finally {
+        await browser.close();
+      }
+    },
+  );
 
-  it.each(roles.map((u) => [u.role, u] as const))('%s at phone width sees the list with a menu button', async (role, user) => {
-    const browser = await openBrowser(PHONE);
-    try {
-      await signIn(browser.page, user);
-      await expectRightSites(browser.page, user);
-      await expect(browser.page.getByRole('button', { name: 'Navigation menu' }).isVisible()).resolves.toBe(true);
-      await screenshot(browser.page, `${role}-sites-phone`);
-    } finally {
-      await browser.close();
-    }
-  });
+  it.each(roles.map((u) => [u.role, u] as const))(
+    '%s at phone width sees the list with a menu button',
+    async (role, user) => {
+      const browser = await openBrowser(PHONE);
+      try {
+        await signIn(browser.page, user);
+        await expectRightSites(browser.page, user);
+        await expect(browser.page.getByRole('button', { name: 'Navigation menu' }).isVisible()).resolves.toBe(true);
+        await screenshot(browser.page, `${role}-sites-phone`);
+      } finally {
+        await browser.close();
+      }
+    },
+  );
 
   it('an auditor who types an admin page address is turned away', async () => {
     const browser = await openBrowser(DESKTOP);
     try {
-      await signIn(browser.page, DEMO_USERS.find((u) => u.role === 'auditor')!);
+      await signIn(
+        browser.page,
+        DEMO_USERS.find((u) => u.role === 'auditor')!,
+      );
       await browser.page.goto(`${server.url}/admin/users`);
       await browser.page.waitForLoadState('networkidle');
       expect(browser.page.url()).not.toContain('/admin/users');

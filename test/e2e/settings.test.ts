@@ -45,7 +45,9 @@ async function keyStatus(secret: string): Promise<number> {
 
 async function sectionTabs(page: Page): Promise<string[]> {
   // With a tab panel, Material's tab nav bar is a tablist of tabs (each still a link).
-  return (await page.getByRole('tablist', { name: 'Settings' }).getByRole('tab').locator('.tab-label').allTextContents()).map((t) => t.trim());
+  return (
+    await page.getByRole('tablist', { name: 'Settings' }).getByRole('tab').locator('.tab-label').allTextContents()
+  ).map((t) => t.trim());
 }
 
 describe('settings page', () => {
@@ -105,7 +107,10 @@ describe('settings page', () => {
 
       // Revoke, through the confirmation.
       await row.getByRole('button', { name: `Revoke ${name}` }).click();
-      await page.getByRole('dialog').getByRole('heading', { name: `Revoke “${name}”?` }).waitFor();
+      await page
+        .getByRole('dialog')
+        .getByRole('heading', { name: `Revoke “${name}”?` })
+        .waitFor();
       await page.getByRole('dialog').getByRole('button', { name: 'Revoke key' }).click();
       await row.getByText(/^Revoked /).waitFor();
       expect(await row.getByRole('button', { name: /Revoke/ }).count()).toBe(0);
@@ -128,7 +133,9 @@ describe('settings page', () => {
       await page.goto(`${server.url}/settings/api-keys`);
       await page.getByRole('heading', { name: 'API keys', level: 1 }).waitFor();
       await page.getByRole('table', { name: 'API keys' }).waitFor();
-      const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+      const overflow = await page.evaluate(
+        () => document.documentElement.scrollWidth - document.documentElement.clientWidth,
+      );
       expect(overflow).toBeLessThanOrEqual(0);
       await screenshot(page, 'settings-api-keys-admin-phone');
       await page.getByRole('button', { name: 'New API key' }).click();
@@ -159,30 +166,33 @@ describe('settings page', () => {
   it.each([
     ['manager', DESKTOP],
     ['auditor', PHONE],
-  ] as const)('when a %s opens settings, then units are read-only, alert e-mail is theirs, and API keys stay out of reach', async (role, viewport) => {
-    const browser = await openBrowser(viewport);
-    try {
-      const { page } = browser;
-      await signIn(page, role);
-      await page.goto(`${server.url}/settings`);
-      await page.getByRole('heading', { name: 'Units', level: 1 }).waitFor();
-      await page.getByText('Only administrators can change the unit system.').waitFor();
-      expect(await page.getByRole('radiogroup').count()).toBe(0);
-      expect(await page.getByText(/gallons \(gal\), inches \(in\), square feet \(ft²\)/).count()).toBe(1);
-      expect(await sectionTabs(page)).toEqual(['Units', 'Notifications']);
-      await screenshot(page, `settings-units-${role}-${viewport === PHONE ? 'phone' : 'desktop'}`);
+  ] as const)(
+    'when a %s opens settings, then units are read-only, alert e-mail is theirs, and API keys stay out of reach',
+    async (role, viewport) => {
+      const browser = await openBrowser(viewport);
+      try {
+        const { page } = browser;
+        await signIn(page, role);
+        await page.goto(`${server.url}/settings`);
+        await page.getByRole('heading', { name: 'Units', level: 1 }).waitFor();
+        await page.getByText('Only administrators can change the unit system.').waitFor();
+        expect(await page.getByRole('radiogroup').count()).toBe(0);
+        expect(await page.getByText(/gallons \(gal\), inches \(in\), square feet \(ft²\)/).count()).toBe(1);
+        expect(await sectionTabs(page)).toEqual(['Units', 'Notifications']);
+        await screenshot(page, `settings-units-${role}-${viewport === PHONE ? 'phone' : 'desktop'}`);
 
-      await page.getByRole('tablist', { name: 'Settings' }).getByRole('tab', { name: 'Notifications' }).click();
-      await page.getByRole('heading', { name: 'Alert e-mail', level: 1 }).waitFor();
-      await page.getByRole('radiogroup', { name: 'How often' }).waitFor();
-      await screenshot(page, `settings-notifications-${role}`);
+        await page.getByRole('tablist', { name: 'Settings' }).getByRole('tab', { name: 'Notifications' }).click();
+        await page.getByRole('heading', { name: 'Alert e-mail', level: 1 }).waitFor();
+        await page.getByRole('radiogroup', { name: 'How often' }).waitFor();
+        await screenshot(page, `settings-notifications-${role}`);
 
-      await page.goto(`${server.url}/settings/api-keys`);
-      await page.waitForLoadState('networkidle');
-      expect(page.url()).not.toContain('/settings/api-keys');
-      expect(await page.getByRole('heading', { name: 'API keys' }).count()).toBe(0);
-    } finally {
-      await browser.close();
-    }
-  });
+        await page.goto(`${server.url}/settings/api-keys`);
+        await page.waitForLoadState('networkidle');
+        expect(page.url()).not.toContain('/settings/api-keys');
+        expect(await page.getByRole('heading', { name: 'API keys' }).count()).toBe(0);
+      } finally {
+        await browser.close();
+      }
+    },
+  );
 });

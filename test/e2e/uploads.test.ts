@@ -28,9 +28,32 @@ beforeAll(async () => {
   const org = await db.getRepository(OrganisationEntity).findOneByOrFail({ name: 'Cobalt Ridge Property Services' });
   siteName = `Aster Lane Fields ${suffix()}`;
   const site = await createSite(db, org.id, { name: siteName, kind: 'school-ground' });
-  await db.getRepository(MeterEntity).insert({ siteId: site.id, ref: 'SCHOOL-01', unit: 'gal', registerMultiplier: 1, registerDigits: 6, purpose: 'dedicated-irrigation', waterSource: 'recycled', installedAt: new Date('2020-01-01T00:00:00Z'), removedAt: null });
-  const controller = Number((await db.getRepository(ControllerEntity).insert({ siteId: site.id, ref: 'CTL-SCHOOL-A', name: 'Controller A' })).identifiers[0]!['id']);
-  await db.getRepository(ZoneEntity).insert(['A1', 'A2', 'A3', 'B1'].map((station) => ({ controllerId: controller, station, name: `Station ${station}`, hydrozoneId: null, designGpm: 10, emitterCount: null, emitterGph: null })));
+  await db.getRepository(MeterEntity).insert({
+    siteId: site.id,
+    ref: 'SCHOOL-01',
+    unit: 'gal',
+    registerMultiplier: 1,
+    registerDigits: 6,
+    purpose: 'dedicated-irrigation',
+    waterSource: 'recycled',
+    installedAt: new Date('2020-01-01T00:00:00Z'),
+    removedAt: null,
+  });
+  const controller = Number(
+    (await db.getRepository(ControllerEntity).insert({ siteId: site.id, ref: 'CTL-SCHOOL-A', name: 'Controller A' }))
+      .identifiers[0]!['id'],
+  );
+  await db.getRepository(ZoneEntity).insert(
+    ['A1', 'A2', 'A3', 'B1'].map((station) => ({
+      controllerId: controller,
+      station,
+      name: `Station ${station}`,
+      hydrozoneId: null,
+      designGpm: 10,
+      emitterCount: null,
+      emitterGph: null,
+    })),
+  );
   server = await startServer(config);
 });
 afterAll(async () => {
@@ -83,7 +106,10 @@ describe('upload page', () => {
       await history.getByRole('button', { name: 'Roll back' }).click();
       await page.getByRole('dialog').getByRole('button', { name: 'Roll back' }).click();
       await history.getByText('Rolled back').waitFor();
-      const [left] = await db.query('SELECT COUNT(*) AS n FROM meter_reading r JOIN meter m ON m.id = r.meter_id JOIN site s ON s.id = m.site_id WHERE s.name = ?', [siteName]);
+      const [left] = await db.query(
+        'SELECT COUNT(*) AS n FROM meter_reading r JOIN meter m ON m.id = r.meter_id JOIN site s ON s.id = m.site_id WHERE s.name = ?',
+        [siteName],
+      );
       expect(Number(left.n)).toBe(0);
       await screenshot(page, 'uploads-rolled-back');
     } catch (err) {

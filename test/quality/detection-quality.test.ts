@@ -51,14 +51,22 @@ describe('detection quality on synthetic sites', () => {
 
   it('names the zone at fault, alone when the data can tell, among the suspects when zones share meter hours', () => {
     const rows = outcomes.flatMap((o) =>
-      o.truth.filter((t) => t.zoneId).flatMap((t) =>
-        o.findings
-          .filter((f) => f.kind === 'runaway-zone' && f.periodStartUtc < t.endUtc && t.startUtc < f.periodEndUtc)
-          .map((f) => ({ id: o.scenarioId, exact: f.zoneId === t.zoneId, among: f.suspectZoneIds?.includes(t.zoneId!) ?? false })),
-      ),
+      o.truth
+        .filter((t) => t.zoneId)
+        .flatMap((t) =>
+          o.findings
+            .filter((f) => f.kind === 'runaway-zone' && f.periodStartUtc < t.endUtc && t.startUtc < f.periodEndUtc)
+            .map((f) => ({
+              id: o.scenarioId,
+              exact: f.zoneId === t.zoneId,
+              among: f.suspectZoneIds?.includes(t.zoneId!) ?? false,
+            })),
+        ),
     );
     const exact = rows.filter((r) => r.exact).length;
-    console.log(`Zone named alone: ${exact} of ${rows.length} findings; among suspects: ${rows.filter((r) => r.among).length}`);
+    console.log(
+      `Zone named alone: ${exact} of ${rows.length} findings; among suspects: ${rows.filter((r) => r.among).length}`,
+    );
     expect(rows.length).toBeGreaterThanOrEqual(20);
     expect(rows.filter((r) => !r.exact && !r.among).map((r) => r.id)).toEqual([]);
     // Long runs come from the controller log, so they always name one zone.
@@ -67,16 +75,32 @@ describe('detection quality on synthetic sites', () => {
 
   it('recovers the controller clock offset the generator put in to within two minutes, on sites with hourly data', () => {
     const hourly = sites.filter(({ site }) => site.input.meterHours);
-    const errors = hourly.map(({ site }) => estimateControllerShiftMinutes(site.input.meterHours!, site.input.runs, site.input.zones, 15) + site.controllerClockAheadMinutes);
-    console.log(`Controller clock shift error, minutes: ${[...new Set(errors)].sort((a, b) => a - b).map((e) => `${e}: ${errors.filter((x) => x === e).length}`).join(', ')}`);
+    const errors = hourly.map(
+      ({ site }) =>
+        estimateControllerShiftMinutes(site.input.meterHours!, site.input.runs, site.input.zones, 15) +
+        site.controllerClockAheadMinutes,
+    );
+    console.log(
+      `Controller clock shift error, minutes: ${[...new Set(errors)]
+        .sort((a, b) => a - b)
+        .map((e) => `${e}: ${errors.filter((x) => x === e).length}`)
+        .join(', ')}`,
+    );
     expect(errors.filter((e) => Math.abs(e) <= 2).length / errors.length).toBeGreaterThanOrEqual(0.9);
   });
 
   it('raises nothing over a whole clean year on any site, through every season and both DST changes', () => {
     const findings = SITE_PROFILES.flatMap((profile) =>
-      watchSite(generateSite({ id: `clean-year-${profile.name}`, profile, seed: seedFrom(`clean-year/${profile.name}`), startDate: '2026-01-01', days: 365, event: null }).input).map(
-        (f) => `${profile.name}: ${f.kind}/${f.subKind} ${new Date(f.periodStartUtc).toISOString()}`,
-      ),
+      watchSite(
+        generateSite({
+          id: `clean-year-${profile.name}`,
+          profile,
+          seed: seedFrom(`clean-year/${profile.name}`),
+          startDate: '2026-01-01',
+          days: 365,
+          event: null,
+        }).input,
+      ).map((f) => `${profile.name}: ${f.kind}/${f.subKind} ${new Date(f.periodStartUtc).toISOString()}`),
     );
     expect(findings).toEqual([]);
   }, 60_000);
@@ -86,15 +110,22 @@ describe('detection quality on synthetic sites', () => {
     expect(rainy.length).toBeGreaterThanOrEqual(10);
     const during = rainy.flatMap((o) => {
       const quiet = o.truth.find((t) => t.kind === 'none')!;
-      return o.findings.filter((f) => f.periodStartUtc < quiet.endUtc && quiet.startUtc < f.periodEndUtc).map((f) => `${o.scenarioId} ${f.key}`);
+      return o.findings
+        .filter((f) => f.periodStartUtc < quiet.endUtc && quiet.startUtc < f.periodEndUtc)
+        .map((f) => `${o.scenarioId} ${f.key}`);
     });
     expect(during).toEqual([]);
   });
 
   it('would flag the rainy weeks if skipped runs were read as watering (the trap is real)', () => {
-    const naive = runAll((input) => ({ ...input, runs: input.runs.map((r) => (r.cause === 'skipped-rain' ? { ...r, cause: 'scheduled' as const } : r)) }));
+    const naive = runAll((input) => ({
+      ...input,
+      runs: input.runs.map((r) => (r.cause === 'skipped-rain' ? { ...r, cause: 'scheduled' as const } : r)),
+    }));
     const rainyIds = new Set(sites.filter(({ site }) => site.truth.some((t) => t.kind === 'none')).map(({ id }) => id));
-    const flagged = naive.filter((o) => rainyIds.has(o.scenarioId) && o.findings.some((f: Finding) => f.subKind === 'zero-while-running'));
+    const flagged = naive.filter(
+      (o) => rainyIds.has(o.scenarioId) && o.findings.some((f: Finding) => f.subKind === 'zero-while-running'),
+    );
     expect(flagged.length).toBeGreaterThanOrEqual(rainyIds.size - 1);
   }, 60_000);
 
@@ -102,7 +133,20 @@ describe('detection quality on synthetic sites', () => {
     const loose = scoreOutcomes(
       runAll((input) => ({
         ...input,
-        site: { ...input.site, thresholds: { continuousFlowHours: 6, nightFlowMadK: 0, nightFlowMinExcessGph: 0, longRunMinRatio: 1.05, longRunMadK: 1, monthToDateRatio: 0.9, projectedRatio: 0.9, zeroFlowMaxShare: 1, zeroFlowMinDays: 1 } },
+        site: {
+          ...input.site,
+          thresholds: {
+            continuousFlowHours: 6,
+            nightFlowMadK: 0,
+            nightFlowMinExcessGph: 0,
+            longRunMinRatio: 1.05,
+            longRunMadK: 1,
+            monthToDateRatio: 0.9,
+            projectedRatio: 0.9,
+            zeroFlowMaxShare: 1,
+            zeroFlowMinDays: 1,
+          },
+        },
       })),
     );
     for (const kind of FINDING_KINDS) {

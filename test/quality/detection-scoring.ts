@@ -34,7 +34,14 @@ export interface QualityReport {
   /** Findings per sub-kind and verdict, to see which check did the work. */
   bySubKind: Array<{ kind: FindingKind; subKind: string; hits: number; explained: number; falseAlarms: number }>;
   /** Per scenario family (the scenario id without its number): events found, by which checks, and false alarms. */
-  byFamily: Array<{ family: string; scenarios: number; events: number; found: number; foundBy: string[]; falseAlarms: number }>;
+  byFamily: Array<{
+    family: string;
+    scenarios: number;
+    events: number;
+    found: number;
+    foundBy: string[];
+    falseAlarms: number;
+  }>;
   misses: string[];
   falseAlarms: string[];
 }
@@ -43,18 +50,30 @@ function familyTable(outcomes: readonly ScenarioOutcome[]): QualityReport['byFam
   const families = new Map<string, QualityReport['byFamily'][number] & { checks: Map<string, number> }>();
   for (const o of outcomes) {
     const family = o.scenarioId.replace(/-\d+$/, '');
-    const row = families.get(family) ?? { family, scenarios: 0, events: 0, found: 0, foundBy: [], falseAlarms: 0, checks: new Map() };
+    const row = families.get(family) ?? {
+      family,
+      scenarios: 0,
+      events: 0,
+      found: 0,
+      foundBy: [],
+      falseAlarms: 0,
+      checks: new Map(),
+    };
     row.scenarios += 1;
     for (const e of o.truth.filter((t) => t.kind !== 'none')) {
       row.events += 1;
       const matching = o.findings.filter((f) => f.kind === e.kind && overlaps(f, e));
       if (matching.length > 0) row.found += 1;
-      for (const check of new Set(matching.map((f) => f.subKind))) row.checks.set(check, (row.checks.get(check) ?? 0) + 1);
+      for (const check of new Set(matching.map((f) => f.subKind)))
+        row.checks.set(check, (row.checks.get(check) ?? 0) + 1);
     }
     row.falseAlarms += o.findings.filter((f) => verdictOf(f, o.truth) === 'false-alarm').length;
     families.set(family, row);
   }
-  return [...families.values()].map(({ checks, ...row }) => ({ ...row, foundBy: [...checks].map(([check, n]) => `${check} ${n}`) }));
+  return [...families.values()].map(({ checks, ...row }) => ({
+    ...row,
+    foundBy: [...checks].map(([check, n]) => `${check} ${n}`),
+  }));
 }
 
 const overlaps = (f: Finding, e: GroundTruthEvent) => f.periodStartUtc < e.endUtc && e.startUtc < f.periodEndUtc;
@@ -63,7 +82,12 @@ type Verdict = 'hit' | 'explained' | 'false-alarm';
 
 function verdictOf(finding: Finding, truth: readonly GroundTruthEvent[]): Verdict {
   if (truth.some((e) => e.kind === finding.kind && overlaps(finding, e))) return 'hit';
-  if (truth.some((e) => e.alsoExplains.includes(finding.kind) && overlaps(finding, e) && e.startUtc < finding.detectedAtUtc)) return 'explained';
+  if (
+    truth.some(
+      (e) => e.alsoExplains.includes(finding.kind) && overlaps(finding, e) && e.startUtc < finding.detectedAtUtc,
+    )
+  )
+    return 'explained';
   return 'false-alarm';
 }
 
@@ -72,7 +96,10 @@ const iso = (ms: number) => new Date(ms).toISOString().slice(0, 16);
 export function scoreOutcomes(outcomes: readonly ScenarioOutcome[]): QualityReport {
   const misses: string[] = [];
   const falseAlarms: string[] = [];
-  const subKinds = new Map<string, { kind: FindingKind; subKind: string; hits: number; explained: number; falseAlarms: number }>();
+  const subKinds = new Map<
+    string,
+    { kind: FindingKind; subKind: string; hits: number; explained: number; falseAlarms: number }
+  >();
   const scores = FINDING_KINDS.map((kind): DetectorScore => {
     let events = 0;
     let found = 0;
@@ -93,13 +120,21 @@ export function scoreOutcomes(outcomes: readonly ScenarioOutcome[]): QualityRepo
       for (const f of o.findings.filter((x) => x.kind === kind)) {
         findings += 1;
         const verdict = verdictOf(f, o.truth);
-        const row = subKinds.get(`${kind}/${f.subKind}`) ?? { kind, subKind: f.subKind, hits: 0, explained: 0, falseAlarms: 0 };
-        if (verdict === 'hit') (hits += 1), (row.hits += 1);
-        else if (verdict === 'explained') (explained += 1), (row.explained += 1);
+        const row = subKinds.get(`${kind}/${f.subKind}`) ?? {
+          kind,
+          subKind: f.subKind,
+          hits: 0,
+          explained: 0,
+          falseAlarms: 0,
+        };
+        if (verdict === 'hit') ((hits += 1), (row.hits += 1));
+        else if (verdict === 'explained') ((explained += 1), (row.explained += 1));
         else {
           alarms += 1;
           row.falseAlarms += 1;
-          falseAlarms.push(`${o.scenarioId}: ${f.kind}/${f.subKind}${f.zoneId ? ` ${f.zoneId}` : ''} ${iso(f.periodStartUtc)} → ${iso(f.periodEndUtc)}: ${f.explanation}`);
+          falseAlarms.push(
+            `${o.scenarioId}: ${f.kind}/${f.subKind}${f.zoneId ? ` ${f.zoneId}` : ''} ${iso(f.periodStartUtc)} → ${iso(f.periodEndUtc)}: ${f.explanation}`,
+          );
         }
         subKinds.set(`${kind}/${f.subKind}`, row);
       }
@@ -119,7 +154,13 @@ export function scoreOutcomes(outcomes: readonly ScenarioOutcome[]): QualityRepo
       medianHoursToDetect: delays.length > 0 ? median(delays) : null,
     };
   });
-  return { scores, byFamily: familyTable(outcomes), bySubKind: [...subKinds.values()].sort((a, b) => `${a.kind}/${a.subKind}`.localeCompare(`${b.kind}/${b.subKind}`)), misses, falseAlarms };
+  return {
+    scores,
+    byFamily: familyTable(outcomes),
+    bySubKind: [...subKinds.values()].sort((a, b) => `${a.kind}/${a.subKind}`.localeCompare(`${b.kind}/${b.subKind}`)),
+    misses,
+    falseAlarms,
+  };
 }
 
 export function formatQualityMarkdown(report: QualityReport, scenarioCount: number): string {
@@ -130,7 +171,8 @@ export function formatQualityMarkdown(report: QualityReport, scenarioCount: numb
     '| Detector | True events | Found | Findings | Hits | Explained by another event | False alarms | Precision | Recall | Median hours to detect |',
     '|---|---:|---:|---:|---:|---:|---:|---:|---:|---:|',
     ...report.scores.map(
-      (s) => `| ${s.kind} | ${s.events} | ${s.found} | ${s.findings} | ${s.hits} | ${s.explained} | ${s.falseAlarms} | ${pct(s.precision)} | ${pct(s.recall)} | ${s.medianHoursToDetect === null ? '–' : s.medianHoursToDetect.toFixed(0)} |`,
+      (s) =>
+        `| ${s.kind} | ${s.events} | ${s.found} | ${s.findings} | ${s.hits} | ${s.explained} | ${s.falseAlarms} | ${pct(s.precision)} | ${pct(s.recall)} | ${s.medianHoursToDetect === null ? '–' : s.medianHoursToDetect.toFixed(0)} |`,
     ),
     '',
     'Findings by check:',
@@ -143,11 +185,14 @@ export function formatQualityMarkdown(report: QualityReport, scenarioCount: numb
     '',
     '| Scenario family | Scenarios | Events | Found | Found by | False alarms |',
     '|---|---:|---:|---:|---|---:|',
-    ...report.byFamily.map((r) => `| ${r.family} | ${r.scenarios} | ${r.events} | ${r.found} | ${r.foundBy.join(', ') || '–'} | ${r.falseAlarms} |`),
+    ...report.byFamily.map(
+      (r) =>
+        `| ${r.family} | ${r.scenarios} | ${r.events} | ${r.found} | ${r.foundBy.join(', ') || '–'} | ${r.falseAlarms} |`,
+    ),
     '',
     'Precision = hits ÷ (hits + false alarms); recall = true events found ÷ true events. "Explained" findings overlap an',
     'injected event that rightly causes that kind too (a stuck valve is also continuous flow; a large leak also overspends)',
-    'and that began before the finding was first detected. Hours to detect run from the event\'s start to the first',
+    "and that began before the finding was first detected. Hours to detect run from the event's start to the first",
     'moment the data met the condition; the nightly job adds up to a day on top.',
   ];
   return `${lines.join('\n')}\n`;

@@ -29,7 +29,11 @@ export interface SiteProfile {
   zones: SyntheticZone[];
 }
 
-const spray = (id: string, gpm: number, minutes: number): SyntheticZone => ({ zoneId: id, designGpm: gpm, minutesAtReferenceEto: minutes });
+const spray = (id: string, gpm: number, minutes: number): SyntheticZone => ({
+  zoneId: id,
+  designGpm: gpm,
+  minutesAtReferenceEto: minutes,
+});
 const drip = spray;
 
 export const SITE_PROFILES: readonly SiteProfile[] = [
@@ -44,7 +48,14 @@ export const SITE_PROFILES: readonly SiteProfile[] = [
     wateringEveryDays: 1,
     flowSensor: false,
     budgetHeadroom: 1.2,
-    zones: [spray('L1', 12, 14), spray('L2', 14, 12), spray('L3', 10, 16), spray('L4', 13, 12), drip('L5', 6, 45), drip('L6', 5.5, 40)],
+    zones: [
+      spray('L1', 12, 14),
+      spray('L2', 14, 12),
+      spray('L3', 10, 16),
+      spray('L4', 13, 12),
+      drip('L5', 6, 45),
+      drip('L6', 5.5, 40),
+    ],
   },
   {
     name: 'Quarry Bend Office Park',
@@ -70,7 +81,15 @@ export const SITE_PROFILES: readonly SiteProfile[] = [
     wateringEveryDays: 1,
     flowSensor: false,
     budgetHeadroom: 1.15,
-    zones: [spray('S1', 14, 10), spray('S2', 12, 11), spray('S3', 15, 9), spray('S4', 9, 12), drip('S5', 6.5, 35), drip('S6', 5, 30), drip('S7', 7.5, 25)],
+    zones: [
+      spray('S1', 14, 10),
+      spray('S2', 12, 11),
+      spray('S3', 15, 9),
+      spray('S4', 9, 12),
+      drip('S5', 6.5, 35),
+      drip('S6', 5, 30),
+      drip('S7', 7.5, 25),
+    ],
   },
   {
     name: 'Hollis Green Streetscape',

@@ -65,7 +65,8 @@ function normalEtoMm(profile: SiteProfile, date: string): number {
 }
 
 function dailyNormalUse(profile: SiteProfile, date: string): number {
-  const perDay = profile.zones.reduce((s, z) => s + z.designGpm * z.minutesAtReferenceEto, 0) / profile.wateringEveryDays;
+  const perDay =
+    profile.zones.reduce((s, z) => s + z.designGpm * z.minutesAtReferenceEto, 0) / profile.wateringEveryDays;
   return (perDay * normalEtoMm(profile, date)) / 5;
 }
 
@@ -105,13 +106,20 @@ interface NightContext {
 }
 
 /** One night's program: zones one after another from the start hour, minutes scaled by the day's ETo. */
-function waterNight(ctx: NightContext, dayIndex: number, etoMm: number, startUtc: number, runtimeFactor: number): number {
+function waterNight(
+  ctx: NightContext,
+  dayIndex: number,
+  etoMm: number,
+  startUtc: number,
+  runtimeFactor: number,
+): number {
   const { rng, profile, event } = ctx;
   let t = startUtc;
   profile.zones.forEach((zone, zi) => {
     let minutes = Math.max(1, Math.round((zone.minutesAtReferenceEto * etoMm * runtimeFactor) / 5));
     let flowFactor = 1;
-    const hit = (e: { startDay: number; nights: number; zoneIndex: number }) => zi === e.zoneIndex && dayIndex >= e.startDay && dayIndex < e.startDay + e.nights;
+    const hit = (e: { startDay: number; nights: number; zoneIndex: number }) =>
+      zi === e.zoneIndex && dayIndex >= e.startDay && dayIndex < e.startDay + e.nights;
     if (event?.kind === 'long-run' && hit(event)) minutes = Math.round(minutes * event.factor);
     if (event?.kind === 'broken-lateral' && hit(event)) flowFactor = event.factor;
     const gpm = zone.designGpm * ctx.recordError[zi]! * (1 + rng.normal(0, 0.04)) * flowFactor;
@@ -124,7 +132,8 @@ function waterNight(ctx: NightContext, dayIndex: number, etoMm: number, startUtc
       ...(profile.flowSensor ? { measuredGallons: Math.round(gpm * minutes * (1 + rng.normal(0, 0.02))) } : {}),
     });
     ctx.flows.push({ fromUtc: t, toUtc: end, gpm });
-    if ((event?.kind === 'long-run' || event?.kind === 'broken-lateral') && hit(event)) ctx.truthRuns.push({ startUtc: t, endUtc: end });
+    if ((event?.kind === 'long-run' || event?.kind === 'broken-lateral') && hit(event))
+      ctx.truthRuns.push({ startUtc: t, endUtc: end });
     if (event?.kind === 'stuck-valve' && zi === event.zoneIndex && dayIndex >= event.startDay && !ctx.stuck) {
       ctx.stuck = { fromUtc: end, toUtc: end + event.days * DAY_MS };
       ctx.flows.push({ fromUtc: end, toUtc: ctx.stuck.toUtc, gpm: zone.designGpm * event.shareOfDesign });
@@ -165,7 +174,17 @@ export function generateSite(scenario: Scenario): SyntheticSite {
   const toUtc = localMidnightUtc(addDays(scenario.startDate, scenario.days), zone);
   const recordError = profile.zones.map(() => rng.uniform(0.85, 1.15));
   const clockSkewMs = Math.round(rng.uniform(-5, 5)) * 60_000;
-  const ctx: NightContext = { rng, profile, recordError, clockSkewMs, runs: [], flows: [], truthRuns: [], stuck: null, event };
+  const ctx: NightContext = {
+    rng,
+    profile,
+    recordError,
+    clockSkewMs,
+    runs: [],
+    flows: [],
+    truthRuns: [],
+    stuck: null,
+    event,
+  };
   const truth: GroundTruthEvent[] = [];
   const months = monthsSpanned(scenario.startDate, scenario.days);
   const dayStart = (d: number) => localMidnightUtc(addDays(scenario.startDate, d), zone);
@@ -173,7 +192,8 @@ export function generateSite(scenario: Scenario): SyntheticSite {
   for (let d = 0; d < scenario.days; d++) {
     const date = addDays(scenario.startDate, d);
     const raining = event?.kind === 'rainy-week' && d >= event.startDay && d < event.startDay + event.days;
-    const etoMm = normalEtoMm(profile, date) * Math.min(1.4, Math.max(0.6, 1 + rng.normal(0, 0.1))) * (raining ? 0.3 : 1);
+    const etoMm =
+      normalEtoMm(profile, date) * Math.min(1.4, Math.max(0.6, 1 + rng.normal(0, 0.1))) * (raining ? 0.3 : 1);
     const inOverspend = event?.kind === 'overspend-month' && date.slice(0, 7) === months[event.monthIndex];
     const factor = inOverspend && event.how === 'seasonal-adjust' ? event.factor : 1;
     if (d % profile.wateringEveryDays === 0) {
@@ -209,16 +229,32 @@ export function generateSite(scenario: Scenario): SyntheticSite {
     const s = dayStart(event.startDay) + 13 * HOUR_MS;
     const e = s + event.days * DAY_MS;
     ctx.flows.push({ fromUtc: s, toUtc: e, gpm: event.gpm });
-    truth.push({ label: `${event.kind} ${event.gpm.toFixed(2)} gpm`, kind: 'leak', startUtc: s, endUtc: e, alsoExplains: ['overspend'] });
+    truth.push({
+      label: `${event.kind} ${event.gpm.toFixed(2)} gpm`,
+      kind: 'leak',
+      startUtc: s,
+      endUtc: e,
+      alsoExplains: ['overspend'],
+    });
   }
 
-  let hourly = meterHoursFrom(ctx.flows, fromUtc, toUtc).map((gallons, i): MeterHour | null => ({ startUtc: fromUtc + i * HOUR_MS, gallons }));
+  let hourly = meterHoursFrom(ctx.flows, fromUtc, toUtc).map((gallons, i): MeterHour | null => ({
+    startUtc: fromUtc + i * HOUR_MS,
+    gallons,
+  }));
   // Occasional lost hours, as any logger has.
   hourly = hourly.map((h) => (h && rng.chance(0.002) ? null : h));
 
   switch (event?.kind) {
     case 'stuck-valve':
-      if (ctx.stuck) truth.push({ label: `valve ${profile.zones[event.zoneIndex]!.zoneId} stuck open`, kind: 'runaway-zone', startUtc: ctx.stuck.fromUtc, endUtc: ctx.stuck.toUtc, alsoExplains: ['leak', 'overspend'] });
+      if (ctx.stuck)
+        truth.push({
+          label: `valve ${profile.zones[event.zoneIndex]!.zoneId} stuck open`,
+          kind: 'runaway-zone',
+          startUtc: ctx.stuck.fromUtc,
+          endUtc: ctx.stuck.toUtc,
+          alsoExplains: ['leak', 'overspend'],
+        });
       break;
     case 'long-run':
     case 'broken-lateral':
@@ -237,27 +273,52 @@ export function generateSite(scenario: Scenario): SyntheticSite {
     case 'silent-meter': {
       const s = dayStart(event.startDay) + 9 * HOUR_MS;
       const e = Math.min(toUtc, s + event.days * DAY_MS);
-      hourly = hourly.map((h) => (h && h.startUtc >= s && h.startUtc < e ? (event.kind === 'silent-meter' ? null : { ...h, gallons: 0 }) : h));
-      truth.push({ label: `${event.kind} ${((e - s) / DAY_MS).toFixed(1)} d${e === toUtc ? ' (to the end)' : ''}`, kind: 'silent-meter', startUtc: s, endUtc: e, alsoExplains: [] });
+      hourly = hourly.map((h) =>
+        h && h.startUtc >= s && h.startUtc < e ? (event.kind === 'silent-meter' ? null : { ...h, gallons: 0 }) : h,
+      );
+      truth.push({
+        label: `${event.kind} ${((e - s) / DAY_MS).toFixed(1)} d${e === toUtc ? ' (to the end)' : ''}`,
+        kind: 'silent-meter',
+        startUtc: s,
+        endUtc: e,
+        alsoExplains: [],
+      });
       break;
     }
     case 'overspend-month': {
       const month = months[event.monthIndex]!;
       const s = localMidnightUtc(`${month}-01`, zone);
       const e = Math.min(toUtc, localMidnightUtc(addDays(monthDates(month).pop()!, 1), zone));
-      truth.push({ label: `overspend ${event.how} ×${event.factor.toFixed(2)}`, kind: 'overspend', startUtc: s, endUtc: e, alsoExplains: [] });
+      truth.push({
+        label: `overspend ${event.how} ×${event.factor.toFixed(2)}`,
+        kind: 'overspend',
+        startUtc: s,
+        endUtc: e,
+        alsoExplains: [],
+      });
       break;
     }
     case 'rainy-week':
-      truth.push({ label: `rainy week, ${event.days} d skipped`, kind: 'none', startUtc: dayStart(event.startDay), endUtc: dayStart(event.startDay + event.days), alsoExplains: [] });
+      truth.push({
+        label: `rainy week, ${event.days} d skipped`,
+        kind: 'none',
+        startUtc: dayStart(event.startDay),
+        endUtc: dayStart(event.startDay + event.days),
+        alsoExplains: [],
+      });
       break;
     default:
       break;
   }
 
   const meterHours = hourly.filter((h): h is MeterHour => h !== null);
-  const budgetMonths = months.map((month) => ({ month, gallons: monthDates(month).reduce((s, d) => s + dailyNormalUse(profile, d) * profile.budgetHeadroom, 0) }));
-  const dailyBudgets = months.flatMap((m) => monthDates(m).map((date) => ({ date, gallons: dailyNormalUse(profile, date) * profile.budgetHeadroom })));
+  const budgetMonths = months.map((month) => ({
+    month,
+    gallons: monthDates(month).reduce((s, d) => s + dailyNormalUse(profile, d) * profile.budgetHeadroom, 0),
+  }));
+  const dailyBudgets = months.flatMap((m) =>
+    monthDates(m).map((date) => ({ date, gallons: dailyNormalUse(profile, date) * profile.budgetHeadroom })),
+  );
   const input: SiteWatchInput = {
     site: {
       siteId: scenario.id,
@@ -265,7 +326,19 @@ export function generateSite(scenario: Scenario): SyntheticSite {
       irrigationWindow: profile.irrigationWindow,
       monthlyBudgets: budgetMonths,
       dailyBudgets,
-      rateSchedule: { name: 'Invented reclaimed tiers', unit: 'ccf', currency: 'USD', fixedChargePerPeriod: 40, volumeCharge: { kind: 'tiered', tiers: [{ upToUnits: 100, pricePerUnit: 2.1 }, { upToUnits: null, pricePerUnit: 3.4 }] } },
+      rateSchedule: {
+        name: 'Invented reclaimed tiers',
+        unit: 'ccf',
+        currency: 'USD',
+        fixedChargePerPeriod: 40,
+        volumeCharge: {
+          kind: 'tiered',
+          tiers: [
+            { upToUnits: 100, pricePerUnit: 2.1 },
+            { upToUnits: null, pricePerUnit: 3.4 },
+          ],
+        },
+      },
     },
     zones: profile.zones.map((z) => ({ zoneId: z.zoneId, designGpm: z.designGpm })),
     runs: ctx.runs.sort((a, b) => a.startUtc - b.startUtc),
@@ -278,7 +351,11 @@ export function generateSite(scenario: Scenario): SyntheticSite {
       totals.set(m, (totals.get(m) ?? 0) + h.gallons);
     }
     // Only whole months inside the data: a part month would look like a small month, not a read.
-    const whole = months.filter((m) => localMidnightUtc(`${m}-01`, zone) >= fromUtc && localMidnightUtc(addDays(monthDates(m).pop()!, 1), zone) <= toUtc);
+    const whole = months.filter(
+      (m) =>
+        localMidnightUtc(`${m}-01`, zone) >= fromUtc &&
+        localMidnightUtc(addDays(monthDates(m).pop()!, 1), zone) <= toUtc,
+    );
     input.monthlyUse = whole.map((month): MonthlyUse => ({ month, gallons: totals.get(month) ?? 0 }));
   } else {
     input.meterHours = meterHours;

@@ -35,7 +35,16 @@ describe('ASCE-EWRI standardized constants', () => {
 
 describe('ASCE daily ETos on FAO-56 Example 18 (Uccle, 6 July)', () => {
   const fao = computeDailyEto(
-    { date: '2025-07-06', tMaxC: 21.5, tMinC: 12.3, rhMaxPct: 84, rhMinPct: 63, windSpeedMs: 10 / 3.6, windHeightM: 10, sunshineHours: 9.25 },
+    {
+      date: '2025-07-06',
+      tMaxC: 21.5,
+      tMinC: 12.3,
+      rhMaxPct: 84,
+      rhMinPct: 63,
+      windSpeedMs: 10 / 3.6,
+      windHeightM: 10,
+      sunshineHours: 9.25,
+    },
     { latitudeDeg: 50.8, elevationM: 100 },
   );
   const s = fao.steps;
@@ -63,15 +72,33 @@ describe('ASCE daily ETos on FAO-56 Example 18 (Uccle, 6 July)', () => {
 describe('ASCE hourly differs from FAO-56 hourly (REFERENCE.md §2 note)', () => {
   // Inputs of FAO-56 Example 19, p.75–76 (N'Diaye, 1 October).
   const site = { latitudeDeg: 16 + 13 / 60, longitudeDegEast: -16.25, timeZoneMeridianDegEast: -15, elevationM: 8 };
-  const dayObs = { dayOfYear: 274, clockHourMidpoint: 14.5, tempC: 38, rhPct: 52, windSpeedMs: 3.3, solarRadiationMj: 2.45 };
-  const nightObs = { dayOfYear: 274, clockHourMidpoint: 2.5, tempC: 28, rhPct: 90, windSpeedMs: 1.9, solarRadiationMj: 0 };
+  const dayObs = {
+    dayOfYear: 274,
+    clockHourMidpoint: 14.5,
+    tempC: 38,
+    rhPct: 52,
+    windSpeedMs: 3.3,
+    solarRadiationMj: 2.45,
+  };
+  const nightObs = {
+    dayOfYear: 274,
+    clockHourMidpoint: 2.5,
+    tempC: 28,
+    rhPct: 90,
+    windSpeedMs: 1.9,
+    solarRadiationMj: 0,
+  };
 
   it('by day ASCE (Cd 0.24) gives more than FAO (Cd 0.34); at night (Cd 0.96) less', () => {
-    expect(computeHourlyEto(dayObs, site, 'asce-short').etoMm).toBeGreaterThan(computeHourlyEto(dayObs, site, 'fao56').etoMm);
-    expect(computeHourlyEto(nightObs, site, 'asce-short').etoMm).toBeLessThan(computeHourlyEto(nightObs, site, 'fao56').etoMm);
+    expect(computeHourlyEto(dayObs, site, 'asce-short').etoMm).toBeGreaterThan(
+      computeHourlyEto(dayObs, site, 'fao56').etoMm,
+    );
+    expect(computeHourlyEto(nightObs, site, 'asce-short').etoMm).toBeLessThan(
+      computeHourlyEto(nightObs, site, 'fao56').etoMm,
+    );
   });
 
-  it('by day ASCE short with G = 0.1Rn reproduces the FAO radiation term when Cd is set to FAO\'s value', () => {
+  it("by day ASCE short with G = 0.1Rn reproduces the FAO radiation term when Cd is set to FAO's value", () => {
     // Same Rn and G (0.1Rn) by day, so only the denominator constant differs: check the ratio of the two results.
     const asce = computeHourlyEto(dayObs, site, 'asce-short');
     const fao = computeHourlyEto(dayObs, site, 'fao56');

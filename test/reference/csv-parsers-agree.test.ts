@@ -18,7 +18,13 @@ import { decodeText, sniffEncoding } from '@shared/ingest/encoding-sniffing';
 import { interpretRows } from '@shared/ingest/row-reader';
 import type { ColumnMapping } from '@shared/ingest/upload-kind';
 
-interface SampleFile { timeZone: string; refused?: string; records?: number; mappingOverrides?: Partial<ColumnMapping>; checkKnownRefs?: boolean }
+interface SampleFile {
+  timeZone: string;
+  refused?: string;
+  records?: number;
+  mappingOverrides?: Partial<ColumnMapping>;
+  checkKnownRefs?: boolean;
+}
 const samples = new URL('../../samples/', import.meta.url);
 const catalogue = JSON.parse(readFileSync(new URL('catalogue.json', samples), 'utf8')) as {
   now: string;

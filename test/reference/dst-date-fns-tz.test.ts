@@ -23,7 +23,8 @@ const formatted = (utcMs: number, zone: string) => formatInTimeZone(new Date(utc
 /** Every wall time from `fromIso` (inclusive) to `toIso` (exclusive), `stepMinutes` apart on the clock face. */
 function walls(fromIso: string, toIso: string, stepMinutes: number): WallTime[] {
   const out: WallTime[] = [];
-  for (let ms = Date.parse(`${fromIso}Z`); ms < Date.parse(`${toIso}Z`); ms += stepMinutes * 60_000) out.push(wallTimeFromUtcFields(ms));
+  for (let ms = Date.parse(`${fromIso}Z`); ms < Date.parse(`${toIso}Z`); ms += stepMinutes * 60_000)
+    out.push(wallTimeFromUtcFields(ms));
   return out;
 }
 
@@ -50,31 +51,60 @@ function compare(zone: string, list: WallTime[]) {
 
 describe('local → UTC agrees with date-fns-tz across DST transitions (15-minute steps)', () => {
   it('America/Los_Angeles, 2026 spring-forward (03-08) and fall-back (11-01)', () => {
-    expect(compare('America/Los_Angeles', walls('2026-03-07T00:00:00', '2026-03-10T00:00:00', 15))).toMatchObject({ gap: 4, ambiguous: 0 });
-    expect(compare('America/Los_Angeles', walls('2026-10-31T00:00:00', '2026-11-03T00:00:00', 15))).toMatchObject({ gap: 0, ambiguous: 4 });
+    expect(compare('America/Los_Angeles', walls('2026-03-07T00:00:00', '2026-03-10T00:00:00', 15))).toMatchObject({
+      gap: 4,
+      ambiguous: 0,
+    });
+    expect(compare('America/Los_Angeles', walls('2026-10-31T00:00:00', '2026-11-03T00:00:00', 15))).toMatchObject({
+      gap: 0,
+      ambiguous: 4,
+    });
   });
 
   it('America/Denver, 2026 spring-forward and fall-back', () => {
-    expect(compare('America/Denver', walls('2026-03-07T00:00:00', '2026-03-10T00:00:00', 15))).toMatchObject({ gap: 4 });
-    expect(compare('America/Denver', walls('2026-10-31T00:00:00', '2026-11-03T00:00:00', 15))).toMatchObject({ ambiguous: 4 });
+    expect(compare('America/Denver', walls('2026-03-07T00:00:00', '2026-03-10T00:00:00', 15))).toMatchObject({
+      gap: 4,
+    });
+    expect(compare('America/Denver', walls('2026-10-31T00:00:00', '2026-11-03T00:00:00', 15))).toMatchObject({
+      ambiguous: 4,
+    });
   });
 
   it('America/Phoenix has no DST: every time is unique', () => {
-    expect(compare('America/Phoenix', walls('2026-03-07T00:00:00', '2026-03-10T00:00:00', 15))).toEqual({ unique: 288, ambiguous: 0, gap: 0 });
+    expect(compare('America/Phoenix', walls('2026-03-07T00:00:00', '2026-03-10T00:00:00', 15))).toEqual({
+      unique: 288,
+      ambiguous: 0,
+      gap: 0,
+    });
   });
 
   it('southern hemisphere and a 30-minute DST shift (Australia/Sydney, Australia/Lord_Howe)', () => {
-    expect(compare('Australia/Sydney', walls('2026-04-04T00:00:00', '2026-04-06T00:00:00', 15))).toMatchObject({ ambiguous: 4 });
-    expect(compare('Australia/Sydney', walls('2026-10-03T00:00:00', '2026-10-05T00:00:00', 15))).toMatchObject({ gap: 4 });
-    expect(compare('Australia/Lord_Howe', walls('2026-04-04T00:00:00', '2026-04-06T00:00:00', 15))).toMatchObject({ ambiguous: 2 });
-    expect(compare('Australia/Lord_Howe', walls('2026-10-03T00:00:00', '2026-10-05T00:00:00', 15))).toMatchObject({ gap: 2 });
+    expect(compare('Australia/Sydney', walls('2026-04-04T00:00:00', '2026-04-06T00:00:00', 15))).toMatchObject({
+      ambiguous: 4,
+    });
+    expect(compare('Australia/Sydney', walls('2026-10-03T00:00:00', '2026-10-05T00:00:00', 15))).toMatchObject({
+      gap: 4,
+    });
+    expect(compare('Australia/Lord_Howe', walls('2026-04-04T00:00:00', '2026-04-06T00:00:00', 15))).toMatchObject({
+      ambiguous: 2,
+    });
+    expect(compare('Australia/Lord_Howe', walls('2026-10-03T00:00:00', '2026-10-05T00:00:00', 15))).toMatchObject({
+      gap: 2,
+    });
   });
 });
 
 describe('whole-year check, hourly', () => {
-  it.each(['America/Los_Angeles', 'America/Denver'])('%s, 2026: one gap hour, one repeated hour, the rest agree', (zone) => {
-    expect(compare(zone, walls('2026-01-01T00:00:00', '2027-01-01T00:00:00', 60))).toEqual({ unique: 8758, ambiguous: 1, gap: 1 });
-  });
+  it.each(['America/Los_Angeles', 'America/Denver'])(
+    '%s, 2026: one gap hour, one repeated hour, the rest agree',
+    (zone) => {
+      expect(compare(zone, walls('2026-01-01T00:00:00', '2027-01-01T00:00:00', 60))).toEqual({
+        unique: 8758,
+        ambiguous: 1,
+        gap: 1,
+      });
+    },
+  );
 });
 
 /** date-fns-tz's offset for an instant, from its `xxx` (e.g. `-08:00`, `+10:30`) format token. */

@@ -216,11 +216,19 @@ describe('FAO-56 Example 18: daily ETo at Uccle (Brussels) on 6 July, p.72–73'
   });
 });
 
-describe('FAO-56 Example 19: hourly ETo at N\'Diaye (Senegal) on 1 October, p.75–76', () => {
+describe("FAO-56 Example 19: hourly ETo at N'Diaye (Senegal) on 1 October, p.75–76", () => {
   // 16°13'N, 16°15'W; FAO's Lz = 15°W and Lm = 16.25°W become −15 and −16.25 degrees east.
   const site = { latitudeDeg: 16 + 13 / 60, longitudeDegEast: -16.25, timeZoneMeridianDegEast: -15, elevationM: 8 };
   const night = computeHourlyEto(
-    { dayOfYear: 274, clockHourMidpoint: 2.5, tempC: 28, rhPct: 90, windSpeedMs: 1.9, solarRadiationMj: 0, rsOverRsoWhenDark: 0.8 },
+    {
+      dayOfYear: 274,
+      clockHourMidpoint: 2.5,
+      tempC: 28,
+      rhPct: 90,
+      windSpeedMs: 1.9,
+      solarRadiationMj: 0,
+      rsOverRsoWhenDark: 0.8,
+    },
     site,
     'fao56',
   );
@@ -295,22 +303,59 @@ describe('FAO-56 Example 19: hourly ETo at N\'Diaye (Senegal) on 1 October, p.75
 
 describe('FAO-56 Annex 2 tables (p.213–222)', () => {
   it('Table 2.1 atmospheric pressure by elevation', () => {
-    const rows: [number, number][] = [[0, 101.3], [100, 100.1], [200, 99.0], [1000, 90.0], [1800, 81.8], [2000, 79.8], [3000, 70.5], [4000, 62.1]];
+    const rows: [number, number][] = [
+      [0, 101.3],
+      [100, 100.1],
+      [200, 99.0],
+      [1000, 90.0],
+      [1800, 81.8],
+      [2000, 79.8],
+      [3000, 70.5],
+      [4000, 62.1],
+    ];
     for (const [z, p] of rows) expectPrinted(atmosphericPressureKpa(z), p, 1); // FAO-56 Annex 2 Table 2.1
   });
 
   it('Table 2.2 psychrometric constant by elevation', () => {
-    const rows: [number, number][] = [[0, 0.067], [100, 0.067], [200, 0.066], [1000, 0.06], [1800, 0.054], [2000, 0.053], [4000, 0.041]];
+    const rows: [number, number][] = [
+      [0, 0.067],
+      [100, 0.067],
+      [200, 0.066],
+      [1000, 0.06],
+      [1800, 0.054],
+      [2000, 0.053],
+      [4000, 0.041],
+    ];
     for (const [z, g] of rows) expectPrinted(psychrometricConstantKpaPerC(atmosphericPressureKpa(z)), g, 3); // FAO-56 Annex 2 Table 2.2
   });
 
   it('Table 2.3 saturation vapour pressure', () => {
-    const rows: [number, number][] = [[1, 0.657], [10, 1.228], [15, 1.705], [20, 2.338], [21.5, 2.564], [25, 3.168], [30, 4.243], [35, 5.623], [40, 7.376], [48.5, 11.447]];
+    const rows: [number, number][] = [
+      [1, 0.657],
+      [10, 1.228],
+      [15, 1.705],
+      [20, 2.338],
+      [21.5, 2.564],
+      [25, 3.168],
+      [30, 4.243],
+      [35, 5.623],
+      [40, 7.376],
+      [48.5, 11.447],
+    ];
     for (const [t, e] of rows) expectPrinted(saturationVapourPressureKpa(t), e, 3); // FAO-56 Annex 2 Table 2.3
   });
 
   it('Table 2.4 slope of the vapour pressure curve', () => {
-    const rows: [number, number][] = [[1, 0.047], [10, 0.082], [17, 0.123], [20, 0.145], [25, 0.189], [30, 0.243], [40, 0.393], [48.5, 0.574]];
+    const rows: [number, number][] = [
+      [1, 0.047],
+      [10, 0.082],
+      [17, 0.123],
+      [20, 0.145],
+      [25, 0.189],
+      [30, 0.243],
+      [40, 0.393],
+      [48.5, 0.574],
+    ];
     for (const [t, d] of rows) expectPrinted(vapourPressureSlopeKpaPerC(t), d, 3); // FAO-56 Annex 2 Table 2.4
   });
 
@@ -325,12 +370,23 @@ describe('FAO-56 Annex 2 tables (p.213–222)', () => {
   });
 
   it('Table 2.8 σTK⁴', () => {
-    const rows: [number, number][] = [[1, 27.7], [20, 36.21], [21.5, 36.96], [30, 41.41], [48.5, 52.49]];
+    const rows: [number, number][] = [
+      [1, 27.7],
+      [20, 36.21],
+      [21.5, 36.96],
+      [30, 41.41],
+      [48.5, 52.49],
+    ];
     for (const [t, v] of rows) expectPrinted(blackbodyRadiationMj(t), v, 2); // FAO-56 Annex 2 Table 2.8
   });
 
   it('Table 2.9 wind conversion factors to 2 m', () => {
-    const rows: [number, number][] = [[1, 1.178], [2, 1.0], [3, 0.921], [10, 0.748]];
+    const rows: [number, number][] = [
+      [1, 1.178],
+      [2, 1.0],
+      [3, 0.921],
+      [10, 0.748],
+    ];
     for (const [z, f] of rows) expectPrinted(windFactorTo2m(z), f, 3); // FAO-56 Annex 2 Table 2.9, p.222
   });
 });

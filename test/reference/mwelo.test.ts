@@ -21,7 +21,12 @@ import { expectPrinted } from './printed-rounding';
 describe('MWELO 2009 Appendix B example (Fresno), Colton O-008-14 pp.12–13', () => {
   // The 2009 MAWA is ETo × 0.62 × (0.7 × LA + 0.3 × SLA). The 2015 form ETo × 0.62 × [ETAF × LA + (1 − ETAF) × SLA]
   // with ETAF = 0.7 is the same expression, so the 2015 function reproduces it.
-  const mawa = maximumAppliedWaterAllowance({ etoInPerYear: 51.1, landscapeAreaFt2: 50_000, specialLandscapeAreaFt2: 0, etaf: 0.7 });
+  const mawa = maximumAppliedWaterAllowance({
+    etoInPerYear: 51.1,
+    landscapeAreaFt2: 50_000,
+    specialLandscapeAreaFt2: 0,
+    etaf: 0.7,
+  });
 
   it('MAWA = 1,108,870 gal/yr', () => {
     expectPrinted(mawa.gallons, 1_108_870, 0); // MWELO 2009 App. B example, Colton O-008-14 p.12
@@ -35,9 +40,22 @@ describe('MWELO 2009 Appendix B example (Fresno), Colton O-008-14 pp.12–13', (
   it('ETWU = 1,102,176 gal/yr with IE 0.71 and complies', () => {
     // Zones PF × area: 0.8×7,000; 0.7×10,000; 0.5×16,000; 0.3×7,000; 0.2×10,000 → Σ 24,700 ft².
     const zones = [
-      [0.8, 7_000], [0.7, 10_000], [0.5, 16_000], [0.3, 7_000], [0.2, 10_000],
-    ].map(([plantFactor, areaFt2]) => ({ plantFactor: plantFactor!, areaFt2: areaFt2!, irrigationEfficiency: 0.71, specialLandscapeArea: false }));
-    expectPrinted(zones.reduce((sum, z) => sum + z.plantFactor * z.areaFt2, 0), 24_700, 0); // MWELO 2009 App. B example, Colton O-008-14 p.13
+      [0.8, 7_000],
+      [0.7, 10_000],
+      [0.5, 16_000],
+      [0.3, 7_000],
+      [0.2, 10_000],
+    ].map(([plantFactor, areaFt2]) => ({
+      plantFactor: plantFactor!,
+      areaFt2: areaFt2!,
+      irrigationEfficiency: 0.71,
+      specialLandscapeArea: false,
+    }));
+    expectPrinted(
+      zones.reduce((sum, z) => sum + z.plantFactor * z.areaFt2, 0),
+      24_700,
+      0,
+    ); // MWELO 2009 App. B example, Colton O-008-14 p.13
     const etwu = estimatedTotalWaterUse(51.1, zones);
     // Colton O-008-14 p.13 OCR reads 1,102,116; a second copy and the arithmetic give 1,102,176 (REFERENCE.md §3,
     // published + derived). The unrounded product is 1,102,176.6: the ordinance drops the fraction, so allow < 1 gal.
@@ -59,16 +77,26 @@ describe('MWELO 2015 rules', () => {
 
   it('derived check: Fresno inputs under the 2015 residential rule give 871,255 gal/yr', () => {
     const mawa = maximumAppliedWaterAllowance({
-      etoInPerYear: 51.1, landscapeAreaFt2: 50_000, specialLandscapeAreaFt2: 0, etaf: MWELO_MAX_ETAF.residential,
+      etoInPerYear: 51.1,
+      landscapeAreaFt2: 50_000,
+      specialLandscapeAreaFt2: 0,
+      etaf: MWELO_MAX_ETAF.residential,
     });
     expectPrinted(mawa.gallons, 871_255, 0); // REFERENCE.md §3: derived, not published (51.1 × 0.62 × 0.55 × 50,000)
   });
 
   it('special landscape area gets ETAF 1.0 in MAWA and ETWU', () => {
     // Invented site: 10,000 ft² of which 2,000 ft² SLA, ETo 50 in. MAWA = 50 × 0.62 × (0.55 × 10,000 + 0.45 × 2,000).
-    const mawa = maximumAppliedWaterAllowance({ etoInPerYear: 50, landscapeAreaFt2: 10_000, specialLandscapeAreaFt2: 2_000, etaf: 0.55 });
+    const mawa = maximumAppliedWaterAllowance({
+      etoInPerYear: 50,
+      landscapeAreaFt2: 10_000,
+      specialLandscapeAreaFt2: 2_000,
+      etaf: 0.55,
+    });
     expect(mawa.gallons).toBeCloseTo(50 * 0.62 * 6_400, 6); // MWELO 2015 App. B note e (formula), Gridley code copy
-    const etwu = estimatedTotalWaterUse(50, [{ areaFt2: 2_000, plantFactor: 0.7, irrigationEfficiency: 0.75, specialLandscapeArea: true }]);
+    const etwu = estimatedTotalWaterUse(50, [
+      { areaFt2: 2_000, plantFactor: 0.7, irrigationEfficiency: 0.75, specialLandscapeArea: true },
+    ]);
     expect(etwu.zones[0]!.etaf).toBe(1); // MWELO § 491 ETAF definition: SLA ETAF up to 1.0 (from memory)
   });
 
@@ -81,7 +109,11 @@ describe('MWELO 2015 rules', () => {
   it('effective precipitation (local option) is subtracted from ETo', () => {
     // Invented inputs: ETo 50 in, rain 12 in counted at 25 % → Eppt 3 in.
     const base = { landscapeAreaFt2: 10_000, specialLandscapeAreaFt2: 0, etaf: 0.55 };
-    const withRain = maximumAppliedWaterAllowance({ ...base, etoInPerYear: 50, effectivePrecipitationInPerYear: 0.25 * 12 });
+    const withRain = maximumAppliedWaterAllowance({
+      ...base,
+      etoInPerYear: 50,
+      effectivePrecipitationInPerYear: 0.25 * 12,
+    });
     expect(withRain.gallons).toBeCloseTo(47 * 0.62 * 0.55 * 10_000, 6); // MWELO local option (ETo − Eppt), ecode360.com/48417262
   });
 });

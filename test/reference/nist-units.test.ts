@@ -2,7 +2,11 @@
  * Unit facts from NIST Handbook 44 App. C and values derived from them (REFERENCE.md §5).
  */
 import { describe, expect, it } from 'vitest';
-import { GALLONS_PER_INCH_SQUARE_FOOT, MILLIMETRES_PER_INCH, SQUARE_FEET_PER_ACRE } from '../../shared/units/area-depth-units';
+import {
+  GALLONS_PER_INCH_SQUARE_FOOT,
+  MILLIMETRES_PER_INCH,
+  SQUARE_FEET_PER_ACRE,
+} from '../../shared/units/area-depth-units';
 import { GALLONS_PER_CUBIC_FOOT, LITRES_PER_GALLON, convertVolume } from '../../shared/units/volume-units';
 import { expectPrinted } from './printed-rounding';
 

@@ -26,14 +26,31 @@ import { studentTQuantile } from '../../shared/reports/student-t';
 import { expectPrinted } from './printed-rounding';
 
 // jstat ships no type declarations; only this one function is used.
-const { jStat } = createRequire(import.meta.url)('jstat') as { jStat: { studentt: { inv(p: number, dof: number): number } } };
+const { jStat } = createRequire(import.meta.url)('jstat') as {
+  jStat: { studentt: { inv(p: number, dof: number): number } };
+};
 
 // Invented baseline year for one site (use typed in by hand, not generated from a formula).
 const baseline: MeteredPeriod[] = [
-  ['Jan', 31, 48, 96, 21_300], ['Feb', 28, 61, 74, 26_900], ['Mar', 31, 97, 55, 43_800], ['Apr', 30, 128, 22, 56_100],
-  ['May', 31, 151, 9, 66_400], ['Jun', 30, 178, 2, 72_900], ['Jul', 31, 193, 0, 80_200], ['Aug', 31, 168, 1, 71_500],
-  ['Sep', 30, 133, 6, 57_700], ['Oct', 31, 88, 24, 38_600], ['Nov', 30, 57, 49, 25_100], ['Dec', 31, 44, 88, 19_800],
-].map(([label, days, etoMm, rainMm, useGal]) => ({ label: String(label), days: Number(days), etoMm: Number(etoMm), rainMm: Number(rainMm), useGal: Number(useGal) }));
+  ['Jan', 31, 48, 96, 21_300],
+  ['Feb', 28, 61, 74, 26_900],
+  ['Mar', 31, 97, 55, 43_800],
+  ['Apr', 30, 128, 22, 56_100],
+  ['May', 31, 151, 9, 66_400],
+  ['Jun', 30, 178, 2, 72_900],
+  ['Jul', 31, 193, 0, 80_200],
+  ['Aug', 31, 168, 1, 71_500],
+  ['Sep', 30, 133, 6, 57_700],
+  ['Oct', 31, 88, 24, 38_600],
+  ['Nov', 30, 57, 49, 25_100],
+  ['Dec', 31, 44, 88, 19_800],
+].map(([label, days, etoMm, rainMm, useGal]) => ({
+  label: String(label),
+  days: Number(days),
+  etoMm: Number(etoMm),
+  rainMm: Number(rainMm),
+  useGal: Number(useGal),
+}));
 const use = baseline.map((p) => p.useGal);
 
 describe('one-variable baseline (use ~ a + b·ETo) against simple-statistics', () => {
@@ -57,7 +74,10 @@ describe('one-variable baseline (use ~ a + b·ETo) against simple-statistics', (
 
 describe('two-variable baseline (use ~ a + b·ETo + c·rain) against ml-regression-multivariate-linear', () => {
   const model = fitBaselineModel(baseline, 'eto-rain');
-  const library = new MultivariateLinearRegression(baseline.map((p) => [p.etoMm, p.rainMm]), use.map((y) => [y]));
+  const library = new MultivariateLinearRegression(
+    baseline.map((p) => [p.etoMm, p.rainMm]),
+    use.map((y) => [y]),
+  );
   // The library appends its intercept column last: weights are [ETo, rain, intercept].
   const [eto, rain, intercept] = library.weights.map((w) => w[0]!);
 
@@ -74,21 +94,25 @@ describe('two-variable baseline (use ~ a + b·ETo + c·rain) against ml-regressi
     expect(model.coefficients[2]!.standardError).toBeCloseTo(seRain!, 8); // ml-regression-multivariate-linear stdErrors
   });
 
-  it('R² agrees with the squared correlation of use and the library\'s predictions (simple-statistics sampleCorrelation)', () => {
+  it("R² agrees with the squared correlation of use and the library's predictions (simple-statistics sampleCorrelation)", () => {
     const predicted = baseline.map((p) => library.predict([p.etoMm, p.rainMm])[0]!);
     // With an intercept, OLS R² equals corr(y, ŷ)².
     expect(model.statistics.rSquared!).toBeCloseTo(sampleCorrelation(use, predicted) ** 2, 10); // simple-statistics sampleCorrelation
   });
 
-  it('CV(RMSE) agrees with 100 × the library\'s residual standard error / mean use (both use n − p)', () => {
+  it("CV(RMSE) agrees with 100 × the library's residual standard error / mean use (both use n − p)", () => {
     expect(model.statistics.cvRmsePercent).toBeCloseTo((100 * library.stdError) / mean(use), 9); // ml-regression stdError; G14 CV(RMSE) definition, from memory (REFERENCE.md §6)
   });
 
-  it('the variance of a predicted reporting total agrees with one built from the library\'s coefficient covariance', () => {
+  it("the variance of a predicted reporting total agrees with one built from the library's coefficient covariance", () => {
     // Var(total) = gᵀ·Cov(β)·g + m·σ̂², g = summed design rows of the reporting months.
     const reporting = baseline.map((p) => ({ ...p, etoMm: p.etoMm + 7, useGal: 0.75 * p.useGal }));
     const savings = calculateSavings(model, reporting, { confidence: UNCERTAINTY_CONFIDENCE });
-    const g = [reporting.reduce((s, p) => s + p.etoMm, 0), reporting.reduce((s, p) => s + p.rainMm, 0), reporting.length];
+    const g = [
+      reporting.reduce((s, p) => s + p.etoMm, 0),
+      reporting.reduce((s, p) => s + p.rainMm, 0),
+      reporting.length,
+    ];
     const cov = library.stdErrorMatrix.to2DArray();
     const quadratic = g.reduce((sum, gi, i) => sum + g.reduce((inner, gj, j) => inner + gi * cov[i]![j]! * gj, 0), 0);
     const variance = quadratic + reporting.length * library.stdError ** 2;
@@ -102,8 +126,16 @@ describe('per-day baseline, weighted by days, against ml-regression-multivariate
   it('coefficients agree', () => {
     const model = fitBaselineModel(baseline, 'eto-rain-per-day');
     // Weighted least squares is ordinary least squares on rows multiplied by √weight; the intercept column becomes √days.
-    const rows = baseline.map((p) => [Math.sqrt(p.days), (p.etoMm / p.days) * Math.sqrt(p.days), (p.rainMm / p.days) * Math.sqrt(p.days)]);
-    const library = new MultivariateLinearRegression(rows, baseline.map((p) => [(p.useGal / p.days) * Math.sqrt(p.days)]), { intercept: false });
+    const rows = baseline.map((p) => [
+      Math.sqrt(p.days),
+      (p.etoMm / p.days) * Math.sqrt(p.days),
+      (p.rainMm / p.days) * Math.sqrt(p.days),
+    ]);
+    const library = new MultivariateLinearRegression(
+      rows,
+      baseline.map((p) => [(p.useGal / p.days) * Math.sqrt(p.days)]),
+      { intercept: false },
+    );
     library.weights.forEach(([w], j) => expect(model.coefficients[j]!.value).toBeCloseTo(w!, 6)); // ml-regression-multivariate-linear 2.0.4 weights
   });
 });
@@ -115,10 +147,19 @@ describe('daily baseline (365 rows) against ml-regression-multivariate-linear', 
       const season = Math.sin((2 * Math.PI * (d - 80)) / 365);
       const etoMm = 4 + 3 * season + 0.4 * Math.sin(d * 1.7);
       const rainMm = Math.max(0, -6 * season + 2 * Math.cos(d * 2.3));
-      return { label: `d${d + 1}`, days: 1, etoMm, rainMm, useGal: 150 + 380 * etoMm - 40 * rainMm + 120 * Math.sin(d * 0.9) };
+      return {
+        label: `d${d + 1}`,
+        days: 1,
+        etoMm,
+        rainMm,
+        useGal: 150 + 380 * etoMm - 40 * rainMm + 120 * Math.sin(d * 0.9),
+      };
     });
     const model = fitBaselineModel(days, 'eto-rain');
-    const library = new MultivariateLinearRegression(days.map((p) => [p.etoMm, p.rainMm]), days.map((p) => [p.useGal]));
+    const library = new MultivariateLinearRegression(
+      days.map((p) => [p.etoMm, p.rainMm]),
+      days.map((p) => [p.useGal]),
+    );
     const [eto, rain, intercept] = library.weights.map((w) => w[0]!);
     expect(model.coefficients[0]!.value).toBeCloseTo(intercept!, 6); // ml-regression-multivariate-linear 2.0.4 weights
     expect(model.coefficients[1]!.value).toBeCloseTo(eto!, 6); // ml-regression-multivariate-linear 2.0.4 weights

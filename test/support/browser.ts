@@ -12,7 +12,9 @@ export const PHONE = { width: 390, height: 844 };
  * Debian's Chromium driven by playwright-core (no browser download). A fresh profile per context; the
  * flags keep Chromium from reaching for the network, which this machine does not have.
  */
-export async function openBrowser(viewport = DESKTOP): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
+export async function openBrowser(
+  viewport = DESKTOP,
+): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
   const profile = mkdtempSync(join(tmpdir(), 'rillmark-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: '/usr/bin/chromium',
@@ -20,7 +22,15 @@ export async function openBrowser(viewport = DESKTOP): Promise<{ context: Browse
     viewport,
     locale: 'en-US',
     timezoneId: 'America/Los_Angeles',
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   const page = context.pages()[0] ?? (await context.newPage());
   return {

@@ -14,7 +14,8 @@ const webDir = process.env['RILLMARK_E2E_WEB_DIR'] ?? resolve(import.meta.dirnam
  * a test config serving it, and a connection to the test database for seeding.
  */
 export async function e2eDatabase(): Promise<{ config: Config; db: DataSource }> {
-  if (!existsSync(resolve(webDir, 'index.html'))) throw new Error('No production build in dist/web; run: bash ops/build.sh');
+  if (!existsSync(resolve(webDir, 'index.html')))
+    throw new Error('No production build in dist/web; run: bash ops/build.sh');
   const config = testConfig({ RILLMARK_WEB_DIR: webDir });
   const db = createDataSource(config.db);
   await connectWithRetry(db, { attempts: 5 });

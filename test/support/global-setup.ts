@@ -32,10 +32,20 @@ export default async function setup(): Promise<void> {
   }
   const feed = new URL(config.weather.feedUrl);
   if (!(await portAnswers(feed.hostname, Number(feed.port || 80)))) {
-    execFileSync('bash', [resolve(root, 'ops/weather/start.sh')], { stdio: 'inherit', env: { ...process.env, RILLMARK_FAKE_WEATHER_PORT: feed.port || '80' } });
+    execFileSync('bash', [resolve(root, 'ops/weather/start.sh')], {
+      stdio: 'inherit',
+      env: { ...process.env, RILLMARK_FAKE_WEATHER_PORT: feed.port || '80' },
+    });
   }
-  const admin = await createDbConnection({ host: config.db.host, port: config.db.port, user: config.db.user, password: config.db.password });
-  await admin.query(`CREATE DATABASE IF NOT EXISTS \`${config.db.database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+  const admin = await createDbConnection({
+    host: config.db.host,
+    port: config.db.port,
+    user: config.db.user,
+    password: config.db.password,
+  });
+  await admin.query(
+    `CREATE DATABASE IF NOT EXISTS \`${config.db.database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`,
+  );
   await admin.end();
   const db = createDataSource(config.db);
   await connectWithRetry(db, { attempts: 10 });

@@ -57,7 +57,12 @@ export function meterBody(m: CatalogueMeter) {
     waterSource: 'potable',
     installedAt: current?.installedUtc ?? '2020-01-01T00:00:00.000Z',
     removedAt: null,
-    previousRegisters: registers.slice(0, -1).map((r) => ({ installedAt: r.installedUtc, removedAt: r.removedUtc!, multiplier: r.multiplier, digits: r.digits })),
+    previousRegisters: registers.slice(0, -1).map((r) => ({
+      installedAt: r.installedUtc,
+      removedAt: r.removedUtc!,
+      multiplier: r.multiplier,
+      digits: r.digits,
+    })),
   };
 }
 
@@ -77,23 +82,41 @@ export async function equipSite(client: Client, siteId: number): Promise<void> {
 }
 
 /** Sends one sample file (or a Buffer) as the browser and curl do. */
-export function uploadFile(client: Client, siteId: number, file: string | Buffer, fields: Record<string, string> = {}, name = 'upload.csv') {
+export function uploadFile(
+  client: Client,
+  siteId: number,
+  file: string | Buffer,
+  fields: Record<string, string> = {},
+  name = 'upload.csv',
+) {
   const req = client.multipart(`/api/sites/${siteId}/uploads`);
   for (const [key, value] of Object.entries(fields)) req.field(key, value);
   return typeof file === 'string' ? req.attach('file', resolve(SAMPLES, file)) : req.attach('file', file, name);
 }
 
 /** Stored interval readings of a site, in key order, for before/after comparisons. */
-export async function siteReadings(db: DataSource, siteId: number): Promise<Array<{ ref: string; start: string; minutes: number; gallons: string; uploadId: number }>> {
+export async function siteReadings(
+  db: DataSource,
+  siteId: number,
+): Promise<Array<{ ref: string; start: string; minutes: number; gallons: string; uploadId: number }>> {
   const rows = await db.query(
     `SELECT m.ref, r.start_utc, r.minutes, r.volume_gal, r.upload_id FROM meter_reading r JOIN meter m ON m.id = r.meter_id
      WHERE m.site_id = ? ORDER BY m.ref, r.start_utc, r.minutes`,
     [siteId],
   );
-  return rows.map((r: Record<string, unknown>) => ({ ref: String(r['ref']), start: new Date(r['start_utc'] as string).toISOString(), minutes: Number(r['minutes']), gallons: String(r['volume_gal']), uploadId: Number(r['upload_id']) }));
+  return rows.map((r: Record<string, unknown>) => ({
+    ref: String(r['ref']),
+    start: new Date(r['start_utc'] as string).toISOString(),
+    minutes: Number(r['minutes']),
+    gallons: String(r['volume_gal']),
+    uploadId: Number(r['upload_id']),
+  }));
 }
 
 export async function siteRuns(db: DataSource, siteId: number): Promise<number> {
-  const [row] = await db.query('SELECT COUNT(*) AS n FROM runtime_event e JOIN zone z ON z.id = e.zone_id JOIN controller c ON c.id = z.controller_id WHERE c.site_id = ?', [siteId]);
+  const [row] = await db.query(
+    'SELECT COUNT(*) AS n FROM runtime_event e JOIN zone z ON z.id = e.zone_id JOIN controller c ON c.id = z.controller_id WHERE c.site_id = ?',
+    [siteId],
+  );
   return Number(row.n);
 }

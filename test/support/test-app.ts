@@ -62,7 +62,10 @@ export class Client {
   }
 
   post(path: string, body?: object) {
-    return this.agent.post(path).set('x-xsrf-token', this.csrf).send(body ?? {});
+    return this.agent
+      .post(path)
+      .set('x-xsrf-token', this.csrf)
+      .send(body ?? {});
   }
 
   /** A raw text body, e.g. a CSV upload. */
@@ -100,16 +103,31 @@ export interface World {
   users: Record<Role, { id: number; email: string }>;
 }
 
-export async function createOrganisation(db: DataSource, kind: OrganisationKind = 'property-manager', label = 'Org'): Promise<{ id: number; name: string }> {
+export async function createOrganisation(
+  db: DataSource,
+  kind: OrganisationKind = 'property-manager',
+  label = 'Org',
+): Promise<{ id: number; name: string }> {
   const name = `${label} ${suffix()}`;
   const id = Number((await db.getRepository(OrganisationEntity).insert({ name, kind })).identifiers[0]!['id']);
   return { id, name };
 }
 
-export async function createUser(db: DataSource, organisationId: number, role: Role, status: 'active' | 'disabled' = 'active'): Promise<{ id: number; email: string }> {
+export async function createUser(
+  db: DataSource,
+  organisationId: number,
+  role: Role,
+  status: 'active' | 'disabled' = 'active',
+): Promise<{ id: number; email: string }> {
   passwordHash ??= hashPassword(TEST_PASSWORD);
   const email = `${role}-${suffix()}@test.example`;
-  const id = Number((await db.getRepository(UserEntity).insert({ email, displayName: `Test ${role}`, status, passwordHash: await passwordHash })).identifiers[0]!['id']);
+  const id = Number(
+    (
+      await db
+        .getRepository(UserEntity)
+        .insert({ email, displayName: `Test ${role}`, status, passwordHash: await passwordHash })
+    ).identifiers[0]!['id'],
+  );
   await db.getRepository(MembershipEntity).insert({ userId: id, organisationId, role });
   return { id, email };
 }
@@ -118,19 +136,38 @@ export async function createUser(db: DataSource, organisationId: number, role: R
 export async function createWorld(db: DataSource, kind: OrganisationKind = 'property-manager'): Promise<World> {
   const org = await createOrganisation(db, kind);
   const users = {} as World['users'];
-  for (const role of ['admin', 'manager', 'contractor', 'auditor'] as Role[]) users[role] = await createUser(db, org.id, role);
+  for (const role of ['admin', 'manager', 'contractor', 'auditor'] as Role[])
+    users[role] = await createUser(db, org.id, role);
   return { org, users };
 }
 
-export async function createSite(db: DataSource, organisationId: number, fields: Partial<{ name: string; kind: SiteKind; timeZone: string }> = {}): Promise<{ id: number; name: string }> {
+export async function createSite(
+  db: DataSource,
+  organisationId: number,
+  fields: Partial<{ name: string; kind: SiteKind; timeZone: string }> = {},
+): Promise<{ id: number; name: string }> {
   const name = fields.name ?? `Site ${suffix()}`;
   const id = Number(
-    (await db.getRepository(SiteEntity).insert({ organisationId, name, kind: fields.kind ?? 'park', address: '1 Test Way, Nowhere', timeZone: fields.timeZone ?? 'America/Los_Angeles', notes: '' })).identifiers[0]!['id'],
+    (
+      await db.getRepository(SiteEntity).insert({
+        organisationId,
+        name,
+        kind: fields.kind ?? 'park',
+        address: '1 Test Way, Nowhere',
+        timeZone: fields.timeZone ?? 'America/Los_Angeles',
+        notes: '',
+      })
+    ).identifiers[0]!['id'],
   );
   return { id, name };
 }
 
-export async function shareSite(db: DataSource, siteId: number, organisationId: number, access: ShareAccess): Promise<void> {
+export async function shareSite(
+  db: DataSource,
+  siteId: number,
+  organisationId: number,
+  access: ShareAccess,
+): Promise<void> {
   await db.getRepository(SiteShareEntity).insert({ siteId, organisationId, access });
 }
 

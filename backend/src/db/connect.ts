@@ -5,7 +5,10 @@ import { logger } from '../platform/logger';
  * Connects, retrying with back-off while the database is down, and says so plainly each time
  * (a server started before MariaDB waits for it instead of crash-looping silently).
  */
-export async function connectWithRetry(dataSource: DataSource, { attempts = 30, firstDelayMs = 500, maxDelayMs = 5_000 } = {}): Promise<void> {
+export async function connectWithRetry(
+  dataSource: DataSource,
+  { attempts = 30, firstDelayMs = 500, maxDelayMs = 5_000 } = {},
+): Promise<void> {
   const { host, port, database } = dataSource.options as { host?: string; port?: number; database?: string };
   let delay = firstDelayMs;
   for (let attempt = 1; ; attempt++) {
@@ -16,9 +19,13 @@ export async function connectWithRetry(dataSource: DataSource, { attempts = 30, 
     } catch (err) {
       const reason = (err as { code?: string; message?: string }).code ?? (err as Error).message;
       if (attempt >= attempts) {
-        throw new Error(`Cannot reach MariaDB at ${host}:${port}/${database} after ${attempts} attempts (${reason}). Is it running? Start it with: npm run db:start`);
+        throw new Error(
+          `Cannot reach MariaDB at ${host}:${port}/${database} after ${attempts} attempts (${reason}). Is it running? Start it with: npm run db:start`,
+        );
       }
-      logger.warn(`MariaDB at ${host}:${port}/${database} is not reachable (${reason}); retry ${attempt}/${attempts - 1} in ${delay} ms`);
+      logger.warn(
+        `MariaDB at ${host}:${port}/${database} is not reachable (${reason}); retry ${attempt}/${attempts - 1} in ${delay} ms`,
+      );
       await new Promise((r) => setTimeout(r, delay));
       delay = Math.min(maxDelayMs, delay * 2);
     }

@@ -8,5 +8,9 @@ const config = loadConfig();
 const dataSource = createDataSource(config.db);
 await connectWithRetry(dataSource, { attempts: 20 });
 const applied = await dataSource.runMigrations({ transaction: 'each' });
-logger.info(applied.length ? `applied ${applied.length} migration(s): ${applied.map((m) => m.name).join(', ')}` : 'schema is up to date');
+logger.info(
+  applied.length
+    ? `applied ${applied.length} migration(s): ${applied.map((m) => m.name).join(', ')}`
+    : 'schema is up to date',
+);
 await dataSource.destroy();

@@ -10,4 +10,15 @@ import { Reports1796220000000 } from './migrations/1796220000000-reports';
 import { MonthlyUse1796240000000 } from './migrations/1796240000000-monthly-use';
 
 /** Every migration, in order (explicit imports, so bundled builds need no file globbing). Add new ones at the end. */
-export const MIGRATIONS: Function[] = [Foundation1796163915429, Budgets1796170000000, Ingest1796180000000, MailAndJobs1796190000000, DailyUse1796200000000, SiteMonthlyBudget1796210000000, Reports1796220000000, Watch1796215000000, DashboardIndexes1796230000000, MonthlyUse1796240000000];
+export const MIGRATIONS: Function[] = [
+  Foundation1796163915429,
+  Budgets1796170000000,
+  Ingest1796180000000,
+  MailAndJobs1796190000000,
+  DailyUse1796200000000,
+  SiteMonthlyBudget1796210000000,
+  Reports1796220000000,
+  Watch1796215000000,
+  DashboardIndexes1796230000000,
+  MonthlyUse1796240000000,
+];

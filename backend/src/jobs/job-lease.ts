@@ -32,7 +32,11 @@ export class JobLease {
   }
 
   async release(): Promise<void> {
-    await this.db.query('UPDATE job_lease SET leased_until = ? WHERE name = ? AND holder = ?', [new Date(0), this.name, this.holder]);
+    await this.db.query('UPDATE job_lease SET leased_until = ? WHERE name = ? AND holder = ?', [
+      new Date(0),
+      this.name,
+      this.holder,
+    ]);
   }
 
   /** Runs `work` only if the lease can be taken; renews it while the work runs. Null when another instance holds it. */

@@ -26,7 +26,11 @@ export const routes: Routes = [
     loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
     children: [
       { path: '', pathMatch: 'full', redirectTo: 'portfolio' },
-      { path: 'portfolio', title: 'Portfolio · Rillmark', loadComponent: () => import('./portfolio/portfolio-page/portfolio-page').then((m) => m.PortfolioPage) },
+      {
+        path: 'portfolio',
+        title: 'Portfolio · Rillmark',
+        loadComponent: () => import('./portfolio/portfolio-page/portfolio-page').then((m) => m.PortfolioPage),
+      },
       { path: 'sites', loadChildren: () => import('./sites/sites.routes').then((m) => m.sitesRoutes) },
       { path: 'uploads', loadChildren: () => import('./uploads/uploads.routes').then((m) => m.uploadsRoutes) },
       { path: 'alerts', loadChildren: () => import('./alerts/alerts.routes').then((m) => m.alertsRoutes) },

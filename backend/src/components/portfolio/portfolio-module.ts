@@ -11,11 +11,29 @@ import { PortfolioService } from './domain/portfolio-service';
 import { SiteDashboardService } from './domain/site-dashboard-service';
 
 /** Wires the dashboard component, so the composition root needs two lines. */
-export function createPortfolio(deps: { db: DataSource; sites: SitesService; budgets: BudgetsService; rates: RateSchedulesService }) {
+export function createPortfolio(deps: {
+  db: DataSource;
+  sites: SitesService;
+  budgets: BudgetsService;
+  rates: RateSchedulesService;
+}) {
   const repo = new PortfolioRepository(deps.db);
   const dailyUse = new DailyUseRepository(deps.db);
   const budgetCache = new BudgetCache(repo, deps.budgets);
   const portfolio = new PortfolioService(repo, dailyUse, budgetCache, deps.rates);
-  const dashboard = new SiteDashboardService(deps.sites, new SiteDashboardRepository(deps.db), repo, dailyUse, budgetCache, deps.rates);
-  return { portfolio, dashboard, budgetCache, portfolioRouter: portfolioRouter(portfolio), siteDashboardRouter: siteDashboardRouter(dashboard) };
+  const dashboard = new SiteDashboardService(
+    deps.sites,
+    new SiteDashboardRepository(deps.db),
+    repo,
+    dailyUse,
+    budgetCache,
+    deps.rates,
+  );
+  return {
+    portfolio,
+    dashboard,
+    budgetCache,
+    portfolioRouter: portfolioRouter(portfolio),
+    siteDashboardRouter: siteDashboardRouter(dashboard),
+  };
 }

@@ -34,10 +34,26 @@ export interface ReportsDeps {
 export function createReports(d: ReportsDeps): { router: Router } {
   const dailyUse = new DailyUseRepository(d.db);
   const projects = new SavingsProjectsService(d.db, new SavingsProjectsRepository(d.db), d.sites, d.audit);
-  const savingsReports = new SavingsReportService(projects, d.weatherStations, d.dailyWeather, dailyUse, d.rateSchedules);
+  const savingsReports = new SavingsReportService(
+    projects,
+    d.weatherStations,
+    d.dailyWeather,
+    dailyUse,
+    d.rateSchedules,
+  );
   const noticesRepository = new ComplianceNoticesRepository(d.db);
   const compliance = new ComplianceService(new SitesRepository(d.db), d.budgets, dailyUse, noticesRepository);
-  const notices = new ComplianceNoticeService(d.db, d.sites, compliance, d.budgets, dailyUse, noticesRepository, d.audit, d.mailQueue, d.publicUrl);
+  const notices = new ComplianceNoticeService(
+    d.db,
+    d.sites,
+    compliance,
+    d.budgets,
+    dailyUse,
+    noticesRepository,
+    d.audit,
+    d.mailQueue,
+    d.publicUrl,
+  );
   const router = Router();
   router.use('/sites/:id/savings-projects', siteSavingsProjectsRouter(projects));
   router.use('/savings-projects', savingsProjectsRouter(projects, savingsReports));

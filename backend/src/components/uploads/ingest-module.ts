@@ -30,11 +30,26 @@ export interface Ingest {
 }
 
 /** Wires the data-entry components (meters, uploads, API keys), so the app's composition root stays one line each. */
-export function createIngest(deps: { db: DataSource; config: Config; sites: SitesService; auth: AuthService; audit: AuditRepository }): Ingest {
+export function createIngest(deps: {
+  db: DataSource;
+  config: Config;
+  sites: SitesService;
+  auth: AuthService;
+  audit: AuditRepository;
+}): Ingest {
   const { db, config, sites, auth, audit } = deps;
   const meters = new MetersService(db, new MetersRepository(db), sites, audit);
   const uploadsRepository = new UploadsRepository(db);
-  const uploads = new UploadsService(db, uploadsRepository, sites, meters, audit, new LocalFileStore(config.uploads.dir), { maxBytes: config.uploads.maxBytes }, new DailyUseRepository(db));
+  const uploads = new UploadsService(
+    db,
+    uploadsRepository,
+    sites,
+    meters,
+    audit,
+    new LocalFileStore(config.uploads.dir),
+    { maxBytes: config.uploads.maxBytes },
+    new DailyUseRepository(db),
+  );
   const apiKeys = new ApiKeysService(db, new ApiKeysRepository(db), sites, auth, audit);
   const router = Router();
   router.use(metersRouter(meters));

@@ -31,14 +31,29 @@ export const WATCH_LEASE_NAME = 'nightly-watch';
 
 /** Wires the nightly watch and the alerts it files, so the composition root adds one line. */
 export function createWatch(deps: {
-  db: DataSource; config: Config; sites: SitesService; budgets: BudgetsService; rates: RateSchedulesService; mailQueue: MailQueue; audit: AuditRepository;
+  db: DataSource;
+  config: Config;
+  sites: SitesService;
+  budgets: BudgetsService;
+  rates: RateSchedulesService;
+  mailQueue: MailQueue;
+  audit: AuditRepository;
 }): Watch {
   const { db, config, sites, budgets, rates, mailQueue, audit } = deps;
   const data = new WatchDataRepository(db);
   const alertsRepository = new AlertsRepository(db);
   const runs = new WatchRunsRepository(db);
   const notifier = new AlertNotifier(db, mailQueue, config.http.publicUrl);
-  const service = new WatchService(db, data, new SiteWatchInputLoader(data, budgets, rates), alertsRepository, runs, notifier, new JobLease(db, WATCH_LEASE_NAME), config.watch.localHour);
+  const service = new WatchService(
+    db,
+    data,
+    new SiteWatchInputLoader(data, budgets, rates),
+    alertsRepository,
+    runs,
+    notifier,
+    new JobLease(db, WATCH_LEASE_NAME),
+    config.watch.localHour,
+  );
   const alerts = new AlertsService(db, alertsRepository, sites, audit);
   const router = Router();
   router.use('/alerts', alertsRouter(alerts));
@@ -48,7 +63,11 @@ export function createWatch(deps: {
   return {
     service,
     alerts,
-    job: { name: 'nightly-watch', cron: config.watch.cron, run: () => service.run({ trigger: 'scheduled', organisationId: null, requestedBy: null }) },
+    job: {
+      name: 'nightly-watch',
+      cron: config.watch.cron,
+      run: () => service.run({ trigger: 'scheduled', organisationId: null, requestedBy: null }),
+    },
     router,
   };
 }

@@ -88,7 +88,9 @@ export class Watch1796215000000 implements MigrationInterface {
       PRIMARY KEY (\`user_id\`)) ENGINE=InnoDB`);
 
     const fk = (table: string, name: string, column: string, ref: string) =>
-      q.query(`ALTER TABLE \`${table}\` ADD CONSTRAINT \`${name}\` FOREIGN KEY (\`${column}\`) REFERENCES \`${ref}\`(\`id\`) ON DELETE CASCADE ON UPDATE NO ACTION`);
+      q.query(
+        `ALTER TABLE \`${table}\` ADD CONSTRAINT \`${name}\` FOREIGN KEY (\`${column}\`) REFERENCES \`${ref}\`(\`id\`) ON DELETE CASCADE ON UPDATE NO ACTION`,
+      );
     await fk('alert', 'fk_alert_site', 'site_id', 'site');
     await fk('alert_event', 'fk_alert_event_alert', 'alert_id', 'alert');
     await fk('watch_site_state', 'fk_watch_site_state_site', 'site_id', 'site');
@@ -97,7 +99,14 @@ export class Watch1796215000000 implements MigrationInterface {
   }
 
   public async down(q: QueryRunner): Promise<void> {
-    for (const table of ['user_notification', 'site_watch_settings', 'watch_site_state', 'watch_run', 'alert_event', 'alert']) {
+    for (const table of [
+      'user_notification',
+      'site_watch_settings',
+      'watch_site_state',
+      'watch_run',
+      'alert_event',
+      'alert',
+    ]) {
       await q.query(`DROP TABLE \`${table}\``);
     }
   }

@@ -10,7 +10,9 @@ export class DashboardIndexes1796230000000 implements MigrationInterface {
 
   public async up(q: QueryRunner): Promise<void> {
     await q.query('CREATE INDEX `ix_site_daily_use_date` ON `site_daily_use` (`local_date`, `site_id`, `gallons`)');
-    await q.query('CREATE INDEX `ix_site_monthly_budget_month` ON `site_monthly_budget` (`month`, `site_id`, `gallons`)');
+    await q.query(
+      'CREATE INDEX `ix_site_monthly_budget_month` ON `site_monthly_budget` (`month`, `site_id`, `gallons`)',
+    );
   }
 
   public async down(q: QueryRunner): Promise<void> {

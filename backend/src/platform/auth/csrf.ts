@@ -19,7 +19,8 @@ export function createCsrf(config: Config) {
     cookieName: CSRF_COOKIE,
     cookieOptions: { httpOnly: false, sameSite: 'strict', secure: config.session.secureCookies, path: '/' },
     getCsrfTokenFromRequest: (req) => req.get(CSRF_HEADER),
-    skipCsrfProtection: (req) => typeof req.get('authorization') === 'string' && req.get('authorization')!.startsWith('Bearer '),
+    skipCsrfProtection: (req) =>
+      typeof req.get('authorization') === 'string' && req.get('authorization')!.startsWith('Bearer '),
   });
 
   /** Issues a token bound to this session; marks the session so it is saved and its id stays stable. */
@@ -30,7 +31,9 @@ export function createCsrf(config: Config) {
 
   const toAppError: ErrorRequestHandler = (err, _req, _res, next) => {
     if ((err as { code?: string }).code === 'EBADCSRFTOKEN') {
-      next(new AppError('csrf_invalid', 'The security token is missing or out of date. Reload the page and try again.'));
+      next(
+        new AppError('csrf_invalid', 'The security token is missing or out of date. Reload the page and try again.'),
+      );
     } else {
       next(err);
     }

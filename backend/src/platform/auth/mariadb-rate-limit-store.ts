@@ -36,13 +36,18 @@ export class MariaDbRateLimitStore implements Store {
        ON DUPLICATE KEY UPDATE hits = IF(reset_at <= ?, 1, hits + 1), reset_at = IF(reset_at <= ?, VALUES(reset_at), reset_at)`,
       [bucket, reset, now, now],
     );
-    const [rows] = await this.pool.query<RowDataPacket[]>('SELECT hits, reset_at FROM rate_limit_hit WHERE bucket = ?', [bucket]);
+    const [rows] = await this.pool.query<RowDataPacket[]>(
+      'SELECT hits, reset_at FROM rate_limit_hit WHERE bucket = ?',
+      [bucket],
+    );
     const row = rows[0]!;
     return { totalHits: Number(row['hits']), resetTime: new Date(row['reset_at']) };
   }
 
   async decrement(key: string): Promise<void> {
-    await this.pool.query('UPDATE rate_limit_hit SET hits = GREATEST(hits - 1, 0) WHERE bucket = ?', [this.bucket(key)]);
+    await this.pool.query('UPDATE rate_limit_hit SET hits = GREATEST(hits - 1, 0) WHERE bucket = ?', [
+      this.bucket(key),
+    ]);
   }
 
   async resetKey(key: string): Promise<void> {

@@ -19,7 +19,9 @@ export function createPassport(auth: AuthService): InstanceType<typeof Passport>
       auth.checkCredentials(email, password).then((p) => done(null, p ?? false), done);
     }),
   );
-  passport.serializeUser<SessionRef>((user, done) => done(null, { userId: user.userId, organisationId: user.organisationId }));
+  passport.serializeUser<SessionRef>((user, done) =>
+    done(null, { userId: user.userId, organisationId: user.organisationId }),
+  );
   passport.deserializeUser<SessionRef>((ref, done) => {
     auth.principal(ref.userId, ref.organisationId).then((p) => done(null, p ?? false), done);
   });

@@ -7,7 +7,12 @@ describe('throttleTouch', () => {
   it('writes a session expiry once per interval per session, and again once the interval has passed', () => {
     vi.useFakeTimers({ now: new Date('2026-06-01T08:00:00Z') });
     const writes: string[] = [];
-    const store = { touch: (sid: string, _s: unknown, cb?: (err?: unknown) => void) => { writes.push(sid); cb?.(); } };
+    const store = {
+      touch: (sid: string, _s: unknown, cb?: (err?: unknown) => void) => {
+        writes.push(sid);
+        cb?.();
+      },
+    };
     throttleTouch(store);
     const done = vi.fn();
     store.touch('a', {}, done);

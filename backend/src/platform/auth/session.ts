@@ -10,7 +10,10 @@ export const SESSION_COOKIE = 'rillmark.sid';
  * Sessions live in MariaDB (table `session`, created by the foundation migration), so they survive a
  * restart and are shared by every app instance behind a proxy.
  */
-export function createSessionMiddleware(config: Config, pool: Pool): { middleware: RequestHandler; close: () => Promise<void> } {
+export function createSessionMiddleware(
+  config: Config,
+  pool: Pool,
+): { middleware: RequestHandler; close: () => Promise<void> } {
   const MySQLStore = MySQLStoreFactory(session as never);
   const store = new MySQLStore(
     {
@@ -51,7 +54,9 @@ export const TOUCH_INTERVAL_MS = 60_000;
  * or API call. The cookie still rolls every response; the stored expiry is refreshed at most once a
  * minute per session, so a session can end at most that much earlier than its cookie says.
  */
-export function throttleTouch(store: { touch: (sid: string, session: unknown, cb?: (err?: unknown) => void) => unknown }): void {
+export function throttleTouch(store: {
+  touch: (sid: string, session: unknown, cb?: (err?: unknown) => void) => unknown;
+}): void {
   const touch = store.touch.bind(store);
   const last = new Map<string, number>();
   store.touch = (sid, session, cb) => {

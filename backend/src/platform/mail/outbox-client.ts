@@ -9,7 +9,10 @@ export async function fetchOutbox(mail: Config['mail']): Promise<OutboxMessage[]
   try {
     response = await fetch(url, { signal: AbortSignal.timeout(3_000) });
   } catch {
-    throw new AppError('internal_error', `The local fake SMTP server is not answering at ${url}; start it with: bash ops/mail/start.sh`);
+    throw new AppError(
+      'internal_error',
+      `The local fake SMTP server is not answering at ${url}; start it with: bash ops/mail/start.sh`,
+    );
   }
   if (!response.ok) throw new AppError('internal_error', `The fake SMTP server answered ${response.status}.`);
   const body = (await response.json()) as { messages: OutboxMessage[] };

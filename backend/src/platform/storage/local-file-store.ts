@@ -46,7 +46,10 @@ export class LocalFileStore implements FileStore {
   }
 
   async exists(key: string): Promise<boolean> {
-    return access(this.path(key)).then(() => true, () => false);
+    return access(this.path(key)).then(
+      () => true,
+      () => false,
+    );
   }
 
   private path(key: string): string {

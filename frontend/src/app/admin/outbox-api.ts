@@ -5,7 +5,6 @@ import type { OutboxMessage } from '@shared/mail/outbox-message';
 
 export type { OutboxMessage };
 
-
 /** The development outbox (administrators only). */
 @Injectable({ providedIn: 'root' })
 export class OutboxApi {

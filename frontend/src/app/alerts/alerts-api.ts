@@ -2,7 +2,14 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Page } from '@shared/api/page';
 import type {
-  AlertDetailDto, AlertSort, AlertStatus, AlertSummaryDto, NotificationPreferenceDto, WatchRunDto, WatchSettingsDto, WatchSettingsInput,
+  AlertDetailDto,
+  AlertSort,
+  AlertStatus,
+  AlertSummaryDto,
+  NotificationPreferenceDto,
+  WatchRunDto,
+  WatchSettingsDto,
+  WatchSettingsInput,
 } from '@shared/alerts/alert-dto';
 import type { FindingKind } from '@shared/alerts/finding';
 import { Observable } from 'rxjs';

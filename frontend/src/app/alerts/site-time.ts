@@ -1,8 +1,12 @@
 /** Times are shown in the site's own zone, named, so a portfolio across zones reads unambiguously. */
 export function siteTime(iso: string, timeZone: string, withZone = true): string {
-  const text = new Intl.DateTimeFormat('en-US', { timeZone, dateStyle: 'medium', timeStyle: 'short' }).format(new Date(iso));
+  const text = new Intl.DateTimeFormat('en-US', { timeZone, dateStyle: 'medium', timeStyle: 'short' }).format(
+    new Date(iso),
+  );
   if (!withZone) return text;
-  const zone = new Intl.DateTimeFormat('en-US', { timeZone, timeZoneName: 'short' }).formatToParts(new Date(iso)).find((p) => p.type === 'timeZoneName')?.value;
+  const zone = new Intl.DateTimeFormat('en-US', { timeZone, timeZoneName: 'short' })
+    .formatToParts(new Date(iso))
+    .find((p) => p.type === 'timeZoneName')?.value;
   return `${text} ${zone ?? timeZone}`;
 }
 
@@ -11,5 +15,7 @@ export function gallons(value: number | null): string {
 }
 
 export function money(value: { amount: number; currency: string } | null): string {
-  return value === null ? 'no rate schedule' : `${value.amount.toLocaleString('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 })} ${value.currency}`;
+  return value === null
+    ? 'no rate schedule'
+    : `${value.amount.toLocaleString('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 })} ${value.currency}`;
 }

@@ -19,11 +19,19 @@ export class BudgetsApi {
 
   budget(siteId: number, query: BudgetQuery): Observable<SiteBudgetDto> {
     let params = new HttpParams().set('from', query.from).set('to', query.to).set('rain', query.rain);
-    if (query.indoor) params = params.set('occupants', query.indoor.occupants).set('gallonsPerPersonPerDay', query.indoor.gallonsPerPersonPerDay);
+    if (query.indoor)
+      params = params
+        .set('occupants', query.indoor.occupants)
+        .set('gallonsPerPersonPerDay', query.indoor.gallonsPerPersonPerDay);
     return this.http.get<SiteBudgetDto>(`/api/sites/${siteId}/budget`, { params });
   }
 
-  compliance(siteId: number, year: number, projectType: MweloProjectType | null, effectivePrecipitation: boolean): Observable<ComplianceDto> {
+  compliance(
+    siteId: number,
+    year: number,
+    projectType: MweloProjectType | null,
+    effectivePrecipitation: boolean,
+  ): Observable<ComplianceDto> {
     let params = new HttpParams().set('year', year).set('effectivePrecipitation', effectivePrecipitation);
     if (projectType) params = params.set('projectType', projectType);
     return this.http.get<ComplianceDto>(`/api/sites/${siteId}/compliance`, { params });

@@ -12,7 +12,9 @@ export class HydrozonesApi {
 
   list(siteId: number): Observable<Page<HydrozoneDto>> {
     // A site has tens of zones at most; one page of 200 holds them all.
-    return this.http.get<Page<HydrozoneDto>>(`/api/sites/${siteId}/hydrozones`, { params: new HttpParams().set('pageSize', 200) });
+    return this.http.get<Page<HydrozoneDto>>(`/api/sites/${siteId}/hydrozones`, {
+      params: new HttpParams().set('pageSize', 200),
+    });
   }
 
   create(siteId: number, input: HydrozoneInput): Observable<HydrozoneDto> {

@@ -36,7 +36,12 @@ export class MetersApi {
     return this.http.post<ControllerDto>(`/api/sites/${siteId}/controllers/${controllerId}/zones`, input);
   }
 
-  updateZone(siteId: number, controllerId: number, zoneId: number, changes: Partial<ZoneInput>): Observable<ControllerDto> {
+  updateZone(
+    siteId: number,
+    controllerId: number,
+    zoneId: number,
+    changes: Partial<ZoneInput>,
+  ): Observable<ControllerDto> {
     return this.http.patch<ControllerDto>(`/api/sites/${siteId}/controllers/${controllerId}/zones/${zoneId}`, changes);
   }
 }

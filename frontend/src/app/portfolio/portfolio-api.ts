@@ -25,7 +25,9 @@ export class PortfolioApi {
 
   portfolio(query: PortfolioQuery): Observable<PortfolioDto> {
     // A month or water year is named by its first day; only a custom range sends `to`.
-    return this.http.get<PortfolioDto>('/api/portfolio', { params: queryParams({ ...query, to: query.period === 'custom' ? query.to : '' }) });
+    return this.http.get<PortfolioDto>('/api/portfolio', {
+      params: queryParams({ ...query, to: query.period === 'custom' ? query.to : '' }),
+    });
   }
 
   tags(): Observable<string[]> {

@@ -43,7 +43,9 @@ export class ReportsApi {
   }
 
   savingsExportUrl(id: number, format: 'csv' | 'pdf'): string {
-    return format === 'pdf' ? `/api/savings-projects/${id}/report.pdf` : `/api/savings-projects/${id}/report?format=csv`;
+    return format === 'pdf'
+      ? `/api/savings-projects/${id}/report.pdf`
+      : `/api/savings-projects/${id}/report?format=csv`;
   }
 
   compliance(q: ComplianceQuery): Observable<ComplianceReportDto> {
@@ -51,11 +53,22 @@ export class ReportsApi {
   }
 
   complianceExportUrl(q: ComplianceQuery, format: 'csv' | 'pdf'): string {
-    const params = queryParams({ year: q.year, month: q.month, kind: q.kind, tag: q.tag, sort: q.sort, dir: q.dir, format: format === 'csv' ? 'csv' : null }).toString();
+    const params = queryParams({
+      year: q.year,
+      month: q.month,
+      kind: q.kind,
+      tag: q.tag,
+      sort: q.sort,
+      dir: q.dir,
+      format: format === 'csv' ? 'csv' : null,
+    }).toString();
     return `/api/reports/compliance${format === 'pdf' ? '.pdf' : ''}?${params}`;
   }
 
   sendNotice(siteId: number, month: string, message: string): Observable<ComplianceNoticeDto> {
-    return this.http.post<ComplianceNoticeDto>(`/api/reports/compliance/${siteId}/notice`, { month, ...(message.trim() ? { message } : {}) });
+    return this.http.post<ComplianceNoticeDto>(`/api/reports/compliance/${siteId}/notice`, {
+      month,
+      ...(message.trim() ? { message } : {}),
+    });
   }
 }

@@ -8,9 +8,18 @@ export const settingsRoutes: Routes = [
     loadComponent: () => import('./settings-page/settings-page').then((m) => m.SettingsPage),
     children: [
       { path: '', pathMatch: 'full', redirectTo: 'units' },
-      { path: 'units', title: 'Units · Settings · Rillmark', loadComponent: () => import('./unit-settings/unit-settings').then((m) => m.UnitSettings) },
+      {
+        path: 'units',
+        title: 'Units · Settings · Rillmark',
+        loadComponent: () => import('./unit-settings/unit-settings').then((m) => m.UnitSettings),
+      },
       // The same component as /alerts/notifications, which keeps working.
-      { path: 'notifications', title: 'Notifications · Settings · Rillmark', loadComponent: () => import('../alerts/notification-settings/notification-settings').then((m) => m.NotificationSettings) },
+      {
+        path: 'notifications',
+        title: 'Notifications · Settings · Rillmark',
+        loadComponent: () =>
+          import('../alerts/notification-settings/notification-settings').then((m) => m.NotificationSettings),
+      },
       {
         path: 'api-keys',
         title: 'API keys · Settings · Rillmark',

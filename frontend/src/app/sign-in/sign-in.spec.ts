@@ -23,7 +23,8 @@ describe('SignIn', () => {
     await fixture.whenStable();
     const field = (label: string) => loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }));
     const submit = () => loader.getHarness(MatButtonHarness.with({ text: 'Sign in' })).then((button) => button.click());
-    const alertText = () => (fixture.nativeElement as HTMLElement).querySelector('[role="alert"]')?.textContent?.trim() ?? null;
+    const alertText = () =>
+      (fixture.nativeElement as HTMLElement).querySelector('[role="alert"]')?.textContent?.trim() ?? null;
     return { fixture, auth, navigate, field, submit, alertText };
   }
 
@@ -91,7 +92,9 @@ describe('SignIn', () => {
 
   it('when the server rate-limits (429), then shows its message', async () => {
     const { auth, field, submit, alertText } = await setUp();
-    const body: ApiErrorBody = { error: { code: 'rate_limited', message: 'Too many attempts. Try again in 15 minutes.' } };
+    const body: ApiErrorBody = {
+      error: { code: 'rate_limited', message: 'Too many attempts. Try again in 15 minutes.' },
+    };
     auth.signIn.mockRejectedValue(new HttpErrorResponse({ status: 429, error: body }));
     await (await (await field('E-mail address')).getControl(MatInputHarness))!.setValue('pat@example.test');
     await (await (await field('Password')).getControl(MatInputHarness))!.setValue('whatever it is');

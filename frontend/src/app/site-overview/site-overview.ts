@@ -31,12 +31,22 @@ export class SiteOverview {
   protected readonly gridMonth = linkedSignal(() => this.period().to.slice(0, 7));
   protected readonly gridMonths = computed(() => monthsBetween(this.period().from, this.period().to));
 
-  protected readonly overview = rxResource({ params: () => this.period(), stream: ({ params }) => this.api.overview(this.siteId, params.from, params.to) });
-  protected readonly grid = rxResource({ params: () => this.gridMonth(), stream: ({ params }) => this.api.hourlyGrid(this.siteId, params) });
+  protected readonly overview = rxResource({
+    params: () => this.period(),
+    stream: ({ params }) => this.api.overview(this.siteId, params.from, params.to),
+  });
+  protected readonly grid = rxResource({
+    params: () => this.gridMonth(),
+    stream: ({ params }) => this.api.hourlyGrid(this.siteId, params),
+  });
 
-  protected readonly overviewError = computed(() => errorOf(this.overview.error(), 'The overview could not be loaded.'));
+  protected readonly overviewError = computed(() =>
+    errorOf(this.overview.error(), 'The overview could not be loaded.'),
+  );
   protected readonly gridError = computed(() => errorOf(this.grid.error(), 'The flow grid could not be loaded.'));
-  protected readonly gridHasData = computed(() => (this.grid.hasValue() ? this.grid.value().days.some((d) => d.hours.some((h) => h !== null)) : false));
+  protected readonly gridHasData = computed(() =>
+    this.grid.hasValue() ? this.grid.value().days.some((d) => d.hours.some((h) => h !== null)) : false,
+  );
 
   protected gallons(value: number | null): string {
     return value === null ? '—' : formatVolume(value, 'gal');
@@ -56,7 +66,9 @@ export class SiteOverview {
 
   private initialPeriod(): PeriodValue {
     const q = this.route.snapshot.queryParamMap;
-    const kind = (PORTFOLIO_PERIODS as readonly string[]).includes(q.get('period') ?? '') ? (q.get('period') as PortfolioPeriod) : 'month';
+    const kind = (PORTFOLIO_PERIODS as readonly string[]).includes(q.get('period') ?? '')
+      ? (q.get('period') as PortfolioPeriod)
+      : 'month';
     if (!q.get('from')) return lastCompleteMonth();
     const p = resolvePeriod(kind, q.get('from')!, q.get('from')!, q.get('to') ?? undefined);
     return { kind, from: p.from, to: p.to };

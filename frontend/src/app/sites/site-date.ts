@@ -2,7 +2,12 @@ import { resolveLocalTime } from '@shared/ingest/zoned-time';
 
 /** The calendar date (YYYY-MM-DD) on the site's clock at `at`: a site's days start at its local midnight. */
 export function siteDate(timeZone: string, at: Date = new Date()): string {
-  const parts = new Intl.DateTimeFormat('en-US', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(at);
+  const parts = new Intl.DateTimeFormat('en-US', {
+    timeZone,
+    year: 'numeric',
+    month: '2-digit',
+    day: '2-digit',
+  }).formatToParts(at);
   const part = (type: string) => parts.find((p) => p.type === type)!.value;
   return `${part('year')}-${part('month')}-${part('day')}`;
 }

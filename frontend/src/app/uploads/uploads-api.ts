@@ -15,7 +15,10 @@ export class UploadsApi {
     const form = new FormData();
     for (const [name, value] of Object.entries(fields)) form.append(name, value);
     form.append('file', file, file.name);
-    return this.http.post<UploadResult>(`/api/sites/${siteId}/uploads`, form, { reportProgress: true, observe: 'events' });
+    return this.http.post<UploadResult>(`/api/sites/${siteId}/uploads`, form, {
+      reportProgress: true,
+      observe: 'events',
+    });
   }
 
   list(siteId: number, page = 0, clientRef?: string): Observable<Page<UploadDto>> {
@@ -25,7 +28,9 @@ export class UploadsApi {
   }
 
   rejections(uploadId: number, limit = 200): Observable<{ items: RejectionDto[]; total: number }> {
-    return this.http.get<{ items: RejectionDto[]; total: number }>(`/api/uploads/${uploadId}/rejections`, { params: { limit } });
+    return this.http.get<{ items: RejectionDto[]; total: number }>(`/api/uploads/${uploadId}/rejections`, {
+      params: { limit },
+    });
   }
 
   rejectionsCsvUrl(uploadId: number): string {
@@ -43,6 +48,4 @@ export class UploadsApi {
   saveProfile(name: string, mapping: ColumnMapping): Observable<ImportProfileDto> {
     return this.http.post<ImportProfileDto>('/api/import-profiles', { name, mapping });
   }
-
-
 }

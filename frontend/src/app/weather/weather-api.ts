@@ -2,7 +2,12 @@ import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Page } from '@shared/api/page';
 import type {
-  MonthlyNormalDto, WeatherImportReport, WeatherSeriesDto, WeatherStationDto, WeatherStationInput, WeatherUploadFormat,
+  MonthlyNormalDto,
+  WeatherImportReport,
+  WeatherSeriesDto,
+  WeatherStationDto,
+  WeatherStationInput,
+  WeatherUploadFormat,
 } from '@shared/weather/weather-station-dto';
 import { Observable } from 'rxjs';
 
@@ -30,7 +35,9 @@ export class WeatherApi {
   }
 
   daily(id: number, from: string, to: string): Observable<WeatherSeriesDto> {
-    return this.http.get<WeatherSeriesDto>(`/api/weather-stations/${id}/daily`, { params: new HttpParams().set('from', from).set('to', to) });
+    return this.http.get<WeatherSeriesDto>(`/api/weather-stations/${id}/daily`, {
+      params: new HttpParams().set('from', from).set('to', to),
+    });
   }
 
   upload(id: number, format: WeatherUploadFormat, file: Blob): Observable<WeatherImportReport> {

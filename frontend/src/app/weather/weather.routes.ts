@@ -5,7 +5,9 @@ export const weatherRoutes: Routes = [
   {
     path: '',
     // ECharts (only the parts the chart registers) loads with these routes, never with the first page.
-    providers: [provideEchartsCore({ echarts: () => import('./weather-chart/echarts-parts').then((m) => m.loadEcharts()) })],
+    providers: [
+      provideEchartsCore({ echarts: () => import('./weather-chart/echarts-parts').then((m) => m.loadEcharts()) }),
+    ],
     children: [
       {
         path: '',

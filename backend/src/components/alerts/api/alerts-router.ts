@@ -33,13 +33,33 @@ export function alertsRouter(alerts: AlertsService): Router {
     res.json(await alerts.get(principalOf(req), validate(idParam, req.params).id));
   });
   router.post('/:id/acknowledge', async (req, res) => {
-    res.json(await alerts.acknowledge(principalOf(req), validate(idParam, req.params).id, validate(actionBody, req.body ?? {}, 'Acknowledgement').note));
+    res.json(
+      await alerts.acknowledge(
+        principalOf(req),
+        validate(idParam, req.params).id,
+        validate(actionBody, req.body ?? {}, 'Acknowledgement').note,
+      ),
+    );
   });
   router.post('/:id/resolve', async (req, res) => {
-    res.json(await alerts.resolve(principalOf(req), validate(idParam, req.params).id, validate(actionBody, req.body ?? {}, 'Resolution').note));
+    res.json(
+      await alerts.resolve(
+        principalOf(req),
+        validate(idParam, req.params).id,
+        validate(actionBody, req.body ?? {}, 'Resolution').note,
+      ),
+    );
   });
   router.post('/:id/notes', async (req, res) => {
-    res.status(201).json(await alerts.addNote(principalOf(req), validate(idParam, req.params).id, validate(noteBody, req.body, 'Note').note));
+    res
+      .status(201)
+      .json(
+        await alerts.addNote(
+          principalOf(req),
+          validate(idParam, req.params).id,
+          validate(noteBody, req.body, 'Note').note,
+        ),
+      );
   });
   return router;
 }
@@ -51,7 +71,12 @@ export function notificationsRouter(alerts: AlertsService): Router {
     res.json(await alerts.notificationPreference(principalOf(req)));
   });
   router.put('/', async (req, res) => {
-    res.json(await alerts.setNotificationPreference(principalOf(req), validate(preferenceBody, req.body, 'Notification preference')));
+    res.json(
+      await alerts.setNotificationPreference(
+        principalOf(req),
+        validate(preferenceBody, req.body, 'Notification preference'),
+      ),
+    );
   });
   return router;
 }

@@ -13,7 +13,8 @@ export class AlertEntity {
   @Column({ type: 'datetime', name: 'period_start_utc' }) periodStartUtc!: Date;
   @Column({ type: 'datetime', name: 'period_end_utc' }) periodEndUtc!: Date;
   @Column({ type: 'enum', enum: ['watch', 'act-soon', 'act-now'], name: 'severity' }) severity!: string;
-  @Column({ type: 'enum', enum: ['open', 'acknowledged', 'resolved'], name: 'status', default: 'open' }) status!: string;
+  @Column({ type: 'enum', enum: ['open', 'acknowledged', 'resolved'], name: 'status', default: 'open' })
+  status!: string;
   @Column({ type: 'boolean', name: 'ongoing', default: false }) ongoing!: boolean;
   @Column({ type: 'mediumtext', name: 'evidence' }) evidence!: string;
   @Column({ type: 'double', name: 'water_lost_gal', nullable: true }) waterLostGal!: number | null;

@@ -17,14 +17,21 @@ export interface MailAlert {
   reopened: boolean;
 }
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+const esc = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 function localDate(at: Date, zone: string): string {
-  return new Intl.DateTimeFormat('en-US', { timeZone: zone, dateStyle: 'medium', timeStyle: 'short' }).format(at) + ` (${zone})`;
+  return (
+    new Intl.DateTimeFormat('en-US', { timeZone: zone, dateStyle: 'medium', timeStyle: 'short' }).format(at) +
+    ` (${zone})`
+  );
 }
 
 function lossText(a: MailAlert): string {
-  const water = a.waterLostGal === null ? 'water lost: not measurable' : `about ${Math.round(a.waterLostGal).toLocaleString('en-US')} gal lost so far`;
+  const water =
+    a.waterLostGal === null
+      ? 'water lost: not measurable'
+      : `about ${Math.round(a.waterLostGal).toLocaleString('en-US')} gal lost so far`;
   const money = a.moneyLost === null ? '' : `, about ${a.moneyLost.toFixed(2)} ${a.currency ?? ''}`.trimEnd();
   return water + money;
 }
@@ -33,25 +40,44 @@ function headline(a: MailAlert): string {
   return `${a.reopened ? 'Back again: ' : ''}${KIND_LABELS[a.kind]} — ${SUB_KIND_LABELS[a.subKind] ?? a.subKind} at ${a.siteName}`;
 }
 
-const CAUTION = 'Before digging or working on valves, follow local codes and call a licensed professional where the work needs one.';
+const CAUTION =
+  'Before digging or working on valves, follow local codes and call a licensed professional where the work needs one.';
 
-export function digestMail(to: string, name: string, alerts: MailAlert[], baseUrl: string): { to: string; subject: string; text: string; html: string } {
+export function digestMail(
+  to: string,
+  name: string,
+  alerts: MailAlert[],
+  baseUrl: string,
+): { to: string; subject: string; text: string; html: string } {
   const subject = `Rillmark nightly watch: ${alerts.length} new alert${alerts.length === 1 ? '' : 's'}`;
-  const lines = alerts.map((a) =>
-    `- ${headline(a)} [${SEVERITY_LABELS[a.severity]}]\n  since ${localDate(a.periodStartUtc, a.timeZone)}; ${lossText(a)}\n  ${a.explanation}\n  ${baseUrl}/alerts/${a.id}`);
+  const lines = alerts.map(
+    (a) =>
+      `- ${headline(a)} [${SEVERITY_LABELS[a.severity]}]\n  since ${localDate(a.periodStartUtc, a.timeZone)}; ${lossText(a)}\n  ${a.explanation}\n  ${baseUrl}/alerts/${a.id}`,
+  );
   const text = `Hello ${name},\n\nLast night's watch found:\n\n${lines.join('\n\n')}\n\n${CAUTION}\n\nChange what you receive: ${baseUrl}/alerts/notifications\n`;
-  const items = alerts.map((a) =>
-    `<li><p><strong>${esc(headline(a))}</strong> — ${esc(SEVERITY_LABELS[a.severity])}<br>since ${esc(localDate(a.periodStartUtc, a.timeZone))}; ${esc(lossText(a))}</p>` +
-    `<p>${esc(a.explanation)}</p><p><a href="${esc(`${baseUrl}/alerts/${a.id}`)}">Open the alert</a></p></li>`).join('');
-  const html = `<p>Hello ${esc(name)},</p><p>Last night's watch found:</p><ul>${items}</ul><p><em>${esc(CAUTION)}</em></p>` +
+  const items = alerts
+    .map(
+      (a) =>
+        `<li><p><strong>${esc(headline(a))}</strong> — ${esc(SEVERITY_LABELS[a.severity])}<br>since ${esc(localDate(a.periodStartUtc, a.timeZone))}; ${esc(lossText(a))}</p>` +
+        `<p>${esc(a.explanation)}</p><p><a href="${esc(`${baseUrl}/alerts/${a.id}`)}">Open the alert</a></p></li>`,
+    )
+    .join('');
+  const html =
+    `<p>Hello ${esc(name)},</p><p>Last night's watch found:</p><ul>${items}</ul><p><em>${esc(CAUTION)}</em></p>` +
     `<p><a href="${esc(`${baseUrl}/alerts/notifications`)}">Change what you receive</a></p>`;
   return { to, subject, text, html };
 }
 
-export function singleAlertMail(to: string, name: string, a: MailAlert, baseUrl: string): { to: string; subject: string; text: string; html: string } {
+export function singleAlertMail(
+  to: string,
+  name: string,
+  a: MailAlert,
+  baseUrl: string,
+): { to: string; subject: string; text: string; html: string } {
   const subject = `Rillmark alert: ${headline(a)}`;
   const text = `Hello ${name},\n\n${headline(a)} [${SEVERITY_LABELS[a.severity]}]\nsince ${localDate(a.periodStartUtc, a.timeZone)}; ${lossText(a)}\n\n${a.explanation}\n\n${baseUrl}/alerts/${a.id}\n\n${CAUTION}\n`;
-  const html = `<p>Hello ${esc(name)},</p><p><strong>${esc(headline(a))}</strong> — ${esc(SEVERITY_LABELS[a.severity])}<br>since ${esc(localDate(a.periodStartUtc, a.timeZone))}; ${esc(lossText(a))}</p>` +
+  const html =
+    `<p>Hello ${esc(name)},</p><p><strong>${esc(headline(a))}</strong> — ${esc(SEVERITY_LABELS[a.severity])}<br>since ${esc(localDate(a.periodStartUtc, a.timeZone))}; ${esc(lossText(a))}</p>` +
     `<p>${esc(a.explanation)}</p><p><a href="${esc(`${baseUrl}/alerts/${a.id}`)}">Open the alert</a></p><p><em>${esc(CAUTION)}</em></p>`;
   return { to, subject, text, html };
 }

@@ -1,6 +1,11 @@
 import type { DataSource } from 'typeorm';
 import type { Page } from '@shared/api/page';
-import type { AlertDetailDto, AlertListFilter, AlertSummaryDto, NotificationPreferenceDto } from '@shared/alerts/alert-dto';
+import type {
+  AlertDetailDto,
+  AlertListFilter,
+  AlertSummaryDto,
+  NotificationPreferenceDto,
+} from '@shared/alerts/alert-dto';
 import { atLeast, siteLevel } from '@shared/auth/roles';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
@@ -30,7 +35,11 @@ export class AlertsService {
     const alert = await this.alerts.findVisible(principal.organisationId, id);
     if (!alert) throw AppError.notFound('Alert');
     const site = await this.sites.requireLevel(principal, alert.siteId, 'read');
-    return { ...alert, events: await this.alerts.events(id), canAct: atLeast(siteLevel(principal.role, site.relation), 'contribute') };
+    return {
+      ...alert,
+      events: await this.alerts.events(id),
+      canAct: atLeast(siteLevel(principal.role, site.relation), 'contribute'),
+    };
   }
 
   acknowledge(principal: Principal, id: number, note: string | undefined): Promise<AlertDetailDto> {
@@ -45,31 +54,55 @@ export class AlertsService {
     return this.act(principal, id, 'note', note);
   }
 
-  private async act(principal: Principal, id: number, action: 'acknowledged' | 'resolved' | 'note', note: string | undefined): Promise<AlertDetailDto> {
+  private async act(
+    principal: Principal,
+    id: number,
+    action: 'acknowledged' | 'resolved' | 'note',
+    note: string | undefined,
+  ): Promise<AlertDetailDto> {
     const alert = await this.alerts.findVisible(principal.organisationId, id);
     if (!alert) throw AppError.notFound('Alert');
     const site = await this.sites.requireLevel(principal, alert.siteId, 'contribute');
-    if (action === 'acknowledged' && alert.status !== 'open') throw new AppError('conflict', `This alert is ${alert.status} already.`);
-    if (action === 'resolved' && alert.status === 'resolved') throw new AppError('conflict', 'This alert is resolved already.');
+    if (action === 'acknowledged' && alert.status !== 'open')
+      throw new AppError('conflict', `This alert is ${alert.status} already.`);
+    if (action === 'resolved' && alert.status === 'resolved')
+      throw new AppError('conflict', 'This alert is resolved already.');
     await this.db.transaction(async (em) => {
       if (action !== 'note') await this.alerts.setStatus(em, id, action);
       await this.alerts.addEvent(em, id, principal.userId, action, note?.trim() || null);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'alert', entityId: id, action: action === 'note' ? 'note' : action, changes: { note: note ?? null } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'alert',
+        entityId: id,
+        action: action === 'note' ? 'note' : action,
+        changes: { note: note ?? null },
+      });
     });
     return this.get(principal, id);
   }
 
   async notificationPreference(principal: Principal): Promise<NotificationPreferenceDto> {
-    const [row] = (await this.db.query('SELECT frequency, site_ids FROM user_notification WHERE user_id = ?', [principal.userId])) as { frequency: NotificationPreferenceDto['frequency']; site_ids: string | null }[];
-    return { frequency: row?.frequency ?? 'daily', siteIds: row?.site_ids ? (JSON.parse(row.site_ids) as number[]) : null };
+    const [row] = (await this.db.query('SELECT frequency, site_ids FROM user_notification WHERE user_id = ?', [
+      principal.userId,
+    ])) as { frequency: NotificationPreferenceDto['frequency']; site_ids: string | null }[];
+    return {
+      frequency: row?.frequency ?? 'daily',
+      siteIds: row?.site_ids ? (JSON.parse(row.site_ids) as number[]) : null,
+    };
   }
 
-  async setNotificationPreference(principal: Principal, pref: NotificationPreferenceDto): Promise<NotificationPreferenceDto> {
+  async setNotificationPreference(
+    principal: Principal,
+    pref: NotificationPreferenceDto,
+  ): Promise<NotificationPreferenceDto> {
     if (pref.siteIds) for (const siteId of pref.siteIds) await this.sites.requireLevel(principal, siteId, 'read');
     const siteIds = pref.siteIds ? JSON.stringify([...new Set(pref.siteIds)]) : null;
     await this.db.query(
       `INSERT INTO user_notification (user_id, frequency, site_ids) VALUES (?, ?, ?)
-       ON DUPLICATE KEY UPDATE frequency = VALUES(frequency), site_ids = VALUES(site_ids)`, [principal.userId, pref.frequency, siteIds]);
+       ON DUPLICATE KEY UPDATE frequency = VALUES(frequency), site_ids = VALUES(site_ids)`,
+      [principal.userId, pref.frequency, siteIds],
+    );
     return this.notificationPreference(principal);
   }
 }

@@ -29,7 +29,9 @@ export function apiKeyAuth(keys: ApiKeysService): RequestHandler {
     const caller = await keys.authenticate(header.slice('Bearer '.length).trim());
     if (!caller) throw new AppError('unauthenticated', 'The API key is not valid or has been revoked.');
     if (!MACHINE_ROUTES.some(([method, path]) => req.method === method && path.test(req.path))) {
-      throw AppError.forbidden('An API key can only send uploads (POST /api/sites/:id/uploads) and read their status (GET /api/uploads/:id).');
+      throw AppError.forbidden(
+        'An API key can only send uploads (POST /api/sites/:id/uploads) and read their status (GET /api/uploads/:id).',
+      );
     }
     req.user = caller.principal;
     req.apiKey = caller.apiKey;

@@ -6,7 +6,11 @@ import type { ApiKeysService } from '../domain/api-keys-service';
 
 const body = z.strictObject({
   name: z.string().trim().min(1, 'is required').max(120),
-  siteIds: z.array(z.number().int().positive()).min(1, 'choose at least one site').max(500).transform((ids) => [...new Set(ids)]),
+  siteIds: z
+    .array(z.number().int().positive())
+    .min(1, 'choose at least one site')
+    .max(500)
+    .transform((ids) => [...new Set(ids)]),
 });
 
 /** /api/api-keys (administrators) */

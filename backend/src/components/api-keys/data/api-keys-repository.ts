@@ -17,8 +17,28 @@ export interface StoredKey {
 export class ApiKeysRepository {
   constructor(private readonly db: DataSource) {}
 
-  async insert(em: EntityManager, k: { organisationId: number; name: string; prefix: string; secretHash: string; createdBy: number; siteIds: number[] }): Promise<number> {
-    const id = Number((await em.getRepository(ApiKeyEntity).insert({ organisationId: k.organisationId, name: k.name, prefix: k.prefix, secretHash: k.secretHash, createdBy: k.createdBy })).identifiers[0]!['id']);
+  async insert(
+    em: EntityManager,
+    k: {
+      organisationId: number;
+      name: string;
+      prefix: string;
+      secretHash: string;
+      createdBy: number;
+      siteIds: number[];
+    },
+  ): Promise<number> {
+    const id = Number(
+      (
+        await em.getRepository(ApiKeyEntity).insert({
+          organisationId: k.organisationId,
+          name: k.name,
+          prefix: k.prefix,
+          secretHash: k.secretHash,
+          createdBy: k.createdBy,
+        })
+      ).identifiers[0]!['id'],
+    );
     await em.getRepository(ApiKeySiteEntity).insert(k.siteIds.map((siteId) => ({ apiKeyId: id, siteId })));
     return id;
   }
@@ -47,7 +67,15 @@ export class ApiKeysRepository {
     const key = await this.db.getRepository(ApiKeyEntity).findOneBy({ prefix });
     if (!key) return null;
     const sites = await this.db.getRepository(ApiKeySiteEntity).findBy({ apiKeyId: key.id });
-    return { id: key.id, organisationId: key.organisationId, secretHash: key.secretHash, createdBy: key.createdBy, revokedAt: key.revokedAt, lastUsedAt: key.lastUsedAt, siteIds: sites.map((s) => s.siteId) };
+    return {
+      id: key.id,
+      organisationId: key.organisationId,
+      secretHash: key.secretHash,
+      createdBy: key.createdBy,
+      revokedAt: key.revokedAt,
+      lastUsedAt: key.lastUsedAt,
+      siteIds: sites.map((s) => s.siteId),
+    };
   }
 
   async touch(id: number): Promise<void> {
@@ -55,7 +83,10 @@ export class ApiKeysRepository {
   }
 
   async revoke(em: EntityManager, organisationId: number, id: number): Promise<boolean> {
-    const result = await em.query('UPDATE api_key SET revoked_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND organisation_id = ? AND revoked_at IS NULL', [id, organisationId]);
+    const result = await em.query(
+      'UPDATE api_key SET revoked_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND organisation_id = ? AND revoked_at IS NULL',
+      [id, organisationId],
+    );
     return Number((result as { affectedRows?: number }).affectedRows ?? 0) > 0;
   }
 }

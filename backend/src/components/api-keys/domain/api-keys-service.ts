@@ -42,8 +42,22 @@ export class ApiKeysService {
     const prefix = `rk_${randomBytes(4).toString('hex')}`;
     const secret = `${prefix}_${randomBytes(32).toString('base64url')}`;
     const id = await this.db.transaction(async (em) => {
-      const keyId = await this.repo.insert(em, { organisationId: principal.organisationId, name, prefix, secretHash: sha256(secret), createdBy: principal.userId, siteIds });
-      await this.audit.record(em, { userId: principal.userId, organisationId: principal.organisationId, entity: 'api-key', entityId: keyId, action: 'create', changes: { name, prefix, siteIds } });
+      const keyId = await this.repo.insert(em, {
+        organisationId: principal.organisationId,
+        name,
+        prefix,
+        secretHash: sha256(secret),
+        createdBy: principal.userId,
+        siteIds,
+      });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: principal.organisationId,
+        entity: 'api-key',
+        entityId: keyId,
+        action: 'create',
+        changes: { name, prefix, siteIds },
+      });
       return keyId;
     });
     const dto = (await this.repo.list(principal.organisationId)).find((k) => k.id === id)!;
@@ -54,7 +68,13 @@ export class ApiKeysService {
     this.assertAdmin(principal);
     await this.db.transaction(async (em) => {
       if (!(await this.repo.revoke(em, principal.organisationId, id))) throw AppError.notFound('Active API key');
-      await this.audit.record(em, { userId: principal.userId, organisationId: principal.organisationId, entity: 'api-key', entityId: id, action: 'revoke' });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: principal.organisationId,
+        entity: 'api-key',
+        entityId: id,
+        action: 'revoke',
+      });
     });
   }
 

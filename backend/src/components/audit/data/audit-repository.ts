@@ -36,11 +36,21 @@ export class AuditRepository {
     });
   }
 
-  async list(organisationId: number, filter: { entity?: string; entityId?: string; page: number; pageSize: number }): Promise<Page<AuditEntryDto>> {
-    const qb = this.db.getRepository(AuditEntryEntity).createQueryBuilder('a').where('a.organisation_id = :organisationId', { organisationId });
+  async list(
+    organisationId: number,
+    filter: { entity?: string; entityId?: string; page: number; pageSize: number },
+  ): Promise<Page<AuditEntryDto>> {
+    const qb = this.db
+      .getRepository(AuditEntryEntity)
+      .createQueryBuilder('a')
+      .where('a.organisation_id = :organisationId', { organisationId });
     if (filter.entity) qb.andWhere('a.entity = :entity', { entity: filter.entity });
     if (filter.entityId) qb.andWhere('a.entity_id = :entityId', { entityId: filter.entityId });
-    const [rows, total] = await qb.orderBy('a.id', 'DESC').skip(filter.page * filter.pageSize).take(filter.pageSize).getManyAndCount();
+    const [rows, total] = await qb
+      .orderBy('a.id', 'DESC')
+      .skip(filter.page * filter.pageSize)
+      .take(filter.pageSize)
+      .getManyAndCount();
     return {
       items: rows.map((a) => ({
         id: String(a.id),

@@ -40,10 +40,18 @@ export function authRouter({ auth, passport, csrf, rateLimitStore, config }: Dep
     legacyHeaders: false,
     skipSuccessfulRequests: true,
     store: rateLimitStore,
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    keyGenerator: (req) =>
+      `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '')
+        .trim()
+        .toLowerCase()}`,
     handler: (_req, _res, next, options) => {
       const minutes = Math.ceil(options.windowMs / 60_000);
-      next(new AppError('rate_limited', `Too many sign-in attempts. Wait ${minutes} minutes and try again, or ask your administrator to reset your password.`));
+      next(
+        new AppError(
+          'rate_limited',
+          `Too many sign-in attempts. Wait ${minutes} minutes and try again, or ask your administrator to reset your password.`,
+        ),
+      );
     },
   });
 
@@ -54,7 +62,9 @@ export function authRouter({ auth, passport, csrf, rateLimitStore, config }: Dep
   router.post('/sign-in', signInLimiter, async (req, res) => {
     req.body = validate(signInBody, req.body, 'Sign-in');
     const principal = await new Promise<Principal | false>((resolve, reject) => {
-      passport.authenticate('local', { session: false }, (err: unknown, user: Principal | false) => (err ? reject(err) : resolve(user)))(req, res, () => undefined);
+      passport.authenticate('local', { session: false }, (err: unknown, user: Principal | false) =>
+        err ? reject(err) : resolve(user),
+      )(req, res, () => undefined);
     });
     if (!principal) throw new AppError('unauthenticated', 'That e-mail and password do not match an active account.');
     await logIn(req, principal);
@@ -63,7 +73,9 @@ export function authRouter({ auth, passport, csrf, rateLimitStore, config }: Dep
   });
 
   router.post('/sign-out', async (req, res) => {
-    await new Promise<void>((resolve, reject) => req.logout({ keepSessionInfo: false }, (err) => (err ? reject(err) : resolve())));
+    await new Promise<void>((resolve, reject) =>
+      req.logout({ keepSessionInfo: false }, (err) => (err ? reject(err) : resolve())),
+    );
     csrf.issue(req, res);
     res.status(204).end();
   });

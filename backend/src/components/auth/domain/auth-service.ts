@@ -35,7 +35,14 @@ export class AuthService {
     const { user, memberships } = found;
     const active = memberships.find((m) => m.organisationId === organisationId) ?? memberships[0];
     if (!active) return null;
-    return { userId: user.id, email: user.email, displayName: user.displayName, organisationId: active.organisationId, role: active.role, memberships };
+    return {
+      userId: user.id,
+      email: user.email,
+      displayName: user.displayName,
+      organisationId: active.organisationId,
+      role: active.role,
+      memberships,
+    };
   }
 
   currentUser(principal: Principal): CurrentUserDto {
@@ -53,20 +60,34 @@ export class AuthService {
   async tokenInfo(token: string): Promise<{ email: string; displayName: string; purpose: 'invite' | 'reset' }> {
     const live = await this.users.findLiveToken(hashToken(token));
     const user = live && (await this.users.findById(live.userId));
-    if (!live || !user) throw new AppError('not_found', 'This link has expired or was already used. Ask your administrator for a new one.');
+    if (!live || !user)
+      throw new AppError(
+        'not_found',
+        'This link has expired or was already used. Ask your administrator for a new one.',
+      );
     return { email: user.email, displayName: user.displayName, purpose: live.purpose };
   }
 
   /** Sets the password from an invitation or reset link; returns the user id to sign in. */
   async completeToken(token: string, password: string, purpose: 'invite' | 'reset'): Promise<number> {
     const live = await this.users.findLiveToken(hashToken(token));
-    if (!live || live.purpose !== purpose) throw new AppError('not_found', 'This link has expired or was already used. Ask your administrator for a new one.');
+    if (!live || live.purpose !== purpose)
+      throw new AppError(
+        'not_found',
+        'This link has expired or was already used. Ask your administrator for a new one.',
+      );
     const passwordHash = await hashPassword(password);
     await this.db.transaction(async (em) => {
       if (!(await this.users.useToken(em, live.id))) throw new AppError('conflict', 'This link was just used.');
       await this.users.setPassword(em, live.userId, passwordHash);
       if (purpose === 'invite') await this.users.setStatus(em, live.userId, 'active');
-      await this.audit.record(em, { userId: live.userId, organisationId: null, entity: 'user', entityId: live.userId, action: purpose === 'invite' ? 'accept-invite' : 'reset-password' });
+      await this.audit.record(em, {
+        userId: live.userId,
+        organisationId: null,
+        entity: 'user',
+        entityId: live.userId,
+        action: purpose === 'invite' ? 'accept-invite' : 'reset-password',
+      });
     });
     return live.userId;
   }

@@ -7,20 +7,40 @@ import type { BudgetsService } from '../domain/budgets-service';
 
 const month = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'must be a month YYYY-MM');
 const siteParam = z.object({ id: z.coerce.number().int().positive() });
-const budgetQuery = z.object({
-  from: month,
-  to: month,
-  rain: z.enum(RAIN_CREDIT_KINDS, { message: `must be one of ${RAIN_CREDIT_KINDS.join(', ')}` }).default('none'),
-  rainValue: z.coerce.number().min(0, 'must be zero or more').optional(),
-  // Indoor allotment for a mixed meter: both or neither.
-  occupants: z.coerce.number().int('must be a whole number').min(0, 'must be zero or more').max(100_000, 'must be at most 100,000').optional(),
-  gallonsPerPersonPerDay: z.coerce.number().min(0, 'must be zero or more').max(500, 'must be at most 500 gal').optional(),
-}).refine((q) => q.rain !== 'fixed-fraction' || q.rainValue === undefined || q.rainValue <= 1, { message: 'a rain fraction must be 0..1', path: ['rainValue'] })
-  .refine((q) => (q.occupants === undefined) === (q.gallonsPerPersonPerDay === undefined), { message: 'give occupants and gallonsPerPersonPerDay together', path: ['occupants'] });
+const budgetQuery = z
+  .object({
+    from: month,
+    to: month,
+    rain: z.enum(RAIN_CREDIT_KINDS, { message: `must be one of ${RAIN_CREDIT_KINDS.join(', ')}` }).default('none'),
+    rainValue: z.coerce.number().min(0, 'must be zero or more').optional(),
+    // Indoor allotment for a mixed meter: both or neither.
+    occupants: z.coerce
+      .number()
+      .int('must be a whole number')
+      .min(0, 'must be zero or more')
+      .max(100_000, 'must be at most 100,000')
+      .optional(),
+    gallonsPerPersonPerDay: z.coerce
+      .number()
+      .min(0, 'must be zero or more')
+      .max(500, 'must be at most 500 gal')
+      .optional(),
+  })
+  .refine((q) => q.rain !== 'fixed-fraction' || q.rainValue === undefined || q.rainValue <= 1, {
+    message: 'a rain fraction must be 0..1',
+    path: ['rainValue'],
+  })
+  .refine((q) => (q.occupants === undefined) === (q.gallonsPerPersonPerDay === undefined), {
+    message: 'give occupants and gallonsPerPersonPerDay together',
+    path: ['occupants'],
+  });
 const complianceQuery = z.object({
   year: z.coerce.number().int().min(2000, 'must be 2000 or later').max(2100, 'must be 2100 or earlier'),
   projectType: z.enum(['residential', 'non-residential']).optional(),
-  effectivePrecipitation: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  effectivePrecipitation: z
+    .enum(['true', 'false'])
+    .default('false')
+    .transform((v) => v === 'true'),
 });
 const adviceParams = z.object({ id: z.coerce.number().int().positive(), zoneId: z.coerce.number().int().positive() });
 const previousMonth = () => {
@@ -39,7 +59,10 @@ export function budgetsRouter(budgets: BudgetsService): Router {
   router.get('/budget', async (req, res) => {
     const { id } = validate(siteParam, req.params);
     const q = validate(budgetQuery, req.query, 'Query');
-    const indoor = q.occupants !== undefined && q.gallonsPerPersonPerDay !== undefined ? { occupants: q.occupants, gallonsPerPersonPerDay: q.gallonsPerPersonPerDay } : undefined;
+    const indoor =
+      q.occupants !== undefined && q.gallonsPerPersonPerDay !== undefined
+        ? { occupants: q.occupants, gallonsPerPersonPerDay: q.gallonsPerPersonPerDay }
+        : undefined;
     res.json(await budgets.budget(principalOf(req), id, q.from, q.to, q.rain, q.rainValue, indoor));
   });
 

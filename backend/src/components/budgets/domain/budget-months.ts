@@ -1,7 +1,11 @@
 import type { BudgetMonthDto, BudgetZoneMonthDto, RainCreditKind } from '@shared/budgets/budget-dto';
 import { effectiveIrrigationEfficiency, effectivePlantFactor, type Hydrozone } from '@shared/budgets/hydrozone';
 import { siteBudgetForPeriod, type BudgetStep } from '@shared/budgets/water-budget';
-import { describeEffectiveRainMethod, MWELO_EFFECTIVE_RAIN_FRACTION, type EffectiveRainMethod } from '@shared/weather/effective-rain';
+import {
+  describeEffectiveRainMethod,
+  MWELO_EFFECTIVE_RAIN_FRACTION,
+  type EffectiveRainMethod,
+} from '@shared/weather/effective-rain';
 import type { DailyWeatherMethod } from '@shared/weather/weather-station-dto';
 
 /**
@@ -17,7 +21,8 @@ export interface BudgetDay {
   method: DailyWeatherMethod;
 }
 
-const fmt = (value: number, digits: number) => value.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+const fmt = (value: number, digits: number) =>
+  value.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits });
 
 export function rainMethodOf(kind: RainCreditKind, value: number | undefined): EffectiveRainMethod {
   switch (kind) {
@@ -31,7 +36,11 @@ export function rainMethodOf(kind: RainCreditKind, value: number | undefined): E
   }
 }
 
-export function budgetMonths(zones: Hydrozone[], days: BudgetDay[], rain: EffectiveRainMethod): Omit<BudgetMonthDto, 'cost' | 'indoorGallons'>[] {
+export function budgetMonths(
+  zones: Hydrozone[],
+  days: BudgetDay[],
+  rain: EffectiveRainMethod,
+): Omit<BudgetMonthDto, 'cost' | 'indoorGallons'>[] {
   const byMonth = new Map<string, BudgetDay[]>();
   for (const day of days) {
     const key = day.date.slice(0, 7);
@@ -46,16 +55,32 @@ export function budgetMonths(zones: Hydrozone[], days: BudgetDay[], rain: Effect
       const pf = effectivePlantFactor(zone);
       const ie = effectiveIrrigationEfficiency(zone);
       return {
-        zoneId: Number(zone.id), zoneName: zone.name, areaFt2: zone.areaFt2, plantFactor: pf, irrigationEfficiency: ie.efficiency,
-        etoMm: z.etoMm, rainMm: z.rainMm, effectiveRainMm: z.effectiveRainMm,
-        grossGallons: z.grossGallons, rainCreditGallons: z.rainCreditGallons, gallons: z.gallons, litres: z.litres,
+        zoneId: Number(zone.id),
+        zoneName: zone.name,
+        areaFt2: zone.areaFt2,
+        plantFactor: pf,
+        irrigationEfficiency: ie.efficiency,
+        etoMm: z.etoMm,
+        rainMm: z.rainMm,
+        effectiveRainMm: z.effectiveRainMm,
+        grossGallons: z.grossGallons,
+        rainCreditGallons: z.rainCreditGallons,
+        gallons: z.gallons,
+        litres: z.litres,
         steps: monthSteps(zone, pf, ie, z, rain, monthDays.length),
       };
     });
     const methods = [...new Set(monthDays.map((d) => (d.filled ? 'normal-filled' : d.method)))] as DailyWeatherMethod[];
     return {
-      month, days: monthDays.length, etoMm, rainMm, filledDays: monthDays.filter((d) => d.filled).length, methods,
-      gallons: site.gallons, litres: site.litres, zones: zoneRows,
+      month,
+      days: monthDays.length,
+      etoMm,
+      rainMm,
+      filledDays: monthDays.filter((d) => d.filled).length,
+      methods,
+      gallons: site.gallons,
+      litres: site.litres,
+      zones: zoneRows,
     };
   });
 }
@@ -64,7 +89,15 @@ function monthSteps(
   zone: Hydrozone,
   pf: number,
   ie: { efficiency: number; source: string },
-  z: { etoMm: number; effectiveRainMm: number; grossGallons: number; rainCreditGallons: number; gallons: number; litres: number; filledDays: number },
+  z: {
+    etoMm: number;
+    effectiveRainMm: number;
+    grossGallons: number;
+    rainCreditGallons: number;
+    gallons: number;
+    litres: number;
+    filledDays: number;
+  },
   rain: EffectiveRainMethod,
   dayCount: number,
 ): BudgetStep[] {
@@ -72,13 +105,36 @@ function monthSteps(
   const peffIn = z.effectiveRainMm / 25.4;
   const floored = z.gallons > z.grossGallons - z.rainCreditGallons + 1e-6;
   return [
-    { label: 'Reference ET for the month', formula: `Σ of ${dayCount} daily values = ${fmt(z.etoMm, 1)} mm ÷ 25.4${z.filledDays ? ` (${z.filledDays} day(s) from monthly normals)` : ''}`, value: etoIn, unit: 'in' },
-    { label: 'Plant factor (PF)', formula: zone.plantFactor === undefined ? `default for "${zone.plantWaterUse}" plants (midpoint of the MWELO range)` : 'entered for this hydrozone', value: pf, unit: '' },
+    {
+      label: 'Reference ET for the month',
+      formula: `Σ of ${dayCount} daily values = ${fmt(z.etoMm, 1)} mm ÷ 25.4${z.filledDays ? ` (${z.filledDays} day(s) from monthly normals)` : ''}`,
+      value: etoIn,
+      unit: 'in',
+    },
+    {
+      label: 'Plant factor (PF)',
+      formula:
+        zone.plantFactor === undefined
+          ? `default for "${zone.plantWaterUse}" plants (midpoint of the MWELO range)`
+          : 'entered for this hydrozone',
+      value: pf,
+      unit: '',
+    },
     { label: 'Irrigation efficiency (IE)', formula: ie.source, value: ie.efficiency, unit: '' },
     { label: 'Area', formula: 'entered for this hydrozone', value: zone.areaFt2, unit: 'ft²' },
-    { label: 'Gross irrigation', formula: `${fmt(etoIn, 3)} in × ${fmt(pf, 2)} × ${fmt(zone.areaFt2, 0)} ft² × 0.623377 gal/(in·ft²) ÷ ${fmt(ie.efficiency, 2)}`, value: z.grossGallons, unit: 'gal' },
+    {
+      label: 'Gross irrigation',
+      formula: `${fmt(etoIn, 3)} in × ${fmt(pf, 2)} × ${fmt(zone.areaFt2, 0)} ft² × 0.623377 gal/(in·ft²) ÷ ${fmt(ie.efficiency, 2)}`,
+      value: z.grossGallons,
+      unit: 'gal',
+    },
     { label: 'Effective rain', formula: describeEffectiveRainMethod(rain), value: peffIn, unit: 'in' },
-    { label: 'Rain credit', formula: `${fmt(peffIn, 3)} in × ${fmt(zone.areaFt2, 0)} ft² × 0.623377 ÷ ${fmt(ie.efficiency, 2)}`, value: z.rainCreditGallons, unit: 'gal' },
+    {
+      label: 'Rain credit',
+      formula: `${fmt(peffIn, 3)} in × ${fmt(zone.areaFt2, 0)} ft² × 0.623377 ÷ ${fmt(ie.efficiency, 2)}`,
+      value: z.rainCreditGallons,
+      unit: 'gal',
+    },
     {
       label: 'Budget',
       formula: floored
@@ -87,6 +143,11 @@ function monthSteps(
       value: z.gallons,
       unit: 'gal',
     },
-    { label: 'Budget (metric)', formula: 'max(0, ETo (mm) × PF − effective rain (mm)) × area (m²) ÷ IE, day by day; 1 mm over 1 m² = 1 L', value: z.litres, unit: 'L' },
+    {
+      label: 'Budget (metric)',
+      formula: 'max(0, ETo (mm) × PF − effective rain (mm)) × area (m²) ÷ IE, day by day; 1 mm over 1 m² = 1 L',
+      value: z.litres,
+      unit: 'L',
+    },
   ];
 }

@@ -1,6 +1,18 @@
-import type { BudgetCostDto, ComplianceDto, RainCreditKind, RunTimeAdviceDto, SiteBudgetDto } from '@shared/budgets/budget-dto';
+import type {
+  BudgetCostDto,
+  ComplianceDto,
+  RainCreditKind,
+  RunTimeAdviceDto,
+  SiteBudgetDto,
+} from '@shared/budgets/budget-dto';
 import { effectiveIrrigationEfficiency, effectivePlantFactor } from '@shared/budgets/hydrozone';
-import { estimatedTotalWaterUse, maximumAppliedWaterAllowance, MWELO_MAX_ETAF, mweloCompliance, type MweloProjectType } from '@shared/budgets/mwelo-allowance';
+import {
+  estimatedTotalWaterUse,
+  maximumAppliedWaterAllowance,
+  MWELO_MAX_ETAF,
+  mweloCompliance,
+  type MweloProjectType,
+} from '@shared/budgets/mwelo-allowance';
 import { describeEffectiveRainMethod, MWELO_EFFECTIVE_RAIN_FRACTION } from '@shared/weather/effective-rain';
 import { indoorAllotmentGallons } from '@shared/budgets/indoor-allotment';
 import { costOfBudget } from '@shared/rates/water-cost';
@@ -29,12 +41,21 @@ export class BudgetsService {
   ) {}
 
   async budget(
-    principal: Principal, siteId: number, fromMonth: string, toMonth: string, rainKind: RainCreditKind, rainValue?: number,
+    principal: Principal,
+    siteId: number,
+    fromMonth: string,
+    toMonth: string,
+    rainKind: RainCreditKind,
+    rainValue?: number,
     indoor?: { occupants: number; gallonsPerPersonPerDay: number },
   ): Promise<SiteBudgetDto> {
     const site = await this.sites.requireLevel(principal, siteId, 'read');
     if (toMonth < fromMonth) throw AppError.invalid('to', `${toMonth} is before ${fromMonth}`);
-    const monthCount = (Number(toMonth.slice(0, 4)) - Number(fromMonth.slice(0, 4))) * 12 + Number(toMonth.slice(5)) - Number(fromMonth.slice(5)) + 1;
+    const monthCount =
+      (Number(toMonth.slice(0, 4)) - Number(fromMonth.slice(0, 4))) * 12 +
+      Number(toMonth.slice(5)) -
+      Number(fromMonth.slice(5)) +
+      1;
     if (monthCount > BUDGET_MAX_MONTHS) throw AppError.invalid('to', `at most ${BUDGET_MAX_MONTHS} months at a time`);
     const { zones, station } = await this.inputs(principal, siteId);
     const rain = rainMethodOf(rainKind, rainValue);
@@ -43,11 +64,23 @@ export class BudgetsService {
     const months = budgetMonths(zones.map(engineZone), days, rain).map((m) => {
       const schedule = scheduleInForce(schedules, `${m.month}-01`);
       // A mixed meter's bill covers the indoor allotment too (occupants × gal/person/day × days).
-      const indoorGallons = indoor ? indoorAllotmentGallons(indoor.occupants, indoor.gallonsPerPersonPerDay, m.days) : null;
+      const indoorGallons = indoor
+        ? indoorAllotmentGallons(indoor.occupants, indoor.gallonsPerPersonPerDay, m.days)
+        : null;
       let cost: BudgetCostDto | null = null;
       if (schedule) {
         const c = costOfBudget(schedule, m.gallons + (indoorGallons ?? 0));
-        cost = { scheduleId: schedule.id, scheduleName: schedule.name, unit: schedule.unit, currency: schedule.currency, units: c.units, fixedCharge: c.fixedCharge, volumeCharge: c.volumeCharge, total: c.total, lines: c.lines };
+        cost = {
+          scheduleId: schedule.id,
+          scheduleName: schedule.name,
+          unit: schedule.unit,
+          currency: schedule.currency,
+          units: c.units,
+          fixedCharge: c.fixedCharge,
+          volumeCharge: c.volumeCharge,
+          total: c.total,
+          lines: c.lines,
+        };
       }
       return { ...m, indoorGallons, cost };
     });
@@ -55,9 +88,17 @@ export class BudgetsService {
     const currencies = new Set(costed.map((m) => m.cost!.currency));
     const { unitSystem } = await this.settings.get(principal);
     return {
-      siteId, siteName: site.name, from: fromMonth, to: toMonth, unitSystem,
+      siteId,
+      siteName: site.name,
+      from: fromMonth,
+      to: toMonth,
+      unitSystem,
       station: { id: station.id, name: station.name },
-      rainCredit: { kind: rainKind, value: rain.kind === 'fixed-fraction' ? rain.fraction : rain.kind === 'threshold' ? rain.minimumMm : null, description: describeEffectiveRainMethod(rain) },
+      rainCredit: {
+        kind: rainKind,
+        value: rain.kind === 'fixed-fraction' ? rain.fraction : rain.kind === 'threshold' ? rain.minimumMm : null,
+        description: describeEffectiveRainMethod(rain),
+      },
       months,
       totals: {
         gallons: months.reduce((s, m) => s + m.gallons, 0),
@@ -67,20 +108,30 @@ export class BudgetsService {
         rainMm: months.reduce((s, m) => s + m.rainMm, 0),
         filledDays: months.reduce((s, m) => s + m.filledDays, 0),
         // Costs in different currencies are not added up.
-        cost: costed.length === months.length && currencies.size === 1 ? Math.round(costed.reduce((s, m) => s + m.cost!.total, 0) * 100) / 100 : null,
+        cost:
+          costed.length === months.length && currencies.size === 1
+            ? Math.round(costed.reduce((s, m) => s + m.cost!.total, 0) * 100) / 100
+            : null,
         currency: currencies.size === 1 ? [...currencies][0]! : null,
       },
       indoor: indoor ?? null,
-      formula: 'Per hydrozone and day: max(0, ETo (in) × PF × area (ft²) × 0.623377 ÷ IE − effective rain (in) × area (ft²) × 0.623377 ÷ IE), summed by month',
+      formula:
+        'Per hydrozone and day: max(0, ETo (in) × PF × area (ft²) × 0.623377 ÷ IE − effective rain (in) × area (ft²) × 0.623377 ÷ IE), summed by month',
       sources: [
         'Budget formula: California MWELO (2015) Appendix B form ETo × PF × area × conversion ÷ IE, with 0.623377 = 144/231 gal per inch per ft² (exact; the ordinance prints 0.62).',
         'Default irrigation efficiencies: MWELO App. B note c (0.81 drip, 0.75 overhead spray); others as noted on each hydrozone.',
-        'Missing days are filled from the station\'s monthly normals (total ÷ days in the month) and counted as filled days.',
+        "Missing days are filled from the station's monthly normals (total ÷ days in the month) and counted as filled days.",
       ],
     };
   }
 
-  async compliance(principal: Principal, siteId: number, year: number, projectType: MweloProjectType | undefined, effectivePrecipitation: boolean): Promise<ComplianceDto> {
+  async compliance(
+    principal: Principal,
+    siteId: number,
+    year: number,
+    projectType: MweloProjectType | undefined,
+    effectivePrecipitation: boolean,
+  ): Promise<ComplianceDto> {
     const site = await this.sites.requireLevel(principal, siteId, 'read');
     const { zones, station } = await this.inputs(principal, siteId);
     const { days } = await this.weather.forBudget(station, `${year}-01-01`, `${year}-12-31`);
@@ -91,47 +142,111 @@ export class BudgetsService {
     const la = zones.reduce((s, z) => s + z.areaFt2, 0);
     const sla = zones.filter((z) => z.specialLandscapeArea).reduce((s, z) => s + z.areaFt2, 0);
     const maxEtaf = MWELO_MAX_ETAF[type];
-    const mawa = maximumAppliedWaterAllowance({ etoInPerYear: etoIn, landscapeAreaFt2: la, specialLandscapeAreaFt2: sla, etaf: maxEtaf, effectivePrecipitationInPerYear: eppt });
+    const mawa = maximumAppliedWaterAllowance({
+      etoInPerYear: etoIn,
+      landscapeAreaFt2: la,
+      specialLandscapeAreaFt2: sla,
+      etaf: maxEtaf,
+      effectivePrecipitationInPerYear: eppt,
+    });
     const etwuInputs = zones.map(engineZone).map((z) => ({
-      areaFt2: z.areaFt2, plantFactor: effectivePlantFactor(z), irrigationEfficiency: effectiveIrrigationEfficiency(z).efficiency, specialLandscapeArea: z.specialLandscapeArea,
+      areaFt2: z.areaFt2,
+      plantFactor: effectivePlantFactor(z),
+      irrigationEfficiency: effectiveIrrigationEfficiency(z).efficiency,
+      specialLandscapeArea: z.specialLandscapeArea,
     }));
     // MWELO App. B: ETWU = (ETo − Eppt) × 0.62 × (Σ PF × HA ÷ IE + SLA).
     const etwu = estimatedTotalWaterUse(Math.max(0, etoIn - eppt), etwuInputs);
     const verdict = mweloCompliance(etwu, mawa, maxEtaf);
     return {
-      siteId, year, projectType: type,
-      projectTypeSource: projectType ? 'chosen in the request' : `from the site's kind (${site.kind === 'hoa-common-area' ? 'HOA common areas count as residential' : 'non-HOA sites count as non-residential'})`,
-      etoIn, rainIn, effectivePrecipitationIn: eppt, filledDays: days.filter((d) => d.filled).length,
-      landscapeAreaFt2: la, specialLandscapeAreaFt2: sla, maxEtaf,
-      mawaGallons: mawa.gallons, mawaFormula: mawa.formula,
-      etwuGallons: etwu.gallons, sitewideEtaf: etwu.sitewideEtaf, regularAreaEtaf: etwu.regularAreaEtaf,
-      zones: zones.map((z, i) => ({ zoneId: z.id, zoneName: z.name, areaFt2: z.areaFt2, etaf: etwu.zones[i]!.etaf, gallons: etwu.zones[i]!.gallons, specialLandscapeArea: z.specialLandscapeArea })),
-      complies: verdict.complies, reasons: verdict.reasons,
+      siteId,
+      year,
+      projectType: type,
+      projectTypeSource: projectType
+        ? 'chosen in the request'
+        : `from the site's kind (${site.kind === 'hoa-common-area' ? 'HOA common areas count as residential' : 'non-HOA sites count as non-residential'})`,
+      etoIn,
+      rainIn,
+      effectivePrecipitationIn: eppt,
+      filledDays: days.filter((d) => d.filled).length,
+      landscapeAreaFt2: la,
+      specialLandscapeAreaFt2: sla,
+      maxEtaf,
+      mawaGallons: mawa.gallons,
+      mawaFormula: mawa.formula,
+      etwuGallons: etwu.gallons,
+      sitewideEtaf: etwu.sitewideEtaf,
+      regularAreaEtaf: etwu.regularAreaEtaf,
+      zones: zones.map((z, i) => ({
+        zoneId: z.id,
+        zoneName: z.name,
+        areaFt2: z.areaFt2,
+        etaf: etwu.zones[i]!.etaf,
+        gallons: etwu.zones[i]!.gallons,
+        specialLandscapeArea: z.specialLandscapeArea,
+      })),
+      complies: verdict.complies,
+      reasons: verdict.reasons,
       steps: [
         { label: 'Annual ETo', formula: `Σ daily ETo for ${year} ÷ 25.4`, value: etoIn, unit: 'in' },
-        { label: 'Effective precipitation (Eppt)', formula: effectivePrecipitation ? '25 % of annual rain (where the local agency allows it)' : 'not counted', value: eppt, unit: 'in' },
+        {
+          label: 'Effective precipitation (Eppt)',
+          formula: effectivePrecipitation ? '25 % of annual rain (where the local agency allows it)' : 'not counted',
+          value: eppt,
+          unit: 'in',
+        },
         { label: 'Landscape area (LA)', formula: 'Σ hydrozone areas', value: la, unit: 'ft²' },
-        { label: 'Special landscape area (SLA)', formula: 'Σ areas flagged as special landscape', value: sla, unit: 'ft²' },
-        { label: 'MAWA', formula: `(${etoIn.toFixed(2)} − ${eppt.toFixed(2)}) × 0.62 × [${maxEtaf} × ${Math.round(la)} + (1 − ${maxEtaf}) × ${Math.round(sla)}] (MWELO App. B)`, value: mawa.gallons, unit: 'gal/yr' },
-        { label: 'ETWU', formula: '(ETo − Eppt) × 0.62 × Σ (PF ÷ IE × area), SLA at ETAF 1.0 (MWELO App. B)', value: etwu.gallons, unit: 'gal/yr' },
+        {
+          label: 'Special landscape area (SLA)',
+          formula: 'Σ areas flagged as special landscape',
+          value: sla,
+          unit: 'ft²',
+        },
+        {
+          label: 'MAWA',
+          formula: `(${etoIn.toFixed(2)} − ${eppt.toFixed(2)}) × 0.62 × [${maxEtaf} × ${Math.round(la)} + (1 − ${maxEtaf}) × ${Math.round(sla)}] (MWELO App. B)`,
+          value: mawa.gallons,
+          unit: 'gal/yr',
+        },
+        {
+          label: 'ETWU',
+          formula: '(ETo − Eppt) × 0.62 × Σ (PF ÷ IE × area), SLA at ETAF 1.0 (MWELO App. B)',
+          value: etwu.gallons,
+          unit: 'gal/yr',
+        },
       ],
     };
   }
 
-  async advice(principal: Principal, siteId: number, zoneId: number, month: string, daysPerWeek: number): Promise<RunTimeAdviceDto> {
+  async advice(
+    principal: Principal,
+    siteId: number,
+    zoneId: number,
+    month: string,
+    daysPerWeek: number,
+  ): Promise<RunTimeAdviceDto> {
     await this.sites.requireLevel(principal, siteId, 'read');
     const zone = await this.zones.load(siteId, zoneId);
     const station = await this.stations.stationOfSite(principal, siteId);
-    if (!station) throw AppError.invalid('weatherStation', 'Link the site to a weather station first; run times follow the budget.');
+    if (!station)
+      throw AppError.invalid(
+        'weatherStation',
+        'Link the site to a weather station first; run times follow the budget.',
+      );
     const { days } = await this.weather.forBudget(station, `${month}-01`, lastDayOf(month));
     return runTimeAdvice(zone, days, month, daysPerWeek);
   }
 
   private async inputs(principal: Principal, siteId: number) {
     const zones = await this.zones.allOfSite(siteId);
-    if (zones.length === 0) throw AppError.invalid('hydrozones', 'This site has no hydrozones yet; add at least one to compute a budget.');
+    if (zones.length === 0)
+      throw AppError.invalid('hydrozones', 'This site has no hydrozones yet; add at least one to compute a budget.');
     const station = await this.stations.stationOfSite(principal, siteId);
-    if (!station) throw AppError.invalid('weatherStation', 'This site is not linked to a weather station; link one to compute a budget.');
+    if (!station)
+      throw AppError.invalid(
+        'weatherStation',
+        'This site is not linked to a weather station; link one to compute a budget.',
+      );
     return { zones, station };
   }
 }

@@ -15,7 +15,9 @@ export function healthRouter(db: DataSource, version: string): Router {
       database = { status: 'down', error: (err as Error).message };
     }
     const ok = database.status === 'up';
-    res.status(ok ? 200 : 503).json({ status: ok ? 'ok' : 'degraded', version, time: new Date().toISOString(), database });
+    res
+      .status(ok ? 200 : 503)
+      .json({ status: ok ? 'ok' : 'degraded', version, time: new Date().toISOString(), database });
   });
   return router;
 }

@@ -1,5 +1,19 @@
-import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
-import { IRRIGATION_METHODS, PLANT_WATER_USE_CATEGORIES, type IrrigationMethod, type PlantWaterUseCategory } from '@shared/budgets/hydrozone';
+import {
+  Column,
+  CreateDateColumn,
+  Entity,
+  Index,
+  JoinColumn,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  UpdateDateColumn,
+} from 'typeorm';
+import {
+  IRRIGATION_METHODS,
+  PLANT_WATER_USE_CATEGORIES,
+  type IrrigationMethod,
+  type PlantWaterUseCategory,
+} from '@shared/budgets/hydrozone';
 import { SPECIAL_LANDSCAPE_KINDS, type SpecialLandscapeKind } from '@shared/hydrozones/hydrozone-dto';
 import { SiteEntity } from '../../sites/data/site.entity';
 

@@ -26,12 +26,20 @@ export interface HydrozoneRecord extends HydrozoneFields {
   updatedAt: Date;
 }
 
-const SORT_COLUMNS: Record<HydrozoneSort, string> = { name: 'h.name', areaFt2: 'h.area_ft2', irrigationMethod: 'h.irrigation_method', updatedAt: 'h.updated_at' };
+const SORT_COLUMNS: Record<HydrozoneSort, string> = {
+  name: 'h.name',
+  areaFt2: 'h.area_ft2',
+  irrigationMethod: 'h.irrigation_method',
+  updatedAt: 'h.updated_at',
+};
 
 export class HydrozonesRepository {
   constructor(private readonly db: DataSource) {}
 
-  async list(siteId: number, f: { page: number; pageSize: number; sort: HydrozoneSort; dir: 'asc' | 'desc'; q?: string }): Promise<{ rows: HydrozoneRecord[]; total: number }> {
+  async list(
+    siteId: number,
+    f: { page: number; pageSize: number; sort: HydrozoneSort; dir: 'asc' | 'desc'; q?: string },
+  ): Promise<{ rows: HydrozoneRecord[]; total: number }> {
     const qb = this.db.getRepository(HydrozoneEntity).createQueryBuilder('h').where('h.site_id = :siteId', { siteId });
     if (f.q) qb.andWhere('h.name LIKE :q', { q: `%${escapeLike(f.q)}%` });
     const [rows, total] = await qb
@@ -44,7 +52,9 @@ export class HydrozonesRepository {
   }
 
   async all(siteId: number): Promise<HydrozoneRecord[]> {
-    return (await this.db.getRepository(HydrozoneEntity).find({ where: { siteId }, order: { name: 'ASC', id: 'ASC' } })).map(toRecord);
+    return (
+      await this.db.getRepository(HydrozoneEntity).find({ where: { siteId }, order: { name: 'ASC', id: 'ASC' } })
+    ).map(toRecord);
   }
 
   async find(siteId: number, id: number): Promise<HydrozoneRecord | null> {
@@ -53,7 +63,10 @@ export class HydrozonesRepository {
   }
 
   async nameTaken(siteId: number, name: string, exceptId?: number): Promise<boolean> {
-    const qb = this.db.getRepository(HydrozoneEntity).createQueryBuilder('h').where('h.site_id = :siteId AND h.name = :name', { siteId, name });
+    const qb = this.db
+      .getRepository(HydrozoneEntity)
+      .createQueryBuilder('h')
+      .where('h.site_id = :siteId AND h.name = :name', { siteId, name });
     if (exceptId) qb.andWhere('h.id <> :exceptId', { exceptId });
     return (await qb.getCount()) > 0;
   }
@@ -73,9 +86,21 @@ export class HydrozonesRepository {
 
 function toRecord(h: HydrozoneEntity): HydrozoneRecord {
   return {
-    id: h.id, siteId: h.siteId, name: h.name, areaFt2: h.areaFt2, plantWaterUse: h.plantWaterUse, plantFactor: h.plantFactor,
-    irrigationMethod: h.irrigationMethod, efficiencyOverride: h.efficiencyOverride, specialLandscapeArea: Boolean(h.specialLandscapeArea),
-    specialLandscapeKind: h.specialLandscapeKind, designFlowGpm: h.designFlowGpm, emitterCount: h.emitterCount, emitterGph: h.emitterGph,
-    soilIntakeInPerHour: h.soilIntakeInPerHour, notes: h.notes, updatedAt: h.updatedAt,
+    id: h.id,
+    siteId: h.siteId,
+    name: h.name,
+    areaFt2: h.areaFt2,
+    plantWaterUse: h.plantWaterUse,
+    plantFactor: h.plantFactor,
+    irrigationMethod: h.irrigationMethod,
+    efficiencyOverride: h.efficiencyOverride,
+    specialLandscapeArea: Boolean(h.specialLandscapeArea),
+    specialLandscapeKind: h.specialLandscapeKind,
+    designFlowGpm: h.designFlowGpm,
+    emitterCount: h.emitterCount,
+    emitterGph: h.emitterGph,
+    soilIntakeInPerHour: h.soilIntakeInPerHour,
+    notes: h.notes,
+    updatedAt: h.updatedAt,
   };
 }

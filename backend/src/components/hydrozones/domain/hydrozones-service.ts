@@ -1,6 +1,11 @@
 import type { DataSource } from 'typeorm';
 import type { Page } from '@shared/api/page';
-import { effectiveIrrigationEfficiency, effectivePlantFactor, validateHydrozone, type Hydrozone } from '@shared/budgets/hydrozone';
+import {
+  effectiveIrrigationEfficiency,
+  effectivePlantFactor,
+  validateHydrozone,
+  type Hydrozone,
+} from '@shared/budgets/hydrozone';
 import type { HydrozoneDto, HydrozoneInput, HydrozoneSort } from '@shared/hydrozones/hydrozone-dto';
 import { convertArea } from '@shared/units/area-depth-units';
 import { AppError } from '../../../platform/app-error';
@@ -18,7 +23,11 @@ export class HydrozonesService {
     private readonly audit: AuditRepository,
   ) {}
 
-  async list(principal: Principal, siteId: number, filter: { page: number; pageSize: number; sort: HydrozoneSort; dir: 'asc' | 'desc'; q?: string }): Promise<Page<HydrozoneDto>> {
+  async list(
+    principal: Principal,
+    siteId: number,
+    filter: { page: number; pageSize: number; sort: HydrozoneSort; dir: 'asc' | 'desc'; q?: string },
+  ): Promise<Page<HydrozoneDto>> {
     await this.sites.requireLevel(principal, siteId, 'read');
     const { rows, total } = await this.zones.list(siteId, filter);
     return { items: rows.map(toDto), total, page: filter.page, pageSize: filter.pageSize };
@@ -47,23 +56,46 @@ export class HydrozonesService {
     await this.assertNameFree(siteId, fields.name);
     const id = await this.db.transaction(async (em) => {
       const zoneId = await this.zones.insert(em, siteId, fields);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'hydrozone', entityId: zoneId, action: 'create', changes: { siteId, ...fields } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'hydrozone',
+        entityId: zoneId,
+        action: 'create',
+        changes: { siteId, ...fields },
+      });
       return zoneId;
     });
     return toDto(await this.load(siteId, id));
   }
 
-  async update(principal: Principal, siteId: number, id: number, patch: Partial<HydrozoneInput>): Promise<HydrozoneDto> {
+  async update(
+    principal: Principal,
+    siteId: number,
+    id: number,
+    patch: Partial<HydrozoneInput>,
+  ): Promise<HydrozoneDto> {
     const site = await this.sites.requireLevel(principal, siteId, 'contribute');
     const before = await this.load(siteId, id);
-    const merged = fieldsOf({ ...inputOf(before), ...patch, ...(patch.area !== undefined ? { areaUnit: patch.areaUnit ?? 'ft2' } : { area: before.areaFt2, areaUnit: 'ft2' }) });
+    const merged = fieldsOf({
+      ...inputOf(before),
+      ...patch,
+      ...(patch.area !== undefined ? { areaUnit: patch.areaUnit ?? 'ft2' } : { area: before.areaFt2, areaUnit: 'ft2' }),
+    });
     checkFields(merged);
     if (merged.name !== before.name) await this.assertNameFree(siteId, merged.name, id);
     const changes = diff(before, merged);
     if (Object.keys(changes).length) {
       await this.db.transaction(async (em) => {
         await this.zones.update(em, id, merged);
-        await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'hydrozone', entityId: id, action: 'update', changes });
+        await this.audit.record(em, {
+          userId: principal.userId,
+          organisationId: site.organisationId,
+          entity: 'hydrozone',
+          entityId: id,
+          action: 'update',
+          changes,
+        });
       });
     }
     return toDto(await this.load(siteId, id));
@@ -76,13 +108,22 @@ export class HydrozonesService {
       await this.zones.delete(em, id);
       // Nothing newer is left to compare with: drop the site's cached monthly budgets outright.
       await em.query('DELETE FROM site_monthly_budget WHERE site_id = ?', [siteId]);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'hydrozone', entityId: id, action: 'delete', changes: { siteId, name: before.name } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'hydrozone',
+        entityId: id,
+        action: 'delete',
+        changes: { siteId, name: before.name },
+      });
     });
   }
 
   private async assertNameFree(siteId: number, name: string, exceptId?: number): Promise<void> {
     if (await this.zones.nameTaken(siteId, name, exceptId)) {
-      throw new AppError('conflict', `A hydrozone named "${name}" already exists on this site.`, [{ field: 'name', message: 'is already used by another hydrozone of this site' }]);
+      throw new AppError('conflict', `A hydrozone named "${name}" already exists on this site.`, [
+        { field: 'name', message: 'is already used by another hydrozone of this site' },
+      ]);
     }
   }
 }
@@ -131,12 +172,23 @@ function checkFields(fields: HydrozoneFields): void {
     message: i.message,
   }));
   if (fields.specialLandscapeArea && !fields.specialLandscapeKind) {
-    details.push({ field: 'specialLandscapeKind', message: 'Say why this is a special landscape area (recycled water, edible plants or recreation turf)' });
+    details.push({
+      field: 'specialLandscapeKind',
+      message: 'Say why this is a special landscape area (recycled water, edible plants or recreation turf)',
+    });
   }
   if ((fields.emitterCount === null) !== (fields.emitterGph === null)) {
-    details.push({ field: fields.emitterCount === null ? 'emitterCount' : 'emitterGph', message: 'Give both the emitter count and the flow per emitter (gph), or neither' });
+    details.push({
+      field: fields.emitterCount === null ? 'emitterCount' : 'emitterGph',
+      message: 'Give both the emitter count and the flow per emitter (gph), or neither',
+    });
   }
-  if (details.length) throw new AppError('validation_failed', `Hydrozone is invalid — ${details.map((d) => `${d.field}: ${d.message}`).join('; ')}`, details);
+  if (details.length)
+    throw new AppError(
+      'validation_failed',
+      `Hydrozone is invalid — ${details.map((d) => `${d.field}: ${d.message}`).join('; ')}`,
+      details,
+    );
 }
 
 function toDto(r: HydrozoneRecord): HydrozoneDto {

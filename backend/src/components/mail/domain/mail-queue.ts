@@ -66,8 +66,17 @@ export class MailQueue {
     const report: DeliveryReport = { sent: 0, failed: 0, retrying: 0 };
     for (const m of claimed) {
       try {
-        await this.mailer.send({ to: m.to, subject: m.subject, text: m.text, html: m.html ?? undefined, messageId: `<mail-${m.id}@rillmark.invalid>` });
-        await repo.update({ id: m.id, claimedBy: claim }, { status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null });
+        await this.mailer.send({
+          to: m.to,
+          subject: m.subject,
+          text: m.text,
+          html: m.html ?? undefined,
+          messageId: `<mail-${m.id}@rillmark.invalid>`,
+        });
+        await repo.update(
+          { id: m.id, claimedBy: claim },
+          { status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null },
+        );
         report.sent++;
       } catch (err) {
         const attempts = m.attempts + 1;
@@ -75,7 +84,14 @@ export class MailQueue {
         const wait = BACKOFF_MINUTES[Math.min(attempts, BACKOFF_MINUTES.length) - 1]! * 60_000;
         await repo.update(
           { id: m.id, claimedBy: claim },
-          { status: giveUp ? 'failed' : 'queued', attempts, nextAttemptAt: new Date(Date.now() + wait), lastError: String((err as Error).message).slice(0, 500), claimedBy: null, claimedUntil: null },
+          {
+            status: giveUp ? 'failed' : 'queued',
+            attempts,
+            nextAttemptAt: new Date(Date.now() + wait),
+            lastError: String((err as Error).message).slice(0, 500),
+            claimedBy: null,
+            claimedUntil: null,
+          },
         );
         if (giveUp) report.failed++;
         else report.retrying++;

@@ -1,4 +1,13 @@
-import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import {
+  Column,
+  CreateDateColumn,
+  Entity,
+  Index,
+  JoinColumn,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  UpdateDateColumn,
+} from 'typeorm';
 import { METER_PURPOSES, WATER_SOURCES, type MeterPurpose, type WaterSource } from '@shared/meters/meter';
 import { VOLUME_UNITS, type VolumeUnit } from '@shared/units/volume-units';
 import { SiteEntity } from '../../sites/data/site.entity';

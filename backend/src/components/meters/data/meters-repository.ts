@@ -34,7 +34,12 @@ export class MetersRepository {
       removedAt: iso(m.removedAt),
       previousRegisters: periods
         .filter((p) => p.meterId === m.id)
-        .map((p) => ({ installedAt: p.installedAt.toISOString(), removedAt: p.removedAt.toISOString(), multiplier: p.multiplier, digits: p.digits })),
+        .map((p) => ({
+          installedAt: p.installedAt.toISOString(),
+          removedAt: p.removedAt.toISOString(),
+          multiplier: p.multiplier,
+          digits: p.digits,
+        })),
     }));
   }
 
@@ -50,7 +55,13 @@ export class MetersRepository {
 
   async insertMeter(em: EntityManager, siteId: number, input: MeterInput): Promise<number> {
     const { previousRegisters, installedAt, removedAt, ...fields } = input;
-    const id = Number((await em.getRepository(MeterEntity).insert({ ...fields, siteId, installedAt: date(installedAt), removedAt: date(removedAt) })).identifiers[0]!['id']);
+    const id = Number(
+      (
+        await em
+          .getRepository(MeterEntity)
+          .insert({ ...fields, siteId, installedAt: date(installedAt), removedAt: date(removedAt) })
+      ).identifiers[0]!['id'],
+    );
     await this.replacePeriods(em, id, previousRegisters);
     return id;
   }
@@ -65,7 +76,10 @@ export class MetersRepository {
   }
 
   async meterHasReadings(meterId: number): Promise<boolean> {
-    const [row] = await this.db.query('SELECT EXISTS(SELECT 1 FROM meter_reading WHERE meter_id = ?) AS r1, EXISTS(SELECT 1 FROM meter_register_read WHERE meter_id = ?) AS r2', [meterId, meterId]);
+    const [row] = await this.db.query(
+      'SELECT EXISTS(SELECT 1 FROM meter_reading WHERE meter_id = ?) AS r1, EXISTS(SELECT 1 FROM meter_register_read WHERE meter_id = ?) AS r2',
+      [meterId, meterId],
+    );
     return Number(row.r1) === 1 || Number(row.r2) === 1;
   }
 
@@ -73,17 +87,29 @@ export class MetersRepository {
     await em.getRepository(MeterEntity).delete({ id: meterId });
   }
 
-  private async replacePeriods(em: EntityManager, meterId: number, periods: MeterInput['previousRegisters']): Promise<void> {
+  private async replacePeriods(
+    em: EntityManager,
+    meterId: number,
+    periods: MeterInput['previousRegisters'],
+  ): Promise<void> {
     await em.getRepository(MeterRegisterPeriodEntity).delete({ meterId });
     if (periods.length) {
       await em.getRepository(MeterRegisterPeriodEntity).insert(
-        periods.map((p) => ({ meterId, installedAt: new Date(p.installedAt), removedAt: new Date(p.removedAt), multiplier: p.multiplier, digits: p.digits })),
+        periods.map((p) => ({
+          meterId,
+          installedAt: new Date(p.installedAt),
+          removedAt: new Date(p.removedAt),
+          multiplier: p.multiplier,
+          digits: p.digits,
+        })),
       );
     }
   }
 
   async controllers(siteId: number): Promise<ControllerDto[]> {
-    const controllers = await this.db.getRepository(ControllerEntity).find({ where: { siteId }, order: { ref: 'ASC' } });
+    const controllers = await this.db
+      .getRepository(ControllerEntity)
+      .find({ where: { siteId }, order: { ref: 'ASC' } });
     if (controllers.length === 0) return [];
     const zones = await this.db
       .getRepository(ZoneEntity)
@@ -91,7 +117,13 @@ export class MetersRepository {
       .where('z.controller_id IN (:...ids)', { ids: controllers.map((c) => c.id) })
       .orderBy('z.station', 'ASC')
       .getMany();
-    return controllers.map((c) => ({ id: c.id, siteId: c.siteId, ref: c.ref, name: c.name, zones: zones.filter((z) => z.controllerId === c.id).map(toZoneDto) }));
+    return controllers.map((c) => ({
+      id: c.id,
+      siteId: c.siteId,
+      ref: c.ref,
+      name: c.name,
+      zones: zones.filter((z) => z.controllerId === c.id).map(toZoneDto),
+    }));
   }
 
   async controllerSite(controllerId: number): Promise<number | null> {
@@ -101,7 +133,10 @@ export class MetersRepository {
   /** Which of these hydrozone ids belong to the site (a zone may only link to its own site's hydrozones). */
   async hydrozonesOfSite(siteId: number, hydrozoneIds: number[]): Promise<Set<number>> {
     if (!hydrozoneIds.length) return new Set();
-    const rows: { id: number }[] = await this.db.query('SELECT id FROM hydrozone WHERE site_id = ? AND id IN (?)', [siteId, hydrozoneIds]);
+    const rows: { id: number }[] = await this.db.query('SELECT id FROM hydrozone WHERE site_id = ? AND id IN (?)', [
+      siteId,
+      hydrozoneIds,
+    ]);
     return new Set(rows.map((r) => Number(r.id)));
   }
 

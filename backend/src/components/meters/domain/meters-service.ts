@@ -25,19 +25,39 @@ export class MetersService {
     if (await this.repo.refTaken('meter', siteId, input.ref)) throw refTaken('meter', input.ref);
     const id = await this.db.transaction(async (em) => {
       const meterId = await this.repo.insertMeter(em, siteId, input);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'meter', entityId: meterId, action: 'create', changes: input });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'meter',
+        entityId: meterId,
+        action: 'create',
+        changes: input,
+      });
       return meterId;
     });
     return (await this.repo.meters(siteId)).find((m) => m.id === id)!;
   }
 
-  async updateMeter(principal: Principal, siteId: number, meterId: number, patch: Partial<MeterInput>): Promise<MeterDto> {
+  async updateMeter(
+    principal: Principal,
+    siteId: number,
+    meterId: number,
+    patch: Partial<MeterInput>,
+  ): Promise<MeterDto> {
     const site = await this.sites.requireLevel(principal, siteId, 'contribute');
     if ((await this.repo.meterSite(meterId)) !== siteId) throw AppError.notFound('Meter');
-    if (patch.ref !== undefined && (await this.repo.refTaken('meter', siteId, patch.ref, meterId))) throw refTaken('meter', patch.ref);
+    if (patch.ref !== undefined && (await this.repo.refTaken('meter', siteId, patch.ref, meterId)))
+      throw refTaken('meter', patch.ref);
     await this.db.transaction(async (em) => {
       await this.repo.updateMeter(em, meterId, patch);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'meter', entityId: meterId, action: 'update', changes: patch });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'meter',
+        entityId: meterId,
+        action: 'update',
+        changes: patch,
+      });
     });
     return (await this.repo.meters(siteId)).find((m) => m.id === meterId)!;
   }
@@ -46,10 +66,20 @@ export class MetersService {
   async deleteMeter(principal: Principal, siteId: number, meterId: number): Promise<void> {
     const site = await this.sites.requireLevel(principal, siteId, 'contribute');
     if ((await this.repo.meterSite(meterId)) !== siteId) throw AppError.notFound('Meter');
-    if (await this.repo.meterHasReadings(meterId)) throw new AppError('conflict', 'This meter has readings; roll back the uploads that brought them before deleting it.');
+    if (await this.repo.meterHasReadings(meterId))
+      throw new AppError(
+        'conflict',
+        'This meter has readings; roll back the uploads that brought them before deleting it.',
+      );
     await this.db.transaction(async (em) => {
       await this.repo.deleteMeter(em, meterId);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'meter', entityId: meterId, action: 'delete' });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'meter',
+        entityId: meterId,
+        action: 'delete',
+      });
     });
   }
 
@@ -63,16 +93,30 @@ export class MetersService {
     return this.repo.controllers(siteId);
   }
 
-  async createController(principal: Principal, siteId: number, input: { ref: string; name: string; zones?: ZoneInput[] }): Promise<ControllerDto> {
+  async createController(
+    principal: Principal,
+    siteId: number,
+    input: { ref: string; name: string; zones?: ZoneInput[] },
+  ): Promise<ControllerDto> {
     const site = await this.sites.requireLevel(principal, siteId, 'contribute');
     if (await this.repo.refTaken('controller', siteId, input.ref)) throw refTaken('controller', input.ref);
     const stations = (input.zones ?? []).map((z) => z.station);
     if (new Set(stations).size !== stations.length) throw AppError.invalid('zones', 'two zones have the same station');
-    await this.assertOwnHydrozones(siteId, (input.zones ?? []).map((z) => z.hydrozoneId));
+    await this.assertOwnHydrozones(
+      siteId,
+      (input.zones ?? []).map((z) => z.hydrozoneId),
+    );
     const id = await this.db.transaction(async (em) => {
       const controllerId = await this.repo.insertController(em, siteId, input.ref, input.name);
       for (const zone of input.zones ?? []) await this.repo.insertZone(em, controllerId, zone);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'controller', entityId: controllerId, action: 'create', changes: input });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'controller',
+        entityId: controllerId,
+        action: 'create',
+        changes: input,
+      });
       return controllerId;
     });
     return (await this.repo.controllers(siteId)).find((c) => c.id === id)!;
@@ -85,7 +129,14 @@ export class MetersService {
     await this.assertOwnHydrozones(siteId, [input.hydrozoneId]);
     await this.db.transaction(async (em) => {
       const zoneId = await this.repo.insertZone(em, controllerId, input);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'zone', entityId: zoneId, action: 'create', changes: input });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'zone',
+        entityId: zoneId,
+        action: 'create',
+        changes: input,
+      });
     });
     return (await this.repo.controllers(siteId)).find((c) => c.id === controllerId)!;
   }
@@ -98,24 +149,42 @@ export class MetersService {
   }
 
   /** Renames, renumbers or relinks one zone (e.g. to the hydrozone it waters); answers with its controller. */
-  async updateZone(principal: Principal, siteId: number, controllerId: number, zoneId: number, patch: Partial<ZoneInput>): Promise<ControllerDto> {
+  async updateZone(
+    principal: Principal,
+    siteId: number,
+    controllerId: number,
+    zoneId: number,
+    patch: Partial<ZoneInput>,
+  ): Promise<ControllerDto> {
     const site = await this.sites.requireLevel(principal, siteId, 'contribute');
     if ((await this.repo.controllerSite(controllerId)) !== siteId) throw AppError.notFound('Controller');
     if ((await this.repo.zoneController(zoneId)) !== controllerId) throw AppError.notFound('Zone');
-    if (patch.station !== undefined && (await this.repo.stationTaken(controllerId, patch.station, zoneId))) throw stationTaken(patch.station);
+    if (patch.station !== undefined && (await this.repo.stationTaken(controllerId, patch.station, zoneId)))
+      throw stationTaken(patch.station);
     await this.assertOwnHydrozones(siteId, [patch.hydrozoneId]);
     await this.db.transaction(async (em) => {
       await this.repo.updateZone(em, zoneId, patch);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'zone', entityId: zoneId, action: 'update', changes: patch });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'zone',
+        entityId: zoneId,
+        action: 'update',
+        changes: patch,
+      });
     });
     return (await this.repo.controllers(siteId)).find((c) => c.id === controllerId)!;
   }
 }
 
 function stationTaken(station: string): AppError {
-  return new AppError('conflict', `Station "${station}" already exists on this controller.`, [{ field: 'station', message: 'is already used' }]);
+  return new AppError('conflict', `Station "${station}" already exists on this controller.`, [
+    { field: 'station', message: 'is already used' },
+  ]);
 }
 
 function refTaken(what: string, ref: string): AppError {
-  return new AppError('conflict', `A ${what} "${ref}" already exists on this site.`, [{ field: 'ref', message: 'is already used on this site' }]);
+  return new AppError('conflict', `A ${what} "${ref}" already exists on this site.`, [
+    { field: 'ref', message: 'is already used on this site' },
+  ]);
 }

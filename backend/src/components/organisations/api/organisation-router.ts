@@ -5,7 +5,9 @@ import { principalOf } from '../../../platform/auth/guards';
 import { validate } from '../../../platform/validation';
 import type { OrganisationSettingsService } from '../domain/organisation-settings-service';
 
-const settingsBody = z.strictObject({ unitSystem: z.enum(UNIT_SYSTEMS, { message: 'must be us or metric' }) }).partial();
+const settingsBody = z
+  .strictObject({ unitSystem: z.enum(UNIT_SYSTEMS, { message: 'must be us or metric' }) })
+  .partial();
 
 /** /api/organisation */
 export function organisationRouter(settings: OrganisationSettingsService): Router {

@@ -5,7 +5,9 @@ import { OrganisationEntity } from './organisation.entity';
 export class OrganisationsRepository {
   constructor(private readonly db: DataSource) {}
 
-  async settings(organisationId: number): Promise<{ organisationId: number; organisationName: string; unitSystem: UnitSystem } | null> {
+  async settings(
+    organisationId: number,
+  ): Promise<{ organisationId: number; organisationName: string; unitSystem: UnitSystem } | null> {
     const org = await this.db.getRepository(OrganisationEntity).findOneBy({ id: organisationId });
     return org ? { organisationId: org.id, organisationName: org.name, unitSystem: org.unitSystem } : null;
   }

@@ -21,12 +21,20 @@ export class OrganisationSettingsService {
   }
 
   async update(principal: Principal, patch: { unitSystem?: UnitSystem }): Promise<OrganisationSettingsDto> {
-    if (!capabilities(principal.role).manageSettings) throw AppError.forbidden('Only administrators can change organisation settings.');
+    if (!capabilities(principal.role).manageSettings)
+      throw AppError.forbidden('Only administrators can change organisation settings.');
     const before = await this.get(principal);
     if (patch.unitSystem && patch.unitSystem !== before.unitSystem) {
       await this.db.transaction(async (em) => {
         await this.organisations.setUnitSystem(em, principal.organisationId, patch.unitSystem!);
-        await this.audit.record(em, { userId: principal.userId, organisationId: principal.organisationId, entity: 'organisation', entityId: principal.organisationId, action: 'settings', changes: { unitSystem: [before.unitSystem, patch.unitSystem] } });
+        await this.audit.record(em, {
+          userId: principal.userId,
+          organisationId: principal.organisationId,
+          entity: 'organisation',
+          entityId: principal.organisationId,
+          action: 'settings',
+          changes: { unitSystem: [before.unitSystem, patch.unitSystem] },
+        });
       });
     }
     return this.get(principal);

@@ -39,7 +39,13 @@ export function siteDashboardRouter(dashboard: SiteDashboardService): Router {
   });
 
   router.get('/hourly-grid', async (req, res) => {
-    res.json(await dashboard.hourlyGrid(principalOf(req), validate(idParam, req.params).id, validate(gridQuery, req.query, 'Query').month));
+    res.json(
+      await dashboard.hourlyGrid(
+        principalOf(req),
+        validate(idParam, req.params).id,
+        validate(gridQuery, req.query, 'Query').month,
+      ),
+    );
   });
 
   router.get('/monthly', async (req, res) => {

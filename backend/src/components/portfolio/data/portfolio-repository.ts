@@ -49,8 +49,14 @@ const budgetOver = (alias: string) => `
 function useOver(range: { from: string; to: string }): { sql: string; params: string[] } {
   const aligned = range.from.endsWith('-01') && range.to === lastDayOfMonth(range.to.slice(0, 7));
   return aligned
-    ? { sql: 'SELECT site_id, SUM(gallons) AS gal FROM site_monthly_use WHERE month BETWEEN ? AND ? GROUP BY site_id', params: [range.from.slice(0, 7), range.to.slice(0, 7)] }
-    : { sql: 'SELECT site_id, SUM(gallons) AS gal FROM site_daily_use WHERE local_date BETWEEN ? AND ? GROUP BY site_id', params: [range.from, range.to] };
+    ? {
+        sql: 'SELECT site_id, SUM(gallons) AS gal FROM site_monthly_use WHERE month BETWEEN ? AND ? GROUP BY site_id',
+        params: [range.from.slice(0, 7), range.to.slice(0, 7)],
+      }
+    : {
+        sql: 'SELECT site_id, SUM(gallons) AS gal FROM site_daily_use WHERE local_date BETWEEN ? AND ? GROUP BY site_id',
+        params: [range.from, range.to],
+      };
 }
 
 /** Aggregate reads for the dashboard; every site list is scoped to what one organisation may see. */
@@ -60,12 +66,26 @@ export class PortfolioRepository {
   constructor(private readonly db: DataSource) {}
 
   /** Every site the organisation may see (owned or shared), narrowed by the filter, with its sums; the latest reading per meter comes off the primary key. */
-  async aggregates(viewerOrgId: number, f: AggregateFilter, period: { from: string; to: string; months: number }, ytd: { from: string; to: string; months: number }): Promise<SiteAggregate[]> {
+  async aggregates(
+    viewerOrgId: number,
+    f: AggregateFilter,
+    period: { from: string; to: string; months: number },
+    ytd: { from: string; to: string; months: number },
+  ): Promise<SiteAggregate[]> {
     const where: string[] = ['(s.organisation_id = ? OR sh.organisation_id IS NOT NULL)'];
     const whereParams: unknown[] = [viewerOrgId];
-    if (f.q) { where.push('s.name LIKE ?'); whereParams.push(`%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`); }
-    if (f.tag) { where.push('EXISTS (SELECT 1 FROM site_tag t WHERE t.site_id = s.id AND t.tag = ?)'); whereParams.push(f.tag); }
-    if (f.organisationId) { where.push('s.organisation_id = ?'); whereParams.push(f.organisationId); }
+    if (f.q) {
+      where.push('s.name LIKE ?');
+      whereParams.push(`%${f.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
+    }
+    if (f.tag) {
+      where.push('EXISTS (SELECT 1 FROM site_tag t WHERE t.site_id = s.id AND t.tag = ?)');
+      whereParams.push(f.tag);
+    }
+    if (f.organisationId) {
+      where.push('s.organisation_id = ?');
+      whereParams.push(f.organisationId);
+    }
     const periodUse = useOver(period);
     const ytdUse = useOver(ytd);
     const rows: Record<string, unknown>[] = await this.db.query(
@@ -85,9 +105,18 @@ export class PortfolioRepository {
        WHERE ${where.join(' AND ')}`,
       [
         viewerOrgId,
-        ...periodUse.params, ...ytdUse.params,
-        period.months, period.to, period.from, period.from.slice(0, 7), period.to.slice(0, 7),
-        ytd.months, ytd.to, ytd.from, ytd.from.slice(0, 7), ytd.to.slice(0, 7),
+        ...periodUse.params,
+        ...ytdUse.params,
+        period.months,
+        period.to,
+        period.from,
+        period.from.slice(0, 7),
+        period.to.slice(0, 7),
+        ytd.months,
+        ytd.to,
+        ytd.from,
+        ytd.from.slice(0, 7),
+        ytd.to.slice(0, 7),
         ...whereParams,
       ],
     );
@@ -138,7 +167,20 @@ export class PortfolioRepository {
       `INSERT INTO site_monthly_budget (site_id, month, gallons, cost, currency, eto_mm, rain_mm, filled_days, problem, computed_at) VALUES ?
        ON DUPLICATE KEY UPDATE gallons = VALUES(gallons), cost = VALUES(cost), currency = VALUES(currency), eto_mm = VALUES(eto_mm),
          rain_mm = VALUES(rain_mm), filled_days = VALUES(filled_days), problem = VALUES(problem), computed_at = VALUES(computed_at)`,
-      [rows.map((r) => [r.siteId, r.month, r.gallons, r.cost, r.currency, r.etoMm, r.rainMm, r.filledDays, r.problem?.slice(0, 300) ?? null, new Date()])],
+      [
+        rows.map((r) => [
+          r.siteId,
+          r.month,
+          r.gallons,
+          r.cost,
+          r.currency,
+          r.etoMm,
+          r.rainMm,
+          r.filledDays,
+          r.problem?.slice(0, 300) ?? null,
+          new Date(),
+        ]),
+      ],
     );
   }
 
@@ -150,10 +192,15 @@ export class PortfolioRepository {
       [siteIds, fromMonth, toMonth],
     );
     return rows.map((r) => ({
-      siteId: Number(r['siteId']), month: String(r['month']),
-      gallons: r['gallons'] === null ? null : Number(r['gallons']), cost: r['cost'] === null ? null : Number(r['cost']),
-      currency: (r['currency'] as string | null) ?? null, etoMm: r['etoMm'] === null ? null : Number(r['etoMm']),
-      rainMm: r['rainMm'] === null ? null : Number(r['rainMm']), filledDays: Number(r['filledDays']), problem: (r['problem'] as string | null) ?? null,
+      siteId: Number(r['siteId']),
+      month: String(r['month']),
+      gallons: r['gallons'] === null ? null : Number(r['gallons']),
+      cost: r['cost'] === null ? null : Number(r['cost']),
+      currency: (r['currency'] as string | null) ?? null,
+      etoMm: r['etoMm'] === null ? null : Number(r['etoMm']),
+      rainMm: r['rainMm'] === null ? null : Number(r['rainMm']),
+      filledDays: Number(r['filledDays']),
+      problem: (r['problem'] as string | null) ?? null,
     }));
   }
 
@@ -173,7 +220,12 @@ export class PortfolioRepository {
     return map;
   }
 
-  async alertMarkers(siteId: number, timeZone: string, from: string, to: string): Promise<{ id: number; date: string; title: string; status: string }[]> {
+  async alertMarkers(
+    siteId: number,
+    timeZone: string,
+    from: string,
+    to: string,
+  ): Promise<{ id: number; date: string; title: string; status: string }[]> {
     const table = await this.alerts();
     if (!table) return [];
     const rows: Record<string, unknown>[] = await this.db.query(
@@ -181,7 +233,12 @@ export class PortfolioRepository {
        FROM alert WHERE site_id = ? HAVING date BETWEEN ? AND ? ORDER BY date LIMIT 500`,
       [timeZone, siteId, from, to],
     );
-    return rows.map((r) => ({ id: Number(r['id']), date: String(r['date']), title: String(r['title']), status: String(r['status']) }));
+    return rows.map((r) => ({
+      id: Number(r['id']),
+      date: String(r['date']),
+      title: String(r['title']),
+      status: String(r['status']),
+    }));
   }
 
   async alertsAvailable(): Promise<boolean> {
@@ -199,7 +256,12 @@ export class PortfolioRepository {
     const dateColumn = ['period_start_utc', 'first_detected_at', 'created_at'].find((c) => names.has(c));
     if (!names.has('site_id') || !dateColumn) return null;
     // Acknowledged alerts are still open work; only resolved ones are closed.
-    this.alertTable = { status: names.has('status'), resolvedAt: names.has('resolved_at'), title: names.has('title') ? 'title' : names.has('kind') ? 'kind' : null, dateColumn };
+    this.alertTable = {
+      status: names.has('status'),
+      resolvedAt: names.has('resolved_at'),
+      title: names.has('title') ? 'title' : names.has('kind') ? 'kind' : null,
+      dateColumn,
+    };
     return this.alertTable;
   }
 }

@@ -24,7 +24,8 @@ export class BudgetCache {
     const stale = await this.repo.staleBudgetSites(siteIds, months, currentMonth);
     const queue = [...stale];
     const worker = async () => {
-      for (let id = queue.shift(); id !== undefined; id = queue.shift()) await this.refresh(principal, id, months[0]!, months[months.length - 1]!);
+      for (let id = queue.shift(); id !== undefined; id = queue.shift())
+        await this.refresh(principal, id, months[0]!, months[months.length - 1]!);
     };
     await Promise.all(Array.from({ length: Math.min(PARALLEL, queue.length) }, worker));
   }
@@ -34,14 +35,31 @@ export class BudgetCache {
     try {
       const budget = await this.budgets.budget(principal, siteId, fromMonth, toMonth, 'none');
       rows = budget.months.map((m) => ({
-        siteId, month: m.month, gallons: m.gallons, cost: m.cost?.total ?? null, currency: m.cost?.currency ?? null,
-        etoMm: m.etoMm, rainMm: m.rainMm, filledDays: m.filledDays, problem: null,
+        siteId,
+        month: m.month,
+        gallons: m.gallons,
+        cost: m.cost?.total ?? null,
+        currency: m.cost?.currency ?? null,
+        etoMm: m.etoMm,
+        rainMm: m.rainMm,
+        filledDays: m.filledDays,
+        problem: null,
       }));
     } catch (error) {
       if (!(error instanceof AppError)) throw error;
       if (error.code === 'not_found' || error.code === 'forbidden') throw error;
       logger.debug('no budget for site', { siteId, reason: error.message });
-      rows = monthsBetween(fromMonth, toMonth).map((month) => ({ siteId, month, gallons: null, cost: null, currency: null, etoMm: null, rainMm: null, filledDays: 0, problem: error.message }));
+      rows = monthsBetween(fromMonth, toMonth).map((month) => ({
+        siteId,
+        month,
+        gallons: null,
+        cost: null,
+        currency: null,
+        etoMm: null,
+        rainMm: null,
+        filledDays: 0,
+        problem: error.message,
+      }));
     }
     await this.repo.saveBudgetMonths(rows);
   }

@@ -1,5 +1,21 @@
-import { addMonths, dayCount, daysInMonth, lastDayOfMonth, monthsBetween, resolvePeriod, waterYearStart } from '@shared/portfolio/period';
-import { percentOf, RECENT_DATA_DAYS, type PortfolioCondition, type PortfolioDto, type PortfolioPeriod, type PortfolioRow, type PortfolioSort } from '@shared/portfolio/portfolio-dto';
+import {
+  addMonths,
+  dayCount,
+  daysInMonth,
+  lastDayOfMonth,
+  monthsBetween,
+  resolvePeriod,
+  waterYearStart,
+} from '@shared/portfolio/period';
+import {
+  percentOf,
+  RECENT_DATA_DAYS,
+  type PortfolioCondition,
+  type PortfolioDto,
+  type PortfolioPeriod,
+  type PortfolioRow,
+  type PortfolioSort,
+} from '@shared/portfolio/portfolio-dto';
 import { costOfGap } from '@shared/rates/water-cost';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
@@ -49,21 +65,38 @@ export class PortfolioService {
   async portfolio(principal: Principal, query: PortfolioQuery, now = new Date()): Promise<PortfolioDto> {
     const period = resolvePeriod(query.period, now.toISOString().slice(0, 10), query.from, query.to);
     if (period.to < period.from) throw AppError.invalid('to', `${period.to} is before ${period.from}`);
-    if (dayCount(period.from, period.to) > MAX_CUSTOM_DAYS) throw AppError.invalid('to', `a period is at most ${MAX_CUSTOM_DAYS} days`);
+    if (dayCount(period.from, period.to) > MAX_CUSTOM_DAYS)
+      throw AppError.invalid('to', `a period is at most ${MAX_CUSTOM_DAYS} days`);
     // Year to date: from the start of the water year the period ends in, to the period's end.
     const ytd = { from: waterYearStart(period.to), to: period.to };
     const periodMonths = monthsBetween(period.from, period.to);
     const ytdMonths = monthsBetween(ytd.from, ytd.to);
 
     const filter = { q: query.q, tag: query.tag, organisationId: query.organisationId };
-    const load = () => this.repo.aggregates(principal.organisationId, filter, { ...period, months: periodMonths.length }, { ...ytd, months: ytdMonths.length });
+    const load = () =>
+      this.repo.aggregates(
+        principal.organisationId,
+        filter,
+        { ...period, months: periodMonths.length },
+        { ...ytd, months: ytdMonths.length },
+      );
     const key = JSON.stringify([principal.organisationId, filter, period.from, period.to]);
     const isOver = (s: SiteAggregate) => s.budgetGallons !== null && s.useGallons > s.budgetGallons;
     const { sites, money } = await this.recent.get(key, async () => {
       let scope = await load();
       const neededMonths = monthsBetween(ytd.from < period.from ? ytd.from : period.from, period.to);
-      if (await this.budgetCacheNeeded(principal, scope.map((s) => s.siteId), neededMonths)) scope = await load();
-      return { sites: scope, money: await this.moneyOverBudget(scope.filter(isOver), period.from, period.to, periodMonths) };
+      if (
+        await this.budgetCacheNeeded(
+          principal,
+          scope.map((s) => s.siteId),
+          neededMonths,
+        )
+      )
+        scope = await load();
+      return {
+        sites: scope,
+        money: await this.moneyOverBudget(scope.filter(isOver), period.from, period.to, periodMonths),
+      };
     });
 
     // Alert counts are not memoised: an alert resolved a moment ago must not still count.
@@ -73,7 +106,13 @@ export class PortfolioService {
     const over = sites.filter(isOver);
 
     const matching = sites.filter((s) =>
-      query.condition === 'over-budget' ? isOver(s) : query.condition === 'no-recent-data' ? isSilent(s) : query.condition === 'open-alerts' ? (alerts.get(s.siteId) ?? 0) > 0 : true,
+      query.condition === 'over-budget'
+        ? isOver(s)
+        : query.condition === 'no-recent-data'
+          ? isSilent(s)
+          : query.condition === 'open-alerts'
+            ? (alerts.get(s.siteId) ?? 0) > 0
+            : true,
     );
     const sorted = sortRows(matching, query.sort, query.dir, alerts);
     const pageRows = sorted.slice(query.page * query.pageSize, (query.page + 1) * query.pageSize);
@@ -86,7 +125,8 @@ export class PortfolioService {
       return new Map(monthly.map((m) => [`${m.siteId} ${m.month}`, m.gallons]));
     });
 
-    const sum = (xs: SiteAggregate[], f: (s: SiteAggregate) => number | null) => xs.reduce((t, s) => t + (f(s) ?? 0), 0);
+    const sum = (xs: SiteAggregate[], f: (s: SiteAggregate) => number | null) =>
+      xs.reduce((t, s) => t + (f(s) ?? 0), 0);
     const budgeted = sites.filter((s) => s.budgetGallons !== null);
     const ytdBudgeted = sites.filter((s) => s.ytdBudgetGallons !== null);
     const periodUse = sum(sites, (s) => s.useGallons);
@@ -98,8 +138,22 @@ export class PortfolioService {
       period,
       yearToDate: ytd,
       headline: {
-        period: { useGallons: periodUse, budgetGallons: periodBudget, percentOfBudget: percentOf(sum(budgeted, (s) => s.useGallons), periodBudget) },
-        yearToDate: { useGallons: ytdUse, budgetGallons: ytdBudget, percentOfBudget: percentOf(sum(ytdBudgeted, (s) => s.ytdUseGallons), ytdBudget) },
+        period: {
+          useGallons: periodUse,
+          budgetGallons: periodBudget,
+          percentOfBudget: percentOf(
+            sum(budgeted, (s) => s.useGallons),
+            periodBudget,
+          ),
+        },
+        yearToDate: {
+          useGallons: ytdUse,
+          budgetGallons: ytdBudget,
+          percentOfBudget: percentOf(
+            sum(ytdBudgeted, (s) => s.ytdUseGallons),
+            ytdBudget,
+          ),
+        },
         overBudgetGallons: sum(over, (s) => s.useGallons - s.budgetGallons!),
         overBudgetCost: money.cost,
         currency: money.currency,
@@ -110,14 +164,22 @@ export class PortfolioService {
       },
       sites: {
         items: pageRows.map((s): PortfolioRow => ({
-          siteId: s.siteId, siteName: s.siteName, organisationName: s.organisationName, timeZone: s.timeZone, tags: s.tags,
-          useGallons: s.useGallons, budgetGallons: s.budgetGallons, percentOfBudget: percentOf(s.useGallons, s.budgetGallons),
+          siteId: s.siteId,
+          siteName: s.siteName,
+          organisationName: s.organisationName,
+          timeZone: s.timeZone,
+          tags: s.tags,
+          useGallons: s.useGallons,
+          budgetGallons: s.budgetGallons,
+          percentOfBudget: percentOf(s.useGallons, s.budgetGallons),
           trend: trendMonths.map((month) => ({ month, gallons: monthlyOf.get(`${s.siteId} ${month}`) ?? 0 })),
           openAlerts: alerts.get(s.siteId) ?? 0,
           lastDataAt: s.lastDataAt?.toISOString() ?? null,
           budgetProblem: s.budgetProblem,
         })),
-        total: matching.length, page: query.page, pageSize: query.pageSize,
+        total: matching.length,
+        page: query.page,
+        pageSize: query.pageSize,
       },
       alertsAvailable: await this.repo.alertsAvailable(),
     };
@@ -131,7 +193,12 @@ export class PortfolioService {
   }
 
   /** Money over budget: per over-budget site and month, the cost of the gap at the rate in force that month. */
-  private async moneyOverBudget(over: SiteAggregate[], from: string, to: string, months: string[]): Promise<{ cost: number | null; currency: string | null }> {
+  private async moneyOverBudget(
+    over: SiteAggregate[],
+    from: string,
+    to: string,
+    months: string[],
+  ): Promise<{ cost: number | null; currency: string | null }> {
     if (!over.length) return { cost: 0, currency: null };
     const ids = over.map((s) => s.siteId);
     const use = await this.dailyUse.monthly(ids, from, to);
@@ -147,12 +214,16 @@ export class PortfolioService {
         if (b?.gallons === null || b?.gallons === undefined) continue;
         // Partial months at the period's edges: the budget share of the days inside the period.
         const monthEnd = lastDayOfMonth(month);
-        const share = dayCount(`${month}-01` < from ? from : `${month}-01`, monthEnd > to ? to : monthEnd) / daysInMonth(month);
+        const share =
+          dayCount(`${month}-01` < from ? from : `${month}-01`, monthEnd > to ? to : monthEnd) / daysInMonth(month);
         const used = use.find((u) => u.siteId === site.siteId && u.month === month)?.gallons ?? 0;
         const budget = b.gallons * share;
         if (used <= budget) continue;
         const schedule = scheduleInForce(schedules, `${month}-01`);
-        if (!schedule) { unpriced = true; continue; }
+        if (!schedule) {
+          unpriced = true;
+          continue;
+        }
         currencies.add(schedule.currency);
         cost += costOfGap(schedule, used, budget).gapCost;
       }
@@ -162,15 +233,26 @@ export class PortfolioService {
   }
 }
 
-function sortRows(rows: SiteAggregate[], sort: PortfolioSort, dir: 'asc' | 'desc', alerts: Map<number, number>): SiteAggregate[] {
+function sortRows(
+  rows: SiteAggregate[],
+  sort: PortfolioSort,
+  dir: 'asc' | 'desc',
+  alerts: Map<number, number>,
+): SiteAggregate[] {
   const key = (s: SiteAggregate): number | string | null => {
     switch (sort) {
-      case 'name': return s.siteName.toLowerCase();
-      case 'useGallons': return s.useGallons;
-      case 'budgetGallons': return s.budgetGallons;
-      case 'percentOfBudget': return percentOf(s.useGallons, s.budgetGallons);
-      case 'openAlerts': return alerts.get(s.siteId) ?? 0;
-      case 'lastDataAt': return s.lastDataAt?.getTime() ?? null;
+      case 'name':
+        return s.siteName.toLowerCase();
+      case 'useGallons':
+        return s.useGallons;
+      case 'budgetGallons':
+        return s.budgetGallons;
+      case 'percentOfBudget':
+        return percentOf(s.useGallons, s.budgetGallons);
+      case 'openAlerts':
+        return alerts.get(s.siteId) ?? 0;
+      case 'lastDataAt':
+        return s.lastDataAt?.getTime() ?? null;
     }
   };
   const sign = dir === 'asc' ? 1 : -1;
@@ -178,7 +260,8 @@ function sortRows(rows: SiteAggregate[], sort: PortfolioSort, dir: 'asc' | 'desc
   const keyed = rows.map((row) => ({ row, key: key(row) }));
   // Sites without a value (no budget, no data) go last in either direction; ties by name, then id.
   keyed.sort((a, b) => {
-    const ka = a.key, kb = b.key;
+    const ka = a.key,
+      kb = b.key;
     if (ka === null && kb !== null) return 1;
     if (kb === null && ka !== null) return -1;
     if (ka !== null && kb !== null && ka !== kb) return (ka < kb ? -1 : 1) * sign;

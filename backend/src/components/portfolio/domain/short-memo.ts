@@ -7,7 +7,10 @@
 export class ShortMemo<T> {
   private readonly entries = new Map<string, { at: number; value: Promise<T> }>();
 
-  constructor(private readonly ttlMs: number, private readonly maxEntries = 500) {}
+  constructor(
+    private readonly ttlMs: number,
+    private readonly maxEntries = 500,
+  ) {}
 
   get(key: string, compute: () => Promise<T>, now = Date.now()): Promise<T> {
     const hit = this.entries.get(key);

@@ -1,6 +1,14 @@
 import { toCsv, type CsvColumn } from '@shared/csv/csv-writer';
 import { dayCount, daysInMonth, lastDayOfMonth, monthsBetween } from '@shared/portfolio/period';
-import { percentOf, type HourlyGridDto, type MonthlyFlag, type MonthlyRow, type OverviewDay, type SiteMonthlyDto, type SiteOverviewDto } from '@shared/portfolio/portfolio-dto';
+import {
+  percentOf,
+  type HourlyGridDto,
+  type MonthlyFlag,
+  type MonthlyRow,
+  type OverviewDay,
+  type SiteMonthlyDto,
+  type SiteOverviewDto,
+} from '@shared/portfolio/portfolio-dto';
 import { costOfVolume } from '@shared/rates/water-cost';
 import { addDays } from '@shared/weather/day-of-year';
 import { AppError } from '../../../platform/app-error';
@@ -31,7 +39,8 @@ export class SiteDashboardService {
   async overview(principal: Principal, siteId: number, from: string, to: string): Promise<SiteOverviewDto> {
     const site = await this.sites.requireLevel(principal, siteId, 'read');
     if (to < from) throw AppError.invalid('to', `${to} is before ${from}`);
-    if (dayCount(from, to) > MAX_OVERVIEW_DAYS) throw AppError.invalid('to', `at most ${MAX_OVERVIEW_DAYS} days at a time`);
+    if (dayCount(from, to) > MAX_OVERVIEW_DAYS)
+      throw AppError.invalid('to', `at most ${MAX_OVERVIEW_DAYS} days at a time`);
     const months = monthsBetween(from, to);
     await this.budgetCache.ensure(principal, [siteId], months);
     const budgets = await this.portfolio.budgetMonths([siteId], months[0]!, months[months.length - 1]!);
@@ -52,13 +61,18 @@ export class SiteDashboardService {
       });
     }
     const useTotal = days.reduce((s, d) => s + (d.useGallons ?? 0), 0);
-    const budgetTotal = days.every((d) => d.budgetGallons !== null) ? days.reduce((s, d) => s + d.budgetGallons!, 0) : null;
+    const budgetTotal = days.every((d) => d.budgetGallons !== null)
+      ? days.reduce((s, d) => s + d.budgetGallons!, 0)
+      : null;
     const alerts = await this.portfolio.alertMarkers(siteId, site.timeZone, from, to);
     return {
       site: { id: site.id, name: site.name, timeZone: site.timeZone, organisationName: site.organisationName },
-      from, to,
+      from,
+      to,
       figures: {
-        useGallons: useTotal, budgetGallons: budgetTotal, percentOfBudget: percentOf(useTotal, budgetTotal),
+        useGallons: useTotal,
+        budgetGallons: budgetTotal,
+        percentOfBudget: percentOf(useTotal, budgetTotal),
         overBudgetGallons: budgetTotal === null ? 0 : Math.max(0, useTotal - budgetTotal),
         lastDataAt: (await this.repo.lastDataAt(siteId))?.toISOString() ?? null,
         openAlerts: alerts.filter((a) => a.status === 'open').length,
@@ -77,12 +91,19 @@ export class SiteDashboardService {
     const last = lastDayOfMonth(month);
     const cells = await this.repo.hourly(siteId, site.timeZone, month, last);
     const days: HourlyGridDto['days'] = [];
-    for (let d = `${month}-01`; d <= last; d = addDays(d, 1)) days.push({ date: d, hours: Array.from({ length: 24 }, () => null) });
+    for (let d = `${month}-01`; d <= last; d = addDays(d, 1))
+      days.push({ date: d, hours: Array.from({ length: 24 }, () => null) });
     for (const c of cells) {
       const day = days[Number(c.date.slice(8)) - 1];
       if (day) day.hours[c.hour] = (day.hours[c.hour] ?? 0) + c.gallons;
     }
-    return { siteId, month, timeZone: site.timeZone, days, maxGallons: cells.reduce((m, c) => Math.max(m, c.gallons), 0) };
+    return {
+      siteId,
+      month,
+      timeZone: site.timeZone,
+      days,
+      maxGallons: cells.reduce((m, c) => Math.max(m, c.gallons), 0),
+    };
   }
 
   async monthly(principal: Principal, siteId: number, fromMonth: string, toMonth: string): Promise<SiteMonthlyDto> {
@@ -107,23 +128,37 @@ export class SiteDashboardService {
       if (budgetGallons === null) flags.push('no-budget');
       if ((b?.filledDays ?? 0) > 0) flags.push('weather-filled');
       return {
-        month, useGallons, budgetGallons,
+        month,
+        useGallons,
+        budgetGallons,
         // A month without readings is unknown, not "0 % used": no variance or percent for it.
         varianceGallons: budgetGallons === null || !u ? null : useGallons - budgetGallons,
         percentOfBudget: u ? percentOf(useGallons, budgetGallons) : null,
-        etoMm: b?.etoMm ?? null, rainMm: b?.rainMm ?? null,
+        etoMm: b?.etoMm ?? null,
+        rainMm: b?.rainMm ?? null,
         // The bill for the metered use, with the budget for budget-based tiers.
         cost: schedule && u ? costOfVolume(schedule, useGallons, budgetGallons ?? undefined).total : null,
         currency: schedule?.currency ?? null,
         flags,
       };
     });
-    return { site: { id: site.id, name: site.name, timeZone: site.timeZone }, from: fromMonth, to: toMonth, months: rows };
+    return {
+      site: { id: site.id, name: site.name, timeZone: site.timeZone },
+      from: fromMonth,
+      to: toMonth,
+      months: rows,
+    };
   }
 
-  async monthlyCsv(principal: Principal, siteId: number, fromMonth: string, toMonth: string): Promise<{ fileName: string; csv: string }> {
+  async monthlyCsv(
+    principal: Principal,
+    siteId: number,
+    fromMonth: string,
+    toMonth: string,
+  ): Promise<{ fileName: string; csv: string }> {
     const table = await this.monthly(principal, siteId, fromMonth, toMonth);
-    const round = (n: number | null, places: number) => (n === null ? null : Math.round(n * 10 ** places) / 10 ** places);
+    const round = (n: number | null, places: number) =>
+      n === null ? null : Math.round(n * 10 ** places) / 10 ** places;
     const columns: CsvColumn<MonthlyRow>[] = [
       { header: 'Site', value: () => table.site.name },
       { header: 'Month', value: (r) => r.month },
@@ -137,13 +172,21 @@ export class SiteDashboardService {
       { header: 'Currency', value: (r) => r.currency },
       { header: 'Flags', value: (r) => r.flags.join(' ') },
     ];
-    const safeName = table.site.name.replace(/[^A-Za-z0-9-]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'site';
+    const safeName =
+      table.site.name
+        .replace(/[^A-Za-z0-9-]+/g, '-')
+        .replace(/^-|-$/g, '')
+        .slice(0, 60) || 'site';
     return { fileName: `${safeName}-monthly-${fromMonth}-to-${toMonth}.csv`, csv: toCsv(columns, table.months) };
   }
 }
 
 /** The month's budget spread over its days in proportion to each day's ETo (evenly when ETo is missing). */
-function dailyBudget(date: string, monthBudget: number | null, weather: Map<string, { etoMm: number | null }>): number | null {
+function dailyBudget(
+  date: string,
+  monthBudget: number | null,
+  weather: Map<string, { etoMm: number | null }>,
+): number | null {
   if (monthBudget === null) return null;
   const month = date.slice(0, 7);
   const n = daysInMonth(month);

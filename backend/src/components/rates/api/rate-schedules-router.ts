@@ -7,16 +7,30 @@ import { idParam, validate } from '../../../platform/validation';
 import { isoDate } from '../../weather/api/weather-stations-router';
 import type { RateSchedulesService } from '../domain/rate-schedules-service';
 
-const price = z.number({ message: 'must be a number' }).min(0, 'must be zero or more').max(10_000, 'must be at most 10,000');
+const price = z
+  .number({ message: 'must be a number' })
+  .min(0, 'must be zero or more')
+  .max(10_000, 'must be at most 10,000');
 const bound = z.number({ message: 'must be a number' }).positive('must be greater than 0').nullable();
-const tiers = <T extends z.ZodRawShape>(shape: T) => z.array(z.strictObject(shape)).min(1, 'needs at least one tier').max(RATE_SCHEDULE_LIMITS.tiersMax, `at most ${RATE_SCHEDULE_LIMITS.tiersMax} tiers`);
+const tiers = <T extends z.ZodRawShape>(shape: T) =>
+  z
+    .array(z.strictObject(shape))
+    .min(1, 'needs at least one tier')
+    .max(RATE_SCHEDULE_LIMITS.tiersMax, `at most ${RATE_SCHEDULE_LIMITS.tiersMax} tiers`);
 const volumeCharge = z.discriminatedUnion('kind', [
   z.strictObject({ kind: z.literal('uniform'), pricePerUnit: price }),
   z.strictObject({ kind: z.literal('tiered'), tiers: tiers({ upToUnits: bound, pricePerUnit: price }) }),
-  z.strictObject({ kind: z.literal('budget-based'), tiers: tiers({ upToPercentOfBudget: bound, pricePerUnit: price }) }),
+  z.strictObject({
+    kind: z.literal('budget-based'),
+    tiers: tiers({ upToPercentOfBudget: bound, pricePerUnit: price }),
+  }),
 ]);
 const fields = {
-  name: z.string().trim().min(1, 'is required').max(RATE_SCHEDULE_LIMITS.nameMax, `must be at most ${RATE_SCHEDULE_LIMITS.nameMax} characters`),
+  name: z
+    .string()
+    .trim()
+    .min(1, 'is required')
+    .max(RATE_SCHEDULE_LIMITS.nameMax, `must be at most ${RATE_SCHEDULE_LIMITS.nameMax} characters`),
   unit: z.enum(BILLING_UNITS, { message: 'must be ccf or kgal' }),
   currency: z.string().regex(RATE_SCHEDULE_LIMITS.currencyPattern, 'must be a three-letter currency code such as USD'),
   fixedChargePerPeriod: price,
@@ -25,7 +39,10 @@ const fields = {
 };
 const createBody = z.strictObject({ ...fields, currency: fields.currency.default('USD') });
 const patchBody = z.strictObject(fields).partial();
-const scheduleParams = z.object({ id: z.coerce.number().int().positive(), scheduleId: z.coerce.number().int().positive() });
+const scheduleParams = z.object({
+  id: z.coerce.number().int().positive(),
+  scheduleId: z.coerce.number().int().positive(),
+});
 
 /** /api/sites/:id/rate-schedules */
 export function rateSchedulesRouter(rates: RateSchedulesService): Router {

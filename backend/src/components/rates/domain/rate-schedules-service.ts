@@ -37,13 +37,25 @@ export class RateSchedulesService {
     await this.assertStartFree(siteId, input.effectiveFrom);
     const id = await this.db.transaction(async (em) => {
       const rid = await this.rates.insert(em, siteId, input);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'rate_schedule', entityId: rid, action: 'create', changes: { siteId, ...input } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'rate_schedule',
+        entityId: rid,
+        action: 'create',
+        changes: { siteId, ...input },
+      });
       return rid;
     });
     return (await this.rates.find(siteId, id))!;
   }
 
-  async update(principal: Principal, siteId: number, id: number, patch: Partial<RateScheduleInput>): Promise<RateScheduleDto> {
+  async update(
+    principal: Principal,
+    siteId: number,
+    id: number,
+    patch: Partial<RateScheduleInput>,
+  ): Promise<RateScheduleDto> {
     const site = await this.sites.requireLevel(principal, siteId, 'contribute');
     const before = await this.load(siteId, id);
     const merged: RateScheduleInput = { ...before, ...patch };
@@ -53,7 +65,14 @@ export class RateSchedulesService {
     if (Object.keys(changes).length) {
       await this.db.transaction(async (em) => {
         await this.rates.update(em, id, merged);
-        await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'rate_schedule', entityId: id, action: 'update', changes });
+        await this.audit.record(em, {
+          userId: principal.userId,
+          organisationId: site.organisationId,
+          entity: 'rate_schedule',
+          entityId: id,
+          action: 'update',
+          changes,
+        });
       });
     }
     return (await this.rates.find(siteId, id))!;
@@ -66,7 +85,14 @@ export class RateSchedulesService {
       await this.rates.delete(em, id);
       // Nothing newer is left to compare with: drop the site's cached monthly budgets outright.
       await em.query('DELETE FROM site_monthly_budget WHERE site_id = ?', [siteId]);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'rate_schedule', entityId: id, action: 'delete', changes: { siteId, name: before.name } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'rate_schedule',
+        entityId: id,
+        action: 'delete',
+        changes: { siteId, name: before.name },
+      });
     });
   }
 
@@ -78,7 +104,9 @@ export class RateSchedulesService {
 
   private async assertStartFree(siteId: number, effectiveFrom: string, exceptId?: number): Promise<void> {
     if (await this.rates.startTaken(siteId, effectiveFrom, exceptId)) {
-      throw new AppError('conflict', `Another rate schedule of this site already starts on ${effectiveFrom}.`, [{ field: 'effectiveFrom', message: 'another schedule starts on this date' }]);
+      throw new AppError('conflict', `Another rate schedule of this site already starts on ${effectiveFrom}.`, [
+        { field: 'effectiveFrom', message: 'another schedule starts on this date' },
+      ]);
     }
   }
 }
@@ -86,13 +114,18 @@ export class RateSchedulesService {
 function check(input: RateScheduleInput): void {
   const problems = validateRateSchedule(input);
   if (problems.length) {
-    throw new AppError('validation_failed', `Rate schedule is invalid — ${problems.join('; ')}`, problems.map((message) => ({ field: 'volumeCharge', message })));
+    throw new AppError(
+      'validation_failed',
+      `Rate schedule is invalid — ${problems.join('; ')}`,
+      problems.map((message) => ({ field: 'volumeCharge', message })),
+    );
   }
 }
 
 /** The schedule in force on `date`: the latest one starting on or before it. */
 export function scheduleInForce(schedules: readonly RateScheduleDto[], date: string): RateScheduleDto | null {
   let found: RateScheduleDto | null = null;
-  for (const s of schedules) if (s.effectiveFrom <= date && (!found || s.effectiveFrom > found.effectiveFrom)) found = s;
+  for (const s of schedules)
+    if (s.effectiveFrom <= date && (!found || s.effectiveFrom > found.effectiveFrom)) found = s;
   return found;
 }

@@ -31,16 +31,25 @@ export class DailyUseRepository {
    * same transaction as the change to the readings (import, replacement, roll back).
    */
   async refresh(em: EntityManager, siteId: number, fromUtc: Date, toUtc: Date): Promise<void> {
-    const [site]: { timeZone: string }[] = await em.query('SELECT time_zone AS timeZone FROM site WHERE id = ?', [siteId]);
+    const [site]: { timeZone: string }[] = await em.query('SELECT time_zone AS timeZone FROM site WHERE id = ?', [
+      siteId,
+    ]);
     if (!site) return;
     const [bounds]: { first: string | null; last: string | null }[] = await em.query(
       `SELECT DATE(CONVERT_TZ(?, '+00:00', ?)) AS first, DATE(CONVERT_TZ(?, '+00:00', ?)) AS last`,
       [fromUtc, site.timeZone, toUtc, site.timeZone],
     );
-    if (!bounds?.first || !bounds.last) throw new Error(`MariaDB cannot convert to time zone ${site.timeZone}; load the time-zone tables (bash ops/db/start.sh)`);
+    if (!bounds?.first || !bounds.last)
+      throw new Error(
+        `MariaDB cannot convert to time zone ${site.timeZone}; load the time-zone tables (bash ops/db/start.sh)`,
+      );
     const first = dateOnly(bounds.first);
     const last = dateOnly(bounds.last);
-    await em.query('DELETE FROM site_daily_use WHERE site_id = ? AND local_date BETWEEN ? AND ?', [siteId, first, last]);
+    await em.query('DELETE FROM site_daily_use WHERE site_id = ? AND local_date BETWEEN ? AND ?', [
+      siteId,
+      first,
+      last,
+    ]);
     // A UTC window one day wider on each side holds every reading of those local days; HAVING trims it.
     await em.query(
       `INSERT INTO site_daily_use (site_id, local_date, gallons, covered_minutes, reading_count)
@@ -95,17 +104,24 @@ export class DailyUseRepository {
   async monthly(siteIds: number[], fromDate: string, toDate: string): Promise<MonthlyUse[]> {
     if (!siteIds.length || toDate < fromDate) return [];
     const firstWhole = fromDate.endsWith('-01') ? fromDate.slice(0, 7) : addMonths(fromDate.slice(0, 7), 1);
-    const lastWhole = toDate === lastDayOfMonth(toDate.slice(0, 7)) ? toDate.slice(0, 7) : addMonths(toDate.slice(0, 7), -1);
+    const lastWhole =
+      toDate === lastDayOfMonth(toDate.slice(0, 7)) ? toDate.slice(0, 7) : addMonths(toDate.slice(0, 7), -1);
     const parts: string[] = [];
     const params: unknown[] = [];
     if (firstWhole <= lastWhole) {
-      parts.push(`SELECT site_id, month, gallons, covered_minutes, days FROM site_monthly_use WHERE site_id IN (?) AND month BETWEEN ? AND ?`);
+      parts.push(
+        `SELECT site_id, month, gallons, covered_minutes, days FROM site_monthly_use WHERE site_id IN (?) AND month BETWEEN ? AND ?`,
+      );
       params.push(siteIds, firstWhole, lastWhole);
     }
     // Days outside the whole months (none when the range is month-aligned).
-    const dayRanges: [string, string][] = firstWhole <= lastWhole
-      ? [[fromDate, `${firstWhole}-01` > fromDate ? addDays(`${firstWhole}-01`, -1) : ''], [lastDayOfMonth(lastWhole) < toDate ? addDays(lastDayOfMonth(lastWhole), 1) : '', toDate]]
-      : [[fromDate, toDate]];
+    const dayRanges: [string, string][] =
+      firstWhole <= lastWhole
+        ? [
+            [fromDate, `${firstWhole}-01` > fromDate ? addDays(`${firstWhole}-01`, -1) : ''],
+            [lastDayOfMonth(lastWhole) < toDate ? addDays(lastDayOfMonth(lastWhole), 1) : '', toDate],
+          ]
+        : [[fromDate, toDate]];
     for (const [from, to] of dayRanges) {
       if (!from || !to || to < from) continue;
       parts.push(`SELECT site_id, DATE_FORMAT(local_date, '%Y-%m') AS month, SUM(gallons) AS gallons, SUM(covered_minutes) AS covered_minutes, COUNT(*) AS days
@@ -129,8 +145,17 @@ export class DailyUseRepository {
 }
 
 /** Recomputes `site_monthly_use` for one site's months from its daily rows (same transaction as the daily refresh). */
-export async function refreshMonths(em: EntityManager | DataSource, siteId: number, fromMonth: string, toMonth: string): Promise<void> {
-  await em.query('DELETE FROM site_monthly_use WHERE site_id = ? AND month BETWEEN ? AND ?', [siteId, fromMonth, toMonth]);
+export async function refreshMonths(
+  em: EntityManager | DataSource,
+  siteId: number,
+  fromMonth: string,
+  toMonth: string,
+): Promise<void> {
+  await em.query('DELETE FROM site_monthly_use WHERE site_id = ? AND month BETWEEN ? AND ?', [
+    siteId,
+    fromMonth,
+    toMonth,
+  ]);
   await em.query(
     `INSERT INTO site_monthly_use (site_id, month, gallons, covered_minutes, days)
      SELECT site_id, DATE_FORMAT(local_date, '%Y-%m') AS m, SUM(gallons), SUM(covered_minutes), COUNT(*)

@@ -22,7 +22,10 @@ const complianceQuery = z.object({
   format: z.enum(['json', 'csv']).default('json'),
 });
 const noticeParams = z.object({ siteId: z.coerce.number().int().positive() });
-const noticeBody = z.strictObject({ month: month.optional(), message: z.string().max(2000, 'must be at most 2,000 characters').optional() });
+const noticeBody = z.strictObject({
+  month: month.optional(),
+  message: z.string().max(2000, 'must be at most 2,000 characters').optional(),
+});
 
 /** /api/reports/compliance (JSON, CSV, PDF) and its notices. */
 export function reportsRouter(compliance: ComplianceService, notices: ComplianceNoticeService): Router {

@@ -27,10 +27,24 @@ export class ComplianceNoticesRepository {
   }
 
   /** False when a notice for the site and month exists already (the unique key decides, so two clicks race safely). */
-  async insert(em: EntityManager, notice: Pick<ComplianceNoticeEntity, 'siteId' | 'month' | 'sentBy' | 'senderOrganisationId' | 'recipients' | 'percentOfBudget' | 'message'>): Promise<boolean> {
+  async insert(
+    em: EntityManager,
+    notice: Pick<
+      ComplianceNoticeEntity,
+      'siteId' | 'month' | 'sentBy' | 'senderOrganisationId' | 'recipients' | 'percentOfBudget' | 'message'
+    >,
+  ): Promise<boolean> {
     const result: { affectedRows: number } = await em.query(
       `INSERT IGNORE INTO compliance_notice (site_id, month, sent_by, sender_organisation_id, recipients, percent_of_budget, message) VALUES (?, ?, ?, ?, ?, ?, ?)`,
-      [notice.siteId, notice.month, notice.sentBy, notice.senderOrganisationId, notice.recipients, notice.percentOfBudget, notice.message],
+      [
+        notice.siteId,
+        notice.month,
+        notice.sentBy,
+        notice.senderOrganisationId,
+        notice.recipients,
+        notice.percentOfBudget,
+        notice.message,
+      ],
     );
     return result.affectedRows === 1;
   }

@@ -31,14 +31,24 @@ export class ComplianceNoticeService {
     private readonly publicUrl: string,
   ) {}
 
-  async send(principal: Principal, siteId: number, input: { month?: string; message?: string }): Promise<ComplianceNoticeDto> {
+  async send(
+    principal: Principal,
+    siteId: number,
+    input: { month?: string; message?: string },
+  ): Promise<ComplianceNoticeDto> {
     this.compliance.requireReportRole(principal);
     const site = await this.sites.requireLevel(principal, siteId, 'read');
     const month = input.month ?? previousMonth(localDate(site.timeZone));
     const existing = await this.notices.find(siteId, month);
-    if (existing) throw new AppError('conflict', `A notice for ${site.name} and ${month} was already sent on ${existing.sentAt.toISOString().slice(0, 10)}.`, [{ field: 'month', message: 'a notice was already sent for this month' }]);
+    if (existing)
+      throw new AppError(
+        'conflict',
+        `A notice for ${site.name} and ${month} was already sent on ${existing.sentAt.toISOString().slice(0, 10)}.`,
+        [{ field: 'month', message: 'a notice was already sent for this month' }],
+      );
     const recipients = await this.notices.recipients(site.organisationId);
-    if (!recipients.length) throw AppError.invalid('siteId', 'the organisation that owns this site has no active manager to notify');
+    if (!recipients.length)
+      throw AppError.invalid('siteId', 'the organisation that owns this site has no active manager to notify');
     const useGal = (await this.dailyUse.monthly([siteId], `${month}-01`, lastDayOf(month)))[0]?.gallons ?? 0;
     let budgetGal: number | null = null;
     try {
@@ -49,17 +59,52 @@ export class ComplianceNoticeService {
     const percent = percentOfBudget(useGal, budgetGal);
     const message = (input.message ?? '').trim();
     const inserted = await this.db.transaction(async (em) => {
-      const fresh = await this.notices.insert(em, { siteId, month, sentBy: principal.userId, senderOrganisationId: principal.organisationId, recipients: recipients.length, percentOfBudget: percent, message });
+      const fresh = await this.notices.insert(em, {
+        siteId,
+        month,
+        sentBy: principal.userId,
+        senderOrganisationId: principal.organisationId,
+        recipients: recipients.length,
+        percentOfBudget: percent,
+        message,
+      });
       if (!fresh) return false;
       for (const r of recipients) {
-        const mail = noticeMail({ to: r, siteName: site.name, siteId, month, useGal, budgetGal, percent, message, sender: principal, publicUrl: this.publicUrl });
+        const mail = noticeMail({
+          to: r,
+          siteName: site.name,
+          siteId,
+          month,
+          useGal,
+          budgetGal,
+          percent,
+          message,
+          sender: principal,
+          publicUrl: this.publicUrl,
+        });
         await this.mailQueue.enqueue(em, mail, `compliance-notice:${siteId}:${month}:${r.userId}`);
       }
       // Logged under the owning organisation, so it shows in the site's own history.
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'site', entityId: siteId, action: 'compliance-notice', changes: { month, recipients: recipients.map((r) => r.email), percentOfBudget: percent, message, senderOrganisationId: principal.organisationId } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'site',
+        entityId: siteId,
+        action: 'compliance-notice',
+        changes: {
+          month,
+          recipients: recipients.map((r) => r.email),
+          percentOfBudget: percent,
+          message,
+          senderOrganisationId: principal.organisationId,
+        },
+      });
       return true;
     });
-    if (!inserted) throw new AppError('conflict', `A notice for ${site.name} and ${month} was already sent.`, [{ field: 'month', message: 'a notice was already sent for this month' }]);
+    if (!inserted)
+      throw new AppError('conflict', `A notice for ${site.name} and ${month} was already sent.`, [
+        { field: 'month', message: 'a notice was already sent for this month' },
+      ]);
     this.mailQueue.kick();
     return { siteId, month, recipients: recipients.length, sentAt: new Date().toISOString() };
   }

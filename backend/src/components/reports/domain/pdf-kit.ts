@@ -14,7 +14,11 @@ const MUTED = '#5b6770';
 export type Pdf = PDFKit.PDFDocument;
 
 export function newPdf(title: string): Pdf {
-  const doc = new PDFDocument({ size: 'LETTER', margin: 50, info: { Title: title, Producer: 'Rillmark', Creator: 'Rillmark' } });
+  const doc = new PDFDocument({
+    size: 'LETTER',
+    margin: 50,
+    info: { Title: title, Producer: 'Rillmark', Creator: 'Rillmark' },
+  });
   doc.registerFont('body', FONT_REGULAR);
   doc.registerFont('bold', FONT_BOLD);
   doc.font('body').fillColor(INK);
@@ -50,7 +54,13 @@ export function muted(doc: Pdf, text: string): void {
 }
 
 /** A plain table; widths in points, numbers right-aligned by the caller passing `align`. */
-export function table(doc: Pdf, headers: string[], rows: string[][], widths: number[], align: ('left' | 'right')[] = []): void {
+export function table(
+  doc: Pdf,
+  headers: string[],
+  rows: string[][],
+  widths: number[],
+  align: ('left' | 'right')[] = [],
+): void {
   const x0 = doc.page.margins.left;
   const drawRow = (cells: string[], bold: boolean) => {
     if (doc.y > doc.page.height - doc.page.margins.bottom - 30) doc.addPage();
@@ -65,7 +75,12 @@ export function table(doc: Pdf, headers: string[], rows: string[][], widths: num
       x += w;
     });
     doc.y = y + height + 3;
-    doc.moveTo(x0, doc.y - 1.5).lineTo(x0 + widths.reduce((s, w) => s + w, 0), doc.y - 1.5).lineWidth(0.3).strokeColor('#c8d0d4').stroke();
+    doc
+      .moveTo(x0, doc.y - 1.5)
+      .lineTo(x0 + widths.reduce((s, w) => s + w, 0), doc.y - 1.5)
+      .lineWidth(0.3)
+      .strokeColor('#c8d0d4')
+      .stroke();
   };
   drawRow(headers, true);
   rows.forEach((r) => drawRow(r, false));
@@ -74,7 +89,12 @@ export function table(doc: Pdf, headers: string[], rows: string[][], widths: num
 }
 
 /** Grouped bars per label (two series), y axis in `unit`, legend under the chart. Vector only. */
-export function barChart(doc: Pdf, labels: string[], series: { name: string; color: string; values: (number | null)[] }[], unit: string): void {
+export function barChart(
+  doc: Pdf,
+  labels: string[],
+  series: { name: string; color: string; values: (number | null)[] }[],
+  unit: string,
+): void {
   const x0 = doc.page.margins.left + 50;
   const width = doc.page.width - doc.page.margins.right - x0;
   const height = 170;
@@ -85,7 +105,12 @@ export function barChart(doc: Pdf, labels: string[], series: { name: string; col
   doc.fontSize(7).fillColor(MUTED);
   for (let i = 0; i <= 4; i++) {
     const y = top + height - (height * i) / 4;
-    doc.moveTo(x0, y).lineTo(x0 + width, y).lineWidth(0.3).strokeColor('#dde3e6').stroke();
+    doc
+      .moveTo(x0, y)
+      .lineTo(x0 + width, y)
+      .lineWidth(0.3)
+      .strokeColor('#dde3e6')
+      .stroke();
     doc.text(`${Math.round((scale * i) / 4).toLocaleString('en-US')}`, x0 - 50, y - 4, { width: 46, align: 'right' });
   }
   doc.text(unit, x0 - 50, top - 12, { width: 60 });
@@ -96,15 +121,23 @@ export function barChart(doc: Pdf, labels: string[], series: { name: string; col
       const v = s.values[i];
       if (v === null || v === undefined || v <= 0) return;
       const h = (height * v) / scale;
-      doc.rect(x0 + i * group + (group - bar * series.length) / 2 + j * bar, top + height - h, bar - 1, h).fill(s.color);
+      doc
+        .rect(x0 + i * group + (group - bar * series.length) / 2 + j * bar, top + height - h, bar - 1, h)
+        .fill(s.color);
     });
-    doc.fillColor(MUTED).fontSize(6.5).text(label, x0 + i * group, top + height + 3, { width: group, align: 'center' });
+    doc
+      .fillColor(MUTED)
+      .fontSize(6.5)
+      .text(label, x0 + i * group, top + height + 3, { width: group, align: 'center' });
   });
   let lx = x0;
   const ly = top + height + 16;
   for (const s of series) {
     doc.rect(lx, ly, 8, 8).fill(s.color);
-    doc.fillColor(INK).fontSize(8).text(s.name, lx + 12, ly, { lineBreak: false });
+    doc
+      .fillColor(INK)
+      .fontSize(8)
+      .text(s.name, lx + 12, ly, { lineBreak: false });
     lx += 24 + doc.widthOfString(s.name);
   }
   doc.x = doc.page.margins.left;
@@ -120,6 +153,9 @@ function niceCeiling(v: number): number {
 export const fmt = {
   gal: (v: number | null) => (v === null ? '—' : `${Math.round(v).toLocaleString('en-US')} gal`),
   pct: (v: number | null, d = 1) => (v === null ? '—' : `${v.toFixed(d)} %`),
-  money: (v: number | null, currency: string | null) => (v === null || currency === null ? '—' : `${v.toLocaleString('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 })} ${currency}`),
+  money: (v: number | null, currency: string | null) =>
+    v === null || currency === null
+      ? '—'
+      : `${v.toLocaleString('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 })} ${currency}`,
   mm: (v: number) => `${v.toFixed(1)} mm`,
 };

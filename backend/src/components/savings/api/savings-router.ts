@@ -32,7 +32,9 @@ export function siteSavingsProjectsRouter(projects: SavingsProjectsService): Rou
   });
   router.post('/', async (req, res) => {
     const { id } = validate(idParam, req.params);
-    res.status(201).json(await projects.create(principalOf(req), id, validate(createBody, req.body, 'Savings project')));
+    res
+      .status(201)
+      .json(await projects.create(principalOf(req), id, validate(createBody, req.body, 'Savings project')));
   });
   return router;
 }

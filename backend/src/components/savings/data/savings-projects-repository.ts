@@ -9,7 +9,9 @@ export class SavingsProjectsRepository {
   constructor(private readonly db: DataSource) {}
 
   ofSite(siteId: number): Promise<SavingsProjectRecord[]> {
-    return this.db.getRepository(SavingsProjectEntity).find({ where: { siteId }, order: { installedOn: 'DESC', id: 'DESC' } });
+    return this.db
+      .getRepository(SavingsProjectEntity)
+      .find({ where: { siteId }, order: { installedOn: 'DESC', id: 'DESC' } });
   }
 
   find(id: number): Promise<SavingsProjectRecord | null> {
@@ -17,7 +19,9 @@ export class SavingsProjectsRepository {
   }
 
   async insert(em: EntityManager, siteId: number, createdBy: number, input: SavingsProjectInput): Promise<number> {
-    const result = await em.getRepository(SavingsProjectEntity).insert({ ...input, changeDescription: input.changeDescription ?? '', siteId, createdBy });
+    const result = await em
+      .getRepository(SavingsProjectEntity)
+      .insert({ ...input, changeDescription: input.changeDescription ?? '', siteId, createdBy });
     return Number(result.identifiers[0]!['id']);
   }
 

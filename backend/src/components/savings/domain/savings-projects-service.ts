@@ -26,7 +26,11 @@ export class SavingsProjectsService {
   }
 
   /** The project and its site, if the user may at least read the site; otherwise 404 as for the site. */
-  async load(principal: Principal, id: number, needed: 'read' | 'contribute' = 'read'): Promise<{ project: SavingsProjectRecord; site: SiteRecord }> {
+  async load(
+    principal: Principal,
+    id: number,
+    needed: 'read' | 'contribute' = 'read',
+  ): Promise<{ project: SavingsProjectRecord; site: SiteRecord }> {
     const project = await this.projects.find(id);
     if (!project) throw AppError.notFound('Savings project');
     const site = await this.sites.requireLevel(principal, project.siteId, needed).catch((error: unknown) => {
@@ -47,7 +51,14 @@ export class SavingsProjectsService {
     checkPeriods(input);
     const id = await this.db.transaction(async (em) => {
       const newId = await this.projects.insert(em, siteId, principal.userId, input);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'savings_project', entityId: newId, action: 'create', changes: { siteId, ...input } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'savings_project',
+        entityId: newId,
+        action: 'create',
+        changes: { siteId, ...input },
+      });
       return newId;
     });
     return this.get(principal, id);
@@ -60,7 +71,14 @@ export class SavingsProjectsService {
     if (Object.keys(changes).length) {
       await this.db.transaction(async (em) => {
         await this.projects.update(em, id, patch);
-        await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'savings_project', entityId: id, action: 'update', changes });
+        await this.audit.record(em, {
+          userId: principal.userId,
+          organisationId: site.organisationId,
+          entity: 'savings_project',
+          entityId: id,
+          action: 'update',
+          changes,
+        });
       });
     }
     return this.get(principal, id);
@@ -70,24 +88,47 @@ export class SavingsProjectsService {
     const { project, site } = await this.load(principal, id, 'contribute');
     await this.db.transaction(async (em) => {
       await this.projects.delete(em, id);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'savings_project', entityId: id, action: 'delete', changes: { title: project.title } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'savings_project',
+        entityId: id,
+        action: 'delete',
+        changes: { title: project.title },
+      });
     });
   }
 }
 
-function checkPeriods(p: Pick<SavingsProjectInput, 'baselineFrom' | 'baselineTo' | 'reportingFrom' | 'reportingTo' | 'installedOn'>): void {
+function checkPeriods(
+  p: Pick<SavingsProjectInput, 'baselineFrom' | 'baselineTo' | 'reportingFrom' | 'reportingTo' | 'installedOn'>,
+): void {
   if (p.baselineTo < p.baselineFrom) throw AppError.invalid('baselineTo', 'is before the baseline start');
   if (p.reportingTo < p.reportingFrom) throw AppError.invalid('reportingTo', 'is before the reporting start');
   // The install month itself is neither: the site was half-and-half.
-  if (p.baselineTo >= p.installedOn.slice(0, 7)) throw AppError.invalid('baselineTo', 'must end before the month of installation');
-  if (p.reportingFrom <= p.installedOn.slice(0, 7)) throw AppError.invalid('reportingFrom', 'must start after the month of installation');
+  if (p.baselineTo >= p.installedOn.slice(0, 7))
+    throw AppError.invalid('baselineTo', 'must end before the month of installation');
+  if (p.reportingFrom <= p.installedOn.slice(0, 7))
+    throw AppError.invalid('reportingFrom', 'must start after the month of installation');
 }
 
 export function toDto(p: SavingsProjectRecord, site: Pick<SiteRecord, 'name'>): SavingsProjectDto {
   return {
-    id: p.id, siteId: p.siteId, siteName: site.name, title: p.title, changeKind: p.changeKind as SavingsChangeKind, changeDescription: p.changeDescription,
-    installedOn: dateOnly(p.installedOn), baselineFrom: p.baselineFrom, baselineTo: p.baselineTo, reportingFrom: p.reportingFrom, reportingTo: p.reportingTo,
-    modelForm: p.modelForm as BaselineModelForm, createdBy: p.createdBy, createdAt: new Date(p.createdAt).toISOString(), updatedAt: new Date(p.updatedAt).toISOString(),
+    id: p.id,
+    siteId: p.siteId,
+    siteName: site.name,
+    title: p.title,
+    changeKind: p.changeKind as SavingsChangeKind,
+    changeDescription: p.changeDescription,
+    installedOn: dateOnly(p.installedOn),
+    baselineFrom: p.baselineFrom,
+    baselineTo: p.baselineTo,
+    reportingFrom: p.reportingFrom,
+    reportingTo: p.reportingTo,
+    modelForm: p.modelForm as BaselineModelForm,
+    createdBy: p.createdBy,
+    createdAt: new Date(p.createdAt).toISOString(),
+    updatedAt: new Date(p.updatedAt).toISOString(),
   };
 }
 

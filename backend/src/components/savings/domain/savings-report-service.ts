@@ -36,19 +36,32 @@ export class SavingsReportService {
     const { project, site } = await this.projects.load(principal, id);
     const dto = toDto(project, site);
     const station = await this.stations.stationOfSite(principal, site.id);
-    if (!station) throw AppError.invalid('weatherStation', 'This site is not linked to a weather station; the baseline is fitted against its ETo and rain.');
+    if (!station)
+      throw AppError.invalid(
+        'weatherStation',
+        'This site is not linked to a weather station; the baseline is fitted against its ETo and rain.',
+      );
     const baselineMonths = await this.months(station, site.id, dto.baselineFrom, dto.baselineTo);
     const reportingMonths = await this.months(station, site.id, dto.reportingFrom, dto.reportingTo);
     const warnings: string[] = [];
     const usable = (months: SavingsMonthDto[], what: string): MeteredPeriod[] => {
       const left = months.filter((m) => m.useGal === null).map((m) => m.month);
-      if (left.length) warnings.push(`${what} months left out because less than ${MIN_METERED_SHARE * 100} % of their days are metered: ${left.join(', ')}.`);
-      return months.filter((m) => m.useGal !== null).map((m) => ({ label: m.month, days: m.days, etoMm: m.etoMm, rainMm: m.rainMm, useGal: m.useGal! }));
+      if (left.length)
+        warnings.push(
+          `${what} months left out because less than ${MIN_METERED_SHARE * 100} % of their days are metered: ${left.join(', ')}.`,
+        );
+      return months
+        .filter((m) => m.useGal !== null)
+        .map((m) => ({ label: m.month, days: m.days, etoMm: m.etoMm, rainMm: m.rainMm, useGal: m.useGal! }));
     };
     const baseline = usable(baselineMonths, 'Baseline');
     const reporting = usable(reportingMonths, 'Reporting');
     const minimum = dto.modelForm.includes('rain') ? 4 : 3;
-    if (baseline.length < minimum) throw AppError.invalid('baseline', `only ${baseline.length} baseline months have metered use; the model needs at least ${minimum}.`);
+    if (baseline.length < minimum)
+      throw AppError.invalid(
+        'baseline',
+        `only ${baseline.length} baseline months have metered use; the model needs at least ${minimum}.`,
+      );
     if (reporting.length === 0) throw AppError.invalid('reporting', 'no reporting month has metered use yet.');
 
     let model;
@@ -63,8 +76,11 @@ export class SavingsReportService {
     const currencies = new Set(inForce.map((s) => s?.currency ?? null));
     // Money only when every reporting month has a schedule in one currency; mixed currencies are not added.
     const priced = inForce.every(Boolean) && currencies.size === 1;
-    const price = priced ? (gal: number, p: { label: string }) => costOfVolume(scheduleInForce(schedules, `${p.label}-01`)!, gal).total : undefined;
-    if (!priced) warnings.push('Savings are not priced: not every reporting month has a rate schedule (in one currency).');
+    const price = priced
+      ? (gal: number, p: { label: string }) => costOfVolume(scheduleInForce(schedules, `${p.label}-01`)!, gal).total
+      : undefined;
+    if (!priced)
+      warnings.push('Savings are not priced: not every reporting month has a rate schedule (in one currency).');
     const savings = calculateSavings(model, reporting, { price });
     const verdict = judgeSavings(model, savings);
     const fitted = new Map(model.periods.map((p) => [p.label, p.fittedGal]));
@@ -75,36 +91,84 @@ export class SavingsReportService {
       station: { id: station.id, name: station.name },
       baselineMonths: baselineMonths.map((m) => ({ ...m, fittedGal: fitted.get(m.month) ?? null })),
       reportingMonths,
-      model: { form: model.form, equation: EQUATIONS[model.form]!, coefficients: model.coefficients, statistics: model.statistics, baselineDays: model.baselineDays },
-      savings: {
-        periods: savings.periods, predictedGal: savings.predictedGal, actualGal: savings.actualGal, savedGal: savings.savedGal,
-        savedPercent: savings.savedPercent, savedMoney: savings.savedMoney, currency: priced ? [...currencies][0]! : null, uncertainty: savings.uncertainty,
+      model: {
+        form: model.form,
+        equation: EQUATIONS[model.form]!,
+        coefficients: model.coefficients,
+        statistics: model.statistics,
+        baselineDays: model.baselineDays,
       },
-      verdict: { canClaimSavings: verdict.canClaimSavings, baselineModelAcceptable: verdict.baselineModelAcceptable, route: verdict.route, checks: verdict.checks, reasons: verdict.reasons, summary: verdict.summary },
+      savings: {
+        periods: savings.periods,
+        predictedGal: savings.predictedGal,
+        actualGal: savings.actualGal,
+        savedGal: savings.savedGal,
+        savedPercent: savings.savedPercent,
+        savedMoney: savings.savedMoney,
+        currency: priced ? [...currencies][0]! : null,
+        uncertainty: savings.uncertainty,
+      },
+      verdict: {
+        canClaimSavings: verdict.canClaimSavings,
+        baselineModelAcceptable: verdict.baselineModelAcceptable,
+        route: verdict.route,
+        checks: verdict.checks,
+        reasons: verdict.reasons,
+        summary: verdict.summary,
+      },
       warnings: [...warnings, ...verdict.warnings],
-      method: methodSentences(dto.baselineFrom, dto.baselineTo, dto.reportingFrom, dto.reportingTo, EQUATIONS[model.form]!, station.name),
+      method: methodSentences(
+        dto.baselineFrom,
+        dto.baselineTo,
+        dto.reportingFrom,
+        dto.reportingTo,
+        EQUATIONS[model.form]!,
+        station.name,
+      ),
     };
   }
 
   /** Calendar months with the station's ETo and rain (gaps filled from normals) and the site's metered use. */
-  private async months(station: Parameters<DailyWeatherService['forBudget']>[0], siteId: number, from: string, to: string): Promise<SavingsMonthDto[]> {
+  private async months(
+    station: Parameters<DailyWeatherService['forBudget']>[0],
+    siteId: number,
+    from: string,
+    to: string,
+  ): Promise<SavingsMonthDto[]> {
     const { days } = await this.weather.forBudget(station, `${from}-01`, lastDayOf(to));
     const use = new Map((await this.dailyUse.monthly([siteId], `${from}-01`, lastDayOf(to))).map((m) => [m.month, m]));
     const byMonth = new Map<string, SavingsMonthDto>();
     for (const d of days) {
       const month = d.date.slice(0, 7);
-      const m = byMonth.get(month) ?? { month, days: 0, etoMm: 0, rainMm: 0, useGal: null, meteredDays: use.get(month)?.days ?? 0 };
+      const m = byMonth.get(month) ?? {
+        month,
+        days: 0,
+        etoMm: 0,
+        rainMm: 0,
+        useGal: null,
+        meteredDays: use.get(month)?.days ?? 0,
+      };
       m.days++;
       m.etoMm += d.etoMm;
       m.rainMm += d.rainMm;
       byMonth.set(month, m);
     }
-    return [...byMonth.values()].map((m) => ({ ...m, useGal: m.meteredDays >= MIN_METERED_SHARE * m.days ? use.get(m.month)!.gallons : null }));
+    return [...byMonth.values()].map((m) => ({
+      ...m,
+      useGal: m.meteredDays >= MIN_METERED_SHARE * m.days ? use.get(m.month)!.gallons : null,
+    }));
   }
 }
 
 /** The method in words a board member can follow; printed on the report and the PDF. */
-export function methodSentences(baselineFrom: string, baselineTo: string, reportingFrom: string, reportingTo: string, equation: string, stationName: string): string[] {
+export function methodSentences(
+  baselineFrom: string,
+  baselineTo: string,
+  reportingFrom: string,
+  reportingTo: string,
+  equation: string,
+  stationName: string,
+): string[] {
   return [
     `We fitted a straight-line model of the site's monthly metered water use against the weather at station "${stationName}" over the baseline months ${baselineFrom} to ${baselineTo}, by least squares: ${equation}.`,
     `We then fed the reporting months' (${reportingFrom} to ${reportingTo}) ETo and rain into that model to predict what the site would have used without the change; savings are that prediction minus the metered use.`,

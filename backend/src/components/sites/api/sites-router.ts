@@ -14,17 +14,31 @@ const siteFields = {
   timeZone: z.string().refine(isTimeZone, 'must be an IANA time zone such as America/Los_Angeles'),
   notes: text(SITE_LIMITS.notesMax),
   tags: z
-    .array(z.string().trim().toLowerCase().max(SITE_LIMITS.tagMax, `must be at most ${SITE_LIMITS.tagMax} characters`).regex(TAG_PATTERN, 'may hold lower-case letters, digits and dashes'))
+    .array(
+      z
+        .string()
+        .trim()
+        .toLowerCase()
+        .max(SITE_LIMITS.tagMax, `must be at most ${SITE_LIMITS.tagMax} characters`)
+        .regex(TAG_PATTERN, 'may hold lower-case letters, digits and dashes'),
+    )
     .max(SITE_LIMITS.tagsMax, `at most ${SITE_LIMITS.tagsMax} tags`)
     .transform((tags) => [...new Set(tags)]),
 };
-const createBody = z.strictObject({ ...siteFields, notes: siteFields.notes.optional(), tags: siteFields.tags.optional() });
+const createBody = z.strictObject({
+  ...siteFields,
+  notes: siteFields.notes.optional(),
+  tags: siteFields.tags.optional(),
+});
 const patchBody = z.strictObject(siteFields).partial();
 const listQuery = pageQuerySchema(SITE_SORTS, 'name').extend({
   tag: z.string().max(SITE_LIMITS.tagMax).optional(),
   kind: z.enum(SITE_KINDS).optional(),
 });
-const shareParams = z.object({ id: z.coerce.number().int().positive(), organisationId: z.coerce.number().int().positive() });
+const shareParams = z.object({
+  id: z.coerce.number().int().positive(),
+  organisationId: z.coerce.number().int().positive(),
+});
 const shareBody = z.strictObject({ access: z.enum(SHARE_ACCESS) });
 
 /** /api/sites */

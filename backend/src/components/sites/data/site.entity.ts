@@ -1,5 +1,13 @@
 import {
-  Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn, UpdateDateColumn,
+  Column,
+  CreateDateColumn,
+  Entity,
+  Index,
+  JoinColumn,
+  ManyToOne,
+  OneToMany,
+  PrimaryGeneratedColumn,
+  UpdateDateColumn,
 } from 'typeorm';
 import type { SiteKind } from '@shared/sites/site';
 import { OrganisationEntity } from '../../organisations/data/organisation.entity';

@@ -95,7 +95,10 @@ export class SitesRepository {
   }
 
   async nameTaken(organisationId: number, name: string, exceptId?: number): Promise<boolean> {
-    const qb = this.db.getRepository(SiteEntity).createQueryBuilder('s').where('s.organisation_id = :organisationId AND s.name = :name', { organisationId, name });
+    const qb = this.db
+      .getRepository(SiteEntity)
+      .createQueryBuilder('s')
+      .where('s.organisation_id = :organisationId AND s.name = :name', { organisationId, name });
     if (exceptId) qb.andWhere('s.id <> :exceptId', { exceptId });
     return (await qb.getCount()) > 0;
   }
@@ -127,13 +130,24 @@ export class SitesRepository {
       .getRepository(SiteShareEntity)
       .createQueryBuilder('sh')
       .innerJoin(OrganisationEntity, 'o', 'o.id = sh.organisation_id')
-      .select(['sh.site_id AS siteId', 'sh.organisation_id AS organisationId', 'o.name AS organisationName', 'o.kind AS organisationKind', 'sh.access AS access'])
+      .select([
+        'sh.site_id AS siteId',
+        'sh.organisation_id AS organisationId',
+        'o.name AS organisationName',
+        'o.kind AS organisationKind',
+        'sh.access AS access',
+      ])
       .where('sh.site_id IN (:...siteIds)', { siteIds })
       .orderBy('o.name', 'ASC')
       .getRawMany();
     for (const r of rows) {
       const list = map.get(Number(r.siteId)) ?? [];
-      list.push({ organisationId: Number(r.organisationId), organisationName: r.organisationName, organisationKind: r.organisationKind as OrganisationKind, access: r.access as ShareAccess });
+      list.push({
+        organisationId: Number(r.organisationId),
+        organisationName: r.organisationName,
+        organisationKind: r.organisationKind as OrganisationKind,
+        access: r.access as ShareAccess,
+      });
       map.set(Number(r.siteId), list);
     }
     return map;
@@ -155,8 +169,16 @@ export class SitesRepository {
 
 function withColumns(qb: SelectQueryBuilder<SiteEntity>): SelectQueryBuilder<SiteEntity> {
   return qb.select([
-    's.id AS id', 's.organisation_id AS organisationId', 'o.name AS organisationName', 's.name AS name', 's.kind AS kind',
-    's.address AS address', 's.time_zone AS timeZone', 's.notes AS notes', 's.created_at AS createdAt', 's.updated_at AS updatedAt',
+    's.id AS id',
+    's.organisation_id AS organisationId',
+    'o.name AS organisationName',
+    's.name AS name',
+    's.kind AS kind',
+    's.address AS address',
+    's.time_zone AS timeZone',
+    's.notes AS notes',
+    's.created_at AS createdAt',
+    's.updated_at AS updatedAt',
     'sh.access AS shareAccess',
     // The tags in the same round trip (this runs behind every site-scoped request, through requireLevel).
     '(SELECT JSON_ARRAYAGG(t.tag ORDER BY t.tag) FROM site_tag t WHERE t.site_id = s.id) AS tagsJson',
@@ -175,7 +197,8 @@ function toRecord(r: Record<string, unknown>, viewer: number): SiteRecord {
     timeZone: String(r['timeZone']),
     notes: String(r['notes'] ?? ''),
     tags: jsonArray(r['tagsJson']),
-    relation: organisationId === viewer ? { kind: 'owner' } : { kind: 'shared', access: r['shareAccess'] as ShareAccess },
+    relation:
+      organisationId === viewer ? { kind: 'owner' } : { kind: 'shared', access: r['shareAccess'] as ShareAccess },
     createdAt: new Date(r['createdAt'] as string),
     updatedAt: new Date(r['updatedAt'] as string),
   };

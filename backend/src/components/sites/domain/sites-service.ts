@@ -21,7 +21,12 @@ export class SitesService {
   async list(principal: Principal, filter: SiteListFilter): Promise<Page<SiteDto>> {
     const { rows, total } = await this.sites.list(principal.organisationId, filter);
     const shares = await this.sites.shares(rows.filter((r) => r.relation.kind === 'owner').map((r) => r.id));
-    return { items: rows.map((r) => this.toDto(principal, r, shares.get(r.id) ?? [])), total, page: filter.page, pageSize: filter.pageSize };
+    return {
+      items: rows.map((r) => this.toDto(principal, r, shares.get(r.id) ?? [])),
+      total,
+      page: filter.page,
+      pageSize: filter.pageSize,
+    };
   }
 
   async get(principal: Principal, siteId: number): Promise<SiteDto> {
@@ -38,16 +43,25 @@ export class SitesService {
   async requireLevel(principal: Principal, siteId: number, needed: SiteLevel): Promise<SiteRecord> {
     const record = await this.load(principal, siteId);
     const level = siteLevel(principal.role, record.relation);
-    if (!atLeast(level, needed)) throw AppError.forbidden(`Your access to this site is "${level}"; this needs "${needed}".`);
+    if (!atLeast(level, needed))
+      throw AppError.forbidden(`Your access to this site is "${level}"; this needs "${needed}".`);
     return record;
   }
 
   async create(principal: Principal, input: SiteInput): Promise<SiteDto> {
-    if (!capabilities(principal.role).createSites) throw AppError.forbidden('Only administrators and managers can create sites.');
+    if (!capabilities(principal.role).createSites)
+      throw AppError.forbidden('Only administrators and managers can create sites.');
     await this.assertNameFree(principal.organisationId, input.name);
     const id = await this.db.transaction(async (em) => {
       const siteId = await this.sites.insert(em, principal.organisationId, fieldsOf(input), input.tags ?? []);
-      await this.audit.record(em, { userId: principal.userId, organisationId: principal.organisationId, entity: 'site', entityId: siteId, action: 'create', changes: input });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: principal.organisationId,
+        entity: 'site',
+        entityId: siteId,
+        action: 'create',
+        changes: input,
+      });
       return siteId;
     });
     return this.get(principal, id);
@@ -55,14 +69,22 @@ export class SitesService {
 
   async update(principal: Principal, siteId: number, patch: Partial<SiteInput>): Promise<SiteDto> {
     const before = await this.requireLevel(principal, siteId, 'edit');
-    if (patch.name !== undefined && patch.name !== before.name) await this.assertNameFree(before.organisationId, patch.name, siteId);
+    if (patch.name !== undefined && patch.name !== before.name)
+      await this.assertNameFree(before.organisationId, patch.name, siteId);
     const { tags, ...fields } = patch;
     const changes = diff({ ...before, tags: before.tags }, { ...fields, tags });
     if (Object.keys(changes).length) {
       await this.db.transaction(async (em) => {
         await this.sites.update(em, siteId, fields);
         if (tags) await this.sites.replaceTags(em, siteId, tags);
-        await this.audit.record(em, { userId: principal.userId, organisationId: before.organisationId, entity: 'site', entityId: siteId, action: 'update', changes });
+        await this.audit.record(em, {
+          userId: principal.userId,
+          organisationId: before.organisationId,
+          entity: 'site',
+          entityId: siteId,
+          action: 'update',
+          changes,
+        });
       });
     }
     return this.get(principal, siteId);
@@ -72,17 +94,33 @@ export class SitesService {
     const before = await this.requireLevel(principal, siteId, 'own');
     await this.db.transaction(async (em) => {
       await this.sites.delete(em, siteId);
-      await this.audit.record(em, { userId: principal.userId, organisationId: before.organisationId, entity: 'site', entityId: siteId, action: 'delete', changes: { name: before.name } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: before.organisationId,
+        entity: 'site',
+        entityId: siteId,
+        action: 'delete',
+        changes: { name: before.name },
+      });
     });
   }
 
   async share(principal: Principal, siteId: number, organisationId: number, access: ShareAccess): Promise<SiteDto> {
     const site = await this.requireLevel(principal, siteId, 'own');
-    if (organisationId === site.organisationId) throw AppError.invalid('organisationId', 'a site cannot be shared with its own organisation');
-    if (!(await this.sites.organisationExists(organisationId))) throw AppError.invalid('organisationId', 'no such organisation');
+    if (organisationId === site.organisationId)
+      throw AppError.invalid('organisationId', 'a site cannot be shared with its own organisation');
+    if (!(await this.sites.organisationExists(organisationId)))
+      throw AppError.invalid('organisationId', 'no such organisation');
     await this.db.transaction(async (em) => {
       await this.sites.upsertShare(em, siteId, organisationId, access);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'site', entityId: siteId, action: 'share', changes: { organisationId, access } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'site',
+        entityId: siteId,
+        action: 'share',
+        changes: { organisationId, access },
+      });
     });
     return this.get(principal, siteId);
   }
@@ -91,7 +129,14 @@ export class SitesService {
     const site = await this.requireLevel(principal, siteId, 'own');
     await this.db.transaction(async (em) => {
       if (!(await this.sites.deleteShare(em, siteId, organisationId))) throw AppError.notFound('Share');
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'site', entityId: siteId, action: 'unshare', changes: { organisationId } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'site',
+        entityId: siteId,
+        action: 'unshare',
+        changes: { organisationId },
+      });
     });
   }
 
@@ -103,7 +148,9 @@ export class SitesService {
 
   private async assertNameFree(organisationId: number, name: string, exceptId?: number): Promise<void> {
     if (await this.sites.nameTaken(organisationId, name, exceptId)) {
-      throw new AppError('conflict', `A site named "${name}" already exists in this organisation.`, [{ field: 'name', message: 'is already used by another site' }]);
+      throw new AppError('conflict', `A site named "${name}" already exists in this organisation.`, [
+        { field: 'name', message: 'is already used by another site' },
+      ]);
     }
   }
 
@@ -127,5 +174,11 @@ export class SitesService {
 }
 
 function fieldsOf(input: SiteInput) {
-  return { name: input.name, kind: input.kind, address: input.address, timeZone: input.timeZone, notes: input.notes ?? '' };
+  return {
+    name: input.name,
+    kind: input.kind,
+    address: input.address,
+    timeZone: input.timeZone,
+    notes: input.notes ?? '',
+  };
 }

@@ -3,7 +3,9 @@ import { MAPPED_FIELDS, UPLOAD_KINDS, type MappedField } from '@shared/ingest/up
 import { VOLUME_UNITS } from '@shared/units/volume-units';
 
 const columnIndex = z.number().int().min(0).max(10_000);
-const columns = z.partialRecord(z.enum(MAPPED_FIELDS), columnIndex).transform((c) => c as Partial<Record<MappedField, number>>);
+const columns = z
+  .partialRecord(z.enum(MAPPED_FIELDS), columnIndex)
+  .transform((c) => c as Partial<Record<MappedField, number>>);
 
 const optionalFields = {
   intervalColumns: z.strictObject({ first: columnIndex, count: z.number().int().min(1).max(200) }).optional(),

@@ -32,15 +32,23 @@ export async function receiveUpload<T>(
   handle: (fields: Record<string, string>, file: Readable, fileName: string) => Promise<T>,
 ): Promise<T> {
   if (!req.is('multipart/form-data')) {
-    throw AppError.invalid('file', 'send the file as multipart/form-data with a part named "file" (curl -F file=@export.csv)');
+    throw AppError.invalid(
+      'file',
+      'send the file as multipart/form-data with a part named "file" (curl -F file=@export.csv)',
+    );
   }
   const length = Number(req.headers['content-length']);
   if (Number.isFinite(length) && length > maxBytes + OVERHEAD) {
     await drain(req, 4 * maxBytes);
-    throw new AppError('payload_too_large', limitMessage('The file', maxBytes), [{ field: 'file', message: 'is over the size limit' }]);
+    throw new AppError('payload_too_large', limitMessage('The file', maxBytes), [
+      { field: 'file', message: 'is over the size limit' },
+    ]);
   }
   return new Promise<T>((resolve, reject) => {
-    const parser = busboy({ headers: req.headers, limits: { fileSize: maxBytes + 1, files: 1, fields: 20, fieldSize: 512 * 1024 } });
+    const parser = busboy({
+      headers: req.headers,
+      limits: { fileSize: maxBytes + 1, files: 1, fields: 20, fieldSize: 512 * 1024 },
+    });
     const fields: Record<string, string> = {};
     let work: Promise<T> | null = null;
     parser.on('field', (name, value) => {
@@ -67,7 +75,13 @@ export async function receiveUpload<T>(
     });
     parser.on('close', () => {
       if (work) work.then(resolve, reject);
-      else reject(AppError.invalid('file', 'the form has no part named "file"; send the CSV as that part, after the other fields'));
+      else
+        reject(
+          AppError.invalid(
+            'file',
+            'the form has no part named "file"; send the CSV as that part, after the other fields',
+          ),
+        );
     });
     parser.on('error', (err: Error) => {
       req.unpipe(parser);

@@ -27,9 +27,15 @@ const uploadFields = z.strictObject({
   overrides: json(overridesSchema).optional(),
   profileId: z.coerce.number().int().positive().optional(),
   kind: z.enum(UPLOAD_KINDS).optional(),
-  replaceConflicts: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  replaceConflicts: z
+    .enum(['true', 'false'])
+    .default('false')
+    .transform((v) => v === 'true'),
   rowErrors: z.enum(ROW_ERROR_POLICIES).default('keep-valid'),
-  clientRef: z.string().regex(/^[A-Za-z0-9_-]{1,40}$/, 'must be 1–40 letters, digits, - or _').optional(),
+  clientRef: z
+    .string()
+    .regex(/^[A-Za-z0-9_-]{1,40}$/, 'must be 1–40 letters, digits, - or _')
+    .optional(),
 });
 const listQuery = z.object({
   page: z.coerce.number().int().min(0).default(0),
@@ -65,13 +71,25 @@ export function uploadsRouter(uploads: UploadsService, maxBytes: number): Router
     const result = await receiveUpload(req, maxBytes, async (fields, file, fileName) => {
       const f = validate(uploadFields, fields, 'Upload');
       const mapping = f.mapping ?? (f.profileId ? await uploads.profileMapping(principal, f.profileId) : undefined);
-      return uploads.ingest(principal, id, { fileName, file, mapping, overrides: f.overrides, kind: f.kind, replaceConflicts: f.replaceConflicts, rowErrors: f.rowErrors, clientRef: f.clientRef, apiKeyId: req.apiKey?.id });
+      return uploads.ingest(principal, id, {
+        fileName,
+        file,
+        mapping,
+        overrides: f.overrides,
+        kind: f.kind,
+        replaceConflicts: f.replaceConflicts,
+        rowErrors: f.rowErrors,
+        clientRef: f.clientRef,
+        apiKeyId: req.apiKey?.id,
+      });
     });
     res.status(result.outcome === 'imported' ? 201 : 200).json(result);
   });
 
   router.get('/sites/:id/uploads', async (req, res) => {
-    res.json(await uploads.list(principalOf(req), validate(idParam, req.params).id, validate(listQuery, req.query, 'Query')));
+    res.json(
+      await uploads.list(principalOf(req), validate(idParam, req.params).id, validate(listQuery, req.query, 'Query')),
+    );
   });
 
   router.get('/uploads/:id', async (req, res) => {
@@ -92,7 +110,8 @@ export function uploadsRouter(uploads: UploadsService, maxBytes: number): Router
     const name = first.upload.fileName.replace(/\.[^.]*$/, '').replace(/[^A-Za-z0-9_-]+/g, '-');
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="${name}-rejected-rows.csv"`);
-    const line = (r: RejectionDto) => [first.upload.fileName, r.row, r.column, r.kind, r.message].map(csvCell).join(',');
+    const line = (r: RejectionDto) =>
+      [first.upload.fileName, r.row, r.column, r.kind, r.message].map(csvCell).join(',');
     res.send(['file,row,column,kind,reason', ...first.items.map(line)].join('\r\n') + '\r\n');
   });
 

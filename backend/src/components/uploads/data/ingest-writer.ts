@@ -9,7 +9,10 @@ const CHUNK_CHARS = 64 * 1024;
 const SOCKET_HIGH = 4 * 1024 * 1024;
 
 interface RawConnection {
-  query(options: { sql: string; values?: unknown[]; infileStreamFactory?: () => NodeJS.ReadableStream }, cb: (err: Error | null, result: unknown) => void): void;
+  query(
+    options: { sql: string; values?: unknown[]; infileStreamFactory?: () => NodeJS.ReadableStream },
+    cb: (err: Error | null, result: unknown) => void,
+  ): void;
   stream: NodeJS.WritableStream & { writableLength: number };
 }
 
@@ -42,7 +45,10 @@ export class IngestWriter {
   private direct = false;
   linesSent = 0;
 
-  constructor(private readonly qr: QueryRunner, private readonly target: IngestTarget) {}
+  constructor(
+    private readonly qr: QueryRunner,
+    private readonly target: IngestTarget,
+  ) {}
 
   private get raw(): RawConnection {
     return (this.qr as unknown as { databaseConnection: RawConnection }).databaseConnection;
@@ -50,7 +56,9 @@ export class IngestWriter {
 
   private rawQuery<T>(sql: string, values: unknown[] = [], infile?: PassThrough): Promise<T> {
     return new Promise((resolve, reject) => {
-      this.raw.query({ sql, values, ...(infile ? { infileStreamFactory: () => infile } : {}) }, (err, result) => (err ? reject(err) : resolve(result as T)));
+      this.raw.query({ sql, values, ...(infile ? { infileStreamFactory: () => infile } : {}) }, (err, result) =>
+        err ? reject(err) : resolve(result as T),
+      );
     });
   }
 
@@ -70,7 +78,9 @@ export class IngestWriter {
     } else {
       await this.qr.query(`DROP TEMPORARY TABLE IF EXISTS ${STAGE}`);
       const columns = t.stageColumns.map(([name, type]) => `\`${name}\` ${type}`).join(', ');
-      await this.qr.query(`CREATE TEMPORARY TABLE ${STAGE} (${columns}, row_no int unsigned NOT NULL, PRIMARY KEY (${t.key.join(', ')})) ENGINE=InnoDB`);
+      await this.qr.query(
+        `CREATE TEMPORARY TABLE ${STAGE} (${columns}, row_no int unsigned NOT NULL, PRIMARY KEY (${t.key.join(', ')})) ENGINE=InnoDB`,
+      );
       const names = [...t.stageColumns.map(([n]) => `\`${n}\``), 'row_no'].join(', ');
       into = `${STAGE} CHARACTER SET utf8mb4 FIELDS TERMINATED BY '\\t' ESCAPED BY '\\\\' LINES TERMINATED BY '\\n' (${names})`;
     }
@@ -137,7 +147,10 @@ export class IngestWriter {
       `SELECT \`${owner}\` AS id, MIN(\`${time}\`) AS first, MAX(\`${time}\`) AS last FROM ${STAGE} GROUP BY \`${owner}\``,
     );
     for (const span of spans) {
-      const [hit] = await this.qr.query(`SELECT 1 AS hit FROM \`${this.target.table}\` WHERE \`${owner}\` = ? AND \`${time}\` BETWEEN ? AND ? LIMIT 1`, [span.id, span.first, span.last]);
+      const [hit] = await this.qr.query(
+        `SELECT 1 AS hit FROM \`${this.target.table}\` WHERE \`${owner}\` = ? AND \`${time}\` BETWEEN ? AND ? LIMIT 1`,
+        [span.id, span.first, span.last],
+      );
       if (hit) return true;
     }
     return false;
@@ -157,7 +170,9 @@ export class IngestWriter {
     // Most uploads bring only new data: when no stored row falls in the file's span for any of its meters/zones,
     // the row-by-row classification below cannot match anything and is skipped.
     if (await this.overlapsStored()) {
-      const [counts] = await this.qr.query(`SELECT COUNT(*) AS matched, COALESCE(SUM(${same}), 0) AS same FROM ${STAGE} s JOIN \`${t.table}\` t ON ${on}`);
+      const [counts] = await this.qr.query(
+        `SELECT COUNT(*) AS matched, COALESCE(SUM(${same}), 0) AS same FROM ${STAGE} s JOIN \`${t.table}\` t ON ${on}`,
+      );
       matched = Number(counts.matched);
       duplicate = Number(counts.same);
     }
@@ -189,13 +204,19 @@ export class IngestWriter {
           [uploadId],
         );
         const set = [...t.copied.map((c) => `t.\`${c}\` = s.\`${c}\``), 't.upload_id = ?'].join(', ');
-        const result = await this.qr.query(`UPDATE \`${t.table}\` t JOIN ${STAGE} s ON ${on} SET ${set} WHERE NOT (${same})`, [uploadId]);
+        const result = await this.qr.query(
+          `UPDATE \`${t.table}\` t JOIN ${STAGE} s ON ${on} SET ${set} WHERE NOT (${same})`,
+          [uploadId],
+        );
         replaced = affected(result);
       }
     }
     const columns = [...t.key, ...t.copied].map((c) => `\`${c}\``).join(', ');
     // IGNORE skips the keys classified above; the stage's types equal the target's, so nothing else is ignored.
-    const inserted = await this.qr.query(`INSERT IGNORE INTO \`${t.table}\` (${columns}, upload_id) SELECT ${columns}, ? FROM ${STAGE}`, [uploadId]);
+    const inserted = await this.qr.query(
+      `INSERT IGNORE INTO \`${t.table}\` (${columns}, upload_id) SELECT ${columns}, ? FROM ${STAGE}`,
+      [uploadId],
+    );
     return { accepted: affected(inserted), duplicate, conflicting, replaced, conflicts };
   }
 }

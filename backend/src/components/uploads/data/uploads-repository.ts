@@ -78,7 +78,10 @@ export class UploadsRepository {
 
   /** The done upload of the same bytes to the same site, if any (what makes a re-upload a no-op). */
   async findDoneBySha(siteId: number, sha256: string, exceptId: number): Promise<number | null> {
-    const [row] = await this.db.query(`SELECT id FROM upload WHERE site_id = ? AND sha256 = ? AND status = 'done' AND id <> ? ORDER BY id LIMIT 1`, [siteId, sha256, exceptId]);
+    const [row] = await this.db.query(
+      `SELECT id FROM upload WHERE site_id = ? AND sha256 = ? AND status = 'done' AND id <> ? ORDER BY id LIMIT 1`,
+      [siteId, sha256, exceptId],
+    );
     return row ? Number(row.id) : null;
   }
 
@@ -87,27 +90,51 @@ export class UploadsRepository {
     return row ? toRecord(row) : null;
   }
 
-  async list(siteId: number, f: { page: number; pageSize: number; clientRef?: string }): Promise<{ items: UploadRecord[]; total: number }> {
+  async list(
+    siteId: number,
+    f: { page: number; pageSize: number; clientRef?: string },
+  ): Promise<{ items: UploadRecord[]; total: number }> {
     const where = f.clientRef ? 'u.site_id = ? AND u.client_ref = ?' : 'u.site_id = ?';
     const params = f.clientRef ? [siteId, f.clientRef] : [siteId];
     const [count] = await this.db.query(`SELECT COUNT(*) AS n FROM upload u WHERE ${where}`, params);
-    const rows = await this.db.query(`${SELECT} WHERE ${where} ORDER BY u.id DESC LIMIT ? OFFSET ?`, [...params, f.pageSize, f.page * f.pageSize]);
+    const rows = await this.db.query(`${SELECT} WHERE ${where} ORDER BY u.id DESC LIMIT ? OFFSET ?`, [
+      ...params,
+      f.pageSize,
+      f.page * f.pageSize,
+    ]);
     return { items: rows.map(toRecord), total: Number(count.n) };
   }
 
   async insertRejections(em: EntityManager | DataSource, uploadId: number, rows: RejectionDto[]): Promise<void> {
     for (let i = 0; i < rows.length; i += 1000) {
       await em.getRepository(UploadRejectionEntity).insert(
-        rows.slice(i, i + 1000).map((r) => ({ uploadId, rowNo: r.row, columnNo: r.column, kind: r.kind, message: r.message.slice(0, 500) })),
+        rows.slice(i, i + 1000).map((r) => ({
+          uploadId,
+          rowNo: r.row,
+          columnNo: r.column,
+          kind: r.kind,
+          message: r.message.slice(0, 500),
+        })),
       );
     }
   }
 
-  async rejections(uploadId: number, page: { offset: number; limit: number }): Promise<{ items: RejectionDto[]; total: number }> {
+  async rejections(
+    uploadId: number,
+    page: { offset: number; limit: number },
+  ): Promise<{ items: RejectionDto[]; total: number }> {
     const [count] = await this.db.query('SELECT COUNT(*) AS n FROM upload_rejection WHERE upload_id = ?', [uploadId]);
-    const rows = await this.db.query('SELECT row_no, column_no, kind, message FROM upload_rejection WHERE upload_id = ? ORDER BY row_no, id LIMIT ? OFFSET ?', [uploadId, page.limit, page.offset]);
+    const rows = await this.db.query(
+      'SELECT row_no, column_no, kind, message FROM upload_rejection WHERE upload_id = ? ORDER BY row_no, id LIMIT ? OFFSET ?',
+      [uploadId, page.limit, page.offset],
+    );
     return {
-      items: rows.map((r: Record<string, unknown>) => ({ row: Number(r['row_no']), column: r['column_no'] === null ? null : Number(r['column_no']), kind: r['kind'], message: r['message'] })),
+      items: rows.map((r: Record<string, unknown>) => ({
+        row: Number(r['row_no']),
+        column: r['column_no'] === null ? null : Number(r['column_no']),
+        kind: r['kind'],
+        message: r['message'],
+      })),
       total: Number(count.n),
     };
   }
@@ -115,7 +142,8 @@ export class UploadsRepository {
   /** Deletes exactly what the upload wrote and puts back what it replaced. Runs in the caller's transaction. */
   async rollBack(em: EntityManager, uploadId: number): Promise<number> {
     let removed = 0;
-    for (const t of ALL_TARGETS) removed += affected(await em.query(`DELETE FROM \`${t.table}\` WHERE upload_id = ?`, [uploadId]));
+    for (const t of ALL_TARGETS)
+      removed += affected(await em.query(`DELETE FROM \`${t.table}\` WHERE upload_id = ?`, [uploadId]));
     for (const t of ALL_TARGETS) {
       const columns = [...t.key, ...t.copied, 'upload_id'];
       const values = columns.map((c) => `JSON_VALUE(previous_row, '$.${c}')`).join(', ');
@@ -129,16 +157,32 @@ export class UploadsRepository {
   }
 
   async profiles(organisationId: number): Promise<ImportProfileDto[]> {
-    const rows = await this.db.getRepository(ImportProfileEntity).find({ where: { organisationId }, order: { name: 'ASC' } });
-    return rows.map((p) => ({ id: p.id, name: p.name, kind: p.kind, mapping: JSON.parse(p.mapping), createdAt: p.createdAt.toISOString() }));
+    const rows = await this.db
+      .getRepository(ImportProfileEntity)
+      .find({ where: { organisationId }, order: { name: 'ASC' } });
+    return rows.map((p) => ({
+      id: p.id,
+      name: p.name,
+      kind: p.kind,
+      mapping: JSON.parse(p.mapping),
+      createdAt: p.createdAt.toISOString(),
+    }));
   }
 
   async profileNameTaken(organisationId: number, name: string): Promise<boolean> {
     return !!(await this.db.getRepository(ImportProfileEntity).findOneBy({ organisationId, name }));
   }
 
-  async insertProfile(em: EntityManager, organisationId: number, createdBy: number, name: string, mapping: ColumnMapping): Promise<number> {
-    const result = await em.getRepository(ImportProfileEntity).insert({ organisationId, createdBy, name, kind: mapping.kind, mapping: JSON.stringify(mapping) });
+  async insertProfile(
+    em: EntityManager,
+    organisationId: number,
+    createdBy: number,
+    name: string,
+    mapping: ColumnMapping,
+  ): Promise<number> {
+    const result = await em
+      .getRepository(ImportProfileEntity)
+      .insert({ organisationId, createdBy, name, kind: mapping.kind, mapping: JSON.stringify(mapping) });
     return Number(result.identifiers[0]!['id']);
   }
 

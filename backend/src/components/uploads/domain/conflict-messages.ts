@@ -7,7 +7,12 @@ const utc = (v: unknown) => `${new Date(v as string).toISOString().slice(0, 16).
 const num = (v: unknown) => (v === null || v === undefined ? '—' : String(Number(v)));
 
 /** One line per conflict: which reading, what is stored (and from which upload), what the file says, what was done. */
-export function conflictRejections(target: IngestTarget, merged: MergeOutcome, refs: IngestRefs, replaced: boolean): RejectionDto[] {
+export function conflictRejections(
+  target: IngestTarget,
+  merged: MergeOutcome,
+  refs: IngestRefs,
+  replaced: boolean,
+): RejectionDto[] {
   const meterRefs = new Map([...refs.meters.values()].map((m) => [m.id, m.ref]));
   const outcome = replaced ? 'the stored value was replaced' : 'the stored value was kept';
   const out: RejectionDto[] = merged.conflicts.map((c) => {
@@ -27,10 +32,20 @@ export function conflictRejections(target: IngestTarget, merged: MergeOutcome, r
       stored = `${num(c.stored['volume_gal'])} gal`;
       incoming = `${num(c.incoming['volume_gal'])} gal`;
     }
-    return { row: c.rowNo, column: null, kind: 'conflict' as const, message: `${what}: stored ${stored} (upload #${c.storedUploadId}), this file ${incoming}; ${outcome}.` };
+    return {
+      row: c.rowNo,
+      column: null,
+      kind: 'conflict' as const,
+      message: `${what}: stored ${stored} (upload #${c.storedUploadId}), this file ${incoming}; ${outcome}.`,
+    };
   });
   if (merged.conflicting > merged.conflicts.length) {
-    out.push({ row: 0, column: null, kind: 'notice', message: `${merged.conflicting - merged.conflicts.length} more conflict(s) not listed.` });
+    out.push({
+      row: 0,
+      column: null,
+      kind: 'notice',
+      message: `${merged.conflicting - merged.conflicts.length} more conflict(s) not listed.`,
+    });
   }
   return out;
 }

@@ -28,7 +28,7 @@ const random = (n: number) => {
 /** The fast path's rows, with the text cut into chunks of random length (as a socket delivers it). */
 async function fastRows(text: string, delimiter: Delimiter, maxChunk = 7): Promise<string[][] | string> {
   const chunks: string[] = [];
-  for (let i = 0; i < text.length; ) {
+  for (let i = 0; i < text.length;) {
     const n = 1 + random(maxChunk);
     chunks.push(text.slice(i, i + n));
     i += n;
@@ -45,7 +45,9 @@ async function fastRows(text: string, delimiter: Delimiter, maxChunk = 7): Promi
 describe('rowBatches gives the rows csv-parse gives', () => {
   const samples = new URL('../../../../../samples/', import.meta.url);
   const files = ['meters', 'runtime', 'broken', 'weather'].flatMap((dir) =>
-    readdirSync(new URL(`${dir}/`, samples)).filter((f) => f.endsWith('.csv')).map((f) => `${dir}/${f}`),
+    readdirSync(new URL(`${dir}/`, samples))
+      .filter((f) => f.endsWith('.csv'))
+      .map((f) => `${dir}/${f}`),
   );
 
   it.each(files)('%s', async (path) => {
@@ -86,7 +88,8 @@ describe('rowBatches gives the rows csv-parse gives', () => {
       // match, not the rows before it; csv-parse counts stray CRs inside cells as lines, which the skipped
       // quote-free lines do not reproduce, so the line number may differ in such texts.
       const withoutLine = (r: string[][] | string) => (typeof r === 'string' ? r.replace(/ at line \d+/, '') : r);
-      if (typeof expected === 'string' || typeof got === 'string') expect({ text, got: withoutLine(got) }).toEqual({ text, got: withoutLine(expected) });
+      if (typeof expected === 'string' || typeof got === 'string')
+        expect({ text, got: withoutLine(got) }).toEqual({ text, got: withoutLine(expected) });
       else if (JSON.stringify(got) !== JSON.stringify(expected)) expect({ text, got }).toEqual({ text, got: expected });
     }
   }, 60_000);

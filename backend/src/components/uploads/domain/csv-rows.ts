@@ -49,7 +49,8 @@ export async function openCsvRows(bytes: Readable): Promise<CsvRows> {
   const delimiter = sniffDelimiter(headText.slice(0, HEAD_BYTES));
   async function* texts(): AsyncGenerator<string> {
     yield headText;
-    if (!ended) for (let next = await source.next(); !next.done; next = await source.next()) yield decoder.write(next.value);
+    if (!ended)
+      for (let next = await source.next(); !next.done; next = await source.next()) yield decoder.write(next.value);
     const last = decoder.end();
     if (last) yield last;
   }
@@ -80,7 +81,13 @@ export async function* rowBatches(texts: AsyncIterable<string>, delimiter: Delim
     return;
   }
   const eol = splitter.lineEnding;
-  const parser = parse({ delimiter, relax_column_count: true, relax_quotes: true, skip_empty_lines: false, ...(eol ? { record_delimiter: eol } : {}) });
+  const parser = parse({
+    delimiter,
+    relax_column_count: true,
+    relax_quotes: true,
+    skip_empty_lines: false,
+    ...(eol ? { record_delimiter: eol } : {}),
+  });
   // The lines already split go in again as blank lines (dropped below), so csv-parse's messages give file lines.
   const rest = (eol ?? '').repeat(lines) + handOver;
   let skip = lines;

@@ -21,11 +21,20 @@ export class ImportProfilesService {
   async create(principal: Principal, name: string, mapping: ColumnMapping): Promise<ImportProfileDto> {
     this.assertMayUpload(principal);
     if (await this.repo.profileNameTaken(principal.organisationId, name)) {
-      throw new AppError('conflict', `An import profile named "${name}" already exists.`, [{ field: 'name', message: 'is already used' }]);
+      throw new AppError('conflict', `An import profile named "${name}" already exists.`, [
+        { field: 'name', message: 'is already used' },
+      ]);
     }
     const id = await this.db.transaction(async (em) => {
       const profileId = await this.repo.insertProfile(em, principal.organisationId, principal.userId, name, mapping);
-      await this.audit.record(em, { userId: principal.userId, organisationId: principal.organisationId, entity: 'import-profile', entityId: profileId, action: 'create', changes: { name, kind: mapping.kind } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: principal.organisationId,
+        entity: 'import-profile',
+        entityId: profileId,
+        action: 'create',
+        changes: { name, kind: mapping.kind },
+      });
       return profileId;
     });
     return (await this.repo.profiles(principal.organisationId)).find((p) => p.id === id)!;
@@ -35,11 +44,18 @@ export class ImportProfilesService {
     this.assertMayUpload(principal);
     await this.db.transaction(async (em) => {
       if (!(await this.repo.deleteProfile(em, principal.organisationId, id))) throw AppError.notFound('Import profile');
-      await this.audit.record(em, { userId: principal.userId, organisationId: principal.organisationId, entity: 'import-profile', entityId: id, action: 'delete' });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: principal.organisationId,
+        entity: 'import-profile',
+        entityId: id,
+        action: 'delete',
+      });
     });
   }
 
   private assertMayUpload(principal: Principal): void {
-    if (principal.role === 'auditor') throw AppError.forbidden('Auditors cannot upload, so they cannot save import profiles.');
+    if (principal.role === 'auditor')
+      throw AppError.forbidden('Auditors cannot upload, so they cannot save import profiles.');
   }
 }

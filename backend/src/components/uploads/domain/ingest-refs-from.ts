@@ -7,9 +7,21 @@ const ms = (iso: string | null) => (iso ? Date.parse(iso) : null);
 export function ingestRefsFrom(equipment: { meters: MeterDto[]; controllers: ControllerDto[] }): IngestRefs {
   const meters = new Map<string, IngestMeter>();
   for (const m of equipment.meters) {
-    const current = { installedUtc: m.installedAt ?? new Date(0).toISOString(), removedUtc: m.removedAt, multiplier: m.registerMultiplier, digits: m.registerDigits };
-    const earlier = m.previousRegisters.map((p) => ({ installedUtc: p.installedAt, removedUtc: p.removedAt, multiplier: p.multiplier, digits: p.digits }));
-    const installs = [m.installedAt, ...m.previousRegisters.map((p) => p.installedAt)].map(ms).filter((x): x is number => x !== null);
+    const current = {
+      installedUtc: m.installedAt ?? new Date(0).toISOString(),
+      removedUtc: m.removedAt,
+      multiplier: m.registerMultiplier,
+      digits: m.registerDigits,
+    };
+    const earlier = m.previousRegisters.map((p) => ({
+      installedUtc: p.installedAt,
+      removedUtc: p.removedAt,
+      multiplier: p.multiplier,
+      digits: p.digits,
+    }));
+    const installs = [m.installedAt, ...m.previousRegisters.map((p) => p.installedAt)]
+      .map(ms)
+      .filter((x): x is number => x !== null);
     meters.set(m.ref, {
       id: m.id,
       ref: m.ref,

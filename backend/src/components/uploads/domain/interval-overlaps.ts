@@ -18,7 +18,12 @@ export const OVERLAP_MAX_MINUTES = 1440;
  * `known` are the upload's spans when the caller knows them exactly (every line sent was stored); otherwise they
  * are read back from the table, which costs seconds per million rows.
  */
-export async function withdrawLengthOverlaps(qr: QueryRunner, uploadId: number, refs: IngestRefs, known?: MeterSpan[]): Promise<{ withdrawn: number; rejections: RejectionDto[] }> {
+export async function withdrawLengthOverlaps(
+  qr: QueryRunner,
+  uploadId: number,
+  refs: IngestRefs,
+  known?: MeterSpan[],
+): Promise<{ withdrawn: number; rejections: RejectionDto[] }> {
   const meterRefs = new Map([...refs.meters.values()].map((m) => [m.id, m.ref]));
   const spans = known ?? (await storedSpans(qr, uploadId));
   const out = { withdrawn: 0, rejections: [] as RejectionDto[] };
@@ -30,18 +35,24 @@ export async function withdrawLengthOverlaps(qr: QueryRunner, uploadId: number, 
       [span.meterId, span.first, span.last, uploadId, lengths],
     );
     if (!maybe) continue;
-    const pairs: Array<{ a_start: Date; a_minutes: number; r_start: Date; r_minutes: number; r_upload: number }> = await qr.query(
-      `SELECT a.start_utc AS a_start, a.minutes AS a_minutes, MIN(r.start_utc) AS r_start, MIN(r.minutes) AS r_minutes, MIN(r.upload_id) AS r_upload
+    const pairs: Array<{ a_start: Date; a_minutes: number; r_start: Date; r_minutes: number; r_upload: number }> =
+      await qr.query(
+        `SELECT a.start_utc AS a_start, a.minutes AS a_minutes, MIN(r.start_utc) AS r_start, MIN(r.minutes) AS r_minutes, MIN(r.upload_id) AS r_upload
        FROM meter_reading a JOIN meter_reading r ON r.meter_id = a.meter_id
          AND r.start_utc >= a.start_utc - INTERVAL 1440 MINUTE AND r.start_utc < a.start_utc + INTERVAL a.minutes MINUTE
          AND r.start_utc + INTERVAL r.minutes MINUTE > a.start_utc
          AND r.upload_id <> a.upload_id AND r.minutes <> a.minutes AND r.minutes <= 1440
        WHERE a.meter_id = ? AND a.upload_id = ? AND a.minutes <= 1440
        GROUP BY a.start_utc, a.minutes ORDER BY a.start_utc`,
-      [span.meterId, uploadId],
-    );
+        [span.meterId, uploadId],
+      );
     for (const p of pairs) {
-      out.withdrawn += affected(await qr.query('DELETE FROM meter_reading WHERE meter_id = ? AND start_utc = ? AND minutes = ? AND upload_id = ?', [span.meterId, p.a_start, p.a_minutes, uploadId]));
+      out.withdrawn += affected(
+        await qr.query(
+          'DELETE FROM meter_reading WHERE meter_id = ? AND start_utc = ? AND minutes = ? AND upload_id = ?',
+          [span.meterId, p.a_start, p.a_minutes, uploadId],
+        ),
+      );
       if (out.rejections.length < LISTED) {
         out.rejections.push({
           row: 0,
@@ -61,5 +72,10 @@ async function storedSpans(qr: QueryRunner, uploadId: number): Promise<MeterSpan
      FROM meter_reading WHERE upload_id = ? AND minutes <= ${OVERLAP_MAX_MINUTES} GROUP BY meter_id`,
     [uploadId],
   );
-  return rows.map((r) => ({ meterId: Number(r.meter_id), first: r.first, last: r.last, lengths: String(r.lengths).split(',').map(Number) }));
+  return rows.map((r) => ({
+    meterId: Number(r.meter_id),
+    first: r.first,
+    last: r.last,
+    lengths: String(r.lengths).split(',').map(Number),
+  }));
 }

@@ -23,31 +23,58 @@ export async function deriveRegisterVolumes(
   let rollovers = 0;
   for (const meterId of await writer.distinct('meter_id')) {
     const meter = byId.get(meterId)!;
-    const stored: Array<{ read_at: Date; register_value: string; unit: VolumeUnit; upload_id: number }> = await qr.query(
-      'SELECT read_at, register_value, unit, upload_id FROM meter_register_read WHERE meter_id = ? ORDER BY read_at, position',
-      [meterId],
-    );
+    const stored: Array<{ read_at: Date; register_value: string; unit: VolumeUnit; upload_id: number }> =
+      await qr.query(
+        'SELECT read_at, register_value, unit, upload_id FROM meter_register_read WHERE meter_id = ? ORDER BY read_at, position',
+        [meterId],
+      );
     const rowsOfThisFile = new Map<string, number>();
     for (const s of await writer.stagedRows('meter_id = ? ORDER BY row_no', [meterId])) {
       const at = new Date(s['read_at'] as Date).toISOString();
       if (!rowsOfThisFile.has(at)) rowsOfThisFile.set(at, Number(s['row_no']));
     }
-    const reads = stored.map((r) => ({ meterRef: meter.ref, atUtc: new Date(r.read_at).toISOString(), value: Number(r.register_value), unit: r.unit }));
+    const reads = stored.map((r) => ({
+      meterRef: meter.ref,
+      atUtc: new Date(r.read_at).toISOString(),
+      value: Number(r.register_value),
+      unit: r.unit,
+    }));
     const result = differenceRegisterReads({ meterRef: meter.ref, registers: meter.registers }, reads);
     rollovers += result.rollovers.length;
     for (const p of result.problems) {
       const row = rowsOfThisFile.get(p.atUtc);
       if (row === undefined) continue; // a problem between earlier uploads' reads was reported then
       if (p.severity === 'error') out.problems++;
-      out.rejections.push({ row, column: null, kind: p.severity === 'error' ? 'rejected' : 'notice', message: `${meter.ref} at ${p.atUtc.slice(0, 16).replace('T', ' ')} UTC: ${p.message}` });
+      out.rejections.push({
+        row,
+        column: null,
+        kind: p.severity === 'error' ? 'rejected' : 'notice',
+        message: `${meter.ref} at ${p.atUtc.slice(0, 16).replace('T', ' ')} UTC: ${p.message}`,
+      });
     }
-    const values = result.volumes.map((v) => [meterId, sqlUtc(v.startUtc), v.minutes, toGallons(v.volume, v.unit).toFixed(4), v.volume.toFixed(6), v.unit, uploadId]);
+    const values = result.volumes.map((v) => [
+      meterId,
+      sqlUtc(v.startUtc),
+      v.minutes,
+      toGallons(v.volume, v.unit).toFixed(4),
+      v.volume.toFixed(6),
+      v.unit,
+      uploadId,
+    ]);
     for (let i = 0; i < values.length; i += 1000) {
       // IGNORE: a volume between two earlier reads is already stored by the upload that brought them.
-      const inserted = await qr.query('INSERT IGNORE INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?', [values.slice(i, i + 1000)]);
+      const inserted = await qr.query(
+        'INSERT IGNORE INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?',
+        [values.slice(i, i + 1000)],
+      );
       out.volumes += affected(inserted);
     }
   }
-  out.rejections.push({ row: 0, column: null, kind: 'notice', message: `${out.volumes} interval volume(s) worked out from the register reads${rollovers ? ` (${rollovers} dial rollover(s))` : ''}.` });
+  out.rejections.push({
+    row: 0,
+    column: null,
+    kind: 'notice',
+    message: `${out.volumes} interval volume(s) worked out from the register reads${rollovers ? ` (${rollovers} dial rollover(s))` : ''}.`,
+  });
   return out;
 }

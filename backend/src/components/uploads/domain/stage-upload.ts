@@ -24,7 +24,10 @@ export const MAX_STORED_REJECTIONS = 10_000;
 const HEAD_ROWS = 20;
 
 export class MappingProblem extends FileProblem {
-  constructor(message: string, readonly details: ApiErrorDetail[]) {
+  constructor(
+    message: string,
+    readonly details: ApiErrorDetail[],
+  ) {
     super(message);
   }
 }
@@ -95,10 +98,23 @@ export async function stageUpload(qr: QueryRunner, csv: CsvRows, options: StageO
   if (direct) await qr.startTransaction(IMPORT_ISOLATION);
   await writer.open(direct ? options.directUploadId : undefined);
 
-  const staged: Staged = { direct, kind: mapping.kind, mapping, target, writer, rowsRead: 0, staged: 0, repeats: 0, rejected: 0, rejections: [], spans };
+  const staged: Staged = {
+    direct,
+    kind: mapping.kind,
+    mapping,
+    target,
+    writer,
+    rowsRead: 0,
+    staged: 0,
+    repeats: 0,
+    rejected: 0,
+    rejections: [],
+    spans,
+  };
   const reject = (e: RowError) => {
     staged.rejected++;
-    if (staged.rejections.length < MAX_STORED_REJECTIONS) staged.rejections.push({ row: e.row, column: e.column, kind: 'rejected', message: e.message });
+    if (staged.rejections.length < MAX_STORED_REJECTIONS)
+      staged.rejections.push({ row: e.row, column: e.column, kind: 'rejected', message: e.message });
   };
   let row = 1;
   // Synchronous per row (a promise per row costs more than the row); the writer is flushed between rows.
@@ -160,11 +176,16 @@ function decideMapping(head: string[][], csv: CsvRows, options: StageOptions): C
   if (result.fileProblems.length) throw new FileProblem(result.fileProblems.join(' '));
   const mapping = result.mapping!;
   if (options.kind && !options.mapping && mapping.kind !== options.kind) {
-    throw new FileProblem(`This looks like a ${mapping.kind} file, not ${options.kind}. ${result.detection?.reasons[0] ?? ''} Choose the columns yourself if the guess is wrong.`);
+    throw new FileProblem(
+      `This looks like a ${mapping.kind} file, not ${options.kind}. ${result.detection?.reasons[0] ?? ''} Choose the columns yourself if the guess is wrong.`,
+    );
   }
   if (result.mappingProblems.length) {
     const details = result.mappingProblems.map((p) => ({ field: `mapping.${p.field}`, message: p.message }));
-    throw new MappingProblem(`The column mapping is incomplete: ${result.mappingProblems.map((p) => p.message).join(' ')}`, details);
+    throw new MappingProblem(
+      `The column mapping is incomplete: ${result.mappingProblems.map((p) => p.message).join(' ')}`,
+      details,
+    );
   }
   return mapping;
 }

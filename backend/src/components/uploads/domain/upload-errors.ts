@@ -8,7 +8,10 @@ export class TooLarge extends Error {}
 
 /** Rows were rejected and the uploader asked to refuse the whole file in that case. */
 export class RowsRefused extends Error {
-  constructor(readonly rejected: number, readonly rejections: RejectionDto[]) {
+  constructor(
+    readonly rejected: number,
+    readonly rejections: RejectionDto[],
+  ) {
     super(`${rejected} row(s) were rejected`);
   }
 }
@@ -25,17 +28,30 @@ function formatMb(bytes: number): string {
 /** What the person who sent the file is told; `null` for failures that are ours (logged, reported as 500). */
 export function toUploadError(err: unknown, fileName: string, maxBytes: number): AppError | null {
   if (err instanceof AppError) return err;
-  if (err instanceof TooLarge) return new AppError('payload_too_large', limitMessage(fileName, maxBytes), [{ field: 'file', message: 'is over the size limit' }]);
-  if (err instanceof MappingProblem) return new AppError('validation_failed', `"${fileName}": ${err.message}`, err.details);
-  if (err instanceof FileProblem) return new AppError('validation_failed', `"${fileName}": ${err.message}`, [{ field: 'file', message: err.message }]);
+  if (err instanceof TooLarge)
+    return new AppError('payload_too_large', limitMessage(fileName, maxBytes), [
+      { field: 'file', message: 'is over the size limit' },
+    ]);
+  if (err instanceof MappingProblem)
+    return new AppError('validation_failed', `"${fileName}": ${err.message}`, err.details);
+  if (err instanceof FileProblem)
+    return new AppError('validation_failed', `"${fileName}": ${err.message}`, [
+      { field: 'file', message: err.message },
+    ]);
   if (err instanceof RowsRefused) {
     return new AppError(
       'validation_failed',
       `"${fileName}": ${err.rejected} row(s) were rejected, and the upload was set to refuse the file on any row error, so nothing was stored. The rejected rows are listed with the upload.`,
-      err.rejections.slice(0, 50).map((r) => ({ field: `row ${r.row}${r.column ? `, column ${r.column}` : ''}`, message: r.message })),
+      err.rejections
+        .slice(0, 50)
+        .map((r) => ({ field: `row ${r.row}${r.column ? `, column ${r.column}` : ''}`, message: r.message })),
     );
   }
   const code = (err as { code?: string }).code;
-  if (code === 'ECONNRESET' || (err as Error).message === 'aborted') return new AppError('validation_failed', `"${fileName}": the upload was interrupted before the whole file arrived; nothing was stored.`);
+  if (code === 'ECONNRESET' || (err as Error).message === 'aborted')
+    return new AppError(
+      'validation_failed',
+      `"${fileName}": the upload was interrupted before the whole file arrived; nothing was stored.`,
+    );
   return null;
 }

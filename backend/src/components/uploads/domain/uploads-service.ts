@@ -108,7 +108,11 @@ export class UploadsService {
         await pending.discard();
         await this.repo.remove(uploadId);
         const upload = await this.dto((await this.repo.get(earlier))!);
-        return { outcome: 'already-imported', upload, message: `"${fileName}" was already imported as upload #${earlier} on ${upload.createdAt.slice(0, 10)}; nothing was changed.` };
+        return {
+          outcome: 'already-imported',
+          upload,
+          message: `"${fileName}" was already imported as upload #${earlier} on ${upload.createdAt.slice(0, 10)}; nothing was changed.`,
+        };
       }
       if (rowErrors === 'refuse-file' && staged.rejected > 0) throw new RowsRefused(staged.rejected, staged.rejections);
       const storageKey = await pending.keep(sha256);
@@ -117,7 +121,12 @@ export class UploadsService {
         // Some lines met stored readings (or repeat within the file): undo the fast load and read the kept copy
         // again through the stage, which tells duplicates from conflicts row by row.
         await qr.rollbackTransaction();
-        staged = await stageUpload(qr, await openCsvRows(this.store.open(storageKey)), { ...stageOptions, mapping: staged.mapping, overrides: undefined, kind: undefined });
+        staged = await stageUpload(qr, await openCsvRows(this.store.open(storageKey)), {
+          ...stageOptions,
+          mapping: staged.mapping,
+          overrides: undefined,
+          kind: undefined,
+        });
       }
 
       const stagedAt = Date.now();
@@ -126,11 +135,23 @@ export class UploadsService {
         await qr.startTransaction(IMPORT_ISOLATION);
         merged = await staged.writer.merge(uploadId, replaceConflicts);
       }
-      const rejections: RejectionDto[] = [...staged.rejections, ...conflictRejections(staged.target, merged, refs, replaceConflicts)];
+      const rejections: RejectionDto[] = [
+        ...staged.rejections,
+        ...conflictRejections(staged.target, merged, refs, replaceConflicts),
+      ];
       if (staged.target === INTERVAL_TARGET && merged.accepted > 0) {
         // After a direct load every line sent was stored: the spans collected while sending are exact.
-        const overlaps = await withdrawLengthOverlaps(qr, uploadId, refs, staged.direct ? staged.spans?.meterSpans(OVERLAP_MAX_MINUTES) : undefined);
-        merged = { ...merged, accepted: merged.accepted - overlaps.withdrawn, conflicting: merged.conflicting + overlaps.withdrawn };
+        const overlaps = await withdrawLengthOverlaps(
+          qr,
+          uploadId,
+          refs,
+          staged.direct ? staged.spans?.meterSpans(OVERLAP_MAX_MINUTES) : undefined,
+        );
+        merged = {
+          ...merged,
+          accepted: merged.accepted - overlaps.withdrawn,
+          conflicting: merged.conflicting + overlaps.withdrawn,
+        };
         rejections.push(...overlaps.rejections);
       }
       let rejected = staged.rejected;
@@ -139,16 +160,45 @@ export class UploadsService {
         rejections.push(...derived.rejections);
         rejected += derived.problems;
       }
-      const counts = { rowsRead: staged.rowsRead, accepted: merged.accepted, duplicate: merged.duplicate, conflicting: merged.conflicting, replaced: merged.replaced, rejected };
+      const counts = {
+        rowsRead: staged.rowsRead,
+        accepted: merged.accepted,
+        duplicate: merged.duplicate,
+        conflicting: merged.conflicting,
+        replaced: merged.replaced,
+        rejected,
+      };
       // The daily rollup moves with the readings, in the same transaction.
       // (A direct load's span may include readings withdrawn above; refreshing those days again changes nothing.)
-      const span = staged.direct && staged.spans ? staged.spans.overall() : await this.dailyUse.uploadSpan(qr.manager, uploadId);
+      const span =
+        staged.direct && staged.spans ? staged.spans.overall() : await this.dailyUse.uploadSpan(qr.manager, uploadId);
       if (span) await this.dailyUse.refresh(qr.manager, siteId, span.from, span.to);
       await this.repo.insertRejections(qr.manager, uploadId, rejections);
-      await this.repo.finish(qr.manager, uploadId, { ...counts, status: 'done', kind: staged.kind, sizeBytes: size, sha256, storageKey, mapping: staged.mapping, errorSummary: null });
-      await this.audit.record(qr.manager, { userId: principal.userId, organisationId: site.organisationId, entity: 'upload', entityId: uploadId, action: 'import', changes: { siteId, fileName, ...counts } });
+      await this.repo.finish(qr.manager, uploadId, {
+        ...counts,
+        status: 'done',
+        kind: staged.kind,
+        sizeBytes: size,
+        sha256,
+        storageKey,
+        mapping: staged.mapping,
+        errorSummary: null,
+      });
+      await this.audit.record(qr.manager, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'upload',
+        entityId: uploadId,
+        action: 'import',
+        changes: { siteId, fileName, ...counts },
+      });
       await qr.commitTransaction();
-      logger.info('upload imported', { uploadId, rows: staged.rowsRead, stageMs: stagedAt - started, mergeMs: Date.now() - stagedAt });
+      logger.info('upload imported', {
+        uploadId,
+        rows: staged.rowsRead,
+        stageMs: stagedAt - started,
+        mergeMs: Date.now() - stagedAt,
+      });
       return { outcome: 'imported', upload: await this.dto((await this.repo.get(uploadId))!) };
     } catch (err) {
       if (qr.isTransactionActive) await qr.rollbackTransaction().catch(() => undefined);
@@ -194,13 +244,26 @@ export class UploadsService {
     return this.dto(await this.load(principal, uploadId, 'read'));
   }
 
-  async list(principal: Principal, siteId: number, query: { page: number; pageSize: number; clientRef?: string }): Promise<Page<UploadDto>> {
+  async list(
+    principal: Principal,
+    siteId: number,
+    query: { page: number; pageSize: number; clientRef?: string },
+  ): Promise<Page<UploadDto>> {
     await this.sites.requireLevel(principal, siteId, 'read');
     const { items, total } = await this.repo.list(siteId, query);
-    return { items: await Promise.all(items.map((u) => this.dto(u))), total, page: query.page, pageSize: query.pageSize };
+    return {
+      items: await Promise.all(items.map((u) => this.dto(u))),
+      total,
+      page: query.page,
+      pageSize: query.pageSize,
+    };
   }
 
-  async rejections(principal: Principal, uploadId: number, page: { offset: number; limit: number }): Promise<{ upload: UploadDto; items: RejectionDto[]; total: number }> {
+  async rejections(
+    principal: Principal,
+    uploadId: number,
+    page: { offset: number; limit: number },
+  ): Promise<{ upload: UploadDto; items: RejectionDto[]; total: number }> {
     const upload = await this.dto(await this.load(principal, uploadId, 'read'));
     return { upload, ...(await this.repo.rejections(uploadId, page)) };
   }
@@ -208,12 +271,23 @@ export class UploadsService {
   /** Deletes exactly the rows this upload stored and restores any it replaced. */
   async rollBack(principal: Principal, uploadId: number): Promise<{ upload: UploadDto; removed: number }> {
     const upload = await this.load(principal, uploadId, 'contribute');
-    if (upload.status !== 'done') throw new AppError('conflict', `Upload #${uploadId} is ${upload.status}; only a finished upload can be rolled back.`);
+    if (upload.status !== 'done')
+      throw new AppError(
+        'conflict',
+        `Upload #${uploadId} is ${upload.status}; only a finished upload can be rolled back.`,
+      );
     const removed = await this.db.transaction(IMPORT_ISOLATION, async (em) => {
       const span = await this.dailyUse.uploadSpan(em, uploadId);
       const n = await this.repo.rollBack(em, uploadId);
       if (span) await this.dailyUse.refresh(em, upload.siteId, span.from, span.to);
-      await this.audit.record(em, { userId: principal.userId, organisationId: upload.organisationId, entity: 'upload', entityId: uploadId, action: 'roll-back', changes: { removed: n } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: upload.organisationId,
+        entity: 'upload',
+        entityId: uploadId,
+        action: 'roll-back',
+        changes: { removed: n },
+      });
       return n;
     });
     return { upload: await this.dto((await this.repo.get(uploadId))!), removed };

@@ -21,7 +21,9 @@ export function usersRouter(users: UsersService): Router {
   router.use(requireCapability('manageUsers'));
 
   router.get('/', async (req, res) => {
-    res.json(await users.list(principalOf(req), validate(pageQuerySchema(USER_SORTS, 'displayName'), req.query, 'Query')));
+    res.json(
+      await users.list(principalOf(req), validate(pageQuerySchema(USER_SORTS, 'displayName'), req.query, 'Query')),
+    );
   });
 
   router.post('/invitations', async (req, res) => {

@@ -59,10 +59,21 @@ export class UsersRepository {
     const first = rows[0];
     if (!first) return null;
     return {
-      user: { id: Number(first['id']), email: String(first['email']), displayName: String(first['displayName']), passwordHash: null, status: first['status'] as UserStatus },
+      user: {
+        id: Number(first['id']),
+        email: String(first['email']),
+        displayName: String(first['displayName']),
+        passwordHash: null,
+        status: first['status'] as UserStatus,
+      },
       memberships: rows
         .filter((r) => r['organisationId'] !== null && r['organisationName'] !== null)
-        .map((r): MembershipDto => ({ organisationId: Number(r['organisationId']), organisationName: String(r['organisationName']), organisationKind: r['organisationKind'] as OrganisationKind, role: r['role'] as Role })),
+        .map((r): MembershipDto => ({
+          organisationId: Number(r['organisationId']),
+          organisationName: String(r['organisationName']),
+          organisationKind: r['organisationKind'] as OrganisationKind,
+          role: r['role'] as Role,
+        })),
     };
   }
 
@@ -80,8 +91,15 @@ export class UsersRepository {
     }
     const total = await qb.getCount();
     const rows = await qb
-      .select(['u.id AS id', 'u.email AS email', 'u.display_name AS displayName', 'm.role AS role', 'u.status AS status',
-        'u.last_sign_in_at AS lastSignInAt', 'u.created_at AS createdAt'])
+      .select([
+        'u.id AS id',
+        'u.email AS email',
+        'u.display_name AS displayName',
+        'm.role AS role',
+        'u.status AS status',
+        'u.last_sign_in_at AS lastSignInAt',
+        'u.created_at AS createdAt',
+      ])
       .orderBy(SORT_COLUMNS[query.sort], query.dir === 'asc' ? 'ASC' : 'DESC')
       .addOrderBy('u.id', 'ASC')
       .offset(query.page * query.pageSize)
@@ -95,15 +113,27 @@ export class UsersRepository {
       .getRepository(UserEntity)
       .createQueryBuilder('u')
       .innerJoin(MembershipEntity, 'm', 'm.user_id = u.id AND m.organisation_id = :organisationId', { organisationId })
-      .select(['u.id AS id', 'u.email AS email', 'u.display_name AS displayName', 'm.role AS role', 'u.status AS status',
-        'u.last_sign_in_at AS lastSignInAt', 'u.created_at AS createdAt'])
+      .select([
+        'u.id AS id',
+        'u.email AS email',
+        'u.display_name AS displayName',
+        'm.role AS role',
+        'u.status AS status',
+        'u.last_sign_in_at AS lastSignInAt',
+        'u.created_at AS createdAt',
+      ])
       .where('u.id = :userId', { userId })
       .getRawOne();
     return row ? toOrgUser(row) : null;
   }
 
-  async createUser(em: EntityManager, data: { email: string; displayName: string; status: UserStatus; passwordHash: string | null }): Promise<number> {
-    const saved = await em.getRepository(UserEntity).save(em.getRepository(UserEntity).create({ ...data, email: data.email.toLowerCase() }));
+  async createUser(
+    em: EntityManager,
+    data: { email: string; displayName: string; status: UserStatus; passwordHash: string | null },
+  ): Promise<number> {
+    const saved = await em
+      .getRepository(UserEntity)
+      .save(em.getRepository(UserEntity).create({ ...data, email: data.email.toLowerCase() }));
     return saved.id;
   }
 
@@ -128,18 +158,30 @@ export class UsersRepository {
       .getRepository(MembershipEntity)
       .createQueryBuilder('m')
       .innerJoin(UserEntity, 'u', 'u.id = m.user_id')
-      .where('m.organisation_id = :organisationId AND m.role = :role AND u.status = :status', { organisationId, role: 'admin', status: 'active' })
+      .where('m.organisation_id = :organisationId AND m.role = :role AND u.status = :status', {
+        organisationId,
+        role: 'admin',
+        status: 'active',
+      })
       .getCount();
   }
 
-  async createToken(em: EntityManager, userId: number, purpose: TokenPurpose, tokenHash: string, expiresAt: Date): Promise<void> {
+  async createToken(
+    em: EntityManager,
+    userId: number,
+    purpose: TokenPurpose,
+    tokenHash: string,
+    expiresAt: Date,
+  ): Promise<void> {
     // A new link replaces any earlier unused one of the same purpose.
     await em.getRepository(UserTokenEntity).update({ userId, purpose, usedAt: IsNull() }, { usedAt: new Date() });
     await em.getRepository(UserTokenEntity).insert({ userId, purpose, tokenHash, expiresAt, usedAt: null });
   }
 
   async findLiveToken(tokenHash: string): Promise<{ id: number; userId: number; purpose: TokenPurpose } | null> {
-    const t = await this.db.getRepository(UserTokenEntity).findOneBy({ tokenHash, usedAt: IsNull(), expiresAt: MoreThan(new Date()) });
+    const t = await this.db
+      .getRepository(UserTokenEntity)
+      .findOneBy({ tokenHash, usedAt: IsNull(), expiresAt: MoreThan(new Date()) });
     return t && { id: t.id, userId: t.userId, purpose: t.purpose };
   }
 

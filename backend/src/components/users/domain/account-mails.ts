@@ -12,13 +12,35 @@ ${paragraphs.map((p) => `<p>${escape(p)}</p>`).join('\n')}
 </body></html>`;
 }
 
-export function invitationMail(p: { to: string; displayName: string; invitedBy: string; organisation: string; role: Role; link: string; existingAccount: boolean; publicUrl: string }): OutgoingMail {
+export function invitationMail(p: {
+  to: string;
+  displayName: string;
+  invitedBy: string;
+  organisation: string;
+  role: Role;
+  link: string;
+  existingAccount: boolean;
+  publicUrl: string;
+}): OutgoingMail {
   const intro = `${p.invitedBy} has invited you to ${p.organisation} on Rillmark as ${ROLE_LABELS[p.role]}.`;
   if (p.existingAccount) {
-    const lines = [`Hello ${p.displayName},`, intro, 'You already have a Rillmark account: sign in as usual and choose this organisation.'];
-    return { to: p.to, subject: `You now have access to ${p.organisation} on Rillmark`, text: [...lines, p.publicUrl].join('\n\n'), html: layout('Rillmark access', lines, { label: 'Sign in', link: p.publicUrl }) };
+    const lines = [
+      `Hello ${p.displayName},`,
+      intro,
+      'You already have a Rillmark account: sign in as usual and choose this organisation.',
+    ];
+    return {
+      to: p.to,
+      subject: `You now have access to ${p.organisation} on Rillmark`,
+      text: [...lines, p.publicUrl].join('\n\n'),
+      html: layout('Rillmark access', lines, { label: 'Sign in', link: p.publicUrl }),
+    };
   }
-  const lines = [`Hello ${p.displayName},`, intro, 'Choose a password to activate your account. The link works once and expires in 3 days.'];
+  const lines = [
+    `Hello ${p.displayName},`,
+    intro,
+    'Choose a password to activate your account. The link works once and expires in 3 days.',
+  ];
   return {
     to: p.to,
     subject: `Invitation to ${p.organisation} on Rillmark`,
@@ -27,11 +49,22 @@ export function invitationMail(p: { to: string; displayName: string; invitedBy: 
   };
 }
 
-export function passwordResetMail(p: { to: string; displayName: string; requestedBy: string; link: string; publicUrl: string }): OutgoingMail {
+export function passwordResetMail(p: {
+  to: string;
+  displayName: string;
+  requestedBy: string;
+  link: string;
+  publicUrl: string;
+}): OutgoingMail {
   const lines = [
     `Hello ${p.displayName},`,
     `${p.requestedBy} asked Rillmark to let you choose a new password.`,
     'The link works once and expires in 3 days. If you did not expect this, you can ignore this message; your password stays as it is.',
   ];
-  return { to: p.to, subject: 'Choose a new Rillmark password', text: [...lines, p.link].join('\n\n'), html: layout('Choose a new password', lines, { label: 'Choose a new password', link: p.link }) };
+  return {
+    to: p.to,
+    subject: 'Choose a new Rillmark password',
+    text: [...lines, p.link].join('\n\n'),
+    html: layout('Choose a new password', lines, { label: 'Choose a new password', link: p.link }),
+  };
 }

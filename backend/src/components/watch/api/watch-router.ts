@@ -9,9 +9,13 @@ import type { WatchService } from '../domain/watch-service';
 import type { WatchSettingsService } from '../domain/watch-settings-service';
 
 const MAX_RECHECK_DAYS = 400;
-const runBody = z.strictObject({ from: z.iso.datetime({ offset: true }).optional(), to: z.iso.datetime({ offset: true }).optional() })
+const runBody = z
+  .strictObject({ from: z.iso.datetime({ offset: true }).optional(), to: z.iso.datetime({ offset: true }).optional() })
   .refine((b) => !b.to || b.from, { message: 'a re-check needs "from" as well as "to"', path: ['from'] });
-const listQuery = z.object({ page: z.coerce.number().int().min(0).default(0), pageSize: z.coerce.number().int().min(1).max(100).default(20) });
+const listQuery = z.object({
+  page: z.coerce.number().int().min(0).default(0),
+  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+});
 const hour = z.number().int().min(0).max(23);
 const thresholdNames = Object.keys(DEFAULT_THRESHOLDS) as [ThresholdName, ...ThresholdName[]];
 const settingsBody = z.strictObject({
@@ -32,8 +36,13 @@ export function watchRouter(watch: WatchService, runs: WatchRunsRepository): Rou
     const q = validate(listQuery, req.query, 'Query');
     const { items, total } = await runs.list(principal.organisationId, q.page, q.pageSize);
     // A run over every site may name other organisations' sites in its errors: those stay hidden.
-    const own = new Set((await runs.ownSiteIds(principal.organisationId)));
-    res.json({ items: items.map(({ organisationId: _o, ...r }) => ({ ...r, errors: r.errors.filter((e) => own.has(e.siteId)) })), total, page: q.page, pageSize: q.pageSize });
+    const own = new Set(await runs.ownSiteIds(principal.organisationId));
+    res.json({
+      items: items.map(({ organisationId: _o, ...r }) => ({ ...r, errors: r.errors.filter((e) => own.has(e.siteId)) })),
+      total,
+      page: q.page,
+      pageSize: q.pageSize,
+    });
   });
 
   router.post('/runs', async (req, res) => {
@@ -44,9 +53,16 @@ export function watchRouter(watch: WatchService, runs: WatchRunsRepository): Rou
     const to = body.to ? new Date(body.to) : body.from ? new Date() : undefined;
     if (from && to) {
       if (to <= from) throw AppError.invalid('to', 'must be after "from"');
-      if (to.getTime() - from.getTime() > MAX_RECHECK_DAYS * 86_400_000) throw AppError.invalid('from', `a re-check covers at most ${MAX_RECHECK_DAYS} days`);
+      if (to.getTime() - from.getTime() > MAX_RECHECK_DAYS * 86_400_000)
+        throw AppError.invalid('from', `a re-check covers at most ${MAX_RECHECK_DAYS} days`);
     }
-    const run = await watch.run({ trigger: from ? 'recheck' : 'manual', organisationId: principal.organisationId, requestedBy: principal.userId, fromUtc: from, toUtc: to });
+    const run = await watch.run({
+      trigger: from ? 'recheck' : 'manual',
+      organisationId: principal.organisationId,
+      requestedBy: principal.userId,
+      fromUtc: from,
+      toUtc: to,
+    });
     if (!run) throw new AppError('conflict', 'The watch is running already; try again when it has finished.');
     res.status(201).json(run);
   });
@@ -61,7 +77,13 @@ export function watchSettingsRouter(settings: WatchSettingsService): Router {
     res.json(await settings.get(principalOf(req), validate(idParam, req.params).id));
   });
   router.put('/', async (req, res) => {
-    res.json(await settings.update(principalOf(req), validate(idParam, req.params).id, validate(settingsBody, req.body, 'Watch settings')));
+    res.json(
+      await settings.update(
+        principalOf(req),
+        validate(idParam, req.params).id,
+        validate(settingsBody, req.body, 'Watch settings'),
+      ),
+    );
   });
   return router;
 }

@@ -6,7 +6,11 @@ const H = 3_600_000;
 const LA = 'America/Los_Angeles';
 // 2026-07-15 11:30 UTC is 04:30 in Los Angeles (PDT), 21:30 in Sydney.
 const asOf = new Date(Date.UTC(2026, 6, 15, 11, 30));
-const state = (lastDataH: number, lastNight: string | null = null) => ({ lastDataUtc: new Date(asOf.getTime() - lastDataH * H), lastCheckedAsOfUtc: new Date(asOf.getTime() - 24 * H), lastNight });
+const state = (lastDataH: number, lastNight: string | null = null) => ({
+  lastDataUtc: new Date(asOf.getTime() - lastDataH * H),
+  lastCheckedAsOfUtc: new Date(asOf.getTime() - 24 * H),
+  lastNight,
+});
 
 describe('planSiteCheck', () => {
   it('when a site has data newer than its last check, then it is read from the look-back before the first new hour', () => {
@@ -20,20 +24,45 @@ describe('planSiteCheck', () => {
 
   it('when a meter has just been silent for longer than the silent-meter threshold, then it is checked once', () => {
     const latest = new Date(asOf.getTime() - 50 * H);
-    expect(planSiteCheck('manual', undefined, LA, { ...state(50), lastCheckedAsOfUtc: new Date(asOf.getTime() - 24 * H) }, latest, asOf, 4)).not.toBeNull();
-    expect(planSiteCheck('manual', undefined, LA, { ...state(50), lastCheckedAsOfUtc: new Date(asOf.getTime() - H) }, latest, asOf, 4)).toBeNull();
+    expect(
+      planSiteCheck(
+        'manual',
+        undefined,
+        LA,
+        { ...state(50), lastCheckedAsOfUtc: new Date(asOf.getTime() - 24 * H) },
+        latest,
+        asOf,
+        4,
+      ),
+    ).not.toBeNull();
+    expect(
+      planSiteCheck(
+        'manual',
+        undefined,
+        LA,
+        { ...state(50), lastCheckedAsOfUtc: new Date(asOf.getTime() - H) },
+        latest,
+        asOf,
+        4,
+      ),
+    ).toBeNull();
   });
 
   it('when the schedule ticks, then only sites whose local clock passed 04:00 and whose night is unchecked are due', () => {
     const latest = new Date(asOf.getTime() - H);
     expect(planSiteCheck('scheduled', undefined, LA, state(25), latest, asOf, 4)?.night).toBe('2026-07-15');
     expect(planSiteCheck('scheduled', undefined, LA, state(25, '2026-07-15'), latest, asOf, 4)).toBeNull();
-    expect(planSiteCheck('scheduled', undefined, 'Australia/Sydney', state(25), latest, asOf, 4)?.night).toBe('2026-07-15');
+    expect(planSiteCheck('scheduled', undefined, 'Australia/Sydney', state(25), latest, asOf, 4)?.night).toBe(
+      '2026-07-15',
+    );
     expect(planSiteCheck('scheduled', undefined, 'Pacific/Honolulu', state(25), latest, asOf, 4)).toBeNull(); // 01:30 there
   });
 
   it('when a range is re-checked, then it is read whatever was checked before', () => {
     const from = new Date(Date.UTC(2026, 0, 1));
-    expect(planSiteCheck('recheck', from, LA, state(1), null, asOf, 4)).toEqual({ fromUtc: new Date(from.getTime() - LOOK_BACK_MS), night: null });
+    expect(planSiteCheck('recheck', from, LA, state(1), null, asOf, 4)).toEqual({
+      fromUtc: new Date(from.getTime() - LOOK_BACK_MS),
+      night: null,
+    });
   });
 });

@@ -10,8 +10,14 @@ import { LOOK_BACK_MS } from './site-watch-input';
  * has passed the night hour, once per local date (`night` is that date, to be remembered).
  */
 export function planSiteCheck(
-  trigger: 'scheduled' | 'manual' | 'recheck', rangeFrom: Date | undefined, timeZone: string, state: SiteStateRow | undefined,
-  latest: Date | null, asOf: Date, localHour: number, overrides?: Record<string, number>,
+  trigger: 'scheduled' | 'manual' | 'recheck',
+  rangeFrom: Date | undefined,
+  timeZone: string,
+  state: SiteStateRow | undefined,
+  latest: Date | null,
+  asOf: Date,
+  localHour: number,
+  overrides?: Record<string, number>,
 ): { fromUtc: Date; night: string | null } | null {
   if (trigger === 'recheck') return { fromUtc: new Date((rangeFrom ?? asOf).getTime() - LOOK_BACK_MS), night: null };
   let night: string | null = null;
@@ -24,7 +30,10 @@ export function planSiteCheck(
   const hasNewData = latest !== null && (lastSeen === null || latest > lastSeen);
   const silentMs = resolveThresholds(overrides).silentHours * 3_600_000;
   const lastAsOf = state?.lastCheckedAsOfUtc ?? null;
-  const silenceJustLong = latest !== null && asOf.getTime() - latest.getTime() >= silentMs && (lastAsOf === null || lastAsOf.getTime() - latest.getTime() < silentMs);
+  const silenceJustLong =
+    latest !== null &&
+    asOf.getTime() - latest.getTime() >= silentMs &&
+    (lastAsOf === null || lastAsOf.getTime() - latest.getTime() < silentMs);
   if (!hasNewData && !silenceJustLong) return null;
   const firstNew = lastSeen && hasNewData ? lastSeen : asOf;
   return { fromUtc: new Date(Math.min(firstNew.getTime(), asOf.getTime()) - LOOK_BACK_MS), night };

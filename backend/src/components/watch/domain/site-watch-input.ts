@@ -18,7 +18,12 @@ export class SiteWatchInputLoader {
     private readonly rates: RateSchedulesService,
   ) {}
 
-  async load(site: WatchSiteRow, settings: SiteSettingsRow | undefined, fromUtc: Date, asOfUtc: Date): Promise<SiteWatchInput> {
+  async load(
+    site: WatchSiteRow,
+    settings: SiteSettingsRow | undefined,
+    fromUtc: Date,
+    asOfUtc: Date,
+  ): Promise<SiteWatchInput> {
     const [meterHours, longReads, runs, zones, schedules] = await Promise.all([
       this.data.meterHours(site.siteId, fromUtc, asOfUtc),
       this.data.longReadings(site.siteId, fromUtc, asOfUtc),
@@ -33,7 +38,9 @@ export class SiteWatchInputLoader {
       site: {
         siteId: String(site.siteId),
         timeZone: site.timeZone,
-        irrigationWindow: settings ? { startHour: settings.irrigationStartHour, endHour: settings.irrigationEndHour } : { ...DEFAULT_IRRIGATION_WINDOW },
+        irrigationWindow: settings
+          ? { startHour: settings.irrigationStartHour, endHour: settings.irrigationEndHour }
+          : { ...DEFAULT_IRRIGATION_WINDOW },
         monthlyBudgets: await this.monthlyBudgets(site, fromMonth, toMonth),
         ...(schedule ? { rateSchedule: rateOf(schedule) } : {}),
         thresholds: settings?.thresholds ?? {},
@@ -50,7 +57,11 @@ export class SiteWatchInputLoader {
    * The cached monthly budgets when the portfolio has filled them, else the budget engine itself. A site the
    * engine cannot budget (no hydrozones or weather station yet) simply gets no overspend check.
    */
-  private async monthlyBudgets(site: WatchSiteRow, fromMonth: string, toMonth: string): Promise<{ month: string; gallons: number }[]> {
+  private async monthlyBudgets(
+    site: WatchSiteRow,
+    fromMonth: string,
+    toMonth: string,
+  ): Promise<{ month: string; gallons: number }[]> {
     const cached = await this.data.cachedMonthlyBudgets(site.siteId, fromMonth, toMonth);
     if (cached.length > 0) return cached;
     try {
@@ -73,10 +84,23 @@ function byLocalMonth(reads: { startUtc: number; gallons: number }[], timeZone: 
 }
 
 function rateOf(s: RateSchedule): RateSchedule {
-  return { name: s.name, unit: s.unit, currency: s.currency, fixedChargePerPeriod: s.fixedChargePerPeriod, volumeCharge: s.volumeCharge };
+  return {
+    name: s.name,
+    unit: s.unit,
+    currency: s.currency,
+    fixedChargePerPeriod: s.fixedChargePerPeriod,
+    volumeCharge: s.volumeCharge,
+  };
 }
 
 /** The watch reads budgets as the owning organisation's administrator would; it never writes through this. */
 function watchPrincipal(site: WatchSiteRow): Principal {
-  return { userId: 0, email: 'watch@rillmark.invalid', displayName: 'Nightly watch', organisationId: site.organisationId, role: 'admin', memberships: [] };
+  return {
+    userId: 0,
+    email: 'watch@rillmark.invalid',
+    displayName: 'Nightly watch',
+    organisationId: site.organisationId,
+    role: 'admin',
+    memberships: [],
+  };
 }

@@ -52,13 +52,25 @@ export class WatchService {
   private async runLocked(request: WatchRunRequest): Promise<WatchRunDto> {
     const asOf = request.toUtc ?? new Date();
     const runId = await this.runs.start(request, asOf);
-    const counts = { sitesChecked: 0, sitesSkipped: 0, findings: 0, alertsRaised: 0, alertsUpdated: 0, alertsReopened: 0, mailsQueued: 0 };
+    const counts = {
+      sitesChecked: 0,
+      sitesSkipped: 0,
+      findings: 0,
+      alertsRaised: 0,
+      alertsUpdated: 0,
+      alertsReopened: 0,
+      mailsQueued: 0,
+    };
     const errors: { siteId: number; siteName: string; message: string }[] = [];
     const toMail: { alertId: number; reopened: boolean }[] = [];
     try {
       const sites = await this.data.sites(request.organisationId);
       const ids = sites.map((s) => s.siteId);
-      const [states, settings, latest] = await Promise.all([this.data.statesOf(ids), this.data.settingsOf(ids), this.data.latestDataOf(ids)]);
+      const [states, settings, latest] = await Promise.all([
+        this.data.statesOf(ids),
+        this.data.settingsOf(ids),
+        this.data.latestDataOf(ids),
+      ]);
       // Reading and detecting overlap across a few sites (database waits against CPU); filing goes one site at a
       // time, so two sites' alert inserts never contend for the same index gaps.
       let filing: Promise<void> = Promise.resolve();
@@ -69,7 +81,16 @@ export class WatchService {
           try {
             const state = states.get(current.siteId);
             const siteSettings = settings.get(current.siteId);
-            const plan = planSiteCheck(request.trigger, request.fromUtc, current.timeZone, state, latest.get(current.siteId) ?? null, asOf, this.localHour, siteSettings?.thresholds);
+            const plan = planSiteCheck(
+              request.trigger,
+              request.fromUtc,
+              current.timeZone,
+              state,
+              latest.get(current.siteId) ?? null,
+              asOf,
+              this.localHour,
+              siteSettings?.thresholds,
+            );
             if (!plan) {
               counts.sitesSkipped++;
               continue;
@@ -80,11 +101,16 @@ export class WatchService {
             const file = filing.then(() => this.file(findings, counts, toMail));
             filing = file.catch(() => undefined);
             await file;
-            if (request.trigger !== 'recheck') await this.data.saveState(current.siteId, latest.get(current.siteId) ?? null, asOf, plan.night);
+            if (request.trigger !== 'recheck')
+              await this.data.saveState(current.siteId, latest.get(current.siteId) ?? null, asOf, plan.night);
             counts.sitesChecked++;
           } catch (err) {
             // One bad site (corrupt settings, odd data) must not stop the others; the run records why.
-            errors.push({ siteId: current.siteId, siteName: current.name, message: (err as Error).message.slice(0, 500) });
+            errors.push({
+              siteId: current.siteId,
+              siteName: current.name,
+              message: (err as Error).message.slice(0, 500),
+            });
           }
         }
       };
@@ -98,12 +124,19 @@ export class WatchService {
       await this.runs.finish(runId, 'done', counts, errors);
     } catch (err) {
       logger.error('watch run failed', { error: (err as Error).message });
-      await this.runs.finish(runId, 'failed', counts, [...errors, { siteId: 0, siteName: '(run)', message: (err as Error).message.slice(0, 500) }]);
+      await this.runs.finish(runId, 'failed', counts, [
+        ...errors,
+        { siteId: 0, siteName: '(run)', message: (err as Error).message.slice(0, 500) },
+      ]);
     }
     return (await this.runs.get(runId))!;
   }
 
-  private async file(findings: Finding[], counts: { alertsRaised: number; alertsUpdated: number; alertsReopened: number }, toMail: { alertId: number; reopened: boolean }[]): Promise<void> {
+  private async file(
+    findings: Finding[],
+    counts: { alertsRaised: number; alertsUpdated: number; alertsReopened: number },
+    toMail: { alertId: number; reopened: boolean }[],
+  ): Promise<void> {
     if (findings.length === 0) return;
     const now = new Date();
     await this.db.transaction(async (em) => {
@@ -112,7 +145,8 @@ export class WatchService {
         if (outcome === 'raised') counts.alertsRaised++;
         if (outcome === 'updated') counts.alertsUpdated++;
         if (outcome === 'reopened') counts.alertsReopened++;
-        if ((outcome === 'raised' || outcome === 'reopened') && alertId) toMail.push({ alertId, reopened: outcome === 'reopened' });
+        if ((outcome === 'raised' || outcome === 'reopened') && alertId)
+          toMail.push({ alertId, reopened: outcome === 'reopened' });
       }
     });
   }

@@ -1,17 +1,31 @@
 import express, { Router } from 'express';
 import { z } from 'zod';
 import {
-  STATION_EXPOSURES, STATION_SOURCE_KINDS, WEATHER_STATION_LIMITS, WEATHER_STATION_SORTS, WEATHER_UPLOAD_FORMATS,
+  STATION_EXPOSURES,
+  STATION_SOURCE_KINDS,
+  WEATHER_STATION_LIMITS,
+  WEATHER_STATION_SORTS,
+  WEATHER_UPLOAD_FORMATS,
 } from '@shared/weather/weather-station-dto';
 import { principalOf } from '../../../platform/auth/guards';
 import { idParam, pageQuerySchema, validate } from '../../../platform/validation';
 import type { DailyWeatherService } from '../domain/daily-weather-service';
 import type { WeatherStationsService } from '../domain/weather-stations-service';
 
-export const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date YYYY-MM-DD').refine((d) => !Number.isNaN(Date.parse(d)) && new Date(Date.parse(d)).toISOString().startsWith(d), 'is not a real date');
+export const isoDate = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a date YYYY-MM-DD')
+  .refine(
+    (d) => !Number.isNaN(Date.parse(d)) && new Date(Date.parse(d)).toISOString().startsWith(d),
+    'is not a real date',
+  );
 
 const stationFields = {
-  name: z.string().trim().min(1, 'is required').max(WEATHER_STATION_LIMITS.nameMax, `must be at most ${WEATHER_STATION_LIMITS.nameMax} characters`),
+  name: z
+    .string()
+    .trim()
+    .min(1, 'is required')
+    .max(WEATHER_STATION_LIMITS.nameMax, `must be at most ${WEATHER_STATION_LIMITS.nameMax} characters`),
   latitude: z.number().min(-90, 'must be −90..90°').max(90, 'must be −90..90°'),
   longitude: z.number().min(-180, 'must be −180..180°').max(180, 'must be −180..180°'),
   // Lowest dry land to above the highest stations (same bounds as the ETo engine): common practice, no source.
@@ -20,18 +34,27 @@ const stationFields = {
   exposure: z.enum(STATION_EXPOSURES),
   sourceKind: z.enum(STATION_SOURCE_KINDS),
 };
-const createBody = z.strictObject({ ...stationFields, windHeightM: stationFields.windHeightM.default(2), exposure: stationFields.exposure.default('interior'), sourceKind: stationFields.sourceKind.default('upload') });
+const createBody = z.strictObject({
+  ...stationFields,
+  windHeightM: stationFields.windHeightM.default(2),
+  exposure: stationFields.exposure.default('interior'),
+  sourceKind: stationFields.sourceKind.default('upload'),
+});
 const patchBody = z.strictObject(stationFields).partial();
 const listQuery = pageQuerySchema(WEATHER_STATION_SORTS, 'name');
 const rangeQuery = z.object({ from: isoDate, to: isoDate });
-const uploadQuery = z.object({ format: z.enum(WEATHER_UPLOAD_FORMATS, { message: `must be one of ${WEATHER_UPLOAD_FORMATS.join(', ')}` }) });
+const uploadQuery = z.object({
+  format: z.enum(WEATHER_UPLOAD_FORMATS, { message: `must be one of ${WEATHER_UPLOAD_FORMATS.join(', ')}` }),
+});
 // Monthly totals: ETo up to 20 mm/d for 31 days; rain up to 3 m in a month (screening bounds, common practice, no source).
 const normalsBody = z.strictObject({
-  normals: z.array(z.strictObject({
-    month: z.number().int().min(1, 'must be 1–12').max(12, 'must be 1–12'),
-    etoMm: z.number().min(0, 'must be 0..620 mm').max(620, 'must be 0..620 mm'),
-    rainMm: z.number().min(0, 'must be 0..3000 mm').max(3000, 'must be 0..3000 mm'),
-  })),
+  normals: z.array(
+    z.strictObject({
+      month: z.number().int().min(1, 'must be 1–12').max(12, 'must be 1–12'),
+      etoMm: z.number().min(0, 'must be 0..620 mm').max(620, 'must be 0..620 mm'),
+      rainMm: z.number().min(0, 'must be 0..3000 mm').max(3000, 'must be 0..3000 mm'),
+    }),
+  ),
 });
 
 /** /api/weather-stations */
@@ -61,12 +84,16 @@ export function weatherStationsRouter(stations: WeatherStationsService, daily: D
   });
 
   // The file is the request body (text/csv), so no multipart parsing is needed for a few hundred kB.
-  router.post('/:id/daily', express.text({ type: ['text/csv', 'text/plain', 'application/csv'], limit: '5mb' }), async (req, res) => {
-    const { id } = validate(idParam, req.params);
-    const { format } = validate(uploadQuery, req.query, 'Query');
-    const csv = typeof req.body === 'string' ? req.body : '';
-    res.json(await daily.upload(principalOf(req), id, format, csv));
-  });
+  router.post(
+    '/:id/daily',
+    express.text({ type: ['text/csv', 'text/plain', 'application/csv'], limit: '5mb' }),
+    async (req, res) => {
+      const { id } = validate(idParam, req.params);
+      const { format } = validate(uploadQuery, req.query, 'Query');
+      const csv = typeof req.body === 'string' ? req.body : '';
+      res.json(await daily.upload(principalOf(req), id, format, csv));
+    },
+  );
 
   router.post('/:id/fetch', async (req, res) => {
     const { id } = validate(idParam, req.params);
@@ -94,7 +121,11 @@ export function siteWeatherStationRouter(stations: WeatherStationsService): Rout
   });
   router.put('/', async (req, res) => {
     const { id } = validate(idParam, req.params);
-    const { stationId } = validate(z.strictObject({ stationId: z.number().int().positive().nullable() }), req.body, 'Link');
+    const { stationId } = validate(
+      z.strictObject({ stationId: z.number().int().positive().nullable() }),
+      req.body,
+      'Link',
+    );
     res.json({ station: await stations.linkSite(principalOf(req), id, stationId) });
   });
   return router;

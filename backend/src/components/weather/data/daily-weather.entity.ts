@@ -29,7 +29,10 @@ export class DailyWeatherEntity {
   @Column({ type: 'double', name: 'rain_mm', nullable: true })
   rainMm!: number | null;
 
-  @Column({ type: 'enum', enum: ['measured', 'penman-monteith', 'penman-monteith-estimated-rs', 'hargreaves', 'normal-filled'] })
+  @Column({
+    type: 'enum',
+    enum: ['measured', 'penman-monteith', 'penman-monteith-estimated-rs', 'hargreaves', 'normal-filled'],
+  })
   method!: DailyWeatherMethod;
 
   /** The observations ETo was computed from (JSON), when known. */

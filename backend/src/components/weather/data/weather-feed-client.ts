@@ -25,23 +25,36 @@ const responseSchema = z.object({ days: z.array(daySchema) });
  * ops/weather/fake-weather-server.ts). Anything unexpected becomes one clear `upstream_unavailable` error.
  */
 export class WeatherFeedClient {
-  constructor(private readonly baseUrl: string, private readonly timeoutMs: number) {}
+  constructor(
+    private readonly baseUrl: string,
+    private readonly timeoutMs: number,
+  ) {}
 
   async dailyObservations(latitude: number, longitude: number, from: string, to: string): Promise<FeedDay[]> {
     const url = `${this.baseUrl}/daily-observations?${new URLSearchParams({ lat: String(latitude), lon: String(longitude), from, to })}`;
     let response: Response;
     try {
-      response = await fetch(url, { signal: AbortSignal.timeout(this.timeoutMs), headers: { accept: 'application/json' } });
+      response = await fetch(url, {
+        signal: AbortSignal.timeout(this.timeoutMs),
+        headers: { accept: 'application/json' },
+      });
     } catch (error) {
-      throw new AppError('upstream_unavailable', `The weather feed at ${this.baseUrl} did not answer (${(error as Error).message}).`);
+      throw new AppError(
+        'upstream_unavailable',
+        `The weather feed at ${this.baseUrl} did not answer (${(error as Error).message}).`,
+      );
     }
     const body: unknown = await response.json().catch(() => null);
     if (!response.ok) {
       const said = (body as { problem?: unknown } | null)?.problem;
-      throw new AppError('upstream_unavailable', `The weather feed refused the request (${response.status}${typeof said === 'string' ? `: ${said}` : ''}).`);
+      throw new AppError(
+        'upstream_unavailable',
+        `The weather feed refused the request (${response.status}${typeof said === 'string' ? `: ${said}` : ''}).`,
+      );
     }
     const parsed = responseSchema.safeParse(body);
-    if (!parsed.success) throw new AppError('upstream_unavailable', 'The weather feed answered in an unexpected shape.');
+    if (!parsed.success)
+      throw new AppError('upstream_unavailable', 'The weather feed answered in an unexpected shape.');
     return parsed.data.days.map((d) => ({
       rainMm: d.rainMm ?? null,
       observation: {

@@ -1,5 +1,11 @@
 import type { DataSource, EntityManager, SelectQueryBuilder } from 'typeorm';
-import type { DailyWeatherMethod, MonthlyNormalDto, StationExposure, StationSourceKind, WeatherStationSort } from '@shared/weather/weather-station-dto';
+import type {
+  DailyWeatherMethod,
+  MonthlyNormalDto,
+  StationExposure,
+  StationSourceKind,
+  WeatherStationSort,
+} from '@shared/weather/weather-station-dto';
 import { OrganisationEntity } from '../../organisations/data/organisation.entity';
 import { SiteEntity } from '../../sites/data/site.entity';
 import { escapeLike } from '../../users/data/users-repository';
@@ -23,7 +29,10 @@ export interface StationRecord {
   lastDate: string | null;
 }
 
-export type StationFields = Omit<StationRecord, 'id' | 'organisationId' | 'organisationName' | 'dayCount' | 'firstDate' | 'lastDate'>;
+export type StationFields = Omit<
+  StationRecord,
+  'id' | 'organisationId' | 'organisationName' | 'dayCount' | 'firstDate' | 'lastDate'
+>;
 
 export interface DailyRecord {
   date: string;
@@ -37,7 +46,11 @@ export interface DayToStore extends DailyRecord {
   observations: string | null;
 }
 
-const SORT_COLUMNS: Record<WeatherStationSort, string> = { name: 'ws.name', organisationName: 'o.name', lastDate: 'lastDate' };
+const SORT_COLUMNS: Record<WeatherStationSort, string> = {
+  name: 'ws.name',
+  organisationName: 'o.name',
+  lastDate: 'lastDate',
+};
 
 /**
  * Stations, their daily weather and normals. A station is visible to an organisation that owns it or that sees
@@ -60,8 +73,15 @@ export class WeatherRepository {
 
   private withColumns(qb: SelectQueryBuilder<WeatherStationEntity>): SelectQueryBuilder<WeatherStationEntity> {
     return qb.select([
-      'ws.id AS id', 'ws.organisation_id AS organisationId', 'o.name AS organisationName', 'ws.name AS name', 'ws.latitude AS latitude',
-      'ws.longitude AS longitude', 'ws.elevation_m AS elevationM', 'ws.wind_height_m AS windHeightM', 'ws.exposure AS exposure',
+      'ws.id AS id',
+      'ws.organisation_id AS organisationId',
+      'o.name AS organisationName',
+      'ws.name AS name',
+      'ws.latitude AS latitude',
+      'ws.longitude AS longitude',
+      'ws.elevation_m AS elevationM',
+      'ws.wind_height_m AS windHeightM',
+      'ws.exposure AS exposure',
       'ws.source_kind AS sourceKind',
       '(SELECT COUNT(*) FROM daily_weather d WHERE d.station_id = ws.id) AS dayCount',
       '(SELECT MIN(d.date) FROM daily_weather d WHERE d.station_id = ws.id) AS firstDate',
@@ -69,7 +89,10 @@ export class WeatherRepository {
     ]);
   }
 
-  async list(organisationId: number, f: { page: number; pageSize: number; sort: WeatherStationSort; dir: 'asc' | 'desc'; q?: string }) {
+  async list(
+    organisationId: number,
+    f: { page: number; pageSize: number; sort: WeatherStationSort; dir: 'asc' | 'desc'; q?: string },
+  ) {
     const qb = this.visible(organisationId);
     if (f.q) qb.andWhere('ws.name LIKE :q', { q: `%${escapeLike(f.q)}%` });
     const total = await qb.getCount();
@@ -83,18 +106,25 @@ export class WeatherRepository {
   }
 
   async findVisible(organisationId: number, stationId: number): Promise<StationRecord | null> {
-    const raw = await this.withColumns(this.visible(organisationId).andWhere('ws.id = :stationId', { stationId })).getRawOne();
+    const raw = await this.withColumns(
+      this.visible(organisationId).andWhere('ws.id = :stationId', { stationId }),
+    ).getRawOne();
     return raw ? toRecord(raw) : null;
   }
 
   async nameTaken(organisationId: number, name: string, exceptId?: number): Promise<boolean> {
-    const qb = this.db.getRepository(WeatherStationEntity).createQueryBuilder('ws').where('ws.organisation_id = :organisationId AND ws.name = :name', { organisationId, name });
+    const qb = this.db
+      .getRepository(WeatherStationEntity)
+      .createQueryBuilder('ws')
+      .where('ws.organisation_id = :organisationId AND ws.name = :name', { organisationId, name });
     if (exceptId) qb.andWhere('ws.id <> :exceptId', { exceptId });
     return (await qb.getCount()) > 0;
   }
 
   async insert(em: EntityManager, organisationId: number, fields: StationFields): Promise<number> {
-    return Number((await em.getRepository(WeatherStationEntity).insert({ organisationId, ...fields })).identifiers[0]!['id']);
+    return Number(
+      (await em.getRepository(WeatherStationEntity).insert({ organisationId, ...fields })).identifiers[0]!['id'],
+    );
   }
 
   async update(em: EntityManager, stationId: number, fields: Partial<StationFields>): Promise<void> {
@@ -113,7 +143,11 @@ export class WeatherRepository {
   }
 
   /** Inserts or replaces days by (station, date); returns how many were new, changed and already identical. */
-  async upsertDays(em: EntityManager, stationId: number, days: DayToStore[]): Promise<{ inserted: number; updated: number; unchanged: number }> {
+  async upsertDays(
+    em: EntityManager,
+    stationId: number,
+    days: DayToStore[],
+  ): Promise<{ inserted: number; updated: number; unchanged: number }> {
     const counts = { inserted: 0, updated: 0, unchanged: 0 };
     if (!days.length) return counts;
     await this.touchStation(em, stationId);
@@ -121,7 +155,10 @@ export class WeatherRepository {
     const dates = days.map((d) => d.date);
     const existing = new Map<string, DailyWeatherEntity>();
     for (let i = 0; i < dates.length; i += 1000) {
-      const found = await repo.createQueryBuilder('d').where('d.station_id = :stationId AND d.date IN (:...dates)', { stationId, dates: dates.slice(i, i + 1000) }).getMany();
+      const found = await repo
+        .createQueryBuilder('d')
+        .where('d.station_id = :stationId AND d.date IN (:...dates)', { stationId, dates: dates.slice(i, i + 1000) })
+        .getMany();
       for (const row of found) existing.set(row.date, row);
     }
     const toInsert: Partial<DailyWeatherEntity>[] = [];
@@ -130,7 +167,13 @@ export class WeatherRepository {
       if (!before) {
         toInsert.push({ stationId, ...day });
         counts.inserted++;
-      } else if (before.etoMm === day.etoMm && before.rainMm === day.rainMm && before.method === day.method && before.source === day.source && before.observations === day.observations) {
+      } else if (
+        before.etoMm === day.etoMm &&
+        before.rainMm === day.rainMm &&
+        before.method === day.method &&
+        before.source === day.source &&
+        before.observations === day.observations
+      ) {
         counts.unchanged++;
       } else {
         await repo.update({ id: before.id }, { ...day, updatedAt: new Date() });
@@ -142,7 +185,9 @@ export class WeatherRepository {
   }
 
   async normals(stationId: number): Promise<MonthlyNormalDto[]> {
-    const rows = await this.db.getRepository(MonthlyWeatherNormalEntity).find({ where: { stationId }, order: { month: 'ASC' } });
+    const rows = await this.db
+      .getRepository(MonthlyWeatherNormalEntity)
+      .find({ where: { stationId }, order: { month: 'ASC' } });
     return rows.map((r) => ({ month: r.month, etoMm: r.etoMm, rainMm: r.rainMm }));
   }
 
@@ -154,11 +199,14 @@ export class WeatherRepository {
   async replaceNormals(em: EntityManager, stationId: number, normals: MonthlyNormalDto[]): Promise<void> {
     await this.touchStation(em, stationId);
     await em.getRepository(MonthlyWeatherNormalEntity).delete({ stationId });
-    if (normals.length) await em.getRepository(MonthlyWeatherNormalEntity).insert(normals.map((n) => ({ stationId, ...n })));
+    if (normals.length)
+      await em.getRepository(MonthlyWeatherNormalEntity).insert(normals.map((n) => ({ stationId, ...n })));
   }
 
   async stationIdOfSite(siteId: number): Promise<number | null> {
-    const site = await this.db.getRepository(SiteEntity).findOne({ where: { id: siteId }, select: { id: true, weatherStationId: true } });
+    const site = await this.db
+      .getRepository(SiteEntity)
+      .findOne({ where: { id: siteId }, select: { id: true, weatherStationId: true } });
     return site?.weatherStationId ?? null;
   }
 

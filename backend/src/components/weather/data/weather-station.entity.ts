@@ -1,5 +1,19 @@
-import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
-import { STATION_EXPOSURES, STATION_SOURCE_KINDS, type StationExposure, type StationSourceKind } from '@shared/weather/weather-station-dto';
+import {
+  Column,
+  CreateDateColumn,
+  Entity,
+  Index,
+  JoinColumn,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  UpdateDateColumn,
+} from 'typeorm';
+import {
+  STATION_EXPOSURES,
+  STATION_SOURCE_KINDS,
+  type StationExposure,
+  type StationSourceKind,
+} from '@shared/weather/weather-station-dto';
 import { OrganisationEntity } from '../../organisations/data/organisation.entity';
 
 /** A weather station owned by one organisation; any number of sites may take their weather from it. */

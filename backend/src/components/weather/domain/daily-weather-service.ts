@@ -6,7 +6,12 @@ import { validateEto } from '@shared/weather/eto-bounds';
 import { fillWeatherGaps, type FilledWeatherDay } from '@shared/weather/weather-gap-filling';
 import { WeatherInputError } from '@shared/weather/weather-input-error';
 import {
-  WEATHER_STATION_LIMITS, type DailyWeatherDto, type DailyWeatherMethod, type WeatherImportReport, type WeatherSeriesDto, type WeatherUploadFormat,
+  WEATHER_STATION_LIMITS,
+  type DailyWeatherDto,
+  type DailyWeatherMethod,
+  type WeatherImportReport,
+  type WeatherSeriesDto,
+  type WeatherUploadFormat,
 } from '@shared/weather/weather-station-dto';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
@@ -34,11 +39,20 @@ export class DailyWeatherService {
     private readonly audit: AuditRepository,
   ) {}
 
-  async upload(principal: Principal, stationId: number, format: WeatherUploadFormat, csv: string): Promise<WeatherImportReport> {
+  async upload(
+    principal: Principal,
+    stationId: number,
+    format: WeatherUploadFormat,
+    csv: string,
+  ): Promise<WeatherImportReport> {
     const station = await this.stations.requireWritable(principal, stationId);
     let records: string[][];
     try {
-      records = parse(csv.replace(/^\uFEFF/, ''), { skip_empty_lines: true, relax_column_count: true, trim: true }) as string[][];
+      records = parse(csv.replace(/^\uFEFF/, ''), {
+        skip_empty_lines: true,
+        relax_column_count: true,
+        trim: true,
+      }) as string[][];
     } catch (error) {
       throw AppError.invalid('file', `is not readable CSV (${(error as Error).message})`);
     }
@@ -61,17 +75,37 @@ export class DailyWeatherService {
         const result = computeDailyEto(observation, site);
         const check = validateEto(result.etoMm);
         if (!check.ok) throw new RangeError(check.message);
-        days.push({ row: index + 1, date: observation.date!, etoMm: result.etoMm, rainMm, method: result.method, observations: observation, notes: result.notes });
+        days.push({
+          row: index + 1,
+          date: observation.date!,
+          etoMm: result.etoMm,
+          rainMm,
+          method: result.method,
+          observations: observation,
+          notes: result.notes,
+        });
       } catch (error) {
-        const message = error instanceof WeatherInputError ? error.issues.map((i) => `${i.field}: ${i.message}`).join('; ') : (error as Error).message;
+        const message =
+          error instanceof WeatherInputError
+            ? error.issues.map((i) => `${i.field}: ${i.message}`).join('; ')
+            : (error as Error).message;
         issues.push({ row: index + 1, field: observation.date ?? 'date', message });
       }
     });
-    if (issues.length) throw new AppError('upstream_unavailable', `The weather feed sent ${issues.length} day(s) that fail the physical checks; nothing was stored.`, issues.map((i) => ({ field: `day ${i.row} (${i.field})`, message: i.message })));
+    if (issues.length)
+      throw new AppError(
+        'upstream_unavailable',
+        `The weather feed sent ${issues.length} day(s) that fail the physical checks; nothing was stored.`,
+        issues.map((i) => ({ field: `day ${i.row} (${i.field})`, message: i.message })),
+      );
     const inRange = days.filter((d) => d.date >= from && d.date <= to);
     const report = await this.store(principal, station, inRange, 'feed', 'fetch');
     // Days the feed left out inside the requested range are gaps too, not only those between returned days.
-    report.gaps = gapsWithin(from, to, inRange.map((d) => d.date));
+    report.gaps = gapsWithin(
+      from,
+      to,
+      inRange.map((d) => d.date),
+    );
     return report;
   }
 
@@ -92,21 +126,41 @@ export class DailyWeatherService {
       if (!haveNormal.has(month)) {
         const complete = monthStored.filter((d) => d.etoMm !== null && d.rainMm !== null);
         if (complete.length < daysBetween(monthFrom, monthTo)) missingNormals.add(month);
-        days.push(...complete.map((d) => ({ date: d.date, etoMm: d.etoMm!, rainMm: d.rainMm!, method: d.method, source: d.source, filled: false, filledFields: [] })));
+        days.push(
+          ...complete.map((d) => ({
+            date: d.date,
+            etoMm: d.etoMm!,
+            rainMm: d.rainMm!,
+            method: d.method,
+            source: d.source,
+            filled: false,
+            filledFields: [],
+          })),
+        );
         continue;
       }
       const filled = fillWeatherGaps(monthStored, monthFrom, monthTo, normals);
       for (const day of filled.days) {
         const record = byDate.get(day.date);
         days.push({
-          date: day.date, etoMm: day.etoMm, rainMm: day.rainMm,
+          date: day.date,
+          etoMm: day.etoMm,
+          rainMm: day.rainMm,
           method: record && !day.filledFields.includes('eto') ? record.method : 'normal-filled',
           source: record ? record.source : 'normals',
-          filled: day.filled, filledFields: day.filledFields,
+          filled: day.filled,
+          filledFields: day.filledFields,
         });
       }
     }
-    return { stationId: station.id, from, to, days, filledDays: days.filter((d) => d.filled).length, missingNormals: [...missingNormals].sort((a, b) => a - b) };
+    return {
+      stationId: station.id,
+      from,
+      to,
+      days,
+      filledDays: days.filter((d) => d.filled).length,
+      missingNormals: [...missingNormals].sort((a, b) => a - b),
+    };
   }
 
   /**
@@ -120,20 +174,47 @@ export class DailyWeatherService {
     try {
       filled = fillWeatherGaps(stored, from, to, normals);
     } catch (error) {
-      throw new AppError('validation_failed', `Weather for station "${station.name}" is incomplete: ${(error as Error).message}. Upload or fetch the missing days, or enter the station's monthly normals.`, [{ field: 'weather', message: (error as Error).message }]);
+      throw new AppError(
+        'validation_failed',
+        `Weather for station "${station.name}" is incomplete: ${(error as Error).message}. Upload or fetch the missing days, or enter the station's monthly normals.`,
+        [{ field: 'weather', message: (error as Error).message }],
+      );
     }
     const method = new Map(stored.map((d) => [d.date, d.method]));
-    return { station, days: filled.days.map((d) => ({ ...d, method: d.filledFields.includes('eto') ? 'normal-filled' : (method.get(d.date) ?? 'normal-filled') })) };
+    return {
+      station,
+      days: filled.days.map((d) => ({
+        ...d,
+        method: d.filledFields.includes('eto') ? 'normal-filled' : (method.get(d.date) ?? 'normal-filled'),
+      })),
+    };
   }
 
-  private async store(principal: Principal, station: StationRecord, days: ImportedDay[], source: 'upload' | 'feed', action: string): Promise<WeatherImportReport> {
+  private async store(
+    principal: Principal,
+    station: StationRecord,
+    days: ImportedDay[],
+    source: 'upload' | 'feed',
+    action: string,
+  ): Promise<WeatherImportReport> {
     const toStore: DayToStore[] = days.map((d) => ({
-      date: d.date, etoMm: d.etoMm, rainMm: d.rainMm, method: d.method, source,
+      date: d.date,
+      etoMm: d.etoMm,
+      rainMm: d.rainMm,
+      method: d.method,
+      source,
       observations: d.observations ? JSON.stringify(d.observations) : null,
     }));
     const counts = await this.db.transaction(async (em) => {
       const result = await this.weather.upsertDays(em, station.id, toStore);
-      await this.audit.record(em, { userId: principal.userId, organisationId: station.organisationId, entity: 'weather_station', entityId: station.id, action, changes: { rows: days.length, ...result } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: station.organisationId,
+        entity: 'weather_station',
+        entityId: station.id,
+        action,
+        changes: { rows: days.length, ...result },
+      });
       return result;
     });
     const dates = days.map((d) => d.date).sort();
@@ -141,8 +222,19 @@ export class DailyWeatherService {
     for (const d of days) methods[d.method] = (methods[d.method] ?? 0) + 1;
     const blanks = days.filter((d) => d.etoMm === null || d.rainMm === null).length;
     const notes = [...new Set(days.flatMap((d) => d.notes))];
-    if (blanks) notes.unshift(`${blanks} day(s) have a blank ETo or rain value; budgets fill them from the monthly normals and flag them.`);
-    return { rows: days.length, ...counts, from: dates[0] ?? null, to: dates[dates.length - 1] ?? null, gaps: findGaps(dates), methods, notes };
+    if (blanks)
+      notes.unshift(
+        `${blanks} day(s) have a blank ETo or rain value; budgets fill them from the monthly normals and flag them.`,
+      );
+    return {
+      rows: days.length,
+      ...counts,
+      from: dates[0] ?? null,
+      to: dates[dates.length - 1] ?? null,
+      gaps: findGaps(dates),
+      methods,
+      notes,
+    };
   }
 }
 
@@ -162,7 +254,8 @@ function daysBetween(from: string, to: string): number {
 
 function checkRange(from: string, to: string): void {
   if (to < from) throw AppError.invalid('to', `${to} is before ${from}`);
-  if (daysBetween(from, to) > WEATHER_STATION_LIMITS.rangeMaxDays) throw AppError.invalid('to', `at most ${WEATHER_STATION_LIMITS.rangeMaxDays} days at a time`);
+  if (daysBetween(from, to) > WEATHER_STATION_LIMITS.rangeMaxDays)
+    throw AppError.invalid('to', `at most ${WEATHER_STATION_LIMITS.rangeMaxDays} days at a time`);
 }
 
 /** Missing dates from `from` to `to` inclusive, as runs. */

@@ -1,7 +1,12 @@
 import type { DataSource } from 'typeorm';
 import type { Page } from '@shared/api/page';
 import type { WeatherStationSite } from '@shared/weather/daily-eto';
-import type { MonthlyNormalDto, WeatherStationDto, WeatherStationInput, WeatherStationSort } from '@shared/weather/weather-station-dto';
+import type {
+  MonthlyNormalDto,
+  WeatherStationDto,
+  WeatherStationInput,
+  WeatherStationSort,
+} from '@shared/weather/weather-station-dto';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
 import { diff, type AuditRepository } from '../../audit/data/audit-repository';
@@ -21,7 +26,10 @@ export class WeatherStationsService {
     private readonly audit: AuditRepository,
   ) {}
 
-  async list(principal: Principal, filter: { page: number; pageSize: number; sort: WeatherStationSort; dir: 'asc' | 'desc'; q?: string }): Promise<Page<WeatherStationDto>> {
+  async list(
+    principal: Principal,
+    filter: { page: number; pageSize: number; sort: WeatherStationSort; dir: 'asc' | 'desc'; q?: string },
+  ): Promise<Page<WeatherStationDto>> {
     const { rows, total } = await this.weather.list(principal.organisationId, filter);
     return { items: rows.map((r) => toDto(principal, r)), total, page: filter.page, pageSize: filter.pageSize };
   }
@@ -38,7 +46,10 @@ export class WeatherStationsService {
 
   async requireWritable(principal: Principal, stationId: number): Promise<StationRecord> {
     const station = await this.requireVisible(principal, stationId);
-    if (!mayWrite(principal, station)) throw AppError.forbidden('Only the owning organisation\'s administrators, managers and contractors can change this station.');
+    if (!mayWrite(principal, station))
+      throw AppError.forbidden(
+        "Only the owning organisation's administrators, managers and contractors can change this station.",
+      );
     return station;
   }
 
@@ -47,20 +58,39 @@ export class WeatherStationsService {
     await this.assertNameFree(principal.organisationId, input.name);
     const id = await this.db.transaction(async (em) => {
       const stationId = await this.weather.insert(em, principal.organisationId, input);
-      await this.audit.record(em, { userId: principal.userId, organisationId: principal.organisationId, entity: 'weather_station', entityId: stationId, action: 'create', changes: input });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: principal.organisationId,
+        entity: 'weather_station',
+        entityId: stationId,
+        action: 'create',
+        changes: input,
+      });
       return stationId;
     });
     return this.get(principal, id);
   }
 
-  async update(principal: Principal, stationId: number, patch: Partial<WeatherStationInput>): Promise<WeatherStationDto> {
+  async update(
+    principal: Principal,
+    stationId: number,
+    patch: Partial<WeatherStationInput>,
+  ): Promise<WeatherStationDto> {
     const before = await this.requireWritable(principal, stationId);
-    if (patch.name !== undefined && patch.name !== before.name) await this.assertNameFree(before.organisationId, patch.name, stationId);
+    if (patch.name !== undefined && patch.name !== before.name)
+      await this.assertNameFree(before.organisationId, patch.name, stationId);
     const changes = diff(before, patch);
     if (Object.keys(changes).length) {
       await this.db.transaction(async (em) => {
         await this.weather.update(em, stationId, patch);
-        await this.audit.record(em, { userId: principal.userId, organisationId: before.organisationId, entity: 'weather_station', entityId: stationId, action: 'update', changes });
+        await this.audit.record(em, {
+          userId: principal.userId,
+          organisationId: before.organisationId,
+          entity: 'weather_station',
+          entityId: stationId,
+          action: 'update',
+          changes,
+        });
       });
     }
     return this.get(principal, stationId);
@@ -71,7 +101,11 @@ export class WeatherStationsService {
     return this.weather.normals(stationId);
   }
 
-  async replaceNormals(principal: Principal, stationId: number, normals: MonthlyNormalDto[]): Promise<MonthlyNormalDto[]> {
+  async replaceNormals(
+    principal: Principal,
+    stationId: number,
+    normals: MonthlyNormalDto[],
+  ): Promise<MonthlyNormalDto[]> {
     const station = await this.requireWritable(principal, stationId);
     const months = normals.map((n) => n.month).sort((a, b) => a - b);
     if (months.length !== 12 || months.some((m, i) => m !== i + 1)) {
@@ -79,7 +113,14 @@ export class WeatherStationsService {
     }
     await this.db.transaction(async (em) => {
       await this.weather.replaceNormals(em, stationId, normals);
-      await this.audit.record(em, { userId: principal.userId, organisationId: station.organisationId, entity: 'weather_station', entityId: stationId, action: 'normals', changes: normals });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: station.organisationId,
+        entity: 'weather_station',
+        entityId: stationId,
+        action: 'normals',
+        changes: normals,
+      });
     });
     return this.weather.normals(stationId);
   }
@@ -101,14 +142,23 @@ export class WeatherStationsService {
     }
     await this.db.transaction(async (em) => {
       await this.weather.linkSite(em, siteId, stationId);
-      await this.audit.record(em, { userId: principal.userId, organisationId: site.organisationId, entity: 'site', entityId: siteId, action: 'weather_station', changes: { stationId } });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'site',
+        entityId: siteId,
+        action: 'weather_station',
+        changes: { stationId },
+      });
     });
     return this.stationOfSite(principal, siteId);
   }
 
   private async assertNameFree(organisationId: number, name: string, exceptId?: number): Promise<void> {
     if (await this.weather.nameTaken(organisationId, name, exceptId)) {
-      throw new AppError('conflict', `A weather station named "${name}" already exists in this organisation.`, [{ field: 'name', message: 'is already used by another station' }]);
+      throw new AppError('conflict', `A weather station named "${name}" already exists in this organisation.`, [
+        { field: 'name', message: 'is already used by another station' },
+      ]);
     }
   }
 }
@@ -119,7 +169,12 @@ function mayWrite(principal: Principal, station: StationRecord): boolean {
 
 /** What the ETo equations need to know about a station. */
 export function stationSite(station: StationRecord): WeatherStationSite {
-  return { latitudeDeg: station.latitude, elevationM: station.elevationM, windHeightM: station.windHeightM, exposure: station.exposure };
+  return {
+    latitudeDeg: station.latitude,
+    elevationM: station.elevationM,
+    windHeightM: station.windHeightM,
+    exposure: station.exposure,
+  };
 }
 
 function toDto(principal: Principal, r: StationRecord): WeatherStationDto {

@@ -10,11 +10,34 @@ import { AlertDetail } from './alert-detail';
 // Invented site and numbers only.
 function alert(extra: Partial<AlertDetailDto> = {}): AlertDetailDto {
   return {
-    id: 7, siteId: 3, siteName: 'Bramblecourt Commons', timeZone: 'America/Denver', kind: 'leak', subKind: 'continuous-flow', zoneId: null, zoneName: null,
-    periodStartUtc: '2026-11-10T07:00:00Z', periodEndUtc: '2026-11-12T07:00:00Z', severity: 'act-soon', status: 'open', ongoing: false,
-    waterLostGal: 1234.4, moneyLost: { amount: 18.5, currency: 'USD' }, firstDetectedAt: '2026-11-11T07:00:00Z', lastSeenAt: '2026-11-12T07:00:00Z', reopenCount: 0,
-    evidence: { numbers: { hoursFlowing: 48, lowestHourGal: 25.7 }, series: [], suspectZoneIds: [], detectedAtUtc: '2026-11-11T07:00:00Z' },
-    explanation: 'The meter never stopped for 48 hours in a row.', events: [{ id: 1, action: 'opened', note: null, at: '2026-11-12T09:00:00Z', userId: null, userName: 'Nightly watch' }],
+    id: 7,
+    siteId: 3,
+    siteName: 'Bramblecourt Commons',
+    timeZone: 'America/Denver',
+    kind: 'leak',
+    subKind: 'continuous-flow',
+    zoneId: null,
+    zoneName: null,
+    periodStartUtc: '2026-11-10T07:00:00Z',
+    periodEndUtc: '2026-11-12T07:00:00Z',
+    severity: 'act-soon',
+    status: 'open',
+    ongoing: false,
+    waterLostGal: 1234.4,
+    moneyLost: { amount: 18.5, currency: 'USD' },
+    firstDetectedAt: '2026-11-11T07:00:00Z',
+    lastSeenAt: '2026-11-12T07:00:00Z',
+    reopenCount: 0,
+    evidence: {
+      numbers: { hoursFlowing: 48, lowestHourGal: 25.7 },
+      series: [],
+      suspectZoneIds: [],
+      detectedAtUtc: '2026-11-11T07:00:00Z',
+    },
+    explanation: 'The meter never stopped for 48 hours in a row.',
+    events: [
+      { id: 1, action: 'opened', note: null, at: '2026-11-12T09:00:00Z', userId: null, userName: 'Nightly watch' },
+    ],
     canAct: true,
     ...extra,
   };
@@ -22,7 +45,10 @@ function alert(extra: Partial<AlertDetailDto> = {}): AlertDetailDto {
 
 describe('AlertDetail', () => {
   async function setUp(dto: AlertDetailDto) {
-    TestBed.configureTestingModule({ imports: [AlertDetail], providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])] });
+    TestBed.configureTestingModule({
+      imports: [AlertDetail],
+      providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])],
+    });
     const fixture = TestBed.createComponent(AlertDetail);
     fixture.componentRef.setInput('id', '7');
     const http = TestBed.inject(HttpTestingController);
@@ -46,7 +72,9 @@ describe('AlertDetail', () => {
 
   it('hides every action from a read-only user', async () => {
     const { loader } = await setUp(alert({ canAct: false }));
-    expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /Acknowledge|Mark resolved|Add note/ }))).toHaveLength(0);
+    expect(
+      await loader.getAllHarnesses(MatButtonHarness.with({ text: /Acknowledge|Mark resolved|Add note/ })),
+    ).toHaveLength(0);
   });
 
   it('sends the note with an acknowledgement and shows the new status', async () => {
@@ -55,7 +83,22 @@ describe('AlertDetail', () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Acknowledge' }))).click();
     const req = await vi.waitFor(() => http.expectOne('/api/alerts/7/acknowledge'));
     expect(req.request.body).toEqual({ note: 'Crew booked' });
-    req.flush(alert({ status: 'acknowledged', events: [...alert().events, { id: 2, action: 'acknowledged', note: 'Crew booked', at: '2026-11-12T10:00:00Z', userId: 5, userName: 'Rowan Test' }] }));
+    req.flush(
+      alert({
+        status: 'acknowledged',
+        events: [
+          ...alert().events,
+          {
+            id: 2,
+            action: 'acknowledged',
+            note: 'Crew booked',
+            at: '2026-11-12T10:00:00Z',
+            userId: 5,
+            userName: 'Rowan Test',
+          },
+        ],
+      }),
+    );
     await fixture.whenStable();
     expect((fixture.nativeElement as HTMLElement).textContent).toContain('status: acknowledged');
     expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: 'Acknowledge' }))).toHaveLength(0);

@@ -18,7 +18,16 @@ import { gallons, money, siteTime } from '../site-time';
 @Component({
   selector: 'rm-alert-detail',
   host: { class: 'rm-page' },
-  imports: [RouterLink, FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatIconModule, MatProgressBarModule, EvidenceChart],
+  imports: [
+    RouterLink,
+    FormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatIconModule,
+    MatProgressBarModule,
+    EvidenceChart,
+  ],
   templateUrl: './alert-detail.html',
   styleUrl: './alert-detail.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -28,7 +37,10 @@ export class AlertDetail {
   /** Route parameter. */
   readonly id = input.required<string>();
 
-  protected readonly loaded = rxResource({ params: () => Number(this.id()), stream: ({ params }) => this.api.get(params) });
+  protected readonly loaded = rxResource({
+    params: () => Number(this.id()),
+    stream: ({ params }) => this.api.get(params),
+  });
   /** The latest copy: an action's response replaces the loaded one. */
   private readonly updated = signal<AlertDetailDto | null>(null);
   protected readonly alert = computed(() => {

@@ -8,9 +8,22 @@ const KNOWN: Record<string, { label: string; unit: string }> = {
 function split(name: string): { label: string; unit: string } {
   if (KNOWN[name]) return KNOWN[name];
   // Detector names end in their unit (…Gal, …Gph, …Minutes, …Ratio); the rest of the name reads as words.
-  const units: [RegExp, string][] = [[/Gal$/, 'gal'], [/Gph$/, 'gal/h'], [/Gpm$/, 'gpm'], [/Minutes$/, 'min'], [/Hours$/, 'h'], [/Days$/, 'days'], [/Ratio$/, '×'], [/Share$/, 'share']];
+  const units: [RegExp, string][] = [
+    [/Gal$/, 'gal'],
+    [/Gph$/, 'gal/h'],
+    [/Gpm$/, 'gpm'],
+    [/Minutes$/, 'min'],
+    [/Hours$/, 'h'],
+    [/Days$/, 'days'],
+    [/Ratio$/, '×'],
+    [/Share$/, 'share'],
+  ];
   const found = units.find(([re]) => re.test(name));
-  const words = name.replace(found?.[0] ?? /$^/, '').replace(/([A-Z])/g, ' $1').toLowerCase().trim();
+  const words = name
+    .replace(found?.[0] ?? /$^/, '')
+    .replace(/([A-Z])/g, ' $1')
+    .toLowerCase()
+    .trim();
   return { label: words.charAt(0).toUpperCase() + words.slice(1), unit: found?.[1] ?? '' };
 }
 

@@ -9,7 +9,13 @@ import { MatSelectModule } from '@angular/material/select';
 import type { Sort } from '@angular/material/sort';
 import { RouterLink } from '@angular/router';
 import type { Page } from '@shared/api/page';
-import { ALERT_STATUSES, KIND_LABELS, type AlertSort, type AlertStatus, type AlertSummaryDto } from '@shared/alerts/alert-dto';
+import {
+  ALERT_STATUSES,
+  KIND_LABELS,
+  type AlertSort,
+  type AlertStatus,
+  type AlertSummaryDto,
+} from '@shared/alerts/alert-dto';
 import { FINDING_KINDS, type FindingKind } from '@shared/alerts/finding';
 import { AuthStore } from '../../core/auth/auth-store';
 import { describeApiError } from '../../core/http/api-error';
@@ -21,7 +27,16 @@ import { AlertsApi, type AlertQuery } from '../alerts-api';
 @Component({
   selector: 'rm-alert-inbox',
   host: { class: 'rm-page' },
-  imports: [RouterLink, AlertTable, MatPaginatorModule, MatProgressBarModule, MatFormFieldModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [
+    RouterLink,
+    AlertTable,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatFormFieldModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatIconModule,
+  ],
   templateUrl: './alert-inbox.html',
   styleUrl: './alert-inbox.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -46,10 +61,18 @@ export class AlertInbox {
   protected readonly pageSize = signal(25);
 
   private readonly query = computed<AlertQuery>(() => ({
-    status: this.status(), kind: this.kind(), siteId: this.siteId(), page: this.pageIndex(), pageSize: this.pageSize(), sort: this.sort(), dir: this.dir(),
+    status: this.status(),
+    kind: this.kind(),
+    siteId: this.siteId(),
+    page: this.pageIndex(),
+    pageSize: this.pageSize(),
+    sort: this.sort(),
+    dir: this.dir(),
   }));
   protected readonly alerts = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.list(params) });
-  protected readonly sites = rxResource({ stream: () => this.sitesApi.list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }) });
+  protected readonly sites = rxResource({
+    stream: () => this.sitesApi.list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }),
+  });
 
   /** The last page received, kept while the next one loads so the table doesn't blink. */
   private readonly shown = linkedSignal<Page<AlertSummaryDto> | undefined, Page<AlertSummaryDto> | undefined>({
@@ -81,7 +104,12 @@ export class AlertInbox {
   }
 
   protected sortBy(sort: Sort): void {
-    const column: Record<string, AlertSort> = { severity: 'severity', siteName: 'site', period: 'period', waterLost: 'waterLost' };
+    const column: Record<string, AlertSort> = {
+      severity: 'severity',
+      siteName: 'site',
+      period: 'period',
+      waterLost: 'waterLost',
+    };
     this.sort.set(sort.direction ? (column[sort.active] ?? 'detected') : 'detected');
     this.dir.set(sort.direction === 'asc' ? 'asc' : 'desc');
     this.pageIndex.set(0);

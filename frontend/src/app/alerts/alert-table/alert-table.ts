@@ -24,7 +24,15 @@ export class AlertTable {
   readonly emptyText = input('');
   readonly sortChange = output<Sort>();
 
-  protected readonly columns = computed(() => ['severity', 'kind', ...(this.showSite() ? ['siteName'] : []), 'period', 'waterLost', 'moneyLost', 'status']);
+  protected readonly columns = computed(() => [
+    'severity',
+    'kind',
+    ...(this.showSite() ? ['siteName'] : []),
+    'period',
+    'waterLost',
+    'moneyLost',
+    'status',
+  ]);
   protected readonly kindLabels: Record<string, string> = KIND_LABELS;
   protected readonly subKindLabels: Record<string, string> = SUB_KIND_LABELS;
   protected readonly severityLabels: Record<string, string> = SEVERITY_LABELS;

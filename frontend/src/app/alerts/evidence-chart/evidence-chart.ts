@@ -9,7 +9,12 @@ import { siteTime } from '../site-time';
   selector: 'rm-evidence-chart',
   imports: [NgxEchartsDirective],
   template: `<div echarts class="chart" [options]="options()" role="img" [attr.aria-label]="summary()"></div>`,
-  styles: `.chart { height: 320px; width: 100%; }`,
+  styles: `
+    .chart {
+      height: 320px;
+      width: 100%;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class EvidenceChart {
@@ -18,7 +23,11 @@ export class EvidenceChart {
   readonly periodStartUtc = input.required<string>();
   readonly periodEndUtc = input.required<string>();
 
-  protected readonly summary = computed(() => this.series().map((s) => `${s.label} (${s.unit}), ${s.points.length} points`).join('; '));
+  protected readonly summary = computed(() =>
+    this.series()
+      .map((s) => `${s.label} (${s.unit}), ${s.points.length} points`)
+      .join('; '),
+  );
 
   protected readonly options = computed<EChartsCoreOption>(() => {
     const zone = this.timeZone();
@@ -26,10 +35,19 @@ export class EvidenceChart {
     return {
       animation: false,
       legend: { top: 0 },
-      tooltip: { trigger: 'axis', valueFormatter: (v: number) => (typeof v === 'number' ? v.toLocaleString('en-US', { maximumFractionDigits: 1 }) : String(v)) },
+      tooltip: {
+        trigger: 'axis',
+        valueFormatter: (v: number) =>
+          typeof v === 'number' ? v.toLocaleString('en-US', { maximumFractionDigits: 1 }) : String(v),
+      },
       grid: { left: 64, right: units.length > 1 ? 64 : 24, top: 40, bottom: 64 },
       dataZoom: [{ type: 'inside' }, { type: 'slider', height: 18, bottom: 8 }],
-      xAxis: { type: 'time', axisLabel: { formatter: (ms: number) => siteTime(new Date(ms).toISOString(), zone, false).replace(/, \d{4},/, ',') } },
+      xAxis: {
+        type: 'time',
+        axisLabel: {
+          formatter: (ms: number) => siteTime(new Date(ms).toISOString(), zone, false).replace(/, \d{4},/, ','),
+        },
+      },
       yAxis: units.map((unit, i) => ({ type: 'value', name: unit, position: i === 0 ? 'left' : 'right' })),
       series: this.series().map((s, i) => ({
         name: `${s.label} (${s.unit})`,
@@ -38,7 +56,19 @@ export class EvidenceChart {
         showSymbol: false,
         yAxisIndex: units.indexOf(s.unit),
         data: s.points.map((p) => [p.atUtc, p.value]),
-        ...(i === 0 ? { markArea: { itemStyle: { color: 'rgba(196, 84, 44, 0.12)' }, data: [[{ xAxis: Date.parse(this.periodStartUtc()), name: 'Alert period' }, { xAxis: Date.parse(this.periodEndUtc()) }]] } } : {}),
+        ...(i === 0
+          ? {
+              markArea: {
+                itemStyle: { color: 'rgba(196, 84, 44, 0.12)' },
+                data: [
+                  [
+                    { xAxis: Date.parse(this.periodStartUtc()), name: 'Alert period' },
+                    { xAxis: Date.parse(this.periodEndUtc()) },
+                  ],
+                ],
+              },
+            }
+          : {}),
       })),
     };
   });

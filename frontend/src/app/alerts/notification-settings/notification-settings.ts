@@ -16,8 +16,12 @@ import { AlertsApi } from '../alerts-api';
   imports: [MatRadioModule, MatCheckboxModule, MatButtonModule, MatProgressBarModule],
   template: `
     <h1>Alert e-mail</h1>
-    @if (pref.isLoading() && !current()) { <mat-progress-bar mode="indeterminate" aria-label="Loading" /> }
-    @if (error(); as message) { <p class="error" role="alert">{{ message }}</p> }
+    @if (pref.isLoading() && !current()) {
+      <mat-progress-bar mode="indeterminate" aria-label="Loading" />
+    }
+    @if (error(); as message) {
+      <p class="error" role="alert">{{ message }}</p>
+    }
     @if (current(); as p) {
       <mat-radio-group aria-label="How often" [value]="p.frequency" (change)="setFrequency($event.value)">
         <mat-radio-button value="daily">One digest each morning with the night's new alerts</mat-radio-button>
@@ -25,32 +29,75 @@ import { AlertsApi } from '../alerts-api';
         <mat-radio-button value="none">No e-mail (check the inbox yourself)</mat-radio-button>
       </mat-radio-group>
       <h2>Sites</h2>
-      <mat-checkbox [checked]="p.siteIds === null" (change)="followAll($event.checked)">Every site I can see, including ones added later</mat-checkbox>
+      <mat-checkbox [checked]="p.siteIds === null" (change)="followAll($event.checked)"
+        >Every site I can see, including ones added later</mat-checkbox
+      >
       @if (p.siteIds !== null) {
         <ul class="sites">
           @for (s of sites(); track s.id) {
-            <li><mat-checkbox [checked]="p.siteIds.includes(s.id)" (change)="follow(s.id, $event.checked)">{{ s.name }}</mat-checkbox></li>
-          } @empty { <li>No sites to choose from.</li> }
+            <li>
+              <mat-checkbox [checked]="p.siteIds.includes(s.id)" (change)="follow(s.id, $event.checked)">{{
+                s.name
+              }}</mat-checkbox>
+            </li>
+          } @empty {
+            <li>No sites to choose from.</li>
+          }
         </ul>
       }
       <button mat-flat-button type="button" [disabled]="saving()" (click)="save()">Save</button>
-      @if (saved()) { <p role="status">Saved.</p> }
+      @if (saved()) {
+        <p role="status">Saved.</p>
+      }
     }
   `,
-  styles: `h1 { font: var(--mat-sys-headline-small); margin: 0 0 12px; } h2 { font: var(--mat-sys-title-medium); margin: 16px 0 4px; } mat-radio-group { display: flex; flex-direction: column; gap: 4px; } mat-checkbox { display: block; margin-bottom: 12px; } .sites { list-style: none; padding: 0; } .error { color: #a3261b; }`,
+  styles: `
+    h1 {
+      font: var(--mat-sys-headline-small);
+      margin: 0 0 12px;
+    }
+    h2 {
+      font: var(--mat-sys-title-medium);
+      margin: 16px 0 4px;
+    }
+    mat-radio-group {
+      display: flex;
+      flex-direction: column;
+      gap: 4px;
+    }
+    mat-checkbox {
+      display: block;
+      margin-bottom: 12px;
+    }
+    .sites {
+      list-style: none;
+      padding: 0;
+    }
+    .error {
+      color: #a3261b;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class NotificationSettings {
   private readonly api = inject(AlertsApi);
   private readonly sitesApi = inject(SitesApi);
   protected readonly pref = rxResource({ stream: () => this.api.notifications() });
-  protected readonly current = linkedSignal<NotificationPreferenceDto | null>(() => (this.pref.hasValue() ? this.pref.value() : null));
-  private readonly siteList = rxResource({ stream: () => this.sitesApi.list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }) });
+  protected readonly current = linkedSignal<NotificationPreferenceDto | null>(() =>
+    this.pref.hasValue() ? this.pref.value() : null,
+  );
+  private readonly siteList = rxResource({
+    stream: () => this.sitesApi.list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }),
+  });
   protected readonly sites = computed(() => (this.siteList.hasValue() ? this.siteList.value().items : []));
   protected readonly saving = signal(false);
   protected readonly saved = signal(false);
   private readonly saveError = signal<string | null>(null);
-  protected readonly error = computed(() => this.saveError() ?? (this.pref.error() ? describeApiError(this.pref.error(), 'Your preference could not be loaded.').message : null));
+  protected readonly error = computed(
+    () =>
+      this.saveError() ??
+      (this.pref.error() ? describeApiError(this.pref.error(), 'Your preference could not be loaded.').message : null),
+  );
 
   protected setFrequency(frequency: NotificationFrequency): void {
     this.current.update((p) => p && { ...p, frequency });
@@ -61,7 +108,10 @@ export class NotificationSettings {
   }
 
   protected follow(siteId: number, on: boolean): void {
-    this.current.update((p) => p && { ...p, siteIds: on ? [...(p.siteIds ?? []), siteId] : (p.siteIds ?? []).filter((id) => id !== siteId) });
+    this.current.update(
+      (p) =>
+        p && { ...p, siteIds: on ? [...(p.siteIds ?? []), siteId] : (p.siteIds ?? []).filter((id) => id !== siteId) },
+    );
   }
 
   protected save(): void {
@@ -72,7 +122,10 @@ export class NotificationSettings {
     this.saveError.set(null);
     this.api.saveNotifications(p).subscribe({
       next: (fresh) => (this.current.set(fresh), this.saving.set(false), this.saved.set(true)),
-      error: (err: unknown) => (this.saveError.set(describeApiError(err, 'Your preference could not be saved.').message), this.saving.set(false)),
+      error: (err: unknown) => (
+        this.saveError.set(describeApiError(err, 'Your preference could not be saved.').message),
+        this.saving.set(false)
+      ),
     });
   }
 }

@@ -14,7 +14,15 @@ import { AlertsApi } from '../alerts-api';
 /** `/sites/:id/alerts`: the site's alerts from the nightly watch; each opens the alert's own page. */
 @Component({
   selector: 'rm-site-alerts',
-  imports: [RouterLink, AlertTable, MatPaginatorModule, MatProgressBarModule, MatButtonModule, MatButtonToggleModule, MatIconModule],
+  imports: [
+    RouterLink,
+    AlertTable,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatIconModule,
+  ],
   templateUrl: './site-alerts.html',
   styleUrl: './site-alerts.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -34,7 +42,9 @@ export class SiteAlerts {
   });
   protected readonly rows = computed(() => (this.alerts.hasValue() ? this.alerts.value().items : []));
   protected readonly total = computed(() => (this.alerts.hasValue() ? this.alerts.value().total : 0));
-  protected readonly error = computed(() => (this.alerts.error() ? describeApiError(this.alerts.error(), 'The alerts could not be loaded.').message : null));
+  protected readonly error = computed(() =>
+    this.alerts.error() ? describeApiError(this.alerts.error(), 'The alerts could not be loaded.').message : null,
+  );
 
   protected readonly emptyText = computed(() => {
     if (this.alerts.isLoading()) return '';

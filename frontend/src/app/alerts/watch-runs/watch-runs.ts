@@ -16,31 +16,95 @@ import { AlertsApi } from '../alerts-api';
   imports: [DatePipe, MatTableModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule],
   template: `
     <h1>Watch runs</h1>
-    <p class="intro">The watch checks each site every night after 04:00 site time, reading only sites with new data. Run it now, or re-check a range after late uploads. Times below are in your browser's zone.</p>
+    <p class="intro">
+      The watch checks each site every night after 04:00 site time, reading only sites with new data. Run it now, or
+      re-check a range after late uploads. Times below are in your browser's zone.
+    </p>
     <div class="controls">
       <button mat-flat-button type="button" [disabled]="busy()" (click)="run()">Run now</button>
-      <mat-form-field><mat-label>Re-check from</mat-label><input matInput type="date" [value]="from()" (change)="from.set($any($event.target).value)" /></mat-form-field>
-      <mat-form-field><mat-label>to</mat-label><input matInput type="date" [value]="to()" (change)="to.set($any($event.target).value)" /></mat-form-field>
-      <button mat-stroked-button type="button" [disabled]="busy() || !from() || !to()" (click)="run(true)">Re-check range</button>
+      <mat-form-field
+        ><mat-label>Re-check from</mat-label
+        ><input matInput type="date" [value]="from()" (change)="from.set($any($event.target).value)"
+      /></mat-form-field>
+      <mat-form-field
+        ><mat-label>to</mat-label
+        ><input matInput type="date" [value]="to()" (change)="to.set($any($event.target).value)"
+      /></mat-form-field>
+      <button mat-stroked-button type="button" [disabled]="busy() || !from() || !to()" (click)="run(true)">
+        Re-check range
+      </button>
     </div>
-    @if (busy() || runs.isLoading()) { <mat-progress-bar mode="indeterminate" aria-label="Working" /> }
-    @if (error(); as message) { <p class="error" role="alert">{{ message }}</p> }
+    @if (busy() || runs.isLoading()) {
+      <mat-progress-bar mode="indeterminate" aria-label="Working" />
+    }
+    @if (error(); as message) {
+      <p class="error" role="alert">{{ message }}</p>
+    }
     <table mat-table [dataSource]="rows()" aria-label="Watch runs">
-      <ng-container matColumnDef="started"><th mat-header-cell *matHeaderCellDef>Started</th><td mat-cell *matCellDef="let r">{{ r.startedAt | date: 'medium' }}</td></ng-container>
-      <ng-container matColumnDef="trigger"><th mat-header-cell *matHeaderCellDef>How</th><td mat-cell *matCellDef="let r">{{ r.trigger }}</td></ng-container>
-      <ng-container matColumnDef="status"><th mat-header-cell *matHeaderCellDef>Status</th><td mat-cell *matCellDef="let r">{{ r.status }}</td></ng-container>
-      <ng-container matColumnDef="seconds"><th mat-header-cell *matHeaderCellDef>Took</th><td mat-cell *matCellDef="let r">{{ seconds(r) }}</td></ng-container>
-      <ng-container matColumnDef="sites"><th mat-header-cell *matHeaderCellDef>Sites checked / skipped</th><td mat-cell *matCellDef="let r">{{ r.sitesChecked }} / {{ r.sitesSkipped }}</td></ng-container>
-      <ng-container matColumnDef="alerts"><th mat-header-cell *matHeaderCellDef>Alerts new / updated / back</th><td mat-cell *matCellDef="let r">{{ r.alertsRaised }} / {{ r.alertsUpdated }} / {{ r.alertsReopened }}</td></ng-container>
-      <ng-container matColumnDef="mails"><th mat-header-cell *matHeaderCellDef>E-mails</th><td mat-cell *matCellDef="let r">{{ r.mailsQueued }}</td></ng-container>
-      <ng-container matColumnDef="errors"><th mat-header-cell *matHeaderCellDef>Problems</th>
-        <td mat-cell *matCellDef="let r">@for (e of r.errors; track $index) { <div>{{ e.siteName }}: {{ e.message }}</div> } @empty { none }</td></ng-container>
+      <ng-container matColumnDef="started"
+        ><th mat-header-cell *matHeaderCellDef>Started</th>
+        <td mat-cell *matCellDef="let r">{{ r.startedAt | date: 'medium' }}</td></ng-container
+      >
+      <ng-container matColumnDef="trigger"
+        ><th mat-header-cell *matHeaderCellDef>How</th>
+        <td mat-cell *matCellDef="let r">{{ r.trigger }}</td></ng-container
+      >
+      <ng-container matColumnDef="status"
+        ><th mat-header-cell *matHeaderCellDef>Status</th>
+        <td mat-cell *matCellDef="let r">{{ r.status }}</td></ng-container
+      >
+      <ng-container matColumnDef="seconds"
+        ><th mat-header-cell *matHeaderCellDef>Took</th>
+        <td mat-cell *matCellDef="let r">{{ seconds(r) }}</td></ng-container
+      >
+      <ng-container matColumnDef="sites"
+        ><th mat-header-cell *matHeaderCellDef>Sites checked / skipped</th>
+        <td mat-cell *matCellDef="let r">{{ r.sitesChecked }} / {{ r.sitesSkipped }}</td></ng-container
+      >
+      <ng-container matColumnDef="alerts"
+        ><th mat-header-cell *matHeaderCellDef>Alerts new / updated / back</th>
+        <td mat-cell *matCellDef="let r">
+          {{ r.alertsRaised }} / {{ r.alertsUpdated }} / {{ r.alertsReopened }}
+        </td></ng-container
+      >
+      <ng-container matColumnDef="mails"
+        ><th mat-header-cell *matHeaderCellDef>E-mails</th>
+        <td mat-cell *matCellDef="let r">{{ r.mailsQueued }}</td></ng-container
+      >
+      <ng-container matColumnDef="errors"
+        ><th mat-header-cell *matHeaderCellDef>Problems</th>
+        <td mat-cell *matCellDef="let r">
+          @for (e of r.errors; track $index) {
+            <div>{{ e.siteName }}: {{ e.message }}</div>
+          } @empty {
+            none
+          }
+        </td></ng-container
+      >
       <tr mat-header-row *matHeaderRowDef="columns"></tr>
       <tr mat-row *matRowDef="let row; columns: columns"></tr>
-      <tr class="mat-row" *matNoDataRow><td class="mat-cell" [attr.colspan]="columns.length">No runs yet.</td></tr>
+      <tr class="mat-row" *matNoDataRow>
+        <td class="mat-cell" [attr.colspan]="columns.length">No runs yet.</td>
+      </tr>
     </table>
   `,
-  styles: `.intro { max-width: 70ch; } .controls { display: flex; gap: 12px; align-items: baseline; flex-wrap: wrap; } table { width: 100%; } .error { color: #a3261b; }`,
+  styles: `
+    .intro {
+      max-width: 70ch;
+    }
+    .controls {
+      display: flex;
+      gap: 12px;
+      align-items: baseline;
+      flex-wrap: wrap;
+    }
+    table {
+      width: 100%;
+    }
+    .error {
+      color: #a3261b;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class WatchRuns {
@@ -52,7 +116,11 @@ export class WatchRuns {
   protected readonly from = signal('');
   protected readonly to = signal('');
   private readonly actionError = signal<string | null>(null);
-  protected readonly error = computed(() => this.actionError() ?? (this.runs.error() ? describeApiError(this.runs.error(), 'The runs could not be loaded.').message : null));
+  protected readonly error = computed(
+    () =>
+      this.actionError() ??
+      (this.runs.error() ? describeApiError(this.runs.error(), 'The runs could not be loaded.').message : null),
+  );
 
   protected seconds(r: { startedAt: string; finishedAt: string | null }): string {
     return r.finishedAt ? `${((Date.parse(r.finishedAt) - Date.parse(r.startedAt)) / 1000).toFixed(1)} s` : 'running';
@@ -65,7 +133,10 @@ export class WatchRuns {
     const body = range ? { from: `${this.from()}T00:00:00Z`, to: `${this.to()}T23:59:59Z` } : undefined;
     this.api.runNow(body).subscribe({
       next: () => (this.busy.set(false), this.runs.reload()),
-      error: (err: unknown) => (this.actionError.set(describeApiError(err, 'The run could not be started.').message), this.busy.set(false)),
+      error: (err: unknown) => (
+        this.actionError.set(describeApiError(err, 'The run could not be started.').message),
+        this.busy.set(false)
+      ),
     });
   }
 }

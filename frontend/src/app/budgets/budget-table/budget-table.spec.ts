@@ -8,23 +8,86 @@ import { BudgetTable } from './budget-table';
 // An invented two-month budget for one hydrozone; figures worked by hand: 6 in × 0.5 × 1,000 ft² × 0.623377 ÷ 0.81.
 function budget(unitSystem: 'us' | 'metric'): SiteBudgetDto {
   const zone = (gallons: number) => ({
-    zoneId: 1, zoneName: 'Shrub bed', areaFt2: 1000, plantFactor: 0.5, irrigationEfficiency: 0.81, etoMm: 152.4, rainMm: 0, effectiveRainMm: 0,
-    grossGallons: gallons, rainCreditGallons: 0, gallons, litres: gallons * 3.785411784,
-    steps: [{ label: 'Gross irrigation', formula: '6.000 in × 0.50 × 1,000 ft² × 0.623377 gal/(in·ft²) ÷ 0.81', value: gallons, unit: 'gal' }],
+    zoneId: 1,
+    zoneName: 'Shrub bed',
+    areaFt2: 1000,
+    plantFactor: 0.5,
+    irrigationEfficiency: 0.81,
+    etoMm: 152.4,
+    rainMm: 0,
+    effectiveRainMm: 0,
+    grossGallons: gallons,
+    rainCreditGallons: 0,
+    gallons,
+    litres: gallons * 3.785411784,
+    steps: [
+      {
+        label: 'Gross irrigation',
+        formula: '6.000 in × 0.50 × 1,000 ft² × 0.623377 gal/(in·ft²) ÷ 0.81',
+        value: gallons,
+        unit: 'gal',
+      },
+    ],
   });
   return {
-    siteId: 4, siteName: 'Cottonwood Flats Park', from: '2025-06', to: '2025-07', unitSystem,
+    siteId: 4,
+    siteName: 'Cottonwood Flats Park',
+    from: '2025-06',
+    to: '2025-07',
+    unitSystem,
     station: { id: 2, name: 'Sandwash station' },
     rainCredit: { kind: 'none', value: null, description: 'Rain is not credited.' },
     months: [
-      { month: '2025-06', days: 30, etoMm: 152.4, rainMm: 0, filledDays: 0, methods: ['measured'], gallons: 2308.8, litres: 8739.8, zones: [zone(2308.8)], indoorGallons: null, cost: null },
       {
-        month: '2025-07', days: 31, etoMm: 152.4, rainMm: 25.4, filledDays: 2, methods: ['measured', 'normal-filled'], gallons: 2308.8, litres: 8739.8, zones: [zone(2308.8)], indoorGallons: null,
-        cost: { scheduleId: 1, scheduleName: 'Uniform', unit: 'ccf', currency: 'USD', units: 3.086, fixedCharge: 20, volumeCharge: 12.34, total: 32.34, lines: [] },
+        month: '2025-06',
+        days: 30,
+        etoMm: 152.4,
+        rainMm: 0,
+        filledDays: 0,
+        methods: ['measured'],
+        gallons: 2308.8,
+        litres: 8739.8,
+        zones: [zone(2308.8)],
+        indoorGallons: null,
+        cost: null,
+      },
+      {
+        month: '2025-07',
+        days: 31,
+        etoMm: 152.4,
+        rainMm: 25.4,
+        filledDays: 2,
+        methods: ['measured', 'normal-filled'],
+        gallons: 2308.8,
+        litres: 8739.8,
+        zones: [zone(2308.8)],
+        indoorGallons: null,
+        cost: {
+          scheduleId: 1,
+          scheduleName: 'Uniform',
+          unit: 'ccf',
+          currency: 'USD',
+          units: 3.086,
+          fixedCharge: 20,
+          volumeCharge: 12.34,
+          total: 32.34,
+          lines: [],
+        },
       },
     ],
-    totals: { gallons: 4617.6, litres: 17479.6, indoorGallons: null, etoMm: 304.8, rainMm: 25.4, filledDays: 2, cost: null, currency: 'USD' },
-    indoor: null, formula: 'Per hydrozone and day', sources: [],
+    totals: {
+      gallons: 4617.6,
+      litres: 17479.6,
+      indoorGallons: null,
+      etoMm: 304.8,
+      rainMm: 25.4,
+      filledDays: 2,
+      cost: null,
+      currency: 'USD',
+    },
+    indoor: null,
+    formula: 'Per hydrozone and day',
+    sources: [],
   };
 }
 
@@ -81,7 +144,7 @@ describe('BudgetTable', () => {
     const [, july] = await loader.getAllHarnesses(MatButtonHarness.with({ text: 'How computed' }));
     await july!.click();
     expect(text()).toContain('6.000 in × 0.50 × 1,000 ft² × 0.623377 gal/(in·ft²) ÷ 0.81');
-    expect(text()).toContain('2 day(s) filled from the station\'s monthly normals.');
+    expect(text()).toContain("2 day(s) filled from the station's monthly normals.");
     expect(text()).toContain('Filled from monthly normals');
     expect(await (await loader.getHarness(MatButtonHarness.with({ text: 'Hide working' }))).isDisabled()).toBe(false);
   });

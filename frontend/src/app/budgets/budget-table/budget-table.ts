@@ -25,7 +25,9 @@ export class BudgetTable {
   readonly budget = input.required<SiteBudgetDto>();
 
   protected readonly columns = computed(() =>
-    this.budget().indoor ? ['month', 'eto', 'rain', 'credit', 'budget', 'indoor', 'cost', 'expand'] : ['month', 'eto', 'rain', 'credit', 'budget', 'cost', 'expand'],
+    this.budget().indoor
+      ? ['month', 'eto', 'rain', 'credit', 'budget', 'indoor', 'cost', 'expand']
+      : ['month', 'eto', 'rain', 'credit', 'budget', 'cost', 'expand'],
   );
   protected readonly expanded = signal<string | null>(null);
   protected readonly methodLabels = DAILY_WEATHER_METHOD_LABELS;
@@ -57,6 +59,10 @@ export class BudgetTable {
 
   protected monthLabel(month: string): string {
     const [y, m] = month.split('-').map(Number) as [number, number];
-    return new Date(Date.UTC(y, m - 1, 1)).toLocaleDateString('en-US', { month: 'short', year: 'numeric', timeZone: 'UTC' });
+    return new Date(Date.UTC(y, m - 1, 1)).toLocaleDateString('en-US', {
+      month: 'short',
+      year: 'numeric',
+      timeZone: 'UTC',
+    });
   }
 }

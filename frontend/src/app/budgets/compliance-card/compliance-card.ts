@@ -37,13 +37,39 @@ import type { ComplianceDto } from '@shared/budgets/budget-dto';
     }
   `,
   styles: `
-    .verdict { display: flex; gap: 8px; align-items: center; font: var(--mat-sys-title-medium); color: var(--mat-sys-primary); }
-    .verdict.fails { color: var(--mat-sys-error); }
-    .reason { margin: 4px 0; }
-    table { border-collapse: collapse; width: 100%; }
-    th, td { text-align: left; padding: 3px 8px; border-bottom: 1px solid var(--mat-sys-outline-variant); vertical-align: top; }
-    .num { text-align: right; white-space: nowrap; }
-    .formula, .note { color: var(--mat-sys-on-surface-variant); font: var(--mat-sys-body-small); }
+    .verdict {
+      display: flex;
+      gap: 8px;
+      align-items: center;
+      font: var(--mat-sys-title-medium);
+      color: var(--mat-sys-primary);
+    }
+    .verdict.fails {
+      color: var(--mat-sys-error);
+    }
+    .reason {
+      margin: 4px 0;
+    }
+    table {
+      border-collapse: collapse;
+      width: 100%;
+    }
+    th,
+    td {
+      text-align: left;
+      padding: 3px 8px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+      vertical-align: top;
+    }
+    .num {
+      text-align: right;
+      white-space: nowrap;
+    }
+    .formula,
+    .note {
+      color: var(--mat-sys-on-surface-variant);
+      font: var(--mat-sys-body-small);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -33,8 +33,18 @@ const monthOffset = (months: number) => {
 @Component({
   selector: 'rm-site-budget',
   imports: [
-    FormsModule, RouterLink, MatButtonModule, MatButtonToggleModule, MatCheckboxModule, MatFormFieldModule, MatIconModule,
-    MatInputModule, MatProgressBarModule, MatSelectModule, BudgetTable, ComplianceCard,
+    FormsModule,
+    RouterLink,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    BudgetTable,
+    ComplianceCard,
   ],
   templateUrl: './site-budget.html',
   styleUrl: './site-budget.scss',
@@ -66,19 +76,40 @@ export class SiteBudget {
   protected readonly countRain = signal(false);
   protected readonly years = Array.from({ length: 6 }, (_, i) => new Date().getUTCFullYear() - i);
 
-  protected readonly site = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.sitesApi.get(params) });
-  protected readonly station = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.weatherApi.stationOfSite(params) });
+  protected readonly site = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.sitesApi.get(params),
+  });
+  protected readonly station = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.weatherApi.stationOfSite(params),
+  });
   protected readonly stations = rxResource({ stream: () => this.weatherApi.list() });
   protected readonly budget = rxResource({
-    params: () => ({ siteId: this.siteId(), from: this.from(), to: this.to(), rain: this.rain(), indoor: this.indoor(), linked: this.station.value()?.station?.id }),
+    params: () => ({
+      siteId: this.siteId(),
+      from: this.from(),
+      to: this.to(),
+      rain: this.rain(),
+      indoor: this.indoor(),
+      linked: this.station.value()?.station?.id,
+    }),
     stream: ({ params }) => this.api.budget(params.siteId, params),
   });
   protected readonly compliance = rxResource({
-    params: () => ({ siteId: this.siteId(), year: this.year(), type: this.projectType(), rain: this.countRain(), linked: this.station.value()?.station?.id }),
+    params: () => ({
+      siteId: this.siteId(),
+      year: this.year(),
+      type: this.projectType(),
+      rain: this.countRain(),
+      linked: this.station.value()?.station?.id,
+    }),
     stream: ({ params }) => this.api.compliance(params.siteId, params.year, params.type, params.rain),
   });
 
-  protected readonly canLink = computed(() => atLeast(this.site.hasValue() ? this.site.value().access : 'read', 'contribute'));
+  protected readonly canLink = computed(() =>
+    atLeast(this.site.hasValue() ? this.site.value().access : 'read', 'contribute'),
+  );
   protected readonly budgetError = computed(() => {
     const err = this.budget.error();
     return err ? describeApiError(err, 'The budget could not be computed.').message : null;

@@ -6,14 +6,18 @@ import { AuthStore } from './auth-store';
 /** Lets signed-in users through; others go to sign-in and come back afterwards. */
 export const signedInGuard: CanActivateFn = async (_route, state) => {
   const router = inject(Router);
-  const user = await inject(AuthStore).ensureLoaded().catch(() => null);
+  const user = await inject(AuthStore)
+    .ensureLoaded()
+    .catch(() => null);
   return user ? true : router.createUrlTree(['/sign-in'], { queryParams: { returnUrl: state.url } });
 };
 
 /** Keeps a signed-in user off the sign-in page. */
 export const signedOutGuard: CanActivateFn = async () => {
   const router = inject(Router);
-  const user = await inject(AuthStore).ensureLoaded().catch(() => null);
+  const user = await inject(AuthStore)
+    .ensureLoaded()
+    .catch(() => null);
   return user ? router.createUrlTree(['/portfolio']) : true;
 };
 

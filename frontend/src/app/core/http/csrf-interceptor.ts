@@ -1,4 +1,10 @@
-import { HttpClient, HttpErrorResponse, HttpInterceptorFn, HttpRequest, HttpXsrfTokenExtractor } from '@angular/common/http';
+import {
+  HttpClient,
+  HttpErrorResponse,
+  HttpInterceptorFn,
+  HttpRequest,
+  HttpXsrfTokenExtractor,
+} from '@angular/common/http';
 import { inject } from '@angular/core';
 import { catchError, map, Observable, switchMap, throwError } from 'rxjs';
 import type { ApiErrorBody } from '@shared/api/errors';
@@ -22,7 +28,9 @@ export const csrfInterceptor: HttpInterceptorFn = (req, next) => {
     request.clone({ setHeaders: { [HEADER]: token } });
 
   const existing = cookie.getToken();
-  const first = existing ? next(withToken(req, existing)) : freshToken().pipe(switchMap((t) => next(withToken(req, t))));
+  const first = existing
+    ? next(withToken(req, existing))
+    : freshToken().pipe(switchMap((t) => next(withToken(req, t))));
 
   return first.pipe(
     catchError((err: unknown) => {

@@ -51,7 +51,9 @@ describe('unauthorizedInterceptor', () => {
   it('when a request is forbidden (403), then does not redirect', async () => {
     const { navigate, http, client } = setUp('/admin/users');
     const loading = firstValueFrom(client.get('/api/users'));
-    http.expectOne('/api/users').flush({ error: { code: 'forbidden', message: 'No.' } }, { status: 403, statusText: 'Forbidden' });
+    http
+      .expectOne('/api/users')
+      .flush({ error: { code: 'forbidden', message: 'No.' } }, { status: 403, statusText: 'Forbidden' });
 
     await expect(loading).rejects.toMatchObject({ status: 403 });
     expect(navigate).not.toHaveBeenCalled();

@@ -56,9 +56,14 @@ export class Shell {
 
   protected readonly links = computed<NavLink[]>(() => {
     const can = this.auth.capabilities();
-    const links: NavLink[] = [{ path: '/portfolio', label: 'Portfolio', icon: 'dashboard' }, { path: '/sites', label: 'Sites', icon: 'yard' }, { path: '/weather-stations', label: 'Weather', icon: 'partly_cloudy_day' }];
+    const links: NavLink[] = [
+      { path: '/portfolio', label: 'Portfolio', icon: 'dashboard' },
+      { path: '/sites', label: 'Sites', icon: 'yard' },
+      { path: '/weather-stations', label: 'Weather', icon: 'partly_cloudy_day' },
+    ];
     // Auditors read only: the server refuses their uploads, so the menu doesn't offer them.
-    if (this.auth.user()?.organisation.role !== 'auditor') links.push({ path: '/uploads', label: 'Uploads', icon: 'upload_file' });
+    if (this.auth.user()?.organisation.role !== 'auditor')
+      links.push({ path: '/uploads', label: 'Uploads', icon: 'upload_file' });
     links.push({ path: '/reports', label: 'Reports', icon: 'insights' });
     links.push({ path: '/alerts', label: 'Alerts', icon: 'notifications_active' });
     if (can.manageUsers) links.push({ path: '/admin/users', label: 'Users', icon: 'group' });

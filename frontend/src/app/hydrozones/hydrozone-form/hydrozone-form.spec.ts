@@ -84,13 +84,35 @@ describe('HydrozoneForm', () => {
     await submit(/Add hydrozone/);
 
     const req = await vi.waitFor(() => http.expectOne({ method: 'POST', url: '/api/sites/7/hydrozones' }));
-    expect(req.request.body).toMatchObject({ name: 'Play lawn', area: 250, areaUnit: 'm2', plantFactor: 0.8, irrigationMethod: 'rotor', plantWaterUse: null });
+    expect(req.request.body).toMatchObject({
+      name: 'Play lawn',
+      area: 250,
+      areaUnit: 'm2',
+      plantFactor: 0.8,
+      irrigationMethod: 'rotor',
+      plantWaterUse: null,
+    });
     req.flush({ id: 1, name: 'Play lawn' } as HydrozoneDto);
     await vi.waitFor(() => expect(close).toHaveBeenCalledWith(expect.objectContaining({ id: 1 })));
   });
 
   it('when switching an existing area from ft² to m², then the number is converted, not reinterpreted', async () => {
-    const zone = { id: 3, name: 'Beds', areaFt2: 1076.39, plantWaterUse: 'low', plantFactor: null, irrigationMethod: 'drip', efficiencyOverride: null, specialLandscapeArea: false, specialLandscapeKind: null, designFlowGpm: null, emitterCount: null, emitterGph: null, soilIntakeInPerHour: null, notes: '' } as unknown as HydrozoneDto;
+    const zone = {
+      id: 3,
+      name: 'Beds',
+      areaFt2: 1076.39,
+      plantWaterUse: 'low',
+      plantFactor: null,
+      irrigationMethod: 'drip',
+      efficiencyOverride: null,
+      specialLandscapeArea: false,
+      specialLandscapeKind: null,
+      designFlowGpm: null,
+      emitterCount: null,
+      emitterGph: null,
+      soilIntakeInPerHour: null,
+      notes: '',
+    } as unknown as HydrozoneDto;
     const { loader, input } = await open({ zone });
     expect(await (await input('Irrigated area')).getValue()).toBe('1076.39');
     await (await loader.getHarness(MatButtonToggleHarness.with({ text: 'm²' }))).check();

@@ -8,9 +8,22 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { DEFAULT_IRRIGATION_EFFICIENCY, IRRIGATION_METHODS, PLANT_FACTOR_RANGES, PLANT_WATER_USE_CATEGORIES, type IrrigationMethod, type PlantWaterUseCategory } from '@shared/budgets/hydrozone';
 import {
-  HYDROZONE_LIMITS, SPECIAL_LANDSCAPE_KIND_LABELS, SPECIAL_LANDSCAPE_KINDS, type HydrozoneAreaUnit, type HydrozoneDto, type HydrozoneInput, type SpecialLandscapeKind,
+  DEFAULT_IRRIGATION_EFFICIENCY,
+  IRRIGATION_METHODS,
+  PLANT_FACTOR_RANGES,
+  PLANT_WATER_USE_CATEGORIES,
+  type IrrigationMethod,
+  type PlantWaterUseCategory,
+} from '@shared/budgets/hydrozone';
+import {
+  HYDROZONE_LIMITS,
+  SPECIAL_LANDSCAPE_KIND_LABELS,
+  SPECIAL_LANDSCAPE_KINDS,
+  type HydrozoneAreaUnit,
+  type HydrozoneDto,
+  type HydrozoneInput,
+  type SpecialLandscapeKind,
 } from '@shared/hydrozones/hydrozone-dto';
 import { convertArea } from '@shared/units/area-depth-units';
 import { firstValueFrom } from 'rxjs';
@@ -32,8 +45,15 @@ const num = (v: number | string | null) => (v === null || v === '' ? null : Numb
 @Component({
   selector: 'rm-hydrozone-form',
   imports: [
-    ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule,
-    MatButtonToggleModule, MatCheckboxModule, MatIconModule,
+    ReactiveFormsModule,
+    MatDialogModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatCheckboxModule,
+    MatIconModule,
   ],
   templateUrl: './hydrozone-form.html',
   styleUrl: './hydrozone-form.scss',
@@ -87,7 +107,8 @@ export class HydrozoneForm {
   protected switchAreaUnit(unit: HydrozoneAreaUnit): void {
     const { area, areaUnit } = this.form.controls;
     if (unit === areaUnit.value) return;
-    if (area.value !== null && Number(area.value) > 0) area.setValue(Math.round(convertArea(Number(area.value), areaUnit.value, unit) * 100) / 100);
+    if (area.value !== null && Number(area.value) > 0)
+      area.setValue(Math.round(convertArea(Number(area.value), areaUnit.value, unit) * 100) / 100);
     areaUnit.setValue(unit);
   }
 
@@ -106,7 +127,7 @@ export class HydrozoneForm {
       irrigationMethod: v.irrigationMethod as IrrigationMethod,
       efficiencyOverride: num(v.efficiencyOverride),
       specialLandscapeArea: v.specialLandscapeArea,
-      specialLandscapeKind: v.specialLandscapeArea ? (v.specialLandscapeKind || null) : null,
+      specialLandscapeKind: v.specialLandscapeArea ? v.specialLandscapeKind || null : null,
       designFlowGpm: num(v.designFlowGpm),
       emitterCount: num(v.emitterCount),
       emitterGph: num(v.emitterGph),
@@ -117,7 +138,9 @@ export class HydrozoneForm {
     this.saveError.set(null);
     try {
       const zone = this.data.zone;
-      const saved = await firstValueFrom(zone ? this.api.update(this.data.siteId, zone.id, input) : this.api.create(this.data.siteId, input));
+      const saved = await firstValueFrom(
+        zone ? this.api.update(this.data.siteId, zone.id, input) : this.api.create(this.data.siteId, input),
+      );
       this.ref.close(saved);
     } catch (err) {
       const problem = describeApiError(err, 'The hydrozone could not be saved.');
@@ -131,6 +154,11 @@ export class HydrozoneForm {
 
 /** Opens the editor; resolves with the saved zone, or undefined when cancelled. */
 export async function editHydrozone(dialog: MatDialog, data: HydrozoneFormData): Promise<HydrozoneDto | undefined> {
-  const ref = dialog.open<HydrozoneForm, HydrozoneFormData, HydrozoneDto>(HydrozoneForm, { data, width: '720px', maxWidth: '96vw', autoFocus: 'first-tabbable' });
+  const ref = dialog.open<HydrozoneForm, HydrozoneFormData, HydrozoneDto>(HydrozoneForm, {
+    data,
+    width: '720px',
+    maxWidth: '96vw',
+    autoFocus: 'first-tabbable',
+  });
   return firstValueFrom(ref.afterClosed());
 }

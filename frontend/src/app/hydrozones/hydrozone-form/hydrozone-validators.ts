@@ -7,10 +7,12 @@ const isBlank = (v: unknown) => v === null || v === undefined || v === '';
 export const positive: ValidatorFn = (c) => (isBlank(c.value) || Number(c.value) > 0 ? null : { positive: true });
 
 /** Irrigation efficiency: above 0 and at most 1, as the engine requires. */
-export const efficiency: ValidatorFn = (c) => (isBlank(c.value) || (Number(c.value) > 0 && Number(c.value) <= 1) ? null : { efficiency: true });
+export const efficiency: ValidatorFn = (c) =>
+  isBlank(c.value) || (Number(c.value) > 0 && Number(c.value) <= 1) ? null : { efficiency: true };
 
 /** Plant factor 0..1 on its own control. */
-export const plantFactorRange: ValidatorFn = (c) => (isBlank(c.value) || (Number(c.value) >= 0 && Number(c.value) <= 1) ? null : { plantFactorRange: true });
+export const plantFactorRange: ValidatorFn = (c) =>
+  isBlank(c.value) || (Number(c.value) >= 0 && Number(c.value) <= 1) ? null : { plantFactorRange: true };
 
 /**
  * Form-level rules that involve two fields: a category or a factor is needed; a factor must fall in its
@@ -23,9 +25,14 @@ export const hydrozoneRules: ValidatorFn = (group: AbstractControl): ValidationE
   const factor = get('plantFactor');
   setRuleError(factor, 'needsFactor', !category && isBlank(factor.value));
   const range = category ? PLANT_FACTOR_RANGES[category] : null;
-  const outside = !!range && !isBlank(factor.value) && (Number(factor.value) < range.min || Number(factor.value) > range.max);
+  const outside =
+    !!range && !isBlank(factor.value) && (Number(factor.value) < range.min || Number(factor.value) > range.max);
   setRuleError(factor, 'outsideCategory', outside);
-  setRuleError(get('specialLandscapeKind'), 'kindRequired', get('specialLandscapeArea').value === true && !get('specialLandscapeKind').value);
+  setRuleError(
+    get('specialLandscapeKind'),
+    'kindRequired',
+    get('specialLandscapeArea').value === true && !get('specialLandscapeKind').value,
+  );
   const count = get('emitterCount');
   const gph = get('emitterGph');
   setRuleError(gph, 'pairRequired', !isBlank(count.value) && isBlank(gph.value));

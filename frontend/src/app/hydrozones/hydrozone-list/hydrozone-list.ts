@@ -32,8 +32,16 @@ function previousMonth(): string {
 @Component({
   selector: 'rm-hydrozone-list',
   imports: [
-    DecimalPipe, MatTableModule, MatButtonModule, MatIconModule, MatProgressBarModule, MatTooltipModule,
-    MatFormFieldModule, MatInputModule, MatSelectModule, RunTimeAdvice,
+    DecimalPipe,
+    MatTableModule,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    MatTooltipModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    RunTimeAdvice,
   ],
   templateUrl: './hydrozone-list.html',
   styleUrl: './hydrozone-list.scss',
@@ -49,11 +57,24 @@ export class HydrozoneList {
   /** Route parameter. */
   readonly id = input.required<string>();
   protected readonly siteId = computed(() => Number(this.id()));
-  protected readonly site = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.sitesApi.get(params) });
+  protected readonly site = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.sitesApi.get(params),
+  });
   protected readonly zones = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.api.list(params) });
   protected readonly rows = computed(() => (this.zones.hasValue() ? this.zones.value().items : []));
-  protected readonly canEdit = computed(() => atLeast(this.site.hasValue() ? this.site.value().access : 'read', 'contribute'));
-  protected readonly columns = computed(() => ['name', 'area', 'plantFactor', 'method', 'efficiency', 'sla', 'actions']);
+  protected readonly canEdit = computed(() =>
+    atLeast(this.site.hasValue() ? this.site.value().access : 'read', 'contribute'),
+  );
+  protected readonly columns = computed(() => [
+    'name',
+    'area',
+    'plantFactor',
+    'method',
+    'efficiency',
+    'sla',
+    'actions',
+  ]);
   protected readonly methodLabels = IRRIGATION_METHOD_LABELS;
   protected readonly slaLabels = SPECIAL_LANDSCAPE_KIND_LABELS;
   protected readonly loadError = computed(() => {
@@ -89,7 +110,11 @@ export class HydrozoneList {
   }
 
   protected async addZone(): Promise<void> {
-    const saved = await editHydrozone(this.dialog, { siteId: this.siteId(), zone: null, areaUnit: this.units.metric() ? 'm2' : 'ft2' });
+    const saved = await editHydrozone(this.dialog, {
+      siteId: this.siteId(),
+      zone: null,
+      areaUnit: this.units.metric() ? 'm2' : 'ft2',
+    });
     if (saved) {
       this.snackBar.open(`“${saved.name}” added.`, undefined, { duration: 3000 });
       this.zones.reload();
@@ -97,7 +122,11 @@ export class HydrozoneList {
   }
 
   protected async editZone(zone: HydrozoneDto): Promise<void> {
-    const saved = await editHydrozone(this.dialog, { siteId: this.siteId(), zone, areaUnit: this.units.metric() ? 'm2' : 'ft2' });
+    const saved = await editHydrozone(this.dialog, {
+      siteId: this.siteId(),
+      zone,
+      areaUnit: this.units.metric() ? 'm2' : 'ft2',
+    });
     if (saved) {
       this.snackBar.open(`“${saved.name}” saved.`, undefined, { duration: 3000 });
       this.zones.reload();

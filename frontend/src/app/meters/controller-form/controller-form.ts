@@ -19,7 +19,9 @@ import { MetersApi } from '../meters-api';
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
       <mat-dialog-content class="rm-form-grid">
         @if (saveError(); as message) {
-          <div class="rm-form-error wide" role="alert"><mat-icon aria-hidden="true">error</mat-icon><span>{{ message }}</span></div>
+          <div class="rm-form-error wide" role="alert">
+            <mat-icon aria-hidden="true">error</mat-icon><span>{{ message }}</span>
+          </div>
         }
         <mat-form-field appearance="outline">
           <mat-label>Controller ref</mat-label>
@@ -65,7 +67,9 @@ export class ControllerForm {
     this.saving.set(true);
     this.saveError.set(null);
     try {
-      this.ref.close(await firstValueFrom(this.api.createController(this.siteId, { ref: v.ref.trim(), name: v.name.trim() })));
+      this.ref.close(
+        await firstValueFrom(this.api.createController(this.siteId, { ref: v.ref.trim(), name: v.name.trim() })),
+      );
     } catch (err) {
       const problem = describeApiError(err, 'The controller could not be saved.');
       this.saveError.set([problem.message, ...applyFieldErrors(this.form, problem.fields)].join(' '));
@@ -76,6 +80,11 @@ export class ControllerForm {
 }
 
 export async function addController(dialog: MatDialog, siteId: number): Promise<ControllerDto | undefined> {
-  const ref = dialog.open<ControllerForm, { siteId: number }, ControllerDto>(ControllerForm, { data: { siteId }, width: '560px', maxWidth: '96vw', autoFocus: 'first-tabbable' });
+  const ref = dialog.open<ControllerForm, { siteId: number }, ControllerDto>(ControllerForm, {
+    data: { siteId },
+    width: '560px',
+    maxWidth: '96vw',
+    autoFocus: 'first-tabbable',
+  });
   return firstValueFrom(ref.afterClosed());
 }

@@ -16,20 +16,60 @@ import { EquipmentPage } from './equipment-page';
 
 // Invented site and equipment.
 const site = (access: SiteLevel): SiteDto => ({
-  id: 4, name: 'Juniper Row Office Park', kind: 'office-park', address: '9 Caliche Way', timeZone: 'America/Los_Angeles',
-  notes: '', tags: [], organisationId: 2, organisationName: 'Saltgrass Property Partners', access, shares: [],
-  createdAt: '2026-01-01T00:00:00Z', updatedAt: '2026-01-01T00:00:00Z',
+  id: 4,
+  name: 'Juniper Row Office Park',
+  kind: 'office-park',
+  address: '9 Caliche Way',
+  timeZone: 'America/Los_Angeles',
+  notes: '',
+  tags: [],
+  organisationId: 2,
+  organisationName: 'Saltgrass Property Partners',
+  access,
+  shares: [],
+  createdAt: '2026-01-01T00:00:00Z',
+  updatedAt: '2026-01-01T00:00:00Z',
 });
 // 07:30 UTC on 2 March is still 1 March on the site's clock.
 const METER: MeterDto = {
-  id: 31, siteId: 4, ref: 'JR-IRR-01', unit: 'ccf', registerMultiplier: 1, registerDigits: 6, purpose: 'dedicated-irrigation',
-  waterSource: 'recycled', installedAt: '2025-03-02T07:30:00Z', removedAt: null, previousRegisters: [],
+  id: 31,
+  siteId: 4,
+  ref: 'JR-IRR-01',
+  unit: 'ccf',
+  registerMultiplier: 1,
+  registerDigits: 6,
+  purpose: 'dedicated-irrigation',
+  waterSource: 'recycled',
+  installedAt: '2025-03-02T07:30:00Z',
+  removedAt: null,
+  previousRegisters: [],
 };
 const CONTROLLER: ControllerDto = {
-  id: 12, siteId: 4, ref: 'CTL-NORTH', name: 'North clock',
+  id: 12,
+  siteId: 4,
+  ref: 'CTL-NORTH',
+  name: 'North clock',
   zones: [
-    { id: 1, controllerId: 12, station: '1', name: 'Entry turf', hydrozoneId: 8, designGpm: 12.5, emitterCount: null, emitterGph: null },
-    { id: 2, controllerId: 12, station: '2', name: 'Parking shrubs', hydrozoneId: null, designGpm: null, emitterCount: 40, emitterGph: 1 },
+    {
+      id: 1,
+      controllerId: 12,
+      station: '1',
+      name: 'Entry turf',
+      hydrozoneId: 8,
+      designGpm: 12.5,
+      emitterCount: null,
+      emitterGph: null,
+    },
+    {
+      id: 2,
+      controllerId: 12,
+      station: '2',
+      name: 'Parking shrubs',
+      hydrozoneId: null,
+      designGpm: null,
+      emitterCount: 40,
+      emitterGph: 1,
+    },
   ],
 };
 const HYDROZONES = { items: [{ id: 8, name: 'Front turf' }], total: 1, page: 0, pageSize: 200 };
@@ -69,25 +109,52 @@ describe('EquipmentPage', () => {
 
     const meters = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Meters"]' }));
     expect(await (await meters.getRows())[0]!.getCellTextByColumnName()).toMatchObject({
-      ref: 'JR-IRR-01', unit: 'CCF', multiplier: '× 1', digits: '6', purpose: 'Irrigation only', source: 'Recycled', installed: '2025-03-01', removed: 'In service',
+      ref: 'JR-IRR-01',
+      unit: 'CCF',
+      multiplier: '× 1',
+      digits: '6',
+      purpose: 'Irrigation only',
+      source: 'Recycled',
+      installed: '2025-03-01',
+      removed: 'In service',
     });
 
     const zones = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Zones of North clock"]' }));
     const cells = await Promise.all((await zones.getRows()).map((r) => r.getCellTextByColumnName()));
     expect(cells).toEqual([
-      { station: '1', name: 'Entry turf', hydrozone: 'Front turf', designGpm: '12.5 gpm', emitters: '—', actions: 'edit' },
-      { station: '2', name: 'Parking shrubs', hydrozone: 'Not linked', designGpm: '—', emitters: '40 × 1 gph', actions: 'edit' },
+      {
+        station: '1',
+        name: 'Entry turf',
+        hydrozone: 'Front turf',
+        designGpm: '12.5 gpm',
+        emitters: '—',
+        actions: 'edit',
+      },
+      {
+        station: '2',
+        name: 'Parking shrubs',
+        hydrozone: 'Not linked',
+        designGpm: '—',
+        emitters: '40 × 1 gph',
+        actions: 'edit',
+      },
     ]);
-    expect(text()).toContain('the controller\'s transformer runs on mains power');
+    expect(text()).toContain("the controller's transformer runs on mains power");
     expect(text()).toContain('backflow prevention assemblies, to licensed professionals');
-    expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /Add meter|Add controller|Add zone/ }))).toHaveLength(3);
+    expect(
+      await loader.getAllHarnesses(MatButtonHarness.with({ text: /Add meter|Add controller|Add zone/ })),
+    ).toHaveLength(3);
   });
 
   it('when the user may only read the site, then offers no way to add, edit or delete', async () => {
     const { loader } = await openPage('read');
 
     expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /Add/ }))).toHaveLength(0);
-    expect(await loader.getAllHarnesses(MatButtonHarness.with({ selector: '[aria-label^="Edit meter"], [aria-label^="Delete meter"]' }))).toHaveLength(0);
+    expect(
+      await loader.getAllHarnesses(
+        MatButtonHarness.with({ selector: '[aria-label^="Edit meter"], [aria-label^="Delete meter"]' }),
+      ),
+    ).toHaveLength(0);
     const meters = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Meters"]' }));
     expect(await meters.getHeaderRows().then((r) => r[0]!.getCellTextByIndex())).not.toContain('Actions');
   });
@@ -97,7 +164,10 @@ describe('EquipmentPage', () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: /Add meter/ }))).click();
     const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
     expect(await dialog.getTitleText()).toBe('New meter');
-    const input = async (label: string) => (await (await dialog.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }))).getControl(MatInputHarness))!;
+    const input = async (label: string) =>
+      (await (
+        await dialog.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }))
+      ).getControl(MatInputHarness))!;
     await (await input('Meter ref or serial')).setValue('  JR-IRR-02 ');
     await (await input('Register multiplier')).setValue('10');
     await (await input('Register digits')).setValue('5');
@@ -109,23 +179,43 @@ describe('EquipmentPage', () => {
     const clicked = (await dialog.getHarness(MatButtonHarness.with({ text: 'Add meter' }))).click();
     const post = await nextRequest({ method: 'POST', url: '/api/sites/4/meters' });
     expect(post.request.body).toEqual({
-      ref: 'JR-IRR-02', unit: 'kgal', registerMultiplier: 10, registerDigits: 5, purpose: 'dedicated-irrigation', waterSource: 'potable',
+      ref: 'JR-IRR-02',
+      unit: 'kgal',
+      registerMultiplier: 10,
+      registerDigits: 5,
+      purpose: 'dedicated-irrigation',
+      waterSource: 'potable',
       // Midnight on 8 March 2026 in Los Angeles is still PST (UTC−8); the clocks change at 02:00.
-      installedAt: '2026-03-08T08:00:00.000Z', removedAt: null, previousRegisters: [],
+      installedAt: '2026-03-08T08:00:00.000Z',
+      removedAt: null,
+      previousRegisters: [],
     });
-    post.flush({ ...METER, id: 32, ref: 'JR-IRR-02', unit: 'kgal', registerMultiplier: 10, registerDigits: 5, waterSource: 'potable', installedAt: '2026-03-08T08:00:00.000Z' });
+    post.flush({
+      ...METER,
+      id: 32,
+      ref: 'JR-IRR-02',
+      unit: 'kgal',
+      registerMultiplier: 10,
+      registerDigits: 5,
+      waterSource: 'potable',
+      installedAt: '2026-03-08T08:00:00.000Z',
+    });
     (await nextRequest({ method: 'GET', url: '/api/sites/4/meters' })).flush([{ ...METER, id: 32, ref: 'JR-IRR-02' }]);
     await clicked;
     await fixture.whenStable();
 
-    expect(await TestbedHarnessEnvironment.documentRootLoader(fixture).getAllHarnesses(MatDialogHarness)).toHaveLength(0);
+    expect(await TestbedHarnessEnvironment.documentRootLoader(fixture).getAllHarnesses(MatDialogHarness)).toHaveLength(
+      0,
+    );
     const meters = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Meters"]' }));
     expect((await meters.getCellTextByColumnName())['ref']!.text).toEqual(['JR-IRR-02']);
   });
 
   it('when a contributor links a zone to its hydrozone, then the edit is sent for that zone and the controllers reload', async () => {
     const { fixture, loader } = await openPage('contribute');
-    await (await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Edit zone 2 of North clock"]' }))).click();
+    await (
+      await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Edit zone 2 of North clock"]' }))
+    ).click();
     const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
     expect(await dialog.getTitleText()).toBe('Edit zone 2 on North clock');
     const hydrozone = await dialog.getHarness(MatSelectHarness.with({ selector: '[formControlName="hydrozoneId"]' }));
@@ -134,7 +224,14 @@ describe('EquipmentPage', () => {
 
     const clicked = (await dialog.getHarness(MatButtonHarness.with({ text: 'Save zone' }))).click();
     const patch = await nextRequest({ method: 'PATCH', url: '/api/sites/4/controllers/12/zones/2' });
-    expect(patch.request.body).toEqual({ station: '2', name: 'Parking shrubs', hydrozoneId: 8, designGpm: null, emitterCount: 40, emitterGph: 1 });
+    expect(patch.request.body).toEqual({
+      station: '2',
+      name: 'Parking shrubs',
+      hydrozoneId: 8,
+      designGpm: null,
+      emitterCount: 40,
+      emitterGph: 1,
+    });
     const linked = { ...CONTROLLER, zones: [CONTROLLER.zones[0]!, { ...CONTROLLER.zones[1]!, hydrozoneId: 8 }] };
     patch.flush(linked);
     (await nextRequest({ method: 'GET', url: '/api/sites/4/controllers' })).flush([linked]);

@@ -40,27 +40,60 @@ export class EquipmentPage {
   /** Route parameter. */
   readonly id = input.required<string>();
   protected readonly siteId = computed(() => Number(this.id()));
-  protected readonly site = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.sitesApi.get(params) });
-  protected readonly meters = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.api.meters(params) });
-  protected readonly controllers = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.api.controllers(params) });
-  protected readonly hydrozones = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.hydrozonesApi.list(params) });
+  protected readonly site = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.sitesApi.get(params),
+  });
+  protected readonly meters = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.api.meters(params),
+  });
+  protected readonly controllers = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.api.controllers(params),
+  });
+  protected readonly hydrozones = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.hydrozonesApi.list(params),
+  });
 
   protected readonly canEdit = computed(() => this.site.hasValue() && atLeast(this.site.value().access, 'contribute'));
   protected readonly timeZone = computed(() => (this.site.hasValue() ? this.site.value().timeZone : 'UTC'));
   /** Hydrozones to link zones to; without them (still loading, or failed) zones show their id and can stay unlinked. */
-  private readonly hydrozoneOptions = computed(() => (this.hydrozones.hasValue() ? this.hydrozones.value().items.map((h) => ({ id: h.id, name: h.name })) : []));
+  private readonly hydrozoneOptions = computed(() =>
+    this.hydrozones.hasValue() ? this.hydrozones.value().items.map((h) => ({ id: h.id, name: h.name })) : [],
+  );
   private readonly hydrozoneNames = computed(() => new Map(this.hydrozoneOptions().map((h) => [h.id, h.name])));
   protected readonly meterColumns = computed(() => [
-    'ref', 'unit', 'multiplier', 'digits', 'purpose', 'source', 'installed', 'removed', ...(this.canEdit() ? ['actions'] : []),
+    'ref',
+    'unit',
+    'multiplier',
+    'digits',
+    'purpose',
+    'source',
+    'installed',
+    'removed',
+    ...(this.canEdit() ? ['actions'] : []),
   ]);
-  protected readonly zoneColumns = computed(() => ['station', 'name', 'hydrozone', 'designGpm', 'emitters', ...(this.canEdit() ? ['actions'] : [])]);
+  protected readonly zoneColumns = computed(() => [
+    'station',
+    'name',
+    'hydrozone',
+    'designGpm',
+    'emitters',
+    ...(this.canEdit() ? ['actions'] : []),
+  ]);
   // Table rows are untyped in templates, so the label maps are read by plain string keys.
   protected readonly unitLabels: Record<string, string> = VOLUME_UNIT_LABELS;
   protected readonly purposeLabels: Record<string, string> = METER_PURPOSE_LABELS;
   protected readonly sourceLabels: Record<string, string> = WATER_SOURCE_LABELS;
 
-  protected readonly metersError = computed(() => errorOf(this.site.error() ?? this.meters.error(), 'The meters could not be loaded.'));
-  protected readonly controllersError = computed(() => errorOf(this.controllers.error(), 'The controllers could not be loaded.'));
+  protected readonly metersError = computed(() =>
+    errorOf(this.site.error() ?? this.meters.error(), 'The meters could not be loaded.'),
+  );
+  protected readonly controllersError = computed(() =>
+    errorOf(this.controllers.error(), 'The controllers could not be loaded.'),
+  );
 
   protected localDate(iso: string | null): string {
     return iso ? siteDate(this.timeZone(), new Date(iso)) : '—';
@@ -118,9 +151,18 @@ export class EquipmentPage {
   }
 
   private async openZone(controller: ControllerDto, zone: ZoneDto | null): Promise<void> {
-    const saved = await editZone(this.dialog, { siteId: this.siteId(), controller, zone, hydrozones: this.hydrozoneOptions() });
+    const saved = await editZone(this.dialog, {
+      siteId: this.siteId(),
+      controller,
+      zone,
+      hydrozones: this.hydrozoneOptions(),
+    });
     if (saved) {
-      this.snackBar.open(zone ? `Zone ${zone.station} on “${saved.name}” saved.` : `Zone added to “${saved.name}”.`, undefined, { duration: 3000 });
+      this.snackBar.open(
+        zone ? `Zone ${zone.station} on “${saved.name}” saved.` : `Zone added to “${saved.name}”.`,
+        undefined,
+        { duration: 3000 },
+      );
       this.controllers.reload();
     }
   }

@@ -6,7 +6,14 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { METER_PURPOSES, WATER_SOURCES, type MeterDto, type MeterInput, type MeterPurpose, type WaterSource } from '@shared/meters/meter';
+import {
+  METER_PURPOSES,
+  WATER_SOURCES,
+  type MeterDto,
+  type MeterInput,
+  type MeterPurpose,
+  type WaterSource,
+} from '@shared/meters/meter';
 import { VOLUME_UNIT_LABELS, VOLUME_UNITS, type VolumeUnit } from '@shared/units/volume-units';
 import { firstValueFrom } from 'rxjs';
 import { applyFieldErrors, describeApiError } from '../../core/http/api-error';
@@ -23,7 +30,15 @@ export interface MeterFormData {
 /** Adds or edits one meter in a dialog; dates are days on the site's calendar. Closes with the saved meter. */
 @Component({
   selector: 'rm-meter-form',
-  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [
+    ReactiveFormsModule,
+    MatDialogModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatIconModule,
+  ],
   templateUrl: './meter-form.html',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -46,7 +61,10 @@ export class MeterForm {
     ref: [this.meter?.ref ?? '', [Validators.required, Validators.maxLength(64)]],
     unit: [(this.meter?.unit ?? 'gal') as VolumeUnit, Validators.required],
     registerMultiplier: [this.meter?.registerMultiplier ?? 1, [Validators.required, Validators.min(0.000001)]],
-    registerDigits: [(this.meter?.registerDigits ?? null) as number | null, [Validators.min(1), Validators.max(12), Validators.pattern(/^\d+$/)]],
+    registerDigits: [
+      (this.meter?.registerDigits ?? null) as number | null,
+      [Validators.min(1), Validators.max(12), Validators.pattern(/^\d+$/)],
+    ],
     purpose: [(this.meter?.purpose ?? 'dedicated-irrigation') as MeterPurpose, Validators.required],
     waterSource: [(this.meter?.waterSource ?? 'potable') as WaterSource, Validators.required],
     installedAt: [this.localDate(this.meter?.installedAt ?? null)],
@@ -78,7 +96,9 @@ export class MeterForm {
     this.saveError.set(null);
     try {
       const saved = await firstValueFrom(
-        this.meter ? this.api.updateMeter(this.data.siteId, this.meter.id, input) : this.api.createMeter(this.data.siteId, { ...input, previousRegisters: [] }),
+        this.meter
+          ? this.api.updateMeter(this.data.siteId, this.meter.id, input)
+          : this.api.createMeter(this.data.siteId, { ...input, previousRegisters: [] }),
       );
       this.ref.close(saved);
     } catch (err) {
@@ -97,6 +117,11 @@ export class MeterForm {
 
 /** Opens the editor; resolves with the saved meter, or undefined when cancelled. */
 export async function editMeter(dialog: MatDialog, data: MeterFormData): Promise<MeterDto | undefined> {
-  const ref = dialog.open<MeterForm, MeterFormData, MeterDto>(MeterForm, { data, width: '640px', maxWidth: '96vw', autoFocus: 'first-tabbable' });
+  const ref = dialog.open<MeterForm, MeterFormData, MeterDto>(MeterForm, {
+    data,
+    width: '640px',
+    maxWidth: '96vw',
+    autoFocus: 'first-tabbable',
+  });
   return firstValueFrom(ref.afterClosed());
 }

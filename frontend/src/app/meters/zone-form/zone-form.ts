@@ -25,13 +25,25 @@ const num = (v: number | string | null) => (v === null || v === '' ? null : Numb
 /** Adds a zone (one station) to a controller or edits one; closes with the controller as saved. */
 @Component({
   selector: 'rm-zone-form',
-  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [
+    ReactiveFormsModule,
+    MatDialogModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatIconModule,
+  ],
   template: `
-    <h2 mat-dialog-title>{{ data.zone ? 'Edit zone ' + data.zone.station : 'New zone' }} on {{ data.controller.name }}</h2>
+    <h2 mat-dialog-title>
+      {{ data.zone ? 'Edit zone ' + data.zone.station : 'New zone' }} on {{ data.controller.name }}
+    </h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
       <mat-dialog-content class="rm-form-grid">
         @if (saveError(); as message) {
-          <div class="rm-form-error wide" role="alert"><mat-icon aria-hidden="true">error</mat-icon><span>{{ message }}</span></div>
+          <div class="rm-form-error wide" role="alert">
+            <mat-icon aria-hidden="true">error</mat-icon><span>{{ message }}</span>
+          </div>
         }
         <mat-form-field appearance="outline">
           <mat-label>Station</mat-label>
@@ -117,7 +129,9 @@ export class ZoneForm {
     this.saveError.set(null);
     try {
       const { siteId, controller } = this.data;
-      const saved = this.zone ? this.api.updateZone(siteId, controller.id, this.zone.id, input) : this.api.addZone(siteId, controller.id, input);
+      const saved = this.zone
+        ? this.api.updateZone(siteId, controller.id, this.zone.id, input)
+        : this.api.addZone(siteId, controller.id, input);
       this.ref.close(await firstValueFrom(saved));
     } catch (err) {
       const problem = describeApiError(err, 'The zone could not be saved.');
@@ -129,6 +143,11 @@ export class ZoneForm {
 }
 
 export async function editZone(dialog: MatDialog, data: ZoneFormData): Promise<ControllerDto | undefined> {
-  const ref = dialog.open<ZoneForm, ZoneFormData, ControllerDto>(ZoneForm, { data, width: '640px', maxWidth: '96vw', autoFocus: 'first-tabbable' });
+  const ref = dialog.open<ZoneForm, ZoneFormData, ControllerDto>(ZoneForm, {
+    data,
+    width: '640px',
+    maxWidth: '96vw',
+    autoFocus: 'first-tabbable',
+  });
   return firstValueFrom(ref.afterClosed());
 }

@@ -36,7 +36,9 @@ describe('PeriodPicker', () => {
 
   it('when a custom range gets an end before its start, then nothing is emitted; a valid end is', async () => {
     const { fixture, emitted } = await setup({ kind: 'custom', from: '2025-06-10', to: '2025-06-20' });
-    const toInput = (fixture.nativeElement as HTMLElement).querySelectorAll<HTMLInputElement>('input[type=date]').item(1);
+    const toInput = (fixture.nativeElement as HTMLElement)
+      .querySelectorAll<HTMLInputElement>('input[type=date]')
+      .item(1);
     toInput!.value = '2025-06-01';
     toInput!.dispatchEvent(new Event('change'));
     expect(emitted).toEqual([]);

@@ -19,29 +19,77 @@ export interface PeriodValue {
   imports: [MatButtonToggleModule, MatButtonModule, MatIconModule],
   template: `
     <div class="picker" role="group" aria-label="Period">
-      <mat-button-toggle-group [value]="value().kind" (change)="chooseKind($event.value)" aria-label="Kind of period" hideSingleSelectionIndicator>
+      <mat-button-toggle-group
+        [value]="value().kind"
+        (change)="chooseKind($event.value)"
+        aria-label="Kind of period"
+        hideSingleSelectionIndicator
+      >
         <mat-button-toggle value="month">Month</mat-button-toggle>
         <mat-button-toggle value="water-year">Water year</mat-button-toggle>
         <mat-button-toggle value="custom">Custom</mat-button-toggle>
       </mat-button-toggle-group>
       @if (value().kind === 'custom') {
-        <label class="day">From <input type="date" [value]="value().from" [max]="value().to" (change)="chooseRange($any($event.target).value, value().to)" /></label>
-        <label class="day">To <input type="date" [value]="value().to" [min]="value().from" (change)="chooseRange(value().from, $any($event.target).value)" /></label>
+        <label class="day"
+          >From
+          <input
+            type="date"
+            [value]="value().from"
+            [max]="value().to"
+            (change)="chooseRange($any($event.target).value, value().to)"
+        /></label>
+        <label class="day"
+          >To
+          <input
+            type="date"
+            [value]="value().to"
+            [min]="value().from"
+            (change)="chooseRange(value().from, $any($event.target).value)"
+        /></label>
       } @else {
         <div class="step">
-          <button mat-icon-button type="button" (click)="step(-1)" [attr.aria-label]="'Previous ' + unit()"><mat-icon>chevron_left</mat-icon></button>
+          <button mat-icon-button type="button" (click)="step(-1)" [attr.aria-label]="'Previous ' + unit()">
+            <mat-icon>chevron_left</mat-icon>
+          </button>
           <span class="label" aria-live="polite">{{ label() }}</span>
-          <button mat-icon-button type="button" (click)="step(1)" [attr.aria-label]="'Next ' + unit()"><mat-icon>chevron_right</mat-icon></button>
+          <button mat-icon-button type="button" (click)="step(1)" [attr.aria-label]="'Next ' + unit()">
+            <mat-icon>chevron_right</mat-icon>
+          </button>
         </div>
       }
     </div>
   `,
   styles: `
-    .picker { display: flex; flex-wrap: wrap; align-items: center; gap: 8px 16px; }
-    .step { display: flex; align-items: center; gap: 4px; }
-    .label { min-width: 10ch; text-align: center; font: var(--mat-sys-title-small); }
-    .day { display: inline-flex; flex-direction: column; font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); }
-    .day input { font: var(--mat-sys-body-large); padding: 6px 8px; border: 1px solid var(--mat-sys-outline); border-radius: 8px; background: var(--mat-sys-surface); color: var(--mat-sys-on-surface); }
+    .picker {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      gap: 8px 16px;
+    }
+    .step {
+      display: flex;
+      align-items: center;
+      gap: 4px;
+    }
+    .label {
+      min-width: 10ch;
+      text-align: center;
+      font: var(--mat-sys-title-small);
+    }
+    .day {
+      display: inline-flex;
+      flex-direction: column;
+      font: var(--mat-sys-label-medium);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .day input {
+      font: var(--mat-sys-body-large);
+      padding: 6px 8px;
+      border: 1px solid var(--mat-sys-outline);
+      border-radius: 8px;
+      background: var(--mat-sys-surface);
+      color: var(--mat-sys-on-surface);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -49,7 +97,9 @@ export class PeriodPicker {
   readonly value = input.required<PeriodValue>();
   readonly changed = output<PeriodValue>();
 
-  protected readonly label = computed(() => resolvePeriod(this.value().kind, this.value().from, this.value().from, this.value().to).label);
+  protected readonly label = computed(
+    () => resolvePeriod(this.value().kind, this.value().from, this.value().from, this.value().to).label,
+  );
   protected readonly unit = computed(() => (this.value().kind === 'water-year' ? 'water year' : 'month'));
 
   protected chooseKind(kind: PortfolioPeriod): void {

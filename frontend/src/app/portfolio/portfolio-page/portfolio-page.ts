@@ -8,7 +8,12 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { SortDirection } from '@shared/api/page';
-import type { PortfolioCondition, PortfolioDto, PortfolioSort, UseAgainstBudget } from '@shared/portfolio/portfolio-dto';
+import type {
+  PortfolioCondition,
+  PortfolioDto,
+  PortfolioSort,
+  UseAgainstBudget,
+} from '@shared/portfolio/portfolio-dto';
 import { formatVolume } from '@shared/units/format-quantity';
 import { debounceTime, distinctUntilChanged, map } from 'rxjs';
 import { describeApiError } from '../../core/http/api-error';
@@ -25,7 +30,16 @@ const CONDITIONS: { value: PortfolioCondition; label: string }[] = [
 /** Home after sign-in: how the whole portfolio stands against its water budgets, worst sites first. */
 @Component({
   selector: 'rm-portfolio-page',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, PeriodPicker, SitesTable],
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatIconModule,
+    PeriodPicker,
+    SitesTable,
+  ],
   templateUrl: './portfolio-page.html',
   styleUrl: './portfolio-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -46,12 +60,22 @@ export class PortfolioPage {
   protected readonly search = new FormControl('', { nonNullable: true });
 
   private readonly query = computed<PortfolioQuery>(() => ({
-    period: this.period().kind, from: this.period().from, to: this.period().to,
-    page: this.pageIndex(), pageSize: this.pageSize(), sort: this.sort(), dir: this.dir(),
-    q: this.q(), tag: this.tag(), condition: this.condition(),
+    period: this.period().kind,
+    from: this.period().from,
+    to: this.period().to,
+    page: this.pageIndex(),
+    pageSize: this.pageSize(),
+    sort: this.sort(),
+    dir: this.dir(),
+    q: this.q(),
+    tag: this.tag(),
+    condition: this.condition(),
   }));
 
-  protected readonly data = rxResource({ params: () => this.query(), stream: ({ params }) => this.api.portfolio(params) });
+  protected readonly data = rxResource({
+    params: () => this.query(),
+    stream: ({ params }) => this.api.portfolio(params),
+  });
   protected readonly tags = rxResource({ stream: () => this.api.tags() });
   /** The last answer, kept while the next loads so the page doesn't blink. */
   protected readonly shown = linkedSignal<PortfolioDto | undefined, PortfolioDto | undefined>({
@@ -63,13 +87,27 @@ export class PortfolioPage {
     return error ? describeApiError(error, 'The portfolio could not be loaded.').message : null;
   });
   protected readonly tagOptions = computed(() => (this.tags.hasValue() ? this.tags.value() : []));
-  protected readonly phone = toSignal(inject(BreakpointObserver).observe('(max-width: 720px)').pipe(map((s) => s.matches)), { initialValue: false });
+  protected readonly phone = toSignal(
+    inject(BreakpointObserver)
+      .observe('(max-width: 720px)')
+      .pipe(map((s) => s.matches)),
+    { initialValue: false },
+  );
   protected readonly now = Date.now();
-  protected readonly linkQuery = computed(() => ({ period: this.period().kind, from: this.period().from, to: this.period().to }));
+  protected readonly linkQuery = computed(() => ({
+    period: this.period().kind,
+    from: this.period().from,
+    to: this.period().to,
+  }));
 
   constructor() {
     this.search.valueChanges
-      .pipe(map((t) => t.trim()), debounceTime(300), distinctUntilChanged(), takeUntilDestroyed())
+      .pipe(
+        map((t) => t.trim()),
+        debounceTime(300),
+        distinctUntilChanged(),
+        takeUntilDestroyed(),
+      )
       .subscribe((text) => this.filterBy(() => this.q.set(text)));
   }
 
@@ -78,7 +116,9 @@ export class PortfolioPage {
   }
 
   protected percentText(figure: UseAgainstBudget): string {
-    return figure.percentOfBudget === null ? 'no budget' : `${Math.round(figure.percentOfBudget).toLocaleString('en-US')} % of budget`;
+    return figure.percentOfBudget === null
+      ? 'no budget'
+      : `${Math.round(figure.percentOfBudget).toLocaleString('en-US')} % of budget`;
   }
 
   protected money(value: number | null, currency: string | null): string {

@@ -10,12 +10,26 @@ import { SitesTable } from './sites-table';
 const NOW = Date.parse('2025-07-02T12:00:00Z');
 
 // Invented properties only.
-function row(siteId: number, siteName: string, useGallons: number, budgetGallons: number | null, lastDataAt: string | null): PortfolioRow {
+function row(
+  siteId: number,
+  siteName: string,
+  useGallons: number,
+  budgetGallons: number | null,
+  lastDataAt: string | null,
+): PortfolioRow {
   return {
-    siteId, siteName, organisationName: 'Bluestem Grounds Co.', timeZone: 'America/Denver', tags: [],
-    useGallons, budgetGallons, percentOfBudget: budgetGallons ? (useGallons / budgetGallons) * 100 : null,
+    siteId,
+    siteName,
+    organisationName: 'Bluestem Grounds Co.',
+    timeZone: 'America/Denver',
+    tags: [],
+    useGallons,
+    budgetGallons,
+    percentOfBudget: budgetGallons ? (useGallons / budgetGallons) * 100 : null,
     trend: Array.from({ length: 12 }, (_, i) => ({ month: `2024-${String(i + 1).padStart(2, '0')}`, gallons: i * 10 })),
-    openAlerts: siteId === 1 ? 2 : 0, lastDataAt, budgetProblem: budgetGallons ? null : 'This site has no hydrozones yet',
+    openAlerts: siteId === 1 ? 2 : 0,
+    lastDataAt,
+    budgetProblem: budgetGallons ? null : 'This site has no hydrozones yet',
   };
 }
 
@@ -23,7 +37,10 @@ async function setup(phone = false) {
   TestBed.configureTestingModule({ providers: [provideRouter([])] });
   const fixture = TestBed.createComponent(SitesTable);
   const set = (name: string, value: unknown) => fixture.componentRef.setInput(name, value);
-  set('rows', [row(1, 'Heron Flats HOA', 12_500, 10_000, '2025-07-02T09:00:00Z'), row(2, 'Quarry Park', 3_000, null, '2025-06-20T00:00:00Z')]);
+  set('rows', [
+    row(1, 'Heron Flats HOA', 12_500, 10_000, '2025-07-02T09:00:00Z'),
+    row(2, 'Quarry Park', 3_000, null, '2025-06-20T00:00:00Z'),
+  ]);
   set('total', 60);
   set('pageIndex', 0);
   set('pageSize', 25);
@@ -70,7 +87,11 @@ describe('SitesTable', () => {
   it('when the screen is phone-wide, then only site, percent and latest data remain, and the site links to its overview', async () => {
     const { loader, fixture } = await setup(true);
     const table = await loader.getHarness(MatTableHarness);
-    expect(await (await table.getHeaderRows())[0]!.getCellTextByColumnName()).toEqual({ siteName: 'Site', percentOfBudget: 'Of budget', lastDataAt: 'Latest data' });
+    expect(await (await table.getHeaderRows())[0]!.getCellTextByColumnName()).toEqual({
+      siteName: 'Site',
+      percentOfBudget: 'Of budget',
+      lastDataAt: 'Latest data',
+    });
     const link = fixture.nativeElement.querySelector('a.site-link') as HTMLAnchorElement;
     expect(link.getAttribute('href')).toBe('/sites/1/overview');
   });

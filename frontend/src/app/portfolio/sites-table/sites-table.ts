@@ -6,7 +6,12 @@ import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import type { SortDirection } from '@shared/api/page';
-import { PORTFOLIO_SORTS, RECENT_DATA_DAYS, type PortfolioRow, type PortfolioSort } from '@shared/portfolio/portfolio-dto';
+import {
+  PORTFOLIO_SORTS,
+  RECENT_DATA_DAYS,
+  type PortfolioRow,
+  type PortfolioSort,
+} from '@shared/portfolio/portfolio-dto';
 import { formatVolume } from '@shared/units/format-quantity';
 import { Sparkline } from '../sparkline/sparkline';
 import { dataAge } from './data-age';
@@ -17,7 +22,15 @@ const PHONE_COLUMNS = ['siteName', 'percentOfBudget', 'lastDataAt'];
 /** The portfolio's sites, one row each; display only: sorting and paging are emitted for the page to fetch. */
 @Component({
   selector: 'rm-sites-table',
-  imports: [MatTableModule, MatSortModule, MatPaginatorModule, MatProgressBarModule, MatIconModule, RouterLink, Sparkline],
+  imports: [
+    MatTableModule,
+    MatSortModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatIconModule,
+    RouterLink,
+    Sparkline,
+  ],
   templateUrl: './sites-table.html',
   styleUrl: './sites-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -72,7 +85,9 @@ export class SitesTable {
 
   protected sortBy(event: Sort): void {
     const sort = PORTFOLIO_SORTS.find((s) => s === event.active);
-    this.sortChange.emit(sort && event.direction ? { sort, dir: event.direction } : { sort: 'percentOfBudget', dir: 'desc' });
+    this.sortChange.emit(
+      sort && event.direction ? { sort, dir: event.direction } : { sort: 'percentOfBudget', dir: 'desc' },
+    );
   }
 
   protected changePage(event: PageEvent): void {

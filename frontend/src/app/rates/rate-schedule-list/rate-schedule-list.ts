@@ -20,7 +20,19 @@ import { RatesApi } from '../rates-api';
   selector: 'rm-rate-schedule-list',
   imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule],
   templateUrl: './rate-schedule-list.html',
-  styles: `table { width: 100%; } .actions { text-align: right; white-space: nowrap; } td.mat-cell { padding-top: 8px; padding-bottom: 8px; }`,
+  styles: `
+    table {
+      width: 100%;
+    }
+    .actions {
+      text-align: right;
+      white-space: nowrap;
+    }
+    td.mat-cell {
+      padding-top: 8px;
+      padding-bottom: 8px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class RateScheduleList {
@@ -31,9 +43,17 @@ export class RateScheduleList {
 
   readonly id = input.required<string>();
   protected readonly siteId = computed(() => Number(this.id()));
-  protected readonly site = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.sitesApi.get(params) });
-  protected readonly schedules = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.api.list(params) });
-  protected readonly canEdit = computed(() => atLeast(this.site.hasValue() ? this.site.value().access : 'read', 'contribute'));
+  protected readonly site = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.sitesApi.get(params),
+  });
+  protected readonly schedules = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.api.list(params),
+  });
+  protected readonly canEdit = computed(() =>
+    atLeast(this.site.hasValue() ? this.site.value().access : 'read', 'contribute'),
+  );
   protected readonly columns = ['effectiveFrom', 'name', 'fixed', 'charge', 'actions'];
   protected readonly error = computed(() => {
     const err = this.site.error() ?? this.schedules.error();
@@ -45,8 +65,16 @@ export class RateScheduleList {
     const money = (n: number) => new Intl.NumberFormat('en-US', { style: 'currency', currency: s.currency }).format(n);
     const c = s.volumeCharge;
     if (c.kind === 'uniform') return `${money(c.pricePerUnit)} per ${unit}`;
-    if (c.kind === 'tiered') return c.tiers.map((t) => `${t.upToUnits === null ? 'above' : `to ${t.upToUnits} ${unit}`}: ${money(t.pricePerUnit)}`).join(' · ');
-    return c.tiers.map((t) => `${t.upToPercentOfBudget === null ? 'above' : `to ${t.upToPercentOfBudget} % of budget`}: ${money(t.pricePerUnit)}/${unit}`).join(' · ');
+    if (c.kind === 'tiered')
+      return c.tiers
+        .map((t) => `${t.upToUnits === null ? 'above' : `to ${t.upToUnits} ${unit}`}: ${money(t.pricePerUnit)}`)
+        .join(' · ');
+    return c.tiers
+      .map(
+        (t) =>
+          `${t.upToPercentOfBudget === null ? 'above' : `to ${t.upToPercentOfBudget} % of budget`}: ${money(t.pricePerUnit)}/${unit}`,
+      )
+      .join(' · ');
   }
 
   protected money(s: RateScheduleDto): string {
@@ -58,7 +86,15 @@ export class RateScheduleList {
   }
 
   protected async remove(s: RateScheduleDto): Promise<void> {
-    if (!(await confirm(this.dialog, { title: 'Delete this rate schedule?', message: `“${s.name}” from ${s.effectiveFrom} will no longer price the budget.`, confirmLabel: 'Delete schedule', danger: true }))) return;
+    if (
+      !(await confirm(this.dialog, {
+        title: 'Delete this rate schedule?',
+        message: `“${s.name}” from ${s.effectiveFrom} will no longer price the budget.`,
+        confirmLabel: 'Delete schedule',
+        danger: true,
+      }))
+    )
+      return;
     try {
       await firstValueFrom(this.api.remove(this.siteId(), s.id));
       this.schedules.reload();

@@ -14,9 +14,25 @@ import { CompliancePage } from './compliance-page';
 // Invented sites only.
 function row(rank: number, siteName: string, percentOfBudget: number | null): ComplianceRowDto {
   return {
-    rank, siteId: rank, siteName, siteKind: 'park', organisationName: 'Bluestem Grounds Co.', tags: [], useGal: 1000 * rank, budgetGal: percentOfBudget === null ? null : 900,
-    percentOfBudget, annualUseGal: 0, annualMawaGal: null, annualPercentOfMawa: null, completeness: 0.5, presentDays: 15, expectedDays: 30,
-    trendPercent: -12.5, lastYearUseGal: 1200, problem: percentOfBudget === null ? 'no hydrozones' : null, noticeSentAt: null,
+    rank,
+    siteId: rank,
+    siteName,
+    siteKind: 'park',
+    organisationName: 'Bluestem Grounds Co.',
+    tags: [],
+    useGal: 1000 * rank,
+    budgetGal: percentOfBudget === null ? null : 900,
+    percentOfBudget,
+    annualUseGal: 0,
+    annualMawaGal: null,
+    annualPercentOfMawa: null,
+    completeness: 0.5,
+    presentDays: 15,
+    expectedDays: 30,
+    trendPercent: -12.5,
+    lastYearUseGal: 1200,
+    problem: percentOfBudget === null ? 'no hydrozones' : null,
+    noticeSentAt: null,
   };
 }
 
@@ -27,7 +43,12 @@ describe('CompliancePage', () => {
   async function setUp(role: Role) {
     TestBed.configureTestingModule({
       imports: [CompliancePage],
-      providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([]), { provide: AuthStore, useValue: { user: signal({ organisation: { role } }) } }],
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        { provide: AuthStore, useValue: { user: signal({ organisation: { role } }) } },
+      ],
     });
     http = TestBed.inject(HttpTestingController);
     const fixture = TestBed.createComponent(CompliancePage);
@@ -44,7 +65,16 @@ describe('CompliancePage', () => {
     const req = await next('/api/reports/compliance');
     expect(req.request.params.get('sort')).toBe('rank');
     expect(req.request.params.get('month')).toMatch(/^\d{4}-\d{2}$/);
-    const report: ComplianceReportDto = { year: 2026, month: '2026-06', period: { from: '2026-06-01', to: '2026-06-30' }, basis: 'Metered use in 2026-06 against that month\'s water budget.', items: [row(1, 'Larkspur Green', 140), row(2, 'Dry Creek Park', 80), row(3, 'Ochre Yard', null)], total: 3, page: 0, pageSize: 25 };
+    const report: ComplianceReportDto = {
+      year: 2026,
+      month: '2026-06',
+      period: { from: '2026-06-01', to: '2026-06-30' },
+      basis: "Metered use in 2026-06 against that month's water budget.",
+      items: [row(1, 'Larkspur Green', 140), row(2, 'Dry Creek Park', 80), row(3, 'Ochre Yard', null)],
+      total: 3,
+      page: 0,
+      pageSize: 25,
+    };
     req.flush(report);
     await fixture.whenStable();
     const rows = await (await loader.getHarness(MatTableHarness)).getRows();
@@ -60,16 +90,36 @@ describe('CompliancePage', () => {
 
   it('when a column header is clicked, then the server is asked for that order from the first page', async () => {
     const { fixture, loader } = await setUp('manager');
-    (await next('/api/reports/compliance')).flush({ year: 2026, month: null, period: { from: '2026-01-01', to: '2026-12-31' }, basis: '', items: [row(1, 'Larkspur Green', 140)], total: 1, page: 0, pageSize: 25 });
+    (await next('/api/reports/compliance')).flush({
+      year: 2026,
+      month: null,
+      period: { from: '2026-01-01', to: '2026-12-31' },
+      basis: '',
+      items: [row(1, 'Larkspur Green', 140)],
+      total: 1,
+      page: 0,
+      pageSize: 25,
+    });
     await fixture.whenStable();
     expect(await (await loader.getHarness(MatSortHarness)).getSortHeaders({ label: 'Site' })).toHaveLength(1);
     // A native click: the harness would wait for the request this click starts, which only the test answers.
-    (fixture.nativeElement as HTMLElement).querySelector<HTMLElement>('th.mat-column-name [role="button"], th.mat-column-name .mat-sort-header-container')!.click();
+    (fixture.nativeElement as HTMLElement)
+      .querySelector<HTMLElement>('th.mat-column-name [role="button"], th.mat-column-name .mat-sort-header-container')!
+      .click();
     TestBed.tick();
     const req = await next('/api/reports/compliance');
     expect(req.request.params.get('sort')).toBe('name');
     expect(req.request.params.get('page')).toBe('0');
-    req.flush({ year: 2026, month: null, period: { from: '2026-01-01', to: '2026-12-31' }, basis: '', items: [], total: 0, page: 0, pageSize: 25 });
+    req.flush({
+      year: 2026,
+      month: null,
+      period: { from: '2026-01-01', to: '2026-12-31' },
+      basis: '',
+      items: [],
+      total: 0,
+      page: 0,
+      pageSize: 25,
+    });
   });
 
   it('when a contractor opens it, then no ranking is requested', async () => {

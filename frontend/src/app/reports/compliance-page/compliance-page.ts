@@ -31,7 +31,19 @@ const lastMonth = () => {
 /** `/reports`: the compliance ranking (auditors, managers, admins) and the way into a site's savings projects. */
 @Component({
   selector: 'rm-compliance-page',
-  imports: [DecimalPipe, FormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatPaginatorModule, MatProgressBarModule, MatSelectModule, MatSortModule, MatTableModule],
+  imports: [
+    DecimalPipe,
+    FormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+  ],
   templateUrl: './compliance-page.html',
   styleUrl: './compliance-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -47,7 +59,9 @@ export class CompliancePage {
   protected readonly kinds = SITE_KINDS;
   protected readonly kindLabels: Record<string, string> = SITE_KIND_LABELS;
   protected readonly columns = ['rank', 'name', 'kind', 'use', 'budget', 'percent', 'completeness', 'trend', 'notice'];
-  protected readonly canRank = computed(() => ['admin', 'manager', 'auditor'].includes(this.auth.user()?.organisation.role ?? ''));
+  protected readonly canRank = computed(() =>
+    ['admin', 'manager', 'auditor'].includes(this.auth.user()?.organisation.role ?? ''),
+  );
 
   protected readonly year = signal(Number(lastMonth().slice(0, 4)));
   protected readonly month = signal<string | null>(lastMonth());
@@ -57,14 +71,28 @@ export class CompliancePage {
   protected readonly pageSize = signal(25);
   protected readonly sort = signal<ComplianceSort>('rank');
   protected readonly dir = signal<'asc' | 'desc'>('asc');
-  protected readonly monthsOfYear = computed(() => Array.from({ length: 12 }, (_, i) => `${this.year()}-${String(i + 1).padStart(2, '0')}`));
+  protected readonly monthsOfYear = computed(() =>
+    Array.from({ length: 12 }, (_, i) => `${this.year()}-${String(i + 1).padStart(2, '0')}`),
+  );
 
   protected readonly query = computed<ComplianceQuery>(() => ({
-    year: this.year(), month: this.month(), kind: this.kind(), tag: this.tag(), page: this.page(), pageSize: this.pageSize(), sort: this.sort(), dir: this.dir(),
+    year: this.year(),
+    month: this.month(),
+    kind: this.kind(),
+    tag: this.tag(),
+    page: this.page(),
+    pageSize: this.pageSize(),
+    sort: this.sort(),
+    dir: this.dir(),
   }));
-  protected readonly ranking = rxResource({ params: () => (this.canRank() ? this.query() : undefined), stream: ({ params }) => this.api.compliance(params) });
+  protected readonly ranking = rxResource({
+    params: () => (this.canRank() ? this.query() : undefined),
+    stream: ({ params }) => this.api.compliance(params),
+  });
   protected readonly tags = rxResource({ stream: () => this.sitesApi.tags() });
-  protected readonly sites = rxResource({ stream: () => this.sitesApi.list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }) });
+  protected readonly sites = rxResource({
+    stream: () => this.sitesApi.list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }),
+  });
   protected readonly error = computed(() => {
     const err = this.ranking.error();
     return err ? describeApiError(err, 'The ranking could not be loaded.').message : null;
@@ -102,11 +130,19 @@ export class CompliancePage {
 
   protected async notify(row: ComplianceRowDto): Promise<void> {
     const month = this.month() ?? lastMonth();
-    const message = await askNotice(this.dialog, { siteName: row.siteName, month, percentOfBudget: row.percentOfBudget });
+    const message = await askNotice(this.dialog, {
+      siteName: row.siteName,
+      month,
+      percentOfBudget: row.percentOfBudget,
+    });
     if (message === null) return;
     try {
       const sent = await firstValueFrom(this.api.sendNotice(row.siteId, month, message));
-      this.snack.open(`Notice sent to ${sent.recipients} manager${sent.recipients === 1 ? '' : 's'} of ${row.siteName}.`, 'OK', { duration: 5000 });
+      this.snack.open(
+        `Notice sent to ${sent.recipients} manager${sent.recipients === 1 ? '' : 's'} of ${row.siteName}.`,
+        'OK',
+        { duration: 5000 },
+      );
       this.ranking.reload();
     } catch (err) {
       this.snack.open(describeApiError(err, 'The notice could not be sent.').message, 'OK', { duration: 8000 });

@@ -21,12 +21,20 @@ export interface NoticeDialogData {
     <mat-dialog-content>
       <p>
         The managers of <strong>{{ data.siteName }}</strong> get an e-mail about {{ data.month }}
-        @if (data.percentOfBudget !== null) { ({{ data.percentOfBudget.toFixed(0) }} % of budget) }.
-        Only one notice can be sent per site and month.
+        @if (data.percentOfBudget !== null) {
+          ({{ data.percentOfBudget.toFixed(0) }} % of budget)
+        }
+        . Only one notice can be sent per site and month.
       </p>
       <mat-form-field appearance="outline" class="full">
         <mat-label>Note to add (optional)</mat-label>
-        <textarea matInput rows="4" maxlength="2000" [ngModel]="message()" (ngModelChange)="message.set($event)"></textarea>
+        <textarea
+          matInput
+          rows="4"
+          maxlength="2000"
+          [ngModel]="message()"
+          (ngModelChange)="message.set($event)"
+        ></textarea>
       </mat-form-field>
     </mat-dialog-content>
     <mat-dialog-actions align="end">
@@ -34,7 +42,11 @@ export interface NoticeDialogData {
       <button mat-flat-button type="button" [mat-dialog-close]="message()">Send notice</button>
     </mat-dialog-actions>
   `,
-  styles: `.full { width: 100%; }`,
+  styles: `
+    .full {
+      width: 100%;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class NoticeDialog {
@@ -44,6 +56,10 @@ export class NoticeDialog {
 
 /** The note (possibly empty) when confirmed, null when cancelled. */
 export async function askNotice(dialog: MatDialog, data: NoticeDialogData): Promise<string | null> {
-  const ref = dialog.open<NoticeDialog, NoticeDialogData, string | null>(NoticeDialog, { data, width: '480px', maxWidth: '92vw' });
+  const ref = dialog.open<NoticeDialog, NoticeDialogData, string | null>(NoticeDialog, {
+    data,
+    width: '480px',
+    maxWidth: '92vw',
+  });
   return (await firstValueFrom(ref.afterClosed())) ?? null;
 }

@@ -11,7 +11,12 @@ import type { SavingsReportDto } from '@shared/reports/savings-project-dto';
   selector: 'rm-savings-chart',
   imports: [NgxEchartsDirective],
   template: `<div echarts class="chart" [options]="options()" role="img" [attr.aria-label]="summary()"></div>`,
-  styles: `.chart { height: 340px; width: 100%; }`,
+  styles: `
+    .chart {
+      height: 340px;
+      width: 100%;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SavingsChart {
@@ -25,19 +30,44 @@ export class SavingsChart {
   protected readonly options = computed<EChartsCoreOption>(() => {
     const r = this.report();
     const predicted = new Map(r.savings.periods.map((p) => [p.label, p.predictedGal]));
-    const months = [...r.baselineMonths.map((m) => ({ ...m, model: m.fittedGal, period: 'baseline' })), ...r.reportingMonths.map((m) => ({ ...m, model: predicted.get(m.month) ?? null, period: 'reporting' }))];
+    const months = [
+      ...r.baselineMonths.map((m) => ({ ...m, model: m.fittedGal, period: 'baseline' })),
+      ...r.reportingMonths.map((m) => ({ ...m, model: predicted.get(m.month) ?? null, period: 'reporting' })),
+    ];
     const round = (v: number | null) => (v === null ? null : Math.round(v));
     return {
       animation: false,
       legend: { top: 0 },
-      tooltip: { trigger: 'axis', valueFormatter: (v: number | null) => (v === null ? '—' : `${Math.round(v).toLocaleString('en-US')} gal`) },
+      tooltip: {
+        trigger: 'axis',
+        valueFormatter: (v: number | null) => (v === null ? '—' : `${Math.round(v).toLocaleString('en-US')} gal`),
+      },
       grid: { left: 72, right: 24, top: 40, bottom: 40 },
       xAxis: { type: 'category', data: months.map((m) => m.month) },
       yAxis: { type: 'value', name: 'Use (gal/month)', nameLocation: 'middle', nameGap: 56 },
       series: [
-        { name: 'Metered, baseline', type: 'bar', stack: 'use', data: months.map((m) => (m.period === 'baseline' ? round(m.useGal) : null)), itemStyle: { color: '#9aa9b3' } },
-        { name: 'Metered, after the change', type: 'bar', stack: 'use', data: months.map((m) => (m.period === 'reporting' ? round(m.useGal) : null)), itemStyle: { color: '#2f7d6d' } },
-        { name: 'Baseline model (fitted, then predicted)', type: 'line', data: months.map((m) => round(m.model)), itemStyle: { color: '#b5573c' }, lineStyle: { width: 2 }, connectNulls: false },
+        {
+          name: 'Metered, baseline',
+          type: 'bar',
+          stack: 'use',
+          data: months.map((m) => (m.period === 'baseline' ? round(m.useGal) : null)),
+          itemStyle: { color: '#9aa9b3' },
+        },
+        {
+          name: 'Metered, after the change',
+          type: 'bar',
+          stack: 'use',
+          data: months.map((m) => (m.period === 'reporting' ? round(m.useGal) : null)),
+          itemStyle: { color: '#2f7d6d' },
+        },
+        {
+          name: 'Baseline model (fitted, then predicted)',
+          type: 'line',
+          data: months.map((m) => round(m.model)),
+          itemStyle: { color: '#b5573c' },
+          lineStyle: { width: 2 },
+          connectNulls: false,
+        },
       ],
     };
   });

@@ -5,7 +5,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { BASELINE_MODEL_FORMS, type BaselineModelForm } from '@shared/reports/baseline-model';
-import { SAVINGS_CHANGE_KINDS, SAVINGS_CHANGE_LABELS, type SavingsProjectDto, type SavingsProjectInput } from '@shared/reports/savings-project-dto';
+import {
+  SAVINGS_CHANGE_KINDS,
+  SAVINGS_CHANGE_LABELS,
+  type SavingsProjectDto,
+  type SavingsProjectInput,
+} from '@shared/reports/savings-project-dto';
 import { firstValueFrom } from 'rxjs';
 import { describeApiError } from '../../core/http/api-error';
 import { ReportsApi } from '../reports-api';
@@ -26,12 +31,16 @@ const MODEL_LABELS: Record<BaselineModelForm, string> = {
       <mat-form-field appearance="outline" class="wide">
         <mat-label>Title</mat-label>
         <input matInput name="title" required maxlength="160" [(ngModel)]="draft.title" />
-        @if (fieldErrors()['title']) { <mat-hint class="err">{{ fieldErrors()['title'] }}</mat-hint> }
+        @if (fieldErrors()['title']) {
+          <mat-hint class="err">{{ fieldErrors()['title'] }}</mat-hint>
+        }
       </mat-form-field>
       <mat-form-field appearance="outline">
         <mat-label>What changed</mat-label>
         <mat-select name="changeKind" [(ngModel)]="draft.changeKind">
-          @for (k of kinds; track k) { <mat-option [value]="k">{{ kindLabels[k] }}</mat-option> }
+          @for (k of kinds; track k) {
+            <mat-option [value]="k">{{ kindLabels[k] }}</mat-option>
+          }
         </mat-select>
       </mat-form-field>
       <mat-form-field appearance="outline">
@@ -40,33 +49,59 @@ const MODEL_LABELS: Record<BaselineModelForm, string> = {
       </mat-form-field>
       <mat-form-field appearance="outline" class="wide">
         <mat-label>Description</mat-label>
-        <textarea matInput name="changeDescription" rows="2" maxlength="2000" [(ngModel)]="draft.changeDescription"></textarea>
+        <textarea
+          matInput
+          name="changeDescription"
+          rows="2"
+          maxlength="2000"
+          [(ngModel)]="draft.changeDescription"
+        ></textarea>
       </mat-form-field>
       @for (f of monthFields; track f.key) {
         <mat-form-field appearance="outline">
           <mat-label>{{ f.label }}</mat-label>
           <input matInput type="month" [name]="f.key" required [(ngModel)]="draft[f.key]" />
-          @if (fieldErrors()[f.key]) { <mat-hint class="err">{{ fieldErrors()[f.key] }}</mat-hint> }
+          @if (fieldErrors()[f.key]) {
+            <mat-hint class="err">{{ fieldErrors()[f.key] }}</mat-hint>
+          }
         </mat-form-field>
       }
       <mat-form-field appearance="outline" class="wide">
         <mat-label>Baseline model</mat-label>
         <mat-select name="modelForm" [(ngModel)]="draft.modelForm">
-          @for (m of forms; track m) { <mat-option [value]="m">{{ modelLabels[m] }}</mat-option> }
+          @for (m of forms; track m) {
+            <mat-option [value]="m">{{ modelLabels[m] }}</mat-option>
+          }
         </mat-select>
       </mat-form-field>
-      @if (error(); as message) { <p class="err wide" role="alert">{{ message }}</p> }
+      @if (error(); as message) {
+        <p class="err wide" role="alert">{{ message }}</p>
+      }
       <div class="wide actions">
         <button mat-button type="button" (click)="cancelled.emit()">Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="saving()">{{ project() ? 'Save changes' : 'Create project' }}</button>
+        <button mat-flat-button type="submit" [disabled]="saving()">
+          {{ project() ? 'Save changes' : 'Create project' }}
+        </button>
       </div>
     </form>
   `,
   styles: `
-    .grid { display: grid; grid-template-columns: repeat(auto-fill, minmax(200px, 1fr)); gap: 4px 12px; }
-    .wide { grid-column: 1 / -1; }
-    .actions { display: flex; justify-content: flex-end; gap: 8px; }
-    .err { color: var(--mat-sys-error); }
+    .grid {
+      display: grid;
+      grid-template-columns: repeat(auto-fill, minmax(200px, 1fr));
+      gap: 4px 12px;
+    }
+    .wide {
+      grid-column: 1 / -1;
+    }
+    .actions {
+      display: flex;
+      justify-content: flex-end;
+      gap: 8px;
+    }
+    .err {
+      color: var(--mat-sys-error);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -82,17 +117,40 @@ export class SavingsProjectForm {
   protected readonly forms = BASELINE_MODEL_FORMS;
   protected readonly modelLabels = MODEL_LABELS;
   protected readonly monthFields = [
-    { key: 'baselineFrom', label: 'Baseline from (month)' }, { key: 'baselineTo', label: 'Baseline to (month)' },
-    { key: 'reportingFrom', label: 'Reporting from (month)' }, { key: 'reportingTo', label: 'Reporting to (month)' },
+    { key: 'baselineFrom', label: 'Baseline from (month)' },
+    { key: 'baselineTo', label: 'Baseline to (month)' },
+    { key: 'reportingFrom', label: 'Reporting from (month)' },
+    { key: 'reportingTo', label: 'Reporting to (month)' },
   ] as const;
-  protected draft: SavingsProjectInput = { title: '', changeKind: 'spray-to-drip', changeDescription: '', installedOn: '', baselineFrom: '', baselineTo: '', reportingFrom: '', reportingTo: '', modelForm: 'eto' };
+  protected draft: SavingsProjectInput = {
+    title: '',
+    changeKind: 'spray-to-drip',
+    changeDescription: '',
+    installedOn: '',
+    baselineFrom: '',
+    baselineTo: '',
+    reportingFrom: '',
+    reportingTo: '',
+    modelForm: 'eto',
+  };
   protected readonly saving = signal(false);
   protected readonly error = signal<string | null>(null);
   protected readonly fieldErrors = signal<Record<string, string>>({});
 
   ngOnInit(): void {
     const p = this.project();
-    if (p) this.draft = { title: p.title, changeKind: p.changeKind, changeDescription: p.changeDescription, installedOn: p.installedOn, baselineFrom: p.baselineFrom, baselineTo: p.baselineTo, reportingFrom: p.reportingFrom, reportingTo: p.reportingTo, modelForm: p.modelForm };
+    if (p)
+      this.draft = {
+        title: p.title,
+        changeKind: p.changeKind,
+        changeDescription: p.changeDescription,
+        installedOn: p.installedOn,
+        baselineFrom: p.baselineFrom,
+        baselineTo: p.baselineTo,
+        reportingFrom: p.reportingFrom,
+        reportingTo: p.reportingTo,
+        modelForm: p.modelForm,
+      };
   }
 
   protected async save(): Promise<void> {
@@ -100,7 +158,11 @@ export class SavingsProjectForm {
     this.error.set(null);
     try {
       const p = this.project();
-      this.saved.emit(await firstValueFrom(p ? this.api.updateProject(p.id, this.draft) : this.api.createProject(this.siteId(), this.draft)));
+      this.saved.emit(
+        await firstValueFrom(
+          p ? this.api.updateProject(p.id, this.draft) : this.api.createProject(this.siteId(), this.draft),
+        ),
+      );
     } catch (err) {
       const problem = describeApiError(err, 'The project could not be saved.');
       this.error.set(problem.message);

@@ -23,28 +23,49 @@ import { SavingsProjectForm } from '../savings-project-form/savings-project-form
       <header class="rm-page-header">
         <h1>Savings projects{{ site.hasValue() ? ' · ' + site.value().name : '' }}</h1>
         @if (canWrite() && editing() === null) {
-          <button mat-flat-button type="button" (click)="editing.set('new')"><mat-icon>add</mat-icon> New project</button>
+          <button mat-flat-button type="button" (click)="editing.set('new')">
+            <mat-icon>add</mat-icon> New project
+          </button>
         }
       </header>
       @if (editing() === 'new') {
         <rm-savings-project-form [siteId]="siteId()" (saved)="done($event)" (cancelled)="editing.set(null)" />
       }
       <div class="rm-progress-slot">
-        @if (projects.isLoading()) { <mat-progress-bar mode="indeterminate" aria-label="Loading projects" /> }
+        @if (projects.isLoading()) {
+          <mat-progress-bar mode="indeterminate" aria-label="Loading projects" />
+        }
       </div>
       @if (error(); as message) {
-        <div class="rm-state rm-state-error" role="alert"><mat-icon aria-hidden="true">error</mat-icon><p>{{ message }}</p></div>
+        <div class="rm-state rm-state-error" role="alert">
+          <mat-icon aria-hidden="true">error</mat-icon>
+          <p>{{ message }}</p>
+        </div>
       } @else if (projects.hasValue()) {
         @for (p of projects.value(); track p.id) {
           <article class="project">
             @if (editing() === p.id) {
-              <rm-savings-project-form [siteId]="siteId()" [project]="p" (saved)="done($event)" (cancelled)="editing.set(null)" />
+              <rm-savings-project-form
+                [siteId]="siteId()"
+                [project]="p"
+                (saved)="done($event)"
+                (cancelled)="editing.set(null)"
+              />
             } @else {
-              <h2><a [routerLink]="['/reports/savings', p.id]">{{ p.title }}</a></h2>
-              <p>{{ labels[p.changeKind] }}, installed {{ p.installedOn }}. Baseline {{ p.baselineFrom }} to {{ p.baselineTo }}; reporting {{ p.reportingFrom }} to {{ p.reportingTo }}.</p>
-              @if (p.changeDescription) { <p class="sub">{{ p.changeDescription }}</p> }
+              <h2>
+                <a [routerLink]="['/reports/savings', p.id]">{{ p.title }}</a>
+              </h2>
+              <p>
+                {{ labels[p.changeKind] }}, installed {{ p.installedOn }}. Baseline {{ p.baselineFrom }} to
+                {{ p.baselineTo }}; reporting {{ p.reportingFrom }} to {{ p.reportingTo }}.
+              </p>
+              @if (p.changeDescription) {
+                <p class="sub">{{ p.changeDescription }}</p>
+              }
               <div class="actions">
-                <a mat-stroked-button [routerLink]="['/reports/savings', p.id]"><mat-icon>insights</mat-icon> Savings report</a>
+                <a mat-stroked-button [routerLink]="['/reports/savings', p.id]"
+                  ><mat-icon>insights</mat-icon> Savings report</a
+                >
                 @if (canWrite()) {
                   <button mat-button type="button" (click)="editing.set(p.id)">Edit</button>
                   <button mat-button type="button" (click)="remove(p)">Delete</button>
@@ -53,12 +74,31 @@ import { SavingsProjectForm } from '../savings-project-form/savings-project-form
             }
           </article>
         } @empty {
-          <div class="rm-state"><mat-icon aria-hidden="true">eco</mat-icon><p>No savings projects on this site yet.</p></div>
+          <div class="rm-state">
+            <mat-icon aria-hidden="true">eco</mat-icon>
+            <p>No savings projects on this site yet.</p>
+          </div>
         }
       }
     </section>
   `,
-  styles: `.project { border-bottom: 1px solid var(--mat-sys-outline-variant); padding: 12px 0; } .actions { display: flex; gap: 8px; } .sub { color: var(--mat-sys-on-surface-variant); } h2 { margin: 0 0 4px; font-size: 1.1rem; }`,
+  styles: `
+    .project {
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+      padding: 12px 0;
+    }
+    .actions {
+      display: flex;
+      gap: 8px;
+    }
+    .sub {
+      color: var(--mat-sys-on-surface-variant);
+    }
+    h2 {
+      margin: 0 0 4px;
+      font-size: 1.1rem;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SavingsProjects {
@@ -72,10 +112,18 @@ export class SavingsProjects {
 
   protected readonly labels = SAVINGS_CHANGE_LABELS;
   protected readonly editing = signal<number | 'new' | null>(null);
-  protected readonly site = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.sitesApi.get(params) });
-  protected readonly projects = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.api.projects(params) });
+  protected readonly site = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.sitesApi.get(params),
+  });
+  protected readonly projects = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.api.projects(params),
+  });
   // The server decides; this only hides buttons a role cannot use (contribute or better).
-  protected readonly canWrite = computed(() => this.site.hasValue() && ['contribute', 'edit', 'own'].includes(this.site.value().access ?? ''));
+  protected readonly canWrite = computed(
+    () => this.site.hasValue() && ['contribute', 'edit', 'own'].includes(this.site.value().access ?? ''),
+  );
   protected readonly error = computed(() => {
     const err = this.projects.error();
     return err ? describeApiError(err, 'The projects could not be loaded.').message : null;
@@ -88,7 +136,15 @@ export class SavingsProjects {
   }
 
   protected async remove(p: SavingsProjectDto): Promise<void> {
-    if (!(await confirm(this.dialog, { title: 'Delete savings project?', message: `"${p.title}" and its settings are removed; the site's metered data stay.`, confirmLabel: 'Delete', danger: true }))) return;
+    if (
+      !(await confirm(this.dialog, {
+        title: 'Delete savings project?',
+        message: `"${p.title}" and its settings are removed; the site's metered data stay.`,
+        confirmLabel: 'Delete',
+        danger: true,
+      }))
+    )
+      return;
     try {
       await firstValueFrom(this.api.deleteProject(p.id));
       this.projects.reload();

@@ -14,7 +14,15 @@ import { SavingsChart } from '../savings-chart/savings-chart';
 /** `/reports/savings/:id`: the savings figure, the chart, the Guideline 14 checks and the verdict in plain words. */
 @Component({
   selector: 'rm-savings-report',
-  imports: [DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, SavingsChart],
+  imports: [
+    DecimalPipe,
+    RouterLink,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    MatTableModule,
+    SavingsChart,
+  ],
   templateUrl: './savings-report.html',
   styleUrl: './savings-report.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -26,7 +34,10 @@ export class SavingsReport {
 
   protected readonly labels = SAVINGS_CHANGE_LABELS;
   protected readonly checkColumns = ['label', 'value', 'limit', 'result', 'source'];
-  protected readonly report = rxResource({ params: () => this.id(), stream: ({ params }) => this.api.savingsReport(params) });
+  protected readonly report = rxResource({
+    params: () => this.id(),
+    stream: ({ params }) => this.api.savingsReport(params),
+  });
   protected readonly error = computed(() => {
     const err = this.report.error();
     return err ? describeApiError(err, 'The savings report could not be computed.').message : null;

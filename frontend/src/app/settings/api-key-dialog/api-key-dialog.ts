@@ -30,7 +30,16 @@ export interface ApiKeyDialogData {
  */
 @Component({
   selector: 'rm-api-key-dialog',
-  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [
+    ReactiveFormsModule,
+    MatDialogModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+  ],
   templateUrl: './api-key-dialog.html',
   styleUrl: './api-key-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -15,20 +15,52 @@ import { ApiKeyList } from './api-key-list';
 
 // Invented sites and keys only.
 function site(id: number, name: string, access: SiteLevel): SiteDto {
-  return { id, name, kind: 'park', address: '', timeZone: 'America/Boise', notes: '', tags: [], organisationId: 3, organisationName: 'Bluestem Grounds Co.', access, shares: [], createdAt: '2026-01-01T00:00:00Z', updatedAt: '2026-01-01T00:00:00Z' };
+  return {
+    id,
+    name,
+    kind: 'park',
+    address: '',
+    timeZone: 'America/Boise',
+    notes: '',
+    tags: [],
+    organisationId: 3,
+    organisationName: 'Bluestem Grounds Co.',
+    access,
+    shares: [],
+    createdAt: '2026-01-01T00:00:00Z',
+    updatedAt: '2026-01-01T00:00:00Z',
+  };
 }
-const SITES = [site(11, 'Cattail Commons', 'own'), site(12, 'Juniper Row', 'own'), site(13, 'Mesa Verdant (shared, read only)', 'read')];
+const SITES = [
+  site(11, 'Cattail Commons', 'own'),
+  site(12, 'Juniper Row', 'own'),
+  site(13, 'Mesa Verdant (shared, read only)', 'read'),
+];
 function key(id: number, name: string, siteIds: number[], extra: Partial<ApiKeyDto> = {}): ApiKeyDto {
-  return { id, name, prefix: `rk_0000000${id}`, siteIds, createdBy: 'Ada Brightwater', createdAt: '2026-03-04T10:00:00Z', lastUsedAt: null, revokedAt: null, ...extra };
+  return {
+    id,
+    name,
+    prefix: `rk_0000000${id}`,
+    siteIds,
+    createdBy: 'Ada Brightwater',
+    createdAt: '2026-03-04T10:00:00Z',
+    lastUsedAt: null,
+    revokedAt: null,
+    ...extra,
+  };
 }
 const SECRET = 'rk_00000009_' + 'A'.repeat(43);
 
 describe('ApiKeyList', () => {
   let http: HttpTestingController;
-  const next = (method: string, url: string): Promise<TestRequest> => vi.waitFor(() => http.expectOne((req) => req.method === method && req.url === url));
+  const next = (method: string, url: string): Promise<TestRequest> =>
+    vi.waitFor(() => http.expectOne((req) => req.method === method && req.url === url));
 
   async function open(keys: ApiKeyDto[]) {
-    TestBed.configureTestingModule({ imports: [ApiKeyList], providers: [provideHttpClient(), provideHttpClientTesting()] });
+    TestBed.configureTestingModule({
+      imports: [ApiKeyList],
+      providers: [provideHttpClient(), provideHttpClientTesting()],
+    });
     http = TestBed.inject(HttpTestingController);
     const fixture = TestBed.createComponent(ApiKeyList);
     TestBed.tick();
@@ -36,7 +68,12 @@ describe('ApiKeyList', () => {
     (await next('GET', '/api/api-keys')).flush(keys);
     await fixture.whenStable();
     const text = () => (document.body.textContent ?? '').replace(/\s+/g, ' ');
-    return { fixture, loader: TestbedHarnessEnvironment.loader(fixture), root: TestbedHarnessEnvironment.documentRootLoader(fixture), text };
+    return {
+      fixture,
+      loader: TestbedHarnessEnvironment.loader(fixture),
+      root: TestbedHarnessEnvironment.documentRootLoader(fixture),
+      text,
+    };
   }
 
   afterEach(() => http.verify());
@@ -72,12 +109,17 @@ describe('ApiKeyList', () => {
     // Nothing is sent without a name and a site.
     await (await dialog.getHarness(MatButtonHarness.with({ text: 'Create key' }))).click();
     http.expectNone({ method: 'POST', url: '/api/api-keys' });
-    expect(await (await dialog.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Sites' }))).getTextErrors()).toEqual(['Choose at least one site.']);
+    expect(
+      await (await dialog.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Sites' }))).getTextErrors(),
+    ).toEqual(['Choose at least one site.']);
 
     await (await dialog.getHarness(MatInputHarness.with({ placeholder: /Pump house/ }))).setValue('Pump house logger');
     const sites = await dialog.getHarness(MatSelectHarness);
     await sites.open();
-    expect(await Promise.all((await sites.getOptions()).map((o) => o.getText()))).toEqual(['Cattail Commons', 'Juniper Row']);
+    expect(await Promise.all((await sites.getOptions()).map((o) => o.getText()))).toEqual([
+      'Cattail Commons',
+      'Juniper Row',
+    ]);
     await sites.clickOptions({ text: 'Juniper Row' });
     await sites.clickOptions({ text: 'Cattail Commons' });
     // Closing by clicking outside: Escape would close the dialog as well.
@@ -99,12 +141,18 @@ describe('ApiKeyList', () => {
     expect(text()).toContain('For the key’s other sites use their numbers instead: 12 (Juniper Row).');
     expect(await dialog.getHarness(MatButtonHarness.with({ text: /Copy key/ }))).toBeTruthy();
 
-    (Array.from(document.querySelectorAll('mat-dialog-container button')).find((b) => b.textContent!.includes('I have stored the key')) as HTMLButtonElement).click();
+    (
+      Array.from(document.querySelectorAll('mat-dialog-container button')).find((b) =>
+        b.textContent!.includes('I have stored the key'),
+      ) as HTMLButtonElement
+    ).click();
     (await next('GET', '/api/api-keys')).flush([key(9, 'Pump house logger', [11, 12])]);
     await fixture.whenStable();
     expect(await root.getAllHarnesses(MatDialogHarness)).toHaveLength(0);
     expect(document.body.innerHTML).not.toContain(SECRET);
-    expect((await (await loader.getHarness(MatTableHarness)).getCellTextByColumnName())['sites']!.text).toEqual(['Cattail Commons, Juniper Row']);
+    expect((await (await loader.getHarness(MatTableHarness)).getCellTextByColumnName())['sites']!.text).toEqual([
+      'Cattail Commons, Juniper Row',
+    ]);
   });
 
   it('when the admin confirms a revocation, then the key is revoked and the list reloads; cancelling sends nothing', async () => {
@@ -119,16 +167,27 @@ describe('ApiKeyList', () => {
 
     await revoke.click();
     dialog = await root.getHarness(MatDialogHarness);
-    (Array.from(document.querySelectorAll('mat-dialog-container button')).find((b) => b.textContent!.includes('Revoke key')) as HTMLButtonElement).click();
+    (
+      Array.from(document.querySelectorAll('mat-dialog-container button')).find((b) =>
+        b.textContent!.includes('Revoke key'),
+      ) as HTMLButtonElement
+    ).click();
     (await next('DELETE', '/api/api-keys/1')).flush(null, { status: 204, statusText: 'No Content' });
-    (await next('GET', '/api/api-keys')).flush([key(1, 'Pump house logger', [11], { revokedAt: '2026-03-06T09:00:00Z' })]);
+    (await next('GET', '/api/api-keys')).flush([
+      key(1, 'Pump house logger', [11], { revokedAt: '2026-03-06T09:00:00Z' }),
+    ]);
     await fixture.whenStable();
-    expect((await (await loader.getHarness(MatTableHarness)).getCellTextByColumnName())['status']!.text).toEqual(['Revoked Mar 6, 2026']);
+    expect((await (await loader.getHarness(MatTableHarness)).getCellTextByColumnName())['status']!.text).toEqual([
+      'Revoked Mar 6, 2026',
+    ]);
     expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: 'Revoke' }))).toHaveLength(0);
   });
 
   it('when the keys cannot be loaded, then an error with a retry appears, and the retry shows them', async () => {
-    TestBed.configureTestingModule({ imports: [ApiKeyList], providers: [provideHttpClient(), provideHttpClientTesting()] });
+    TestBed.configureTestingModule({
+      imports: [ApiKeyList],
+      providers: [provideHttpClient(), provideHttpClientTesting()],
+    });
     http = TestBed.inject(HttpTestingController);
     const fixture = TestBed.createComponent(ApiKeyList);
     TestBed.tick();
@@ -137,11 +196,15 @@ describe('ApiKeyList', () => {
     await fixture.whenStable();
     const loader = TestbedHarnessEnvironment.loader(fixture);
     expect(await loader.getAllHarnesses(MatTableHarness)).toHaveLength(0);
-    expect((fixture.nativeElement as HTMLElement).querySelector('[role="alert"]')!.textContent).toContain('The server ran into a problem.');
+    expect((fixture.nativeElement as HTMLElement).querySelector('[role="alert"]')!.textContent).toContain(
+      'The server ran into a problem.',
+    );
 
     (fixture.nativeElement as HTMLElement).querySelector<HTMLButtonElement>('.rm-state-error button')!.click();
     (await next('GET', '/api/api-keys')).flush([key(1, 'Pump house logger', [11])]);
     await fixture.whenStable();
-    expect((await (await loader.getHarness(MatTableHarness)).getCellTextByColumnName())['sites']!.text).toEqual(['Cattail Commons']);
+    expect((await (await loader.getHarness(MatTableHarness)).getCellTextByColumnName())['sites']!.text).toEqual([
+      'Cattail Commons',
+    ]);
   });
 });

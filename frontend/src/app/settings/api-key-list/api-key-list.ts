@@ -37,17 +37,30 @@ export class ApiKeyList {
 
   protected readonly keys = rxResource({ stream: () => this.api.list() });
   // Site names for the table and the choices for a new key; 200 is the API's largest page.
-  private readonly siteList = rxResource({ stream: () => this.sitesApi.list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }) });
-  private readonly siteNames = computed(() => new Map((this.siteList.hasValue() ? this.siteList.value().items : []).map((s) => [s.id, s.name])));
+  private readonly siteList = rxResource({
+    stream: () => this.sitesApi.list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }),
+  });
+  private readonly siteNames = computed(
+    () => new Map((this.siteList.hasValue() ? this.siteList.value().items : []).map((s) => [s.id, s.name])),
+  );
   /** A key uploads with contributor rights, so only sites the organisation may contribute to are offered. */
   private readonly keySites = computed<KeySite[]>(() =>
-    (this.siteList.hasValue() ? this.siteList.value().items : []).filter((s) => atLeast(s.access, 'contribute')).map((s) => ({ id: s.id, name: s.name })),
+    (this.siteList.hasValue() ? this.siteList.value().items : [])
+      .filter((s) => atLeast(s.access, 'contribute'))
+      .map((s) => ({ id: s.id, name: s.name })),
   );
 
   protected readonly rows = computed(() => (this.keys.hasValue() ? this.keys.value() : []));
-  protected readonly errorMessage = computed(() => (this.keys.error() ? describeApiError(this.keys.error(), 'The API keys could not be loaded.').message : null));
+  protected readonly errorMessage = computed(() =>
+    this.keys.error() ? describeApiError(this.keys.error(), 'The API keys could not be loaded.').message : null,
+  );
   protected readonly busy = signal<ReadonlySet<number>>(new Set());
-  protected readonly phone = toSignal(inject(BreakpointObserver).observe('(max-width: 720px)').pipe(map((s) => s.matches)), { initialValue: false });
+  protected readonly phone = toSignal(
+    inject(BreakpointObserver)
+      .observe('(max-width: 720px)')
+      .pipe(map((s) => s.matches)),
+    { initialValue: false },
+  );
   protected readonly columns = computed(() => (this.phone() ? PHONE_COLUMNS : ALL_COLUMNS));
 
   protected siteLabel(key: ApiKeyDto): string {
@@ -60,7 +73,11 @@ export class ApiKeyList {
   }
 
   protected async openNewKey(): Promise<void> {
-    const ref = this.dialog.open<ApiKeyDialog, ApiKeyDialogData, ApiKeyDto>(ApiKeyDialog, { data: { sites: this.keySites() }, maxWidth: '94vw', autoFocus: 'first-tabbable' });
+    const ref = this.dialog.open<ApiKeyDialog, ApiKeyDialogData, ApiKeyDto>(ApiKeyDialog, {
+      data: { sites: this.keySites() },
+      maxWidth: '94vw',
+      autoFocus: 'first-tabbable',
+    });
     const created = await firstValueFrom(ref.afterClosed());
     if (created) this.keys.reload();
   }

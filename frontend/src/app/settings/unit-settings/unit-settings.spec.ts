@@ -20,7 +20,11 @@ describe('UnitSettings', () => {
   async function open(role: Role) {
     TestBed.configureTestingModule({
       imports: [UnitSettings],
-      providers: [provideHttpClient(), provideHttpClientTesting(), { provide: AuthStore, useValue: { capabilities: signal(capabilities(role)) } }],
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: AuthStore, useValue: { capabilities: signal(capabilities(role)) } },
+      ],
     });
     http = TestBed.inject(HttpTestingController);
     const fixture = TestBed.createComponent(UnitSettings);
@@ -37,7 +41,9 @@ describe('UnitSettings', () => {
     (await next('GET', '/api/organisation/settings')).flush(SETTINGS);
     await fixture.whenStable();
 
-    const group = await loader.getHarness(MatRadioGroupHarness.with({ selector: '[aria-label="Unit system for the organisation"]' }));
+    const group = await loader.getHarness(
+      MatRadioGroupHarness.with({ selector: '[aria-label="Unit system for the organisation"]' }),
+    );
     expect(await group.getCheckedValue()).toBe('us');
     const [us, metric] = await group.getRadioButtons();
     expect(await us!.getLabelText()).toContain('12,500 gal · 1.50 in · 8,000 ft²');
@@ -65,9 +71,16 @@ describe('UnitSettings', () => {
     const group = await loader.getHarness(MatRadioGroupHarness);
     await group.checkRadioButton({ label: /Metric/ });
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Save unit system' }))).click();
-    (await next('PATCH', '/api/organisation/settings')).flush({ error: { code: 'forbidden', message: 'Only administrators can change organisation settings.', details: [] } }, { status: 403, statusText: 'Forbidden' });
+    (await next('PATCH', '/api/organisation/settings')).flush(
+      { error: { code: 'forbidden', message: 'Only administrators can change organisation settings.', details: [] } },
+      { status: 403, statusText: 'Forbidden' },
+    );
 
-    await vi.waitFor(() => expect((fixture.nativeElement as HTMLElement).querySelector('[role="alert"]')?.textContent).toContain('Only administrators can change organisation settings.'));
+    await vi.waitFor(() =>
+      expect((fixture.nativeElement as HTMLElement).querySelector('[role="alert"]')?.textContent).toContain(
+        'Only administrators can change organisation settings.',
+      ),
+    );
     expect(await group.getCheckedValue()).toBe('metric');
     expect(TestBed.inject(UnitSystemStore).system()).toBe('us');
     expect(text()).not.toContain('Saved.');

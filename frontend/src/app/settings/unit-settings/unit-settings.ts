@@ -55,9 +55,15 @@ export class UnitSettings {
   protected readonly options = OPTIONS;
   protected readonly canChange = computed(() => this.auth.capabilities().manageSettings);
   protected readonly settings = rxResource({ stream: () => this.api.settings() });
-  protected readonly loadError = computed(() => (this.settings.error() ? describeApiError(this.settings.error(), 'The organisation settings could not be loaded.').message : null));
+  protected readonly loadError = computed(() =>
+    this.settings.error()
+      ? describeApiError(this.settings.error(), 'The organisation settings could not be loaded.').message
+      : null,
+  );
   /** What is saved on the server; the choice below starts from it and is reset whenever it changes. */
-  private readonly stored = linkedSignal<UnitSystem | null>(() => (this.settings.hasValue() ? this.settings.value().unitSystem : null));
+  private readonly stored = linkedSignal<UnitSystem | null>(() =>
+    this.settings.hasValue() ? this.settings.value().unitSystem : null,
+  );
   protected readonly choice = linkedSignal<UnitSystem | null>(() => this.stored());
   protected readonly inForce = computed(() => OPTIONS.find((o) => o.value === this.stored()) ?? null);
   protected readonly unchanged = computed(() => this.choice() === this.stored());

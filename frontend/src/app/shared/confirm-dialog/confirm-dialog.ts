@@ -42,6 +42,10 @@ export class ConfirmDialog {
 
 /** Opens the dialog and resolves true only when the user confirmed. */
 export async function confirm(dialog: MatDialog, data: ConfirmData): Promise<boolean> {
-  const ref = dialog.open<ConfirmDialog, ConfirmData, boolean>(ConfirmDialog, { data, width: '420px', maxWidth: '92vw' });
+  const ref = dialog.open<ConfirmDialog, ConfirmData, boolean>(ConfirmDialog, {
+    data,
+    width: '420px',
+    maxWidth: '92vw',
+  });
   return (await firstValueFrom(ref.afterClosed())) === true;
 }

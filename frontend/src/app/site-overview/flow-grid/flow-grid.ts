@@ -13,7 +13,17 @@ const HOURS = Array.from({ length: 24 }, (_, h) => `${String(h).padStart(2, '0')
   selector: 'rm-flow-grid',
   imports: [NgxEchartsDirective],
   template: `<div echarts class="chart" [options]="options()" role="img" [attr.aria-label]="summary()"></div>`,
-  styles: `.chart { height: 420px; width: 100%; } @media (max-width: 600px) { .chart { height: 520px; } }`,
+  styles: `
+    .chart {
+      height: 420px;
+      width: 100%;
+    }
+    @media (max-width: 600px) {
+      .chart {
+        height: 520px;
+      }
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class FlowGrid {
@@ -28,7 +38,9 @@ export class FlowGrid {
   protected readonly options = computed<EChartsCoreOption>(() => {
     const g = this.grid();
     const cells: [number, number, number | null][] = [];
-    g.days.forEach((d, day) => d.hours.forEach((v, hour) => cells.push([hour, day, v === null ? null : Math.round(v * 10) / 10])));
+    g.days.forEach((d, day) =>
+      d.hours.forEach((v, hour) => cells.push([hour, day, v === null ? null : Math.round(v * 10) / 10])),
+    );
     return {
       animation: false,
       textStyle: { fontFamily: 'Open Sans, sans-serif' },
@@ -39,10 +51,23 @@ export class FlowGrid {
         },
       },
       grid: { left: 56, right: 16, top: 8, bottom: 96 },
-      xAxis: { type: 'category', data: HOURS, name: `Local hour (${g.timeZone})`, nameLocation: 'middle', nameGap: 28, splitArea: { show: true } },
+      xAxis: {
+        type: 'category',
+        data: HOURS,
+        name: `Local hour (${g.timeZone})`,
+        nameLocation: 'middle',
+        nameGap: 28,
+        splitArea: { show: true },
+      },
       yAxis: { type: 'category', data: g.days.map((d) => d.date.slice(5)), inverse: true, axisLabel: { interval: 1 } },
       visualMap: {
-        min: 0, max: Math.max(1, g.maxGallons), calculable: false, orient: 'horizontal', left: 'center', bottom: 0, itemHeight: 120,
+        min: 0,
+        max: Math.max(1, g.maxGallons),
+        calculable: false,
+        orient: 'horizontal',
+        left: 'center',
+        bottom: 0,
+        itemHeight: 120,
         text: [`${Math.round(g.maxGallons).toLocaleString('en-US')} gal/h`, '0 gal/h'],
         inRange: { color: ['#eef5f3', '#8cc4c0', '#2f7d8c', '#0f3c48'] },
       },

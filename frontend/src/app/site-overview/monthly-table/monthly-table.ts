@@ -32,11 +32,15 @@ const FLAG_LABELS: Record<MonthlyFlag, string> = {
         </ng-container>
         <ng-container matColumnDef="variance">
           <th mat-header-cell *matHeaderCellDef class="num">Variance (gal)</th>
-          <td mat-cell *matCellDef="let r" class="num" [class.over]="(r.varianceGallons ?? 0) > 0">{{ signed(r.varianceGallons) }}</td>
+          <td mat-cell *matCellDef="let r" class="num" [class.over]="(r.varianceGallons ?? 0) > 0">
+            {{ signed(r.varianceGallons) }}
+          </td>
         </ng-container>
         <ng-container matColumnDef="percent">
           <th mat-header-cell *matHeaderCellDef class="num">Of budget (%)</th>
-          <td mat-cell *matCellDef="let r" class="num">{{ r.percentOfBudget === null ? '—' : num(r.percentOfBudget, 0) }}</td>
+          <td mat-cell *matCellDef="let r" class="num">
+            {{ r.percentOfBudget === null ? '—' : num(r.percentOfBudget, 0) }}
+          </td>
         </ng-container>
         <ng-container matColumnDef="eto">
           <th mat-header-cell *matHeaderCellDef class="num">ETo (mm)</th>
@@ -60,17 +64,42 @@ const FLAG_LABELS: Record<MonthlyFlag, string> = {
         </ng-container>
         <tr mat-header-row *matHeaderRowDef="columns"></tr>
         <tr mat-row *matRowDef="let r; columns: columns" [attr.data-month]="r.month"></tr>
-        <tr *matNoDataRow><td [attr.colspan]="columns.length"><div class="rm-state"><p>No months in this range.</p></div></td></tr>
+        <tr *matNoDataRow>
+          <td [attr.colspan]="columns.length">
+            <div class="rm-state"><p>No months in this range.</p></div>
+          </td>
+        </tr>
       </table>
     </div>
   `,
   styles: `
-    table { width: 100%; }
-    td, th { white-space: nowrap; }
-    .num { text-align: right; font-variant-numeric: tabular-nums; }
-    .over { color: var(--rm-soil, #a4562a); font-weight: 600; }
-    .flag { display: inline-block; margin: 2px 4px 2px 0; padding: 0 8px; border-radius: 10px; font: var(--mat-sys-label-small); background: var(--mat-sys-surface-container-high); }
-    .flag-over-budget { background: var(--mat-sys-error-container); color: var(--mat-sys-on-error-container); }
+    table {
+      width: 100%;
+    }
+    td,
+    th {
+      white-space: nowrap;
+    }
+    .num {
+      text-align: right;
+      font-variant-numeric: tabular-nums;
+    }
+    .over {
+      color: var(--rm-soil, #a4562a);
+      font-weight: 600;
+    }
+    .flag {
+      display: inline-block;
+      margin: 2px 4px 2px 0;
+      padding: 0 8px;
+      border-radius: 10px;
+      font: var(--mat-sys-label-small);
+      background: var(--mat-sys-surface-container-high);
+    }
+    .flag-over-budget {
+      background: var(--mat-sys-error-container);
+      color: var(--mat-sys-on-error-container);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -89,7 +118,9 @@ export class MonthlyTable {
   }
 
   protected num(v: number | null, digits: number): string {
-    return v === null ? '—' : v.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+    return v === null
+      ? '—'
+      : v.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits });
   }
 
   protected money(v: number | null, currency: string | null): string {

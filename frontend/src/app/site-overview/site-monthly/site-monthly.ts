@@ -37,7 +37,11 @@ import { SiteOverviewApi } from '../site-overview-api';
           <button mat-stroked-button type="button" (click)="monthly.reload()">Try again</button>
         </div>
       } @else if (monthly.hasValue()) {
-        <p class="hint">{{ from() }} to {{ to() }} · volumes in US gallons, months on the site's calendar ({{ monthly.value().site.timeZone }}).</p>
+        <p class="hint">
+          {{ from() }} to {{ to() }} · volumes in US gallons, months on the site's calendar ({{
+            monthly.value().site.timeZone
+          }}).
+        </p>
         <rm-monthly-table [months]="monthly.value().months" />
       } @else {
         <div class="rm-state"><p>Loading the monthly table…</p></div>
@@ -45,7 +49,11 @@ import { SiteOverviewApi } from '../site-overview-api';
     </section>
   `,
   styles: `
-    .hint { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); margin: 8px 0; }
+    .hint {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+      margin: 8px 0;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -62,7 +70,11 @@ export class SiteMonthly {
     stream: ({ params }) => this.api.monthly(params.id, params.from, params.to),
   });
   protected readonly csvUrl = computed(() => this.api.monthlyCsvUrl(this.siteId(), this.from(), this.to()));
-  protected readonly error = computed(() => (this.monthly.error() ? describeApiError(this.monthly.error(), 'The monthly table could not be loaded.').message : null));
+  protected readonly error = computed(() =>
+    this.monthly.error()
+      ? describeApiError(this.monthly.error(), 'The monthly table could not be loaded.').message
+      : null,
+  );
 
   protected chooseMonth(value: string): void {
     if (/^\d{4}-(0[1-9]|1[0-2])$/.test(value)) this.to.set(value);

@@ -24,7 +24,9 @@ function site(access: SiteLevel): SiteDto {
     organisationId: 3,
     organisationName: 'Bluestem Grounds Co.',
     access,
-    shares: [{ organisationId: 9, organisationName: 'Pinyon Water District', organisationKind: 'utility', access: 'read' }],
+    shares: [
+      { organisationId: 9, organisationName: 'Pinyon Water District', organisationKind: 'utility', access: 'read' },
+    ],
     createdAt: '2026-01-01T00:00:00Z',
     updatedAt: '2026-01-01T00:00:00Z',
   };
@@ -69,7 +71,9 @@ describe('SiteForm', () => {
   it('when the user may edit but not own the site, then offers the form but no delete', async () => {
     const { loader, field } = await openSite('edit');
 
-    expect(await (await (await field('Site name')).getControl(MatInputHarness))!.getValue()).toBe('Cottonwood Flats Park');
+    expect(await (await (await field('Site name')).getControl(MatInputHarness))!.getValue()).toBe(
+      'Cottonwood Flats Park',
+    );
     expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: 'Save changes' }))).toHaveLength(1);
     expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /Delete/ }))).toHaveLength(0);
   });
@@ -80,7 +84,9 @@ describe('SiteForm', () => {
 
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Save changes' }))).click();
 
-    expect(await (await field('Time zone')).getTextErrors()).toEqual(['Pick a time zone from the list, e.g. America/Phoenix.']);
+    expect(await (await field('Time zone')).getTextErrors()).toEqual([
+      'Pick a time zone from the list, e.g. America/Phoenix.',
+    ]);
     http.expectNone({ method: 'PATCH' });
   });
 
@@ -90,7 +96,11 @@ describe('SiteForm', () => {
 
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Save changes' }))).click();
     const req = await nextRequest('PATCH', '/api/sites/5');
-    expect(req.request.body).toMatchObject({ name: 'Sagebrush Commons', timeZone: 'America/Phoenix', tags: ['reclaimed'] });
+    expect(req.request.body).toMatchObject({
+      name: 'Sagebrush Commons',
+      timeZone: 'America/Phoenix',
+      tags: ['reclaimed'],
+    });
     req.flush(
       {
         error: {

@@ -15,7 +15,14 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { Title } from '@angular/platform-browser';
 import { Router, RouterLink } from '@angular/router';
 import { atLeast } from '@shared/auth/roles';
-import { SITE_KIND_LABELS, SITE_KINDS, SITE_LIMITS, type SiteDto, type SiteInput, type SiteKind } from '@shared/sites/site';
+import {
+  SITE_KIND_LABELS,
+  SITE_KINDS,
+  SITE_LIMITS,
+  type SiteDto,
+  type SiteInput,
+  type SiteKind,
+} from '@shared/sites/site';
 import { firstValueFrom } from 'rxjs';
 import { applyFieldErrors, describeApiError } from '../../core/http/api-error';
 import { confirm } from '../../shared/confirm-dialog/confirm-dialog';
@@ -75,7 +82,9 @@ export class SiteForm {
   });
   protected readonly creating = computed(() => this.id() === undefined);
   protected readonly site = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.api.get(params) });
-  protected readonly loaded = computed<SiteDto | undefined>(() => (this.site.hasValue() ? this.site.value() : undefined));
+  protected readonly loaded = computed<SiteDto | undefined>(() =>
+    this.site.hasValue() ? this.site.value() : undefined,
+  );
   protected readonly loadError = computed(() => {
     if (!this.creating() && this.siteId() === undefined) return 'There is no site at this address.';
     const error = this.site.error();
@@ -132,7 +141,12 @@ export class SiteForm {
       return;
     }
     const value = this.form.getRawValue();
-    const input: SiteInput = { ...value, kind: value.kind as SiteKind, name: value.name.trim(), address: value.address.trim() };
+    const input: SiteInput = {
+      ...value,
+      kind: value.kind as SiteKind,
+      name: value.name.trim(),
+      address: value.address.trim(),
+    };
     const existing = this.loaded();
     this.saving.set(true);
     this.saveError.set(null);

@@ -14,7 +14,14 @@ import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { DEFAULT_PAGE_SIZE, type Page, type SortDirection } from '@shared/api/page';
-import { SITE_KIND_LABELS, SITE_KINDS, SITE_SORTS, type SiteDto, type SiteKind, type SiteSort } from '@shared/sites/site';
+import {
+  SITE_KIND_LABELS,
+  SITE_KINDS,
+  SITE_SORTS,
+  type SiteDto,
+  type SiteKind,
+  type SiteSort,
+} from '@shared/sites/site';
 import { debounceTime, distinctUntilChanged, map } from 'rxjs';
 import { AuthStore } from '../../core/auth/auth-store';
 import { describeApiError } from '../../core/http/api-error';

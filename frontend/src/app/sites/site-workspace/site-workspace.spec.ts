@@ -11,17 +11,40 @@ import { SiteWorkspace } from './site-workspace';
 
 // Invented property and figures.
 const SITE: SiteDto = {
-  id: 7, name: 'Quailbrush Commons', kind: 'hoa-common-area', address: '40 Tumbleweed Loop', timeZone: 'America/Los_Angeles',
-  notes: '', tags: [], organisationId: 2, organisationName: 'Saltgrass Property Partners', access: 'edit', shares: [],
-  createdAt: '2026-01-01T00:00:00Z', updatedAt: '2026-01-01T00:00:00Z',
+  id: 7,
+  name: 'Quailbrush Commons',
+  kind: 'hoa-common-area',
+  address: '40 Tumbleweed Loop',
+  timeZone: 'America/Los_Angeles',
+  notes: '',
+  tags: [],
+  organisationId: 2,
+  organisationName: 'Saltgrass Property Partners',
+  access: 'edit',
+  shares: [],
+  createdAt: '2026-01-01T00:00:00Z',
+  updatedAt: '2026-01-01T00:00:00Z',
 };
 
 function overview(from: string, to: string): SiteOverviewDto {
   return {
     site: { id: 7, name: SITE.name, timeZone: SITE.timeZone, organisationName: SITE.organisationName },
-    from, to,
-    figures: { useGallons: 61_250, budgetGallons: 50_000, percentOfBudget: 122.5, overBudgetGallons: 11_250, lastDataAt: '2026-11-30T20:00:00Z', openAlerts: 1, daysWithData: 30, days: 30 },
-    days: [], uploads: [], alerts: [], budgetProblem: null,
+    from,
+    to,
+    figures: {
+      useGallons: 61_250,
+      budgetGallons: 50_000,
+      percentOfBudget: 122.5,
+      overBudgetGallons: 11_250,
+      lastDataAt: '2026-11-30T20:00:00Z',
+      openAlerts: 1,
+      daysWithData: 30,
+      days: 30,
+    },
+    days: [],
+    uploads: [],
+    alerts: [],
+    budgetProblem: null,
   };
 }
 
@@ -46,13 +69,23 @@ describe('SiteWorkspace', () => {
     const text = () => (root.textContent ?? '').replace(/\s+/g, ' ');
     /** The header's figures as [label, value] pairs, read from the list a screen reader announces. */
     const figures = () =>
-      Array.from(root.querySelectorAll('[role="list"] [role="listitem"]')).map((item) => [item.querySelector('.k')!.textContent!.trim(), item.querySelector('.v')!.textContent!.trim()]);
+      Array.from(root.querySelectorAll('[role="list"] [role="listitem"]')).map((item) => [
+        item.querySelector('.k')!.textContent!.trim(),
+        item.querySelector('.v')!.textContent!.trim(),
+      ]);
     return { fixture, loader, text, figures };
   }
 
   async function answerFigures(fixture: { whenStable(): Promise<unknown> }, openAlerts = 3) {
-    (await nextRequest({ method: 'GET', url: '/api/sites/7/overview?from=2026-11-01&to=2026-11-30' })).flush(overview('2026-11-01', '2026-11-30'));
-    (await nextRequest({ method: 'GET', url: '/api/alerts?status=open&siteId=7&page=0&pageSize=1&sort=detected&dir=desc' })).flush({ items: [], total: openAlerts, page: 0, pageSize: 1 });
+    (await nextRequest({ method: 'GET', url: '/api/sites/7/overview?from=2026-11-01&to=2026-11-30' })).flush(
+      overview('2026-11-01', '2026-11-30'),
+    );
+    (
+      await nextRequest({
+        method: 'GET',
+        url: '/api/alerts?status=open&siteId=7&page=0&pageSize=1&sort=detected&dir=desc',
+      })
+    ).flush({ items: [], total: openAlerts, page: 0, pageSize: 1 });
     await fixture.whenStable();
   }
 
@@ -90,7 +123,9 @@ describe('SiteWorkspace', () => {
 
     const nav = await loader.getHarness(MatTabNavBarHarness);
     const links = await nav.getLinks();
-    const tabs = await Promise.all(links.map(async (l) => [await l.getLabel(), await (await l.host()).getAttribute('href')]));
+    const tabs = await Promise.all(
+      links.map(async (l) => [await l.getLabel(), await (await l.host()).getAttribute('href')]),
+    );
     expect(tabs).toEqual([
       ['Overview', '/sites/7/overview'],
       ['Monthly table', '/sites/7/monthly'],
@@ -107,8 +142,16 @@ describe('SiteWorkspace', () => {
 
   it('when the site is not found, then says so without tabs and retries on request', async () => {
     const { fixture, loader, text, figures } = await openWorkspace();
-    (await nextRequest({ method: 'GET', url: '/api/sites/7' })).flush({ error: { code: 'not-found', message: 'Site not found.' } }, { status: 404, statusText: 'Not Found' });
-    (await nextRequest({ method: 'GET', url: '/api/alerts?status=open&siteId=7&page=0&pageSize=1&sort=detected&dir=desc' })).flush({ items: [], total: 0, page: 0, pageSize: 1 });
+    (await nextRequest({ method: 'GET', url: '/api/sites/7' })).flush(
+      { error: { code: 'not-found', message: 'Site not found.' } },
+      { status: 404, statusText: 'Not Found' },
+    );
+    (
+      await nextRequest({
+        method: 'GET',
+        url: '/api/alerts?status=open&siteId=7&page=0&pageSize=1&sort=detected&dir=desc',
+      })
+    ).flush({ items: [], total: 0, page: 0, pageSize: 1 });
     await fixture.whenStable();
 
     expect(text()).toContain('There is no site at this address, or it is not shared with you.');
@@ -117,7 +160,9 @@ describe('SiteWorkspace', () => {
     // Harness clicks wait for the app to settle, and a pending request keeps it busy: answer before awaiting.
     const clicked = (await loader.getHarness(MatButtonHarness.with({ text: 'Try again' }))).click();
     (await nextRequest({ method: 'GET', url: '/api/sites/7' })).flush(SITE);
-    (await nextRequest({ method: 'GET', url: '/api/sites/7/overview?from=2026-11-01&to=2026-11-30' })).flush(overview('2026-11-01', '2026-11-30'));
+    (await nextRequest({ method: 'GET', url: '/api/sites/7/overview?from=2026-11-01&to=2026-11-30' })).flush(
+      overview('2026-11-01', '2026-11-30'),
+    );
     await clicked;
     await fixture.whenStable();
     expect(figures()).toContainEqual(['Budget to date', '50,000 gal']);
@@ -127,15 +172,25 @@ describe('SiteWorkspace', () => {
   it('when the figures fail, then the header offers to try again and shows them once they load', async () => {
     const { fixture, loader, text, figures } = await openWorkspace();
     (await nextRequest({ method: 'GET', url: '/api/sites/7' })).flush(SITE);
-    (await nextRequest({ method: 'GET', url: '/api/sites/7/overview?from=2026-11-01&to=2026-11-30' })).flush('down', { status: 503, statusText: 'Unavailable' });
-    (await nextRequest({ method: 'GET', url: '/api/alerts?status=open&siteId=7&page=0&pageSize=1&sort=detected&dir=desc' })).flush({ items: [], total: 0, page: 0, pageSize: 1 });
+    (await nextRequest({ method: 'GET', url: '/api/sites/7/overview?from=2026-11-01&to=2026-11-30' })).flush('down', {
+      status: 503,
+      statusText: 'Unavailable',
+    });
+    (
+      await nextRequest({
+        method: 'GET',
+        url: '/api/alerts?status=open&siteId=7&page=0&pageSize=1&sort=detected&dir=desc',
+      })
+    ).flush({ items: [], total: 0, page: 0, pageSize: 1 });
     await fixture.whenStable();
     expect(text()).toContain('This month’s figures could not be loaded.');
     // The tabs stay usable while the figures are missing.
     expect(await loader.getAllHarnesses(MatTabNavBarHarness)).toHaveLength(1);
 
     const clicked = (await loader.getHarness(MatButtonHarness.with({ text: 'Try again' }))).click();
-    (await nextRequest({ method: 'GET', url: '/api/sites/7/overview?from=2026-11-01&to=2026-11-30' })).flush(overview('2026-11-01', '2026-11-30'));
+    (await nextRequest({ method: 'GET', url: '/api/sites/7/overview?from=2026-11-01&to=2026-11-30' })).flush(
+      overview('2026-11-01', '2026-11-30'),
+    );
     await clicked;
     await fixture.whenStable();
     expect(text()).not.toContain('could not be loaded');

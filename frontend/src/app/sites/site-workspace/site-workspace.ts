@@ -39,7 +39,15 @@ export const SITE_TABS: readonly Tab[] = [
  */
 @Component({
   selector: 'rm-site-workspace',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatTabsModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [
+    RouterOutlet,
+    RouterLink,
+    RouterLinkActive,
+    MatTabsModule,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+  ],
   templateUrl: './site-workspace.html',
   styleUrl: './site-workspace.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -55,7 +63,10 @@ export class SiteWorkspace {
   protected readonly tabs = SITE_TABS;
   protected readonly kindLabels = SITE_KIND_LABELS;
 
-  protected readonly site = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.sitesApi.get(params) });
+  protected readonly site = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.sitesApi.get(params),
+  });
   /** Month to date on the site's clock; needs the site's zone first. */
   private readonly today = computed(() => (this.site.hasValue() ? siteDate(this.site.value().timeZone) : undefined));
   protected readonly figures = rxResource({
@@ -69,7 +80,9 @@ export class SiteWorkspace {
   protected readonly openAlerts = rxResource({
     params: () => this.siteId(),
     stream: ({ params }) =>
-      this.alertsApi.list({ status: 'open', kind: '', siteId: params, page: 0, pageSize: 1, sort: 'detected', dir: 'desc' }).pipe(map((page) => page.total)),
+      this.alertsApi
+        .list({ status: 'open', kind: '', siteId: params, page: 0, pageSize: 1, sort: 'detected', dir: 'desc' })
+        .pipe(map((page) => page.total)),
   });
 
   protected readonly siteName = computed(() => (this.site.hasValue() ? this.site.value().name : 'Site'));
@@ -84,8 +97,12 @@ export class SiteWorkspace {
     const problem = describeApiError(err, 'The site could not be loaded.');
     return problem.status === 404 ? 'There is no site at this address, or it is not shared with you.' : problem.message;
   });
-  protected readonly figuresError = computed(() => (this.figures.error() || this.openAlerts.error() ? 'This month’s figures could not be loaded.' : null));
-  protected readonly loading = computed(() => this.site.isLoading() || this.figures.isLoading() || this.openAlerts.isLoading());
+  protected readonly figuresError = computed(() =>
+    this.figures.error() || this.openAlerts.error() ? 'This month’s figures could not be loaded.' : null,
+  );
+  protected readonly loading = computed(
+    () => this.site.isLoading() || this.figures.isLoading() || this.openAlerts.isLoading(),
+  );
 
   protected gallons(value: number | null): string {
     return value === null ? 'no budget' : formatVolume(value, 'gal');

@@ -1,7 +1,14 @@
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
-import { FIELD_LABELS, INTERVAL_MINUTES, UPLOAD_KINDS, type ColumnMapping, type MappedField, type UploadKind } from '@shared/ingest/upload-kind';
+import {
+  FIELD_LABELS,
+  INTERVAL_MINUTES,
+  UPLOAD_KINDS,
+  type ColumnMapping,
+  type MappedField,
+  type UploadKind,
+} from '@shared/ingest/upload-kind';
 import { VOLUME_UNIT_LABELS, VOLUME_UNITS, type VolumeUnit } from '@shared/units/volume-units';
 
 /** The columns a person may point at, per kind of file. */
@@ -41,9 +48,15 @@ export class ColumnMappingEditor {
   protected readonly intervals = INTERVAL_MINUTES;
   protected readonly fields = computed(() => FIELDS_BY_KIND[this.mapping().kind]);
   protected readonly header = computed(() => this.mapping().header);
-  protected readonly needsMeter = computed(() => this.mapping().kind !== 'runtime' && this.mapping().columns.meter === undefined);
-  protected readonly needsUnit = computed(() => this.mapping().kind !== 'runtime' && this.mapping().columns.unit === undefined);
-  protected readonly needsInterval = computed(() => this.mapping().kind === 'interval-long' && this.mapping().columns.intervalMinutes === undefined);
+  protected readonly needsMeter = computed(
+    () => this.mapping().kind !== 'runtime' && this.mapping().columns.meter === undefined,
+  );
+  protected readonly needsUnit = computed(
+    () => this.mapping().kind !== 'runtime' && this.mapping().columns.unit === undefined,
+  );
+  protected readonly needsInterval = computed(
+    () => this.mapping().kind === 'interval-long' && this.mapping().columns.intervalMinutes === undefined,
+  );
 
   protected columnOf(field: MappedField): number | null {
     return this.mapping().columns[field] ?? null;
@@ -52,7 +65,8 @@ export class ColumnMappingEditor {
   protected chooseColumn(field: MappedField, index: number | null): void {
     const columns = { ...this.mapping().columns };
     // One column feeds one field: taking it here frees it elsewhere.
-    for (const [other, i] of Object.entries(columns) as Array<[MappedField, number]>) if (i === index) delete columns[other];
+    for (const [other, i] of Object.entries(columns) as Array<[MappedField, number]>)
+      if (i === index) delete columns[other];
     if (index === null) delete columns[field];
     else columns[field] = index;
     this.mappingChange.emit({ ...this.mapping(), columns });

@@ -7,8 +7,19 @@ import { RejectionTable } from './rejection-table';
 
 const rows: RejectionDto[] = [
   { row: 3, column: 3, kind: 'rejected', message: 'Usage (Gal): "n/a" is not a number' },
-  { row: 4, column: null, kind: 'conflict', message: 'meter LARK-07, 60 min from 2026-11-20 10:00 UTC: stored 2.5 gal (upload #4), this file 99 gal; the stored value was kept.' },
-  { row: 0, column: null, kind: 'notice', message: '2 record(s) repeat a meter/zone and interval given earlier in this file; the first of each was kept.' },
+  {
+    row: 4,
+    column: null,
+    kind: 'conflict',
+    message:
+      'meter LARK-07, 60 min from 2026-11-20 10:00 UTC: stored 2.5 gal (upload #4), this file 99 gal; the stored value was kept.',
+  },
+  {
+    row: 0,
+    column: null,
+    kind: 'notice',
+    message: '2 record(s) repeat a meter/zone and interval given earlier in this file; the first of each was kept.',
+  },
 ];
 
 describe('RejectionTable', () => {

@@ -4,7 +4,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatTableModule } from '@angular/material/table';
 import type { RejectionDto, RejectionKind } from '@shared/uploads/upload';
 
-const KIND_LABELS: Record<RejectionKind, string> = { rejected: 'Not imported', conflict: 'Differs from stored', notice: 'Note' };
+const KIND_LABELS: Record<RejectionKind, string> = {
+  rejected: 'Not imported',
+  conflict: 'Differs from stored',
+  notice: 'Note',
+};
 
 /** Rows an upload could not take (and conflicts and notes), where they are and why; downloadable as CSV. */
 @Component({

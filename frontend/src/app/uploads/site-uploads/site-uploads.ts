@@ -16,7 +16,15 @@ import { UploadsApi } from '../uploads-api';
 /** `/sites/:id/uploads`: the files sent for this site, newest first; new files go through the upload page. */
 @Component({
   selector: 'rm-site-uploads',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatPaginatorModule, MatProgressBarModule, UploadHistory, RejectionTable],
+  imports: [
+    RouterLink,
+    MatButtonModule,
+    MatIconModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    UploadHistory,
+    RejectionTable,
+  ],
   templateUrl: './site-uploads.html',
   styleUrl: './site-uploads.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -29,12 +37,17 @@ export class SiteUploads {
   readonly id = input.required<string>();
   protected readonly siteId = computed(() => Number(this.id()));
   protected readonly pageIndex = signal(0);
-  protected readonly site = rxResource({ params: () => this.siteId(), stream: ({ params }) => this.sitesApi.get(params) });
+  protected readonly site = rxResource({
+    params: () => this.siteId(),
+    stream: ({ params }) => this.sitesApi.get(params),
+  });
   protected readonly uploads = rxResource({
     params: () => ({ id: this.siteId(), page: this.pageIndex() }),
     stream: ({ params }) => this.api.list(params.id, params.page),
   });
-  protected readonly canUpload = computed(() => this.site.hasValue() && atLeast(this.site.value().access, 'contribute'));
+  protected readonly canUpload = computed(
+    () => this.site.hasValue() && atLeast(this.site.value().access, 'contribute'),
+  );
   protected readonly error = computed(() => {
     const err = this.site.error() ?? this.uploads.error();
     return err ? describeApiError(err, 'The uploads could not be loaded.').message : null;

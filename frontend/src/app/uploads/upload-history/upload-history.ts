@@ -6,7 +6,12 @@ import type { UploadKind } from '@shared/ingest/upload-kind';
 import type { UploadDto, UploadStatus } from '@shared/uploads/upload';
 import { KIND_LABELS } from '../column-mapping-editor/column-mapping-editor';
 
-const STATUS_LABELS: Record<UploadStatus, string> = { processing: 'Reading…', done: 'Imported', failed: 'Refused', 'rolled-back': 'Rolled back' };
+const STATUS_LABELS: Record<UploadStatus, string> = {
+  processing: 'Reading…',
+  done: 'Imported',
+  failed: 'Refused',
+  'rolled-back': 'Rolled back',
+};
 
 /** Earlier uploads of a site with their counts; a finished one can be rolled back. */
 @Component({

@@ -7,8 +7,7 @@ const HEAD_BYTES = 64 * 1024;
 const PREVIEW_ROWS = 21;
 
 export type FilePreview =
-  | { ok: true; rows: string[][]; delimiter: Delimiter; encoding: string }
-  | { ok: false; message: string };
+  { ok: true; rows: string[][]; delimiter: Delimiter; encoding: string } | { ok: false; message: string };
 
 /** Reads the start of a file as the server will (same encoding and delimiter sniffing) and splits it with papaparse. */
 export async function previewFile(file: File): Promise<FilePreview> {

@@ -33,7 +33,20 @@ type Phase = 'idle' | 'sending' | 'processing' | 'finished' | 'failed';
 /** Drop a CSV, check how it will be read, send it, and see what came of it; earlier uploads below. */
 @Component({
   selector: 'rm-upload-page',
-  imports: [FormsModule, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatRadioModule, MatSelectModule, ColumnMappingEditor, RejectionTable, UploadHistory],
+  imports: [
+    FormsModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatRadioModule,
+    MatSelectModule,
+    ColumnMappingEditor,
+    RejectionTable,
+    UploadHistory,
+  ],
   templateUrl: './upload-page.html',
   styleUrl: './upload-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -61,7 +74,12 @@ export class UploadPage {
     const site = this.site();
     if (!preview?.ok || !site) return null;
     const mapping = this.mapping();
-    return interpretRows(preview.rows, { timeZone: site.timeZone, now: Date.now(), delimiter: preview.delimiter, mapping: mapping ?? undefined });
+    return interpretRows(preview.rows, {
+      timeZone: site.timeZone,
+      now: Date.now(),
+      delimiter: preview.delimiter,
+      mapping: mapping ?? undefined,
+    });
   });
   protected readonly problems = computed(() => {
     const i = this.interpretation();
@@ -69,7 +87,9 @@ export class UploadPage {
     const mapping = this.mapping();
     return [...i.fileProblems, ...(mapping ? validateMapping(mapping).map((p) => p.message) : [])];
   });
-  protected readonly sampleRecords = computed(() => (this.interpretation()?.records ?? []).slice(0, 8).map((r) => this.describe(r)));
+  protected readonly sampleRecords = computed(() =>
+    (this.interpretation()?.records ?? []).slice(0, 8).map((r) => this.describe(r)),
+  );
   protected readonly replaceConflicts = signal(false);
   protected readonly rowErrors = signal<RowErrorPolicy>('keep-valid');
   protected readonly profileName = signal('');
@@ -87,11 +107,13 @@ export class UploadPage {
   constructor() {
     // A site's workspace links here with ?site=<id> so the file goes to that site.
     const wanted = Number(inject(ActivatedRoute).snapshot.queryParamMap.get('site'));
-    this.sitesApi.list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }).subscribe((page) => {
-      this.sites.set(page.items);
-      const first = page.items.find((s) => s.id === wanted) ?? page.items[0];
-      if (first && this.siteId() === null) this.chooseSite(first.id);
-    });
+    this.sitesApi
+      .list({ page: 0, pageSize: 200, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' })
+      .subscribe((page) => {
+        this.sites.set(page.items);
+        const first = page.items.find((s) => s.id === wanted) ?? page.items[0];
+        if (first && this.siteId() === null) this.chooseSite(first.id);
+      });
     this.api.profiles().subscribe((p) => this.profiles.set(p));
     inject(DestroyRef).onDestroy(() => this.polling?.unsubscribe());
   }
@@ -158,7 +180,12 @@ export class UploadPage {
     this.sentPercent.set(0);
     this.processedRows.set(0);
     this.error.set(null);
-    const fields = { mapping: JSON.stringify(mapping), replaceConflicts: String(this.replaceConflicts()), rowErrors: this.rowErrors(), clientRef };
+    const fields = {
+      mapping: JSON.stringify(mapping),
+      replaceConflicts: String(this.replaceConflicts()),
+      rowErrors: this.rowErrors(),
+      clientRef,
+    };
     this.api.upload(siteId, file, fields).subscribe({
       next: (event) => {
         if (event.type === HttpEventType.UploadProgress) {
@@ -176,7 +203,8 @@ export class UploadPage {
         this.phase.set('failed');
         this.error.set(e.error?.error?.message ?? 'The upload did not reach the server.');
         const details: Array<{ field: string; message: string }> = e.error?.error?.details ?? [];
-        if (details.length) this.error.update((m) => `${m} ${details.map((d) => `${d.field}: ${d.message}`).join('; ')}`);
+        if (details.length)
+          this.error.update((m) => `${m} ${details.map((d) => `${d.field}: ${d.message}`).join('; ')}`);
       },
     });
   }
@@ -194,7 +222,10 @@ export class UploadPage {
       danger: true,
     });
     if (!ok) return;
-    this.api.rollBack(upload.id).subscribe({ next: () => this.refreshHistory(), error: (e: HttpErrorResponse) => this.error.set(e.error?.error?.message ?? 'Roll back failed.') });
+    this.api.rollBack(upload.id).subscribe({
+      next: () => this.refreshHistory(),
+      error: (e: HttpErrorResponse) => this.error.set(e.error?.error?.message ?? 'Roll back failed.'),
+    });
   }
 
   protected csvUrl(id: number): string {
@@ -205,7 +236,9 @@ export class UploadPage {
     if (this.polling) return;
     this.phase.set('processing');
     this.polling = interval(700).subscribe(() =>
-      this.api.list(siteId, 0, clientRef).subscribe((page) => this.processedRows.set(page.items[0]?.progressRows ?? this.processedRows())),
+      this.api
+        .list(siteId, 0, clientRef)
+        .subscribe((page) => this.processedRows.set(page.items[0]?.progressRows ?? this.processedRows())),
     );
   }
 
@@ -221,9 +254,12 @@ export class UploadPage {
   }
 
   private describe(r: IngestRecord): string {
-    const local = (iso: string) => new Date(iso).toLocaleString('en-CA', { timeZone: this.site()!.timeZone, hour12: false }).replace(',', '');
-    if ('controllerRef' in r) return `${r.controllerRef} station ${r.station} · ${local(r.startUtc)} · ${r.minutes} min · ${r.cause ?? 'cause not given'}`;
-    if ('atUtc' in r) return `${r.meterRef} · read at ${local(r.atUtc)} · register ${r.value} ${this.unitLabels[r.unit]}`;
+    const local = (iso: string) =>
+      new Date(iso).toLocaleString('en-CA', { timeZone: this.site()!.timeZone, hour12: false }).replace(',', '');
+    if ('controllerRef' in r)
+      return `${r.controllerRef} station ${r.station} · ${local(r.startUtc)} · ${r.minutes} min · ${r.cause ?? 'cause not given'}`;
+    if ('atUtc' in r)
+      return `${r.meterRef} · read at ${local(r.atUtc)} · register ${r.value} ${this.unitLabels[r.unit]}`;
     return `${r.meterRef} · ${local(r.startUtc)} · ${r.minutes} min · ${r.volume} ${this.unitLabels[r.unit]}`;
   }
 }

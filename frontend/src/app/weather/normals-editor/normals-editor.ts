@@ -18,7 +18,11 @@ const RAIN_MAX_MM = 3000;
     <form [formGroup]="form" (ngSubmit)="submit()" novalidate>
       <table aria-label="Monthly normals">
         <thead>
-          <tr><th scope="col">Month</th><th scope="col">ETo ({{ unit() }})</th><th scope="col">Rain ({{ unit() }})</th></tr>
+          <tr>
+            <th scope="col">Month</th>
+            <th scope="col">ETo ({{ unit() }})</th>
+            <th scope="col">Rain ({{ unit() }})</th>
+          </tr>
         </thead>
         <tbody formArrayName="months">
           @for (row of form.controls.months.controls; track $index) {
@@ -26,14 +30,32 @@ const RAIN_MAX_MM = 3000;
               <th scope="row">{{ monthNames[$index] }}</th>
               <td>
                 <mat-form-field appearance="outline" subscriptSizing="dynamic">
-                  <input matInput type="number" formControlName="eto" step="any" [attr.aria-label]="'ETo ' + monthNames[$index]" [readonly]="!canEdit()" />
-                  @if (row.controls.eto.invalid) { <mat-error>0–{{ limit(etoMax) }}</mat-error> }
+                  <input
+                    matInput
+                    type="number"
+                    formControlName="eto"
+                    step="any"
+                    [attr.aria-label]="'ETo ' + monthNames[$index]"
+                    [readonly]="!canEdit()"
+                  />
+                  @if (row.controls.eto.invalid) {
+                    <mat-error>0–{{ limit(etoMax) }}</mat-error>
+                  }
                 </mat-form-field>
               </td>
               <td>
                 <mat-form-field appearance="outline" subscriptSizing="dynamic">
-                  <input matInput type="number" formControlName="rain" step="any" [attr.aria-label]="'Rain ' + monthNames[$index]" [readonly]="!canEdit()" />
-                  @if (row.controls.rain.invalid) { <mat-error>0–{{ limit(rainMax) }}</mat-error> }
+                  <input
+                    matInput
+                    type="number"
+                    formControlName="rain"
+                    step="any"
+                    [attr.aria-label]="'Rain ' + monthNames[$index]"
+                    [readonly]="!canEdit()"
+                  />
+                  @if (row.controls.rain.invalid) {
+                    <mat-error>0–{{ limit(rainMax) }}</mat-error>
+                  }
                 </mat-form-field>
               </td>
             </tr>
@@ -46,9 +68,18 @@ const RAIN_MAX_MM = 3000;
     </form>
   `,
   styles: `
-    table { border-collapse: collapse; margin-bottom: 12px; }
-    th, td { padding: 2px 8px; text-align: left; }
-    mat-form-field { width: 120px; }
+    table {
+      border-collapse: collapse;
+      margin-bottom: 12px;
+    }
+    th,
+    td {
+      padding: 2px 8px;
+      text-align: left;
+    }
+    mat-form-field {
+      width: 120px;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -63,7 +94,14 @@ export class NormalsEditor {
   protected readonly rainMax = RAIN_MAX_MM;
   private readonly fb = inject(NonNullableFormBuilder);
   protected readonly form = this.fb.group({
-    months: this.fb.array(MONTHS.map(() => this.fb.group({ eto: [null as number | null, [Validators.required, Validators.min(0)]], rain: [null as number | null, [Validators.required, Validators.min(0)]] }))),
+    months: this.fb.array(
+      MONTHS.map(() =>
+        this.fb.group({
+          eto: [null as number | null, [Validators.required, Validators.min(0)]],
+          rain: [null as number | null, [Validators.required, Validators.min(0)]],
+        }),
+      ),
+    ),
   });
 
   constructor() {
@@ -97,7 +135,11 @@ export class NormalsEditor {
       return;
     }
     const f = this.factor();
-    this.save.emit(this.form.getRawValue().months.map((m, i) => ({ month: i + 1, etoMm: Number(m.eto) * f, rainMm: Number(m.rain) * f })));
+    this.save.emit(
+      this.form
+        .getRawValue()
+        .months.map((m, i) => ({ month: i + 1, etoMm: Number(m.eto) * f, rainMm: Number(m.rain) * f })),
+    );
   }
 }
 

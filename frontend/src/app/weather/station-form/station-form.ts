@@ -6,7 +6,13 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { WEATHER_STATION_LIMITS, type StationExposure, type StationSourceKind, type WeatherStationDto, type WeatherStationInput } from '@shared/weather/weather-station-dto';
+import {
+  WEATHER_STATION_LIMITS,
+  type StationExposure,
+  type StationSourceKind,
+  type WeatherStationDto,
+  type WeatherStationInput,
+} from '@shared/weather/weather-station-dto';
 import { firstValueFrom } from 'rxjs';
 import { applyFieldErrors, describeApiError } from '../../core/http/api-error';
 import { WeatherApi } from '../weather-api';
@@ -14,39 +20,60 @@ import { WeatherApi } from '../weather-api';
 /** Creates or edits a weather station in a dialog; closes with the saved station. */
 @Component({
   selector: 'rm-station-form',
-  imports: [ReactiveFormsModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [
+    ReactiveFormsModule,
+    MatDialogModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatIconModule,
+  ],
   template: `
     <h2 mat-dialog-title>{{ station ? 'Edit weather station' : 'New weather station' }}</h2>
     <form [formGroup]="form" (ngSubmit)="save()" novalidate>
       <mat-dialog-content class="grid">
         @if (saveError(); as message) {
-          <div class="rm-form-error wide" role="alert"><mat-icon aria-hidden="true">error</mat-icon><span>{{ message }}</span></div>
+          <div class="rm-form-error wide" role="alert">
+            <mat-icon aria-hidden="true">error</mat-icon><span>{{ message }}</span>
+          </div>
         }
         <mat-form-field appearance="outline" class="wide">
           <mat-label>Station name</mat-label>
           <input matInput formControlName="name" required [maxlength]="limits.nameMax" />
-          @if (form.controls.name.hasError('required')) { <mat-error>Give the station a name.</mat-error> }
-          @else if (form.controls.name.hasError('server')) { <mat-error>{{ form.controls.name.getError('server') }}</mat-error> }
+          @if (form.controls.name.hasError('required')) {
+            <mat-error>Give the station a name.</mat-error>
+          } @else if (form.controls.name.hasError('server')) {
+            <mat-error>{{ form.controls.name.getError('server') }}</mat-error>
+          }
         </mat-form-field>
         <mat-form-field appearance="outline">
           <mat-label>Latitude</mat-label>
           <input matInput type="number" formControlName="latitude" required step="any" /><span matTextSuffix>°</span>
-          @if (form.controls.latitude.invalid) { <mat-error>−90 to 90 degrees (north positive).</mat-error> }
+          @if (form.controls.latitude.invalid) {
+            <mat-error>−90 to 90 degrees (north positive).</mat-error>
+          }
         </mat-form-field>
         <mat-form-field appearance="outline">
           <mat-label>Longitude</mat-label>
           <input matInput type="number" formControlName="longitude" required step="any" /><span matTextSuffix>°</span>
-          @if (form.controls.longitude.invalid) { <mat-error>−180 to 180 degrees (east positive).</mat-error> }
+          @if (form.controls.longitude.invalid) {
+            <mat-error>−180 to 180 degrees (east positive).</mat-error>
+          }
         </mat-form-field>
         <mat-form-field appearance="outline">
           <mat-label>Elevation</mat-label>
           <input matInput type="number" formControlName="elevationM" required step="any" /><span matTextSuffix>m</span>
-          @if (form.controls.elevationM.invalid) { <mat-error>−450 to 9,000 m.</mat-error> }
+          @if (form.controls.elevationM.invalid) {
+            <mat-error>−450 to 9,000 m.</mat-error>
+          }
         </mat-form-field>
         <mat-form-field appearance="outline">
           <mat-label>Wind measured at</mat-label>
           <input matInput type="number" formControlName="windHeightM" required step="any" /><span matTextSuffix>m</span>
-          @if (form.controls.windHeightM.invalid) { <mat-error>0.5 to 100 m above ground.</mat-error> }
+          @if (form.controls.windHeightM.invalid) {
+            <mat-error>0.5 to 100 m above ground.</mat-error>
+          }
         </mat-form-field>
         <mat-form-field appearance="outline">
           <mat-label>Exposure</mat-label>
@@ -66,13 +93,21 @@ import { WeatherApi } from '../weather-api';
       </mat-dialog-content>
       <mat-dialog-actions align="end">
         <button mat-button type="button" mat-dialog-close>Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="saving()">{{ station ? 'Save station' : 'Create station' }}</button>
+        <button mat-flat-button type="submit" [disabled]="saving()">
+          {{ station ? 'Save station' : 'Create station' }}
+        </button>
       </mat-dialog-actions>
     </form>
   `,
   styles: `
-    .grid { display: grid; grid-template-columns: repeat(2, minmax(0, 1fr)); gap: 4px 16px; }
-    .wide { grid-column: 1 / -1; }
+    .grid {
+      display: grid;
+      grid-template-columns: repeat(2, minmax(0, 1fr));
+      gap: 4px 16px;
+    }
+    .wide {
+      grid-column: 1 / -1;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -85,9 +120,18 @@ export class StationForm {
   protected readonly saveError = signal<string | null>(null);
   protected readonly form = inject(NonNullableFormBuilder).group({
     name: [this.station?.name ?? '', [Validators.required, Validators.maxLength(WEATHER_STATION_LIMITS.nameMax)]],
-    latitude: [this.station?.latitude ?? (null as number | null), [Validators.required, Validators.min(-90), Validators.max(90)]],
-    longitude: [this.station?.longitude ?? (null as number | null), [Validators.required, Validators.min(-180), Validators.max(180)]],
-    elevationM: [this.station?.elevationM ?? (null as number | null), [Validators.required, Validators.min(-450), Validators.max(9000)]],
+    latitude: [
+      this.station?.latitude ?? (null as number | null),
+      [Validators.required, Validators.min(-90), Validators.max(90)],
+    ],
+    longitude: [
+      this.station?.longitude ?? (null as number | null),
+      [Validators.required, Validators.min(-180), Validators.max(180)],
+    ],
+    elevationM: [
+      this.station?.elevationM ?? (null as number | null),
+      [Validators.required, Validators.min(-450), Validators.max(9000)],
+    ],
     windHeightM: [this.station?.windHeightM ?? 2, [Validators.required, Validators.min(0.5), Validators.max(100)]],
     exposure: [this.station?.exposure ?? ('interior' as StationExposure)],
     sourceKind: [this.station?.sourceKind ?? ('upload' as StationSourceKind)],
@@ -99,10 +143,19 @@ export class StationForm {
       return;
     }
     const v = this.form.getRawValue();
-    const input: WeatherStationInput = { ...v, name: v.name.trim(), latitude: Number(v.latitude), longitude: Number(v.longitude), elevationM: Number(v.elevationM), windHeightM: Number(v.windHeightM) };
+    const input: WeatherStationInput = {
+      ...v,
+      name: v.name.trim(),
+      latitude: Number(v.latitude),
+      longitude: Number(v.longitude),
+      elevationM: Number(v.elevationM),
+      windHeightM: Number(v.windHeightM),
+    };
     this.saving.set(true);
     try {
-      this.ref.close(await firstValueFrom(this.station ? this.api.update(this.station.id, input) : this.api.create(input)));
+      this.ref.close(
+        await firstValueFrom(this.station ? this.api.update(this.station.id, input) : this.api.create(input)),
+      );
     } catch (err) {
       const problem = describeApiError(err, 'The station could not be saved.');
       this.saveError.set([problem.message, ...applyFieldErrors(this.form, problem.fields)].join(' '));
@@ -112,6 +165,17 @@ export class StationForm {
   }
 }
 
-export function editStation(dialog: MatDialog, station: WeatherStationDto | null): Promise<WeatherStationDto | undefined> {
-  return firstValueFrom(dialog.open<StationForm, WeatherStationDto | null, WeatherStationDto>(StationForm, { data: station, width: '640px', maxWidth: '96vw' }).afterClosed());
+export function editStation(
+  dialog: MatDialog,
+  station: WeatherStationDto | null,
+): Promise<WeatherStationDto | undefined> {
+  return firstValueFrom(
+    dialog
+      .open<StationForm, WeatherStationDto | null, WeatherStationDto>(StationForm, {
+        data: station,
+        width: '640px',
+        maxWidth: '96vw',
+      })
+      .afterClosed(),
+  );
 }

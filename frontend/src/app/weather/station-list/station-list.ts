@@ -24,7 +24,10 @@ import { WeatherApi } from '../weather-api';
         }
       </header>
       @if (error(); as message) {
-        <div class="rm-state rm-state-error" role="alert"><mat-icon aria-hidden="true">error</mat-icon><p>{{ message }}</p></div>
+        <div class="rm-state rm-state-error" role="alert">
+          <mat-icon aria-hidden="true">error</mat-icon>
+          <p>{{ message }}</p>
+        </div>
       } @else {
         <div class="rm-table-scroll">
           <div class="rm-progress-slot">
@@ -32,10 +35,16 @@ import { WeatherApi } from '../weather-api';
               <mat-progress-bar mode="indeterminate" aria-label="Loading stations" />
             }
           </div>
-          <table mat-table [dataSource]="stations.hasValue() ? stations.value().items : []" aria-label="Weather stations">
+          <table
+            mat-table
+            [dataSource]="stations.hasValue() ? stations.value().items : []"
+            aria-label="Weather stations"
+          >
             <ng-container matColumnDef="name">
               <th mat-header-cell *matHeaderCellDef>Name</th>
-              <td mat-cell *matCellDef="let s"><a [routerLink]="['/weather-stations', s.id]">{{ s.name }}</a></td>
+              <td mat-cell *matCellDef="let s">
+                <a [routerLink]="['/weather-stations', s.id]">{{ s.name }}</a>
+              </td>
             </ng-container>
             <ng-container matColumnDef="owner">
               <th mat-header-cell *matHeaderCellDef>Owner</th>
@@ -51,13 +60,22 @@ import { WeatherApi } from '../weather-api';
             </ng-container>
             <tr mat-header-row *matHeaderRowDef="columns"></tr>
             <tr mat-row *matRowDef="let row; columns: columns"></tr>
-            <tr class="mat-row" *matNoDataRow><td class="mat-cell" [attr.colspan]="columns.length">No weather stations yet.</td></tr>
+            <tr class="mat-row" *matNoDataRow>
+              <td class="mat-cell" [attr.colspan]="columns.length">No weather stations yet.</td>
+            </tr>
           </table>
         </div>
       }
     </section>
   `,
-  styles: `table { width: 100%; } td.mat-cell { padding: 16px; }`,
+  styles: `
+    table {
+      width: 100%;
+    }
+    td.mat-cell {
+      padding: 16px;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class StationList {

@@ -17,7 +17,12 @@ function niceCeil(value: number): number {
   selector: 'rm-weather-chart',
   imports: [NgxEchartsDirective],
   template: `<div echarts class="chart" [options]="options()" role="img" [attr.aria-label]="summary()"></div>`,
-  styles: `.chart { height: 360px; width: 100%; }`,
+  styles: `
+    .chart {
+      height: 360px;
+      width: 100%;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class WeatherChart {
@@ -51,18 +56,41 @@ export class WeatherChart {
       yAxis: [
         { type: 'value', name: `ETo (${unit}/day)`, nameLocation: 'middle', nameGap: 40 },
         // Rain hangs from the top and uses the upper third, so it never hides the ETo bars.
-        { type: 'value', name: `Rain (${unit})`, nameLocation: 'middle', nameGap: 40, inverse: true, axisLabel: { showMaxLabel: false }, max: (x: { max: number }) => niceCeil(Math.max(x.max * 3, this.metric() ? 10 : 0.4)) },
+        {
+          type: 'value',
+          name: `Rain (${unit})`,
+          nameLocation: 'middle',
+          nameGap: 40,
+          inverse: true,
+          axisLabel: { showMaxLabel: false },
+          max: (x: { max: number }) => niceCeil(Math.max(x.max * 3, this.metric() ? 10 : 0.4)),
+        },
       ],
       series: [
-        { name: 'ETo, station', type: 'bar', stack: 'eto', data: days.map((d) => (d.filled ? null : v(d.etoMm))), itemStyle: { color: '#3b7f6a' } },
+        {
+          name: 'ETo, station',
+          type: 'bar',
+          stack: 'eto',
+          data: days.map((d) => (d.filled ? null : v(d.etoMm))),
+          itemStyle: { color: '#3b7f6a' },
+        },
         {
           name: 'ETo, filled from normals',
           type: 'bar',
           stack: 'eto',
           data: days.map((d) => (d.filled ? v(d.etoMm) : null)),
-          itemStyle: { color: '#e0a33a', decal: { symbol: 'rect', dashArrayX: [1, 0], dashArrayY: [2, 3], rotation: -0.8 } },
+          itemStyle: {
+            color: '#e0a33a',
+            decal: { symbol: 'rect', dashArrayX: [1, 0], dashArrayY: [2, 3], rotation: -0.8 },
+          },
         },
-        { name: 'Rain', type: 'bar', yAxisIndex: 1, data: days.map((d) => v(d.rainMm)), itemStyle: { color: '#4d79b8' } },
+        {
+          name: 'Rain',
+          type: 'bar',
+          yAxisIndex: 1,
+          data: days.map((d) => v(d.rainMm)),
+          itemStyle: { color: '#4d79b8' },
+        },
       ],
     };
   });

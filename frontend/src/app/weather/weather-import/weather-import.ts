@@ -7,7 +7,12 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { HttpErrorResponse } from '@angular/common/http';
 import { WEATHER_FILE_COLUMNS } from '@shared/weather/daily-weather-rows';
-import { DAILY_WEATHER_METHOD_LABELS, type DailyWeatherMethod, type WeatherImportReport, type WeatherUploadFormat } from '@shared/weather/weather-station-dto';
+import {
+  DAILY_WEATHER_METHOD_LABELS,
+  type DailyWeatherMethod,
+  type WeatherImportReport,
+  type WeatherUploadFormat,
+} from '@shared/weather/weather-station-dto';
 import type { ApiErrorBody } from '@shared/api/errors';
 import { firstValueFrom } from 'rxjs';
 import { describeApiError } from '../../core/http/api-error';
@@ -42,7 +47,9 @@ export class WeatherImport {
   }
 
   protected methodsOf(report: WeatherImportReport): string {
-    return Object.entries(report.methods).map(([m, n]) => `${this.methodLabels[m as DailyWeatherMethod]}: ${n}`).join(' · ');
+    return Object.entries(report.methods)
+      .map(([m, n]) => `${this.methodLabels[m as DailyWeatherMethod]}: ${n}`)
+      .join(' · ');
   }
 
   protected async upload(): Promise<void> {
@@ -63,7 +70,10 @@ export class WeatherImport {
       this.imported.emit();
     } catch (err) {
       const body = err instanceof HttpErrorResponse ? (err.error as ApiErrorBody | null) : null;
-      this.problem.set({ message: describeApiError(err, 'Nothing was stored.').message, rows: body?.error?.details ?? [] });
+      this.problem.set({
+        message: describeApiError(err, 'Nothing was stored.').message,
+        rows: body?.error?.details ?? [],
+      });
     } finally {
       this.busy.set(false);
     }

@@ -8,7 +8,11 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { RouterLink } from '@angular/router';
-import { DAILY_WEATHER_METHOD_LABELS, type DailyWeatherMethod, type MonthlyNormalDto } from '@shared/weather/weather-station-dto';
+import {
+  DAILY_WEATHER_METHOD_LABELS,
+  type DailyWeatherMethod,
+  type MonthlyNormalDto,
+} from '@shared/weather/weather-station-dto';
 import { firstValueFrom } from 'rxjs';
 import { describeApiError } from '../../core/http/api-error';
 import { UnitSystemStore } from '../../shared/unit-system/unit-system';
@@ -23,7 +27,17 @@ const isoDaysAgo = (days: number) => new Date(Date.now() - days * 86_400_000).to
 /** `/weather-stations/:id`: a station's daily ETo and rain, where they came from, imports and normals. */
 @Component({
   selector: 'rm-weather-station',
-  imports: [RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, WeatherChart, WeatherImport, NormalsEditor],
+  imports: [
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    WeatherChart,
+    WeatherImport,
+    NormalsEditor,
+  ],
   templateUrl: './weather-station.html',
   styleUrl: './weather-station.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -39,12 +53,18 @@ export class WeatherStation {
   protected readonly from = signal(isoDaysAgo(120));
   protected readonly to = signal(isoDaysAgo(1));
 
-  protected readonly station = rxResource({ params: () => this.stationId(), stream: ({ params }) => this.api.get(params) });
+  protected readonly station = rxResource({
+    params: () => this.stationId(),
+    stream: ({ params }) => this.api.get(params),
+  });
   protected readonly series = rxResource({
     params: () => ({ id: this.stationId(), from: this.from(), to: this.to() }),
     stream: ({ params }) => this.api.daily(params.id, params.from, params.to),
   });
-  protected readonly normals = rxResource({ params: () => this.stationId(), stream: ({ params }) => this.api.normals(params) });
+  protected readonly normals = rxResource({
+    params: () => this.stationId(),
+    stream: ({ params }) => this.api.normals(params),
+  });
 
   protected readonly loadError = computed(() => {
     const err = this.station.error();
