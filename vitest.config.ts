@@ -1,5 +1,11 @@
+import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
+
+// The same .env that ops/lib/env.sh reads, so `npx vitest …` run by hand meets the same MariaDB and fake services as
+// `npm test` (variables already set in the environment win).
+const envFile = fileURLToPath(new URL('./.env', import.meta.url));
+if (existsSync(envFile)) process.loadEnvFile(envFile);
 
 // Node-side tests. The Angular component tests run through `ng test` (Angular's Vitest runner).
 const alias = { '@shared': fileURLToPath(new URL('./shared', import.meta.url)) };
