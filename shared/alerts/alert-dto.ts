@@ -1,6 +1,5 @@
-/** What the alerts and watch APIs send and accept; shared by the server and the browser. */
-import type { ChartSeries, FindingKind, Severity } from './finding';
-import type { ThresholdName } from './alert-thresholds';
+/** What the alerts API sends and accepts (stored alerts, their events, e-mail preferences); shared by both sides. */
+import type { ChartSeries, FindingKind, Severity } from '../watch/finding';
 
 export const ALERT_STATUSES = ['open', 'acknowledged', 'resolved'] as const;
 export type AlertStatus = (typeof ALERT_STATUSES)[number];
@@ -83,28 +82,6 @@ export interface AlertDetailDto extends AlertSummaryDto {
   canAct: boolean;
 }
 
-export interface ThresholdSettingDto {
-  name: ThresholdName;
-  value: number;
-  defaultValue: number;
-  unit: string;
-  explanation: string;
-  overridden: boolean;
-}
-
-export interface WatchSettingsDto {
-  siteId: number;
-  irrigationWindow: { startHour: number; endHour: number };
-  thresholds: ThresholdSettingDto[];
-  canEdit: boolean;
-}
-
-export interface WatchSettingsInput {
-  irrigationWindow?: { startHour: number; endHour: number };
-  /** Only the thresholds that differ from the defaults; a name left out falls back to its default. */
-  thresholds: Partial<Record<ThresholdName, number>>;
-}
-
 export const NOTIFICATION_FREQUENCIES = ['each', 'daily', 'none'] as const;
 export type NotificationFrequency = (typeof NOTIFICATION_FREQUENCIES)[number];
 
@@ -113,24 +90,3 @@ export interface NotificationPreferenceDto {
   /** Null follows every site the user can see. */
   siteIds: number[] | null;
 }
-
-export interface WatchRunDto {
-  id: number;
-  trigger: 'scheduled' | 'manual' | 'recheck';
-  status: 'running' | 'done' | 'failed';
-  rangeFromUtc: string | null;
-  rangeToUtc: string;
-  startedAt: string;
-  finishedAt: string | null;
-  sitesChecked: number;
-  sitesSkipped: number;
-  findings: number;
-  alertsRaised: number;
-  alertsUpdated: number;
-  alertsReopened: number;
-  mailsQueued: number;
-  errors: { siteId: number; siteName: string; message: string }[];
-}
-
-/** The default watering window when a site has not set one: 21:00 to 06:59 local. */
-export const DEFAULT_IRRIGATION_WINDOW = { startHour: 21, endHour: 7 } as const;

@@ -5,10 +5,10 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { estimateControllerShiftMinutes } from '../../shared/alerts/controller-clock-skew';
-import { FINDING_KINDS, type Finding } from '../../shared/alerts/finding';
-import { watchSite } from '../../shared/alerts/site-watch';
-import type { SiteWatchInput } from '../../shared/alerts/watch-inputs';
+import { estimateControllerShiftMinutes } from '../../shared/watch/controller-clock-skew';
+import { FINDING_KINDS, type Finding } from '../../shared/watch/finding';
+import { watchSite } from '../../shared/watch/site-watch';
+import type { SiteWatchInput } from '../../shared/watch/watch-inputs';
 import { formatQualityMarkdown, scoreOutcomes, type QualityReport, type ScenarioOutcome } from './detection-scoring';
 import { buildScenarios } from './scenario-catalogue';
 import { seedFrom } from './seeded-random';

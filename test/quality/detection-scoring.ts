@@ -5,8 +5,8 @@
  * finding of its kind overlaps it. "Explained" also needs the event to have begun before the finding was first
  * detected: an overspend flagged before a leak began is a false alarm, whatever the leak did later.
  */
-import { FINDING_KINDS, type Finding, type FindingKind } from '../../shared/alerts/finding';
-import { median } from '../../shared/alerts/robust-statistics';
+import { FINDING_KINDS, type Finding, type FindingKind } from '../../shared/watch/finding';
+import { median } from '../../shared/watch/robust-statistics';
 import type { GroundTruthEvent } from './synthetic-sites';
 
 export interface ScenarioOutcome {

@@ -5,9 +5,9 @@
  * overspends. Those side-findings are counted apart, neither as hits nor as false alarms.
  */
 import { resolveLocalTime } from '../../shared/ingest/zoned-time';
-import { localHourOf, localMidnightUtc, HOUR_MS, DAY_MS } from '../../shared/alerts/site-clock';
-import type { FindingKind } from '../../shared/alerts/finding';
-import type { MeterHour, MonthlyUse, SiteWatchInput, ZoneRun } from '../../shared/alerts/watch-inputs';
+import { localHourOf, localMidnightUtc, HOUR_MS, DAY_MS } from '../../shared/watch/site-clock';
+import type { FindingKind } from '../../shared/watch/finding';
+import type { MeterHour, MonthlyUse, SiteWatchInput, ZoneRun } from '../../shared/watch/watch-inputs';
 import { addDays, dayOfYearFromIso } from '../../shared/weather/day-of-year';
 import { seededRandom, type Random } from './seeded-random';
 import type { SiteProfile, SyntheticZone } from './synthetic-site-profiles';

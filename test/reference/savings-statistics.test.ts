@@ -11,9 +11,9 @@ import { createRequire } from 'node:module';
 import MultivariateLinearRegression from 'ml-regression-multivariate-linear';
 import { linearRegression, linearRegressionLine, mean, rSquared, sampleCorrelation } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
-import { fitBaselineModel, type MeteredPeriod } from '../../shared/reports/baseline-model';
-import { fitStatistics } from '../../shared/reports/fit-statistics';
-import { calculateSavings } from '../../shared/reports/savings-calculation';
+import { fitBaselineModel, type MeteredPeriod } from '../../shared/savings/baseline-model';
+import { fitStatistics } from '../../shared/savings/fit-statistics';
+import { calculateSavings } from '../../shared/savings/savings-calculation';
 import {
   CV_RMSE_LIMITS,
   MAX_ABS_NMBE_PERCENT,
@@ -21,8 +21,8 @@ import {
   MIN_BASELINE_DAYS,
   MIN_SAVINGS_PERCENT,
   UNCERTAINTY_CONFIDENCE,
-} from '../../shared/reports/savings-verdict';
-import { studentTQuantile } from '../../shared/reports/student-t';
+} from '../../shared/savings/savings-verdict';
+import { studentTQuantile } from '../../shared/savings/student-t';
 import { expectPrinted } from './printed-rounding';
 
 // jstat ships no type declarations; only this one function is used.

@@ -7,11 +7,9 @@ import type {
   AlertStatus,
   AlertSummaryDto,
   NotificationPreferenceDto,
-  WatchRunDto,
-  WatchSettingsDto,
-  WatchSettingsInput,
 } from '@shared/alerts/alert-dto';
-import type { FindingKind } from '@shared/alerts/finding';
+import type { WatchRunDto, WatchSettingsDto, WatchSettingsInput } from '@shared/watch/watch-dto';
+import type { FindingKind } from '@shared/watch/finding';
 import { Observable } from 'rxjs';
 import { queryParams } from '../core/http/query-params';
 

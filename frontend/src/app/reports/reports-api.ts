@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { ComplianceNoticeDto, ComplianceReportDto, ComplianceSort } from '@shared/reports/compliance-report-dto';
-import type { SavingsProjectDto, SavingsProjectInput, SavingsReportDto } from '@shared/reports/savings-project-dto';
+import type { SavingsProjectDto, SavingsProjectInput, SavingsReportDto } from '@shared/savings/savings-project-dto';
 import type { SiteKind } from '@shared/sites/site';
 import { Observable } from 'rxjs';
 import { queryParams } from '../core/http/query-params';

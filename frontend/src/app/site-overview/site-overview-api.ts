@@ -1,6 +1,6 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { HourlyGridDto, SiteMonthlyDto, SiteOverviewDto } from '@shared/portfolio/portfolio-dto';
+import type { HourlyGridDto, SiteMonthlyDto, SiteOverviewDto } from '@shared/readings/readings-dto';
 import { Observable } from 'rxjs';
 import { queryParams } from '../core/http/query-params';
 

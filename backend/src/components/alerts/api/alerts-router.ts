@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { ALERT_SORTS, ALERT_STATUSES, NOTIFICATION_FREQUENCIES } from '@shared/alerts/alert-dto';
-import { FINDING_KINDS } from '@shared/alerts/finding';
+import { FINDING_KINDS } from '@shared/watch/finding';
 import { principalOf } from '../../../platform/auth/guards';
 import { idParam, validate } from '../../../platform/validation';
 import type { AlertsService } from '../domain/alerts-service';

@@ -1,5 +1,5 @@
 import type { DataSource, EntityManager } from 'typeorm';
-import type { Finding } from '@shared/alerts/finding';
+import type { Finding } from '@shared/watch/finding';
 import type {
   AlertAction,
   AlertDetailDto,

@@ -1,6 +1,6 @@
 /** The words of watch e-mail: a nightly digest and a single-alert message, each as text and HTML. */
 import { KIND_LABELS, SEVERITY_LABELS, SUB_KIND_LABELS } from '@shared/alerts/alert-dto';
-import type { FindingKind, Severity } from '@shared/alerts/finding';
+import type { FindingKind, Severity } from '@shared/watch/finding';
 
 export interface MailAlert {
   id: number;

@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import type { FindingKind, Severity } from '@shared/alerts/finding';
+import type { FindingKind, Severity } from '@shared/watch/finding';
 import type { MailQueue } from '../../mail/domain/mail-queue';
 import { digestMail, singleAlertMail, type MailAlert } from './alert-digest';
 

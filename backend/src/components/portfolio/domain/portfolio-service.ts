@@ -8,7 +8,6 @@ import {
   waterYearStart,
 } from '@shared/portfolio/period';
 import {
-  percentOf,
   RECENT_DATA_DAYS,
   type PortfolioCondition,
   type PortfolioDto,
@@ -16,6 +15,7 @@ import {
   type PortfolioRow,
   type PortfolioSort,
 } from '@shared/portfolio/portfolio-dto';
+import { percentOf } from '@shared/readings/readings-dto';
 import { costOfGap } from '@shared/rates/water-cost';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';

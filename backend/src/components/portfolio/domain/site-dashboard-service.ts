@@ -8,7 +8,7 @@ import {
   type OverviewDay,
   type SiteMonthlyDto,
   type SiteOverviewDto,
-} from '@shared/portfolio/portfolio-dto';
+} from '@shared/readings/readings-dto';
 import { costOfVolume } from '@shared/rates/water-cost';
 import { addDays } from '@shared/weather/day-of-year';
 import { AppError } from '../../../platform/app-error';

@@ -1,7 +1,7 @@
 import { Router, type Response } from 'express';
 import { z } from 'zod';
-import { BASELINE_MODEL_FORMS } from '@shared/reports/baseline-model';
-import { SAVINGS_CHANGE_KINDS } from '@shared/reports/savings-project-dto';
+import { BASELINE_MODEL_FORMS } from '@shared/savings/baseline-model';
+import { SAVINGS_CHANGE_KINDS } from '@shared/savings/savings-project-dto';
 import { principalOf } from '../../../platform/auth/guards';
 import { idParam, validate } from '../../../platform/validation';
 import type { SavingsProjectsService } from '../domain/savings-projects-service';

@@ -1,5 +1,5 @@
 import type { DataSource, EntityManager } from 'typeorm';
-import type { SavingsProjectInput } from '@shared/reports/savings-project-dto';
+import type { SavingsProjectInput } from '@shared/savings/savings-project-dto';
 import { SavingsProjectEntity } from './savings-project.entity';
 
 export type SavingsProjectRecord = SavingsProjectEntity;

@@ -1,6 +1,6 @@
 import { toCsv } from '@shared/csv/csv-writer';
-import type { SavingsReportDto } from '@shared/reports/savings-project-dto';
-import { SAVINGS_CHANGE_LABELS } from '@shared/reports/savings-project-dto';
+import type { SavingsReportDto } from '@shared/savings/savings-project-dto';
+import { SAVINGS_CHANGE_LABELS } from '@shared/savings/savings-project-dto';
 import { barChart, fmt, heading, muted, newPdf, paragraph, render, table } from '../../reports/domain/pdf-kit';
 
 type MonthRow = {

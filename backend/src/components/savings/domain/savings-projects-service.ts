@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
-import type { BaselineModelForm } from '@shared/reports/baseline-model';
-import type { SavingsChangeKind, SavingsProjectDto, SavingsProjectInput } from '@shared/reports/savings-project-dto';
+import type { BaselineModelForm } from '@shared/savings/baseline-model';
+import type { SavingsChangeKind, SavingsProjectDto, SavingsProjectInput } from '@shared/savings/savings-project-dto';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
 import { diff, type AuditRepository } from '../../audit/data/audit-repository';

@@ -1,7 +1,7 @@
-import { calculateSavings } from '@shared/reports/savings-calculation';
-import { fitBaselineModel, type MeteredPeriod } from '@shared/reports/baseline-model';
-import { judgeSavings } from '@shared/reports/savings-verdict';
-import type { SavingsMonthDto, SavingsReportDto } from '@shared/reports/savings-project-dto';
+import { calculateSavings } from '@shared/savings/savings-calculation';
+import { fitBaselineModel, type MeteredPeriod } from '@shared/savings/baseline-model';
+import { judgeSavings } from '@shared/savings/savings-verdict';
+import type { SavingsMonthDto, SavingsReportDto } from '@shared/savings/savings-project-dto';
 import { costOfVolume } from '@shared/rates/water-cost';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { DEFAULT_THRESHOLDS, type ThresholdName } from '@shared/alerts/alert-thresholds';
+import { DEFAULT_THRESHOLDS, type ThresholdName } from '@shared/watch/alert-thresholds';
 import { principalOf } from '../../../platform/auth/guards';
 import { AppError } from '../../../platform/app-error';
 import { idParam, validate } from '../../../platform/validation';

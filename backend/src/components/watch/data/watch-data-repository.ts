@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import type { MeterHour, ZoneFacts, ZoneRun } from '@shared/alerts/watch-inputs';
+import type { MeterHour, ZoneFacts, ZoneRun } from '@shared/watch/watch-inputs';
 import type { RuntimeCause } from '@shared/ingest/ingest-records';
 
 export interface WatchSiteRow {

@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import type { WatchRunDto } from '@shared/alerts/alert-dto';
+import type { WatchRunDto } from '@shared/watch/watch-dto';
 
 interface RunRow {
   id: number;

@@ -1,5 +1,5 @@
-import { resolveThresholds } from '@shared/alerts/alert-thresholds';
-import { localHourOf } from '@shared/alerts/site-clock';
+import { resolveThresholds } from '@shared/watch/alert-thresholds';
+import { localHourOf } from '@shared/watch/site-clock';
 import type { SiteStateRow } from '../data/watch-data-repository';
 import { LOOK_BACK_MS } from './site-watch-input';
 

@@ -1,7 +1,7 @@
 import type { RateSchedule } from '@shared/rates/rate-schedule';
-import type { MonthlyUse, SiteWatchInput } from '@shared/alerts/watch-inputs';
-import { localHourOf } from '@shared/alerts/site-clock';
-import { DEFAULT_IRRIGATION_WINDOW } from '@shared/alerts/alert-dto';
+import type { MonthlyUse, SiteWatchInput } from '@shared/watch/watch-inputs';
+import { localHourOf } from '@shared/watch/site-clock';
+import { DEFAULT_IRRIGATION_WINDOW } from '@shared/watch/watch-dto';
 import type { Principal } from '../../../platform/auth/principal';
 import type { BudgetsService } from '../../budgets/domain/budgets-service';
 import { scheduleInForce, type RateSchedulesService } from '../../rates/domain/rate-schedules-service';

@@ -1,7 +1,7 @@
 import type { DataSource } from 'typeorm';
-import type { WatchRunDto } from '@shared/alerts/alert-dto';
-import { watchSite } from '@shared/alerts/site-watch';
-import type { Finding } from '@shared/alerts/finding';
+import type { WatchRunDto } from '@shared/watch/watch-dto';
+import { watchSite } from '@shared/watch/site-watch';
+import type { Finding } from '@shared/watch/finding';
 import type { JobLease } from '../../../jobs/job-lease';
 import { logger } from '../../../platform/logger';
 import type { AlertsRepository } from '../../alerts/data/alerts-repository';

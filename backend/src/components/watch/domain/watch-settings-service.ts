@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
-import { DEFAULT_THRESHOLDS, resolveThresholds, type ThresholdName } from '@shared/alerts/alert-thresholds';
-import { DEFAULT_IRRIGATION_WINDOW, type WatchSettingsDto, type WatchSettingsInput } from '@shared/alerts/alert-dto';
+import { DEFAULT_THRESHOLDS, resolveThresholds, type ThresholdName } from '@shared/watch/alert-thresholds';
+import { DEFAULT_IRRIGATION_WINDOW, type WatchSettingsDto, type WatchSettingsInput } from '@shared/watch/watch-dto';
 import { atLeast, siteLevel } from '@shared/auth/roles';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';

@@ -16,7 +16,7 @@ import {
   type AlertStatus,
   type AlertSummaryDto,
 } from '@shared/alerts/alert-dto';
-import { FINDING_KINDS, type FindingKind } from '@shared/alerts/finding';
+import { FINDING_KINDS, type FindingKind } from '@shared/watch/finding';
 import { AuthStore } from '../../core/auth/auth-store';
 import { describeApiError } from '../../core/http/api-error';
 import { SitesApi } from '../../sites/sites-api';

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { EChartsCoreOption } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
-import type { ChartSeries } from '@shared/alerts/finding';
+import type { ChartSeries } from '@shared/watch/finding';
 import { siteTime } from '../site-time';
 
 /** The series behind an alert, with the alert's period shaded; times on the axis in the site's zone. Display only. */

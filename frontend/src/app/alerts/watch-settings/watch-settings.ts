@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import type { WatchSettingsDto } from '@shared/alerts/alert-dto';
+import type { WatchSettingsDto } from '@shared/watch/watch-dto';
 import { describeApiError } from '../../core/http/api-error';
 import { AlertsApi } from '../alerts-api';
 

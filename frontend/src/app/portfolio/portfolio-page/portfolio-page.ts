@@ -8,12 +8,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { SortDirection } from '@shared/api/page';
-import type {
-  PortfolioCondition,
-  PortfolioDto,
-  PortfolioSort,
-  UseAgainstBudget,
-} from '@shared/portfolio/portfolio-dto';
+import type { PortfolioCondition, PortfolioDto, PortfolioSort } from '@shared/portfolio/portfolio-dto';
+import type { UseAgainstBudget } from '@shared/readings/readings-dto';
 import { formatVolume } from '@shared/units/format-quantity';
 import { debounceTime, distinctUntilChanged, map } from 'rxjs';
 import { describeApiError } from '../../core/http/api-error';

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { EChartsCoreOption } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
-import type { SavingsReportDto } from '@shared/reports/savings-project-dto';
+import type { SavingsReportDto } from '@shared/savings/savings-project-dto';
 
 /**
  * Per month: metered use as bars, the model as a line (fitted over the baseline, predicted over the reporting

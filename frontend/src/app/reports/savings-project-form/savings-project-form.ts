@@ -4,13 +4,13 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { BASELINE_MODEL_FORMS, type BaselineModelForm } from '@shared/reports/baseline-model';
+import { BASELINE_MODEL_FORMS, type BaselineModelForm } from '@shared/savings/baseline-model';
 import {
   SAVINGS_CHANGE_KINDS,
   SAVINGS_CHANGE_LABELS,
   type SavingsProjectDto,
   type SavingsProjectInput,
-} from '@shared/reports/savings-project-dto';
+} from '@shared/savings/savings-project-dto';
 import { firstValueFrom } from 'rxjs';
 import { describeApiError } from '../../core/http/api-error';
 import { ReportsApi } from '../reports-api';

@@ -6,7 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, RouterLink } from '@angular/router';
-import { SAVINGS_CHANGE_LABELS, type SavingsProjectDto } from '@shared/reports/savings-project-dto';
+import { SAVINGS_CHANGE_LABELS, type SavingsProjectDto } from '@shared/savings/savings-project-dto';
 import { firstValueFrom } from 'rxjs';
 import { describeApiError } from '../../core/http/api-error';
 import { confirm } from '../../shared/confirm-dialog/confirm-dialog';

@@ -2,7 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { SavingsReportDto } from '@shared/reports/savings-project-dto';
+import type { SavingsReportDto } from '@shared/savings/savings-project-dto';
 import { SavingsReport } from './savings-report';
 
 // An invented site and a report whose model fails Guideline 14.

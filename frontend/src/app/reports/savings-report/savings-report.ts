@@ -6,7 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { SAVINGS_CHANGE_LABELS } from '@shared/reports/savings-project-dto';
+import { SAVINGS_CHANGE_LABELS } from '@shared/savings/savings-project-dto';
 import { describeApiError } from '../../core/http/api-error';
 import { ReportsApi } from '../reports-api';
 import { SavingsChart } from '../savings-chart/savings-chart';

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { EChartsCoreOption } from 'echarts/core';
 import { NgxEchartsDirective } from 'ngx-echarts';
-import type { SiteOverviewDto } from '@shared/portfolio/portfolio-dto';
+import type { SiteOverviewDto } from '@shared/readings/readings-dto';
 
 const fmt = (n: number | null | undefined, digits = 0) =>
   n === null || n === undefined ? '—' : n.toLocaleString('en-US', { maximumFractionDigits: digits });

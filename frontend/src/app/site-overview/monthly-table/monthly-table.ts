@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatTableModule } from '@angular/material/table';
-import type { MonthlyFlag, MonthlyRow } from '@shared/portfolio/portfolio-dto';
+import type { MonthlyFlag, MonthlyRow } from '@shared/readings/readings-dto';
 import { formatVolume } from '@shared/units/format-quantity';
 
 const FLAG_LABELS: Record<MonthlyFlag, string> = {

@@ -5,7 +5,7 @@ import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatTabNavBarHarness } from '@angular/material/tabs/testing';
 import { provideRouter } from '@angular/router';
-import type { SiteOverviewDto } from '@shared/portfolio/portfolio-dto';
+import type { SiteOverviewDto } from '@shared/readings/readings-dto';
 import type { SiteDto } from '@shared/sites/site';
 import { SiteWorkspace } from './site-workspace';
 
