@@ -7,43 +7,31 @@ import helmet from 'helmet';
 import { createPool, type Pool } from 'mysql2/promise';
 import type { DataSource } from 'typeorm';
 import type { Config } from './config';
-import { auditRouter } from './components/audit/api/audit-router';
-import { AuditRepository } from './components/audit/data/audit-repository';
-import { authRouter } from './components/auth/api/auth-router';
-import { AuthService } from './components/auth/domain/auth-service';
-import { healthRouter } from './components/health/api/health-router';
-import { outboxRouter } from './components/outbox/api/outbox-router';
-import { sitesRouter } from './components/sites/api/sites-router';
-import { SitesRepository } from './components/sites/data/sites-repository';
-import { SitesService } from './components/sites/domain/sites-service';
-import { usersRouter } from './components/users/api/users-router';
-import { createIngest } from './components/uploads/ingest-module';
-import { createWatch, type Watch } from './components/watch/watch-module';
+import { createAlerts } from './components/alerts/alerts-module';
+import { createApiKeys } from './components/api-keys/api-keys-module';
+import { createAudit } from './components/audit/audit-module';
+import { createAuth } from './components/auth/auth-module';
+import { createBudgets } from './components/budgets/budgets-module';
+import { createHealth } from './components/health/health-module';
+import { createHydrozones } from './components/hydrozones/hydrozones-module';
+import { createMail } from './components/mail/mail-module';
+import type { MailQueue } from './components/mail/domain/mail-queue';
+import { createMeters } from './components/meters/meters-module';
+import { createOrganisations } from './components/organisations/organisations-module';
+import { createOutbox } from './components/outbox/outbox-module';
 import { createPortfolio } from './components/portfolio/portfolio-module';
-import { MailQueue } from './components/mail/domain/mail-queue';
-import { budgetsRouter } from './components/budgets/api/budgets-router';
+import { createRates } from './components/rates/rates-module';
+import { createReadings } from './components/readings/readings-module';
 import { createReports } from './components/reports/reports-module';
-import { BudgetsService } from './components/budgets/domain/budgets-service';
-import { hydrozonesRouter } from './components/hydrozones/api/hydrozones-router';
-import { HydrozonesRepository } from './components/hydrozones/data/hydrozones-repository';
-import { HydrozonesService } from './components/hydrozones/domain/hydrozones-service';
-import { organisationRouter } from './components/organisations/api/organisation-router';
-import { OrganisationsRepository } from './components/organisations/data/organisations-repository';
-import { OrganisationSettingsService } from './components/organisations/domain/organisation-settings-service';
-import { rateSchedulesRouter } from './components/rates/api/rate-schedules-router';
-import { RateSchedulesRepository } from './components/rates/data/rate-schedules-repository';
-import { RateSchedulesService } from './components/rates/domain/rate-schedules-service';
-import { siteWeatherStationRouter, weatherStationsRouter } from './components/weather/api/weather-stations-router';
-import { WeatherFeedClient } from './components/weather/data/weather-feed-client';
-import { WeatherRepository } from './components/weather/data/weather-repository';
-import { DailyWeatherService } from './components/weather/domain/daily-weather-service';
-import { WeatherStationsService } from './components/weather/domain/weather-stations-service';
-import { UsersRepository } from './components/users/data/users-repository';
-import { UsersService } from './components/users/domain/users-service';
+import { createSavings } from './components/savings/savings-module';
+import { createSites } from './components/sites/sites-module';
+import { createUploads } from './components/uploads/uploads-module';
+import { createUsers } from './components/users/users-module';
+import { createWatch, type Watch } from './components/watch/watch-module';
+import { createWeather } from './components/weather/weather-module';
 import { createCsrf } from './platform/auth/csrf';
 import { requireSignedIn } from './platform/auth/guards';
 import { MariaDbRateLimitStore } from './platform/auth/mariadb-rate-limit-store';
-import { createPassport } from './platform/auth/passport';
 import { createSessionMiddleware } from './platform/auth/session';
 import { errorHandler, notFoundHandler } from './platform/error-handler';
 import type { Mailer } from './platform/mail/mailer';
@@ -66,7 +54,7 @@ export interface App {
   watch: Watch;
 }
 
-/** The composition root: builds repositories, services and routers over one DataSource. */
+/** The composition root: each component's module over one DataSource, then the HTTP pipeline. */
 export function createApp({ config, db, mailer }: AppDeps): App {
   // A small mysql2 pool for the session and rate-limit stores (TypeORM keeps its own pool).
   const pool: Pool = createPool({
@@ -79,54 +67,63 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     timezone: 'Z',
   });
 
-  const audit = new AuditRepository(db);
-  const usersRepository = new UsersRepository(db);
-  const auth = new AuthService(db, usersRepository, audit);
-  const mailQueue = new MailQueue(db, mailer);
-  const users = new UsersService(db, usersRepository, audit, mailQueue, config);
-  const sites = new SitesService(db, new SitesRepository(db), audit);
-  const ingest = createIngest({ db, config, sites, auth, audit });
-  const organisationSettings = new OrganisationSettingsService(db, new OrganisationsRepository(db), audit);
-  const hydrozones = new HydrozonesService(db, new HydrozonesRepository(db), sites, audit);
-  const weatherRepository = new WeatherRepository(db);
-  const weatherStations = new WeatherStationsService(db, weatherRepository, sites, audit);
-  const dailyWeather = new DailyWeatherService(
-    db,
-    weatherRepository,
-    weatherStations,
-    new WeatherFeedClient(config.weather.feedUrl, config.weather.feedTimeoutMs),
-    audit,
-  );
-  const rateSchedules = new RateSchedulesService(db, new RateSchedulesRepository(db), sites, audit);
-  const budgets = new BudgetsService(
-    sites,
-    hydrozones,
-    weatherStations,
-    dailyWeather,
-    rateSchedules,
-    organisationSettings,
-  );
-  const watch = createWatch({ db, config, sites, budgets, rates: rateSchedules, mailQueue, audit });
-  const reports = createReports({
-    db,
-    sites,
-    budgets,
-    weatherStations,
-    dailyWeather,
-    rateSchedules,
-    audit,
-    mailQueue,
-    publicUrl: config.http.publicUrl,
-  });
-  const dashboard = createPortfolio({ db, sites, budgets, rates: rateSchedules });
-
-  const passport = createPassport(auth);
-  const session = createSessionMiddleware(config, pool);
   const csrf = createCsrf(config);
   const rateLimitStore = new MariaDbRateLimitStore(pool, 'sign-in');
   // Expired sign-in counters are dropped now and then so the table stays small.
   const pruneTimer = setInterval(() => void rateLimitStore.prune().catch(() => undefined), 15 * 60_000);
   pruneTimer.unref();
+
+  // Each component wires its own repositories, services and routes; here they meet, in dependency order.
+  const audit = createAudit({ db });
+  const { repository: auditLog } = audit;
+  const mail = createMail({ db, mailer });
+  const users = createUsers({ db, audit: auditLog, mailQueue: mail.queue, config });
+  const auth = createAuth({ db, users: users.repository, audit: auditLog, csrf, rateLimitStore, config });
+  const organisations = createOrganisations({ db, audit: auditLog });
+  const sites = createSites({ db, audit: auditLog });
+  const siteAccess = { db, sites: sites.service, audit: auditLog };
+  const hydrozones = createHydrozones(siteAccess);
+  const weather = createWeather({ ...siteAccess, config });
+  const rates = createRates(siteAccess);
+  const budgets = createBudgets({
+    db,
+    sites: sites.service,
+    hydrozones: hydrozones.service,
+    weatherStations: weather.stations,
+    dailyWeather: weather.daily,
+    rates: rates.service,
+    organisationSettings: organisations.settings,
+  });
+  const alerts = createAlerts({ ...siteAccess, config, mailQueue: mail.queue });
+  const useDeps = { db, budgetCache: budgets.cache, rates: rates.service, alerts: alerts.service };
+  const readings = createReadings({ ...useDeps, sites: sites.service });
+  const portfolio = createPortfolio({ ...useDeps, dailyUse: readings.dailyUse });
+  const meters = createMeters(siteAccess);
+  const uploads = createUploads({ ...siteAccess, config, meters: meters.service, dailyUse: readings.dailyUse });
+  const apiKeys = createApiKeys({ ...siteAccess, auth: auth.service });
+  const savings = createSavings({
+    ...siteAccess,
+    weatherStations: weather.stations,
+    dailyWeather: weather.daily,
+    dailyUse: readings.dailyUse,
+    rates: rates.service,
+  });
+  const reports = createReports({
+    ...siteAccess,
+    sitesRepository: sites.repository,
+    budgets: budgets.service,
+    dailyUse: readings.dailyUse,
+    mailQueue: mail.queue,
+    publicUrl: config.http.publicUrl,
+  });
+  const watch = createWatch({
+    ...siteAccess,
+    config,
+    budgets: budgets.service,
+    rates: rates.service,
+    alerts,
+  });
+  const session = createSessionMiddleware(config, pool);
 
   const app = express();
   app.set('trust proxy', config.http.trustProxy);
@@ -152,28 +149,34 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
   api.use(cookieParser());
-  api.use('/health', healthRouter(db, VERSION));
+  api.use(createHealth({ db, version: VERSION }).router);
   api.use(session.middleware);
-  api.use(passport.session());
+  api.use(auth.passport.session());
   api.use(csrf.protect, csrf.toAppError);
-  api.use('/auth', authRouter({ auth, passport, csrf, rateLimitStore, config }));
-  api.use(ingest.apiKeyAuth);
+  api.use(auth.router);
+  api.use(apiKeys.authenticate);
   api.use(requireSignedIn);
-  api.use('/sites', sitesRouter(sites));
-  api.use('/sites/:id/hydrozones', hydrozonesRouter(hydrozones));
-  api.use('/sites/:id/weather-station', siteWeatherStationRouter(weatherStations));
-  api.use('/sites/:id/rate-schedules', rateSchedulesRouter(rateSchedules));
-  api.use('/sites/:id', budgetsRouter(budgets));
-  api.use('/sites/:id', dashboard.siteDashboardRouter);
-  api.use('/portfolio', dashboard.portfolioRouter);
-  api.use('/weather-stations', weatherStationsRouter(weatherStations, dailyWeather));
-  api.use('/organisation', organisationRouter(organisationSettings));
-  api.use('/users', usersRouter(users));
-  api.use('/audit', auditRouter(audit));
-  api.use(reports.router);
-  api.use(ingest.router);
-  api.use(watch.router);
-  if (config.mail.devOutbox) api.use('/dev/outbox', outboxRouter(config));
+  for (const component of [
+    sites,
+    hydrozones,
+    weather,
+    rates,
+    budgets,
+    readings,
+    portfolio,
+    organisations,
+    users,
+    audit,
+    savings,
+    reports,
+    meters,
+    uploads,
+    apiKeys,
+    alerts,
+    watch,
+    createOutbox({ config }),
+  ])
+    api.use(component.router);
   api.use(notFoundHandler);
   app.use('/api', api);
 
@@ -182,7 +185,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
 
   return {
     app,
-    mailQueue,
+    mailQueue: mail.queue,
     watch,
     async close() {
       clearInterval(pruneTimer);

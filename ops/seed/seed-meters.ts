@@ -7,12 +7,13 @@ import { AuthService } from '../../backend/src/components/auth/domain/auth-servi
 import { ControllerEntity } from '../../backend/src/components/meters/data/controller.entity';
 import { MeterRegisterPeriodEntity } from '../../backend/src/components/meters/data/meter-register-period.entity';
 import { MeterEntity } from '../../backend/src/components/meters/data/meter.entity';
+import { createMeters } from '../../backend/src/components/meters/meters-module';
 import { ZoneEntity } from '../../backend/src/components/meters/data/zone.entity';
+import { DailyUseRepository } from '../../backend/src/components/readings/data/daily-use-repository';
 import { OrganisationEntity } from '../../backend/src/components/organisations/data/organisation.entity';
-import { SitesRepository } from '../../backend/src/components/sites/data/sites-repository';
 import { SiteEntity } from '../../backend/src/components/sites/data/site.entity';
-import { SitesService } from '../../backend/src/components/sites/domain/sites-service';
-import { createIngest } from '../../backend/src/components/uploads/ingest-module';
+import { createSites } from '../../backend/src/components/sites/sites-module';
+import { createUploads } from '../../backend/src/components/uploads/uploads-module';
 import { UsersRepository } from '../../backend/src/components/users/data/users-repository';
 import { UserEntity } from '../../backend/src/components/users/data/user.entity';
 import type { Config } from '../../backend/src/config';
@@ -198,12 +199,15 @@ export async function seedMeters(
   // The real import path, acting as the organisation's administrator.
   const audit = new AuditRepository(db);
   const auth = new AuthService(db, new UsersRepository(db), audit);
-  const ingest = createIngest({ db, config, sites: new SitesService(db, new SitesRepository(db), audit), auth, audit });
+  const sites = createSites({ db, audit }).service;
+  const metersService = createMeters({ db, sites, audit }).service;
+  const dailyUse = new DailyUseRepository(db);
+  const importer = createUploads({ db, config, sites, meters: metersService, dailyUse, audit }).service;
   const principal = (await auth.principal(adminUser.id, org.id))!;
   let uploads = 0;
   let readings = 0;
   for (const w of work) {
-    const result = await ingest.uploads.ingest(principal, w.siteId, {
+    const result = await importer.ingest(principal, w.siteId, {
       fileName: w.name,
       file: Readable.from([Buffer.from(w.csv)]),
       replaceConflicts: false,

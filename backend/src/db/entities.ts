@@ -24,9 +24,9 @@ import { WeatherStationEntity } from '../components/weather/data/weather-station
 import { ApiKeySiteEntity } from '../components/api-keys/data/api-key-site.entity';
 import { ApiKeyEntity } from '../components/api-keys/data/api-key.entity';
 import { ControllerEntity } from '../components/meters/data/controller.entity';
-import { MeterReadingEntity } from '../components/meters/data/meter-reading.entity';
+import { MeterReadingEntity } from '../components/readings/data/meter-reading.entity';
 import { MeterRegisterPeriodEntity } from '../components/meters/data/meter-register-period.entity';
-import { MeterRegisterReadEntity } from '../components/meters/data/meter-register-read.entity';
+import { MeterRegisterReadEntity } from '../components/readings/data/meter-register-read.entity';
 import { MeterEntity } from '../components/meters/data/meter.entity';
 import { RuntimeEventEntity } from '../components/meters/data/runtime-event.entity';
 import { ZoneEntity } from '../components/meters/data/zone.entity';

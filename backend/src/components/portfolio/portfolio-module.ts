@@ -1,39 +1,33 @@
+import { Router } from 'express';
 import type { DataSource } from 'typeorm';
-import type { BudgetsService } from '../budgets/domain/budgets-service';
-import { DailyUseRepository } from '../readings/data/daily-use-repository';
+import type { AlertsService } from '../alerts/domain/alerts-service';
+import type { BudgetCache } from '../budgets/domain/budget-cache';
 import type { RateSchedulesService } from '../rates/domain/rate-schedules-service';
-import type { SitesService } from '../sites/domain/sites-service';
-import { portfolioRouter, siteDashboardRouter } from './api/portfolio-router';
+import type { DailyUseRepository } from '../readings/data/daily-use-repository';
+import { portfolioRouter } from './api/portfolio-router';
 import { PortfolioRepository } from './data/portfolio-repository';
-import { SiteDashboardRepository } from './data/site-dashboard-repository';
-import { BudgetCache } from './domain/budget-cache';
 import { PortfolioService } from './domain/portfolio-service';
-import { SiteDashboardService } from './domain/site-dashboard-service';
 
-/** Wires the dashboard component, so the composition root needs two lines. */
+export interface Portfolio {
+  service: PortfolioService;
+  /** /portfolio */
+  router: Router;
+}
+
+/** Wires the portfolio: every visible site's use against budget over a period. */
 export function createPortfolio(deps: {
   db: DataSource;
-  sites: SitesService;
-  budgets: BudgetsService;
+  dailyUse: DailyUseRepository;
+  budgetCache: BudgetCache;
   rates: RateSchedulesService;
-}) {
-  const repo = new PortfolioRepository(deps.db);
-  const dailyUse = new DailyUseRepository(deps.db);
-  const budgetCache = new BudgetCache(repo, deps.budgets);
-  const portfolio = new PortfolioService(repo, dailyUse, budgetCache, deps.rates);
-  const dashboard = new SiteDashboardService(
-    deps.sites,
-    new SiteDashboardRepository(deps.db),
-    repo,
-    dailyUse,
-    budgetCache,
+  alerts: AlertsService;
+}): Portfolio {
+  const service = new PortfolioService(
+    new PortfolioRepository(deps.db),
+    deps.dailyUse,
+    deps.budgetCache,
     deps.rates,
+    deps.alerts,
   );
-  return {
-    portfolio,
-    dashboard,
-    budgetCache,
-    portfolioRouter: portfolioRouter(portfolio),
-    siteDashboardRouter: siteDashboardRouter(dashboard),
-  };
+  return { service, router: Router().use('/portfolio', portfolioRouter(service)) };
 }

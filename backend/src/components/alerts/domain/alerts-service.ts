@@ -11,6 +11,7 @@ import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
 import type { AuditRepository } from '../../audit/data/audit-repository';
 import type { SitesService } from '../../sites/domain/sites-service';
+import type { AlertFiguresRepository } from '../data/alert-figures-repository';
 import type { AlertsRepository } from '../data/alerts-repository';
 
 /**
@@ -23,7 +24,28 @@ export class AlertsService {
     private readonly alerts: AlertsRepository,
     private readonly sites: SitesService,
     private readonly audit: AuditRepository,
+    private readonly figures: AlertFiguresRepository,
   ) {}
+
+  /** Unresolved alerts per site over every site the organisation sees; the caller keeps the ones in scope. */
+  openCountsVisibleTo(organisationId: number): Promise<Map<number, number>> {
+    return this.figures.openAlerts(organisationId);
+  }
+
+  /** One site's alerts by local start day, as chart markers (the caller has checked access to the site). */
+  markers(
+    siteId: number,
+    timeZone: string,
+    from: string,
+    to: string,
+  ): Promise<{ id: number; date: string; title: string; status: string }[]> {
+    return this.figures.alertMarkers(siteId, timeZone, from, to);
+  }
+
+  /** Whether the alert table is there to read. */
+  tableAvailable(): Promise<boolean> {
+    return this.figures.alertsAvailable();
+  }
 
   async list(principal: Principal, filter: AlertListFilter): Promise<Page<AlertSummaryDto>> {
     if (filter.siteId) await this.sites.requireLevel(principal, filter.siteId, 'read');

@@ -18,18 +18,6 @@ export interface SiteAggregate {
   tags: string[];
 }
 
-export interface BudgetMonthRow {
-  siteId: number;
-  month: string;
-  gallons: number | null;
-  cost: number | null;
-  currency: string | null;
-  etoMm: number | null;
-  rainMm: number | null;
-  filledDays: number;
-  problem: string | null;
-}
-
 export interface AggregateFilter {
   q?: string;
   tag?: string;
@@ -61,8 +49,6 @@ function useOver(range: { from: string; to: string }): { sql: string; params: st
 
 /** Aggregate reads for the dashboard; every site list is scoped to what one organisation may see. */
 export class PortfolioRepository {
-  private alertTable: { status: boolean; resolvedAt: boolean; title: string | null; dateColumn: string } | null = null;
-
   constructor(private readonly db: DataSource) {}
 
   /** Every site the organisation may see (owned or shared), narrowed by the filter, with its sums; the latest reading per meter comes off the primary key. */
@@ -134,134 +120,5 @@ export class PortfolioRepository {
       budgetProblem: (r['problem'] as string | null) ?? null,
       tags: jsonArray(r['tagsJson']),
     }));
-  }
-
-  /**
-   * Sites among `siteIds` missing a cache row for some month, or holding one that is too old or older than a
-   * change to what it was computed from (the site, its hydrozones, rate schedules or weather station).
-   */
-  async staleBudgetSites(siteIds: number[], months: string[], currentMonth: string): Promise<number[]> {
-    if (!siteIds.length || !months.length) return [];
-    // Past months are kept a day, the current and later months an hour (their weather is still arriving).
-    const rows: { siteId: number }[] = await this.db.query(
-      `SELECT s.id AS siteId FROM site s
-       LEFT JOIN (SELECT b.site_id, COUNT(*) AS n FROM site_monthly_budget b
-                  JOIN site bs ON bs.id = b.site_id
-                  LEFT JOIN weather_station ws ON ws.id = bs.weather_station_id
-                  WHERE b.site_id IN (?) AND b.month IN (?)
-                    AND b.computed_at > IF(b.month >= ?, NOW(3) - INTERVAL 1 HOUR, NOW(3) - INTERVAL 1 DAY)
-                    -- TypeORM stamps updated_at to the whole second, so a change counts for its whole second.
-                    AND b.computed_at >= GREATEST(bs.updated_at, COALESCE(ws.updated_at, bs.updated_at),
-                      COALESCE((SELECT MAX(h.updated_at) FROM hydrozone h WHERE h.site_id = b.site_id), bs.updated_at),
-                      COALESCE((SELECT MAX(r.updated_at) FROM rate_schedule r WHERE r.site_id = b.site_id), bs.updated_at)) + INTERVAL 1 SECOND
-                  GROUP BY b.site_id) c ON c.site_id = s.id
-       WHERE s.id IN (?) AND COALESCE(c.n, 0) < ?`,
-      [siteIds, months, currentMonth, siteIds, months.length],
-    );
-    return rows.map((r) => Number(r.siteId));
-  }
-
-  async saveBudgetMonths(rows: BudgetMonthRow[]): Promise<void> {
-    if (!rows.length) return;
-    await this.db.query(
-      `INSERT INTO site_monthly_budget (site_id, month, gallons, cost, currency, eto_mm, rain_mm, filled_days, problem, computed_at) VALUES ?
-       ON DUPLICATE KEY UPDATE gallons = VALUES(gallons), cost = VALUES(cost), currency = VALUES(currency), eto_mm = VALUES(eto_mm),
-         rain_mm = VALUES(rain_mm), filled_days = VALUES(filled_days), problem = VALUES(problem), computed_at = VALUES(computed_at)`,
-      [
-        rows.map((r) => [
-          r.siteId,
-          r.month,
-          r.gallons,
-          r.cost,
-          r.currency,
-          r.etoMm,
-          r.rainMm,
-          r.filledDays,
-          r.problem?.slice(0, 300) ?? null,
-          new Date(),
-        ]),
-      ],
-    );
-  }
-
-  async budgetMonths(siteIds: number[], fromMonth: string, toMonth: string): Promise<BudgetMonthRow[]> {
-    if (!siteIds.length) return [];
-    const rows: Record<string, unknown>[] = await this.db.query(
-      `SELECT site_id AS siteId, month, gallons, cost, currency, eto_mm AS etoMm, rain_mm AS rainMm, filled_days AS filledDays, problem
-       FROM site_monthly_budget WHERE site_id IN (?) AND month BETWEEN ? AND ? ORDER BY site_id, month`,
-      [siteIds, fromMonth, toMonth],
-    );
-    return rows.map((r) => ({
-      siteId: Number(r['siteId']),
-      month: String(r['month']),
-      gallons: r['gallons'] === null ? null : Number(r['gallons']),
-      cost: r['cost'] === null ? null : Number(r['cost']),
-      currency: (r['currency'] as string | null) ?? null,
-      etoMm: r['etoMm'] === null ? null : Number(r['etoMm']),
-      rainMm: r['rainMm'] === null ? null : Number(r['rainMm']),
-      filledDays: Number(r['filledDays']),
-      problem: (r['problem'] as string | null) ?? null,
-    }));
-  }
-
-  /** Open alerts per site, over every site the organisation may see (owned or shared); the caller keeps the ones in scope. */
-  async openAlerts(viewerOrgId: number): Promise<Map<number, number>> {
-    const map = new Map<number, number>();
-    const table = await this.alerts();
-    if (!table) return map;
-    const open = table.status ? "AND a.status <> 'resolved'" : table.resolvedAt ? 'AND a.resolved_at IS NULL' : '';
-    const rows: { siteId: number; n: number }[] = await this.db.query(
-      `SELECT a.site_id AS siteId, COUNT(*) AS n FROM alert a JOIN site s ON s.id = a.site_id
-       LEFT JOIN site_share sh ON sh.site_id = s.id AND sh.organisation_id = ?
-       WHERE (s.organisation_id = ? OR sh.organisation_id IS NOT NULL) ${open} GROUP BY a.site_id`,
-      [viewerOrgId, viewerOrgId],
-    );
-    for (const r of rows) map.set(Number(r.siteId), Number(r.n));
-    return map;
-  }
-
-  async alertMarkers(
-    siteId: number,
-    timeZone: string,
-    from: string,
-    to: string,
-  ): Promise<{ id: number; date: string; title: string; status: string }[]> {
-    const table = await this.alerts();
-    if (!table) return [];
-    const rows: Record<string, unknown>[] = await this.db.query(
-      `SELECT id, DATE_FORMAT(CONVERT_TZ(${table.dateColumn}, '+00:00', ?), '%Y-%m-%d') AS date, ${table.title ?? "'Alert'"} AS title, ${table.status ? "IF(status = 'resolved', 'resolved', 'open')" : table.resolvedAt ? "IF(resolved_at IS NULL, 'open', 'resolved')" : "'open'"} AS status
-       FROM alert WHERE site_id = ? HAVING date BETWEEN ? AND ? ORDER BY date LIMIT 500`,
-      [timeZone, siteId, from, to],
-    );
-    return rows.map((r) => ({
-      id: Number(r['id']),
-      date: String(r['date']),
-      title: String(r['title']),
-      status: String(r['status']),
-    }));
-  }
-
-  async alertsAvailable(): Promise<boolean> {
-    return (await this.alerts()) !== null;
-  }
-
-  /** Looks the alert table up once it exists (it arrives with the nightly-watch work); the shape is probed, not assumed. */
-  private async alerts() {
-    if (this.alertTable) return this.alertTable;
-    const cols: { name: string }[] = await this.db.query(
-      "SELECT COLUMN_NAME AS name FROM information_schema.COLUMNS WHERE TABLE_SCHEMA = DATABASE() AND TABLE_NAME = 'alert'",
-    );
-    if (!cols.length) return null;
-    const names = new Set(cols.map((c) => c.name));
-    const dateColumn = ['period_start_utc', 'first_detected_at', 'created_at'].find((c) => names.has(c));
-    if (!names.has('site_id') || !dateColumn) return null;
-    // Acknowledged alerts are still open work; only resolved ones are closed.
-    this.alertTable = {
-      status: names.has('status'),
-      resolvedAt: names.has('resolved_at'),
-      title: names.has('title') ? 'title' : names.has('kind') ? 'kind' : null,
-      dateColumn,
-    };
-    return this.alertTable;
   }
 }

@@ -22,7 +22,8 @@ import type { Principal } from '../../../platform/auth/principal';
 import type { DailyUseRepository } from '../../readings/data/daily-use-repository';
 import { scheduleInForce, type RateSchedulesService } from '../../rates/domain/rate-schedules-service';
 import type { PortfolioRepository, SiteAggregate } from '../data/portfolio-repository';
-import type { BudgetCache } from './budget-cache';
+import type { AlertsService } from '../../alerts/domain/alerts-service';
+import type { BudgetCache } from '../../budgets/domain/budget-cache';
 import { ShortMemo } from './short-memo';
 
 /** What one scope's memo holds: the sums per site, and the money over budget (both independent of paging and sorting). */
@@ -60,6 +61,7 @@ export class PortfolioService {
     private readonly dailyUse: DailyUseRepository,
     private readonly budgetCache: BudgetCache,
     private readonly rates: RateSchedulesService,
+    private readonly alerts: AlertsService,
   ) {}
 
   async portfolio(principal: Principal, query: PortfolioQuery, now = new Date()): Promise<PortfolioDto> {
@@ -100,7 +102,7 @@ export class PortfolioService {
     });
 
     // Alert counts are not memoised: an alert resolved a moment ago must not still count.
-    const alerts = await this.repo.openAlerts(principal.organisationId);
+    const alerts = await this.alerts.openCountsVisibleTo(principal.organisationId);
     const recentCutoff = now.getTime() - RECENT_DATA_DAYS * 86_400_000;
     const isSilent = (s: SiteAggregate) => !s.lastDataAt || s.lastDataAt.getTime() < recentCutoff;
     const over = sites.filter(isOver);
@@ -181,12 +183,12 @@ export class PortfolioService {
         page: query.page,
         pageSize: query.pageSize,
       },
-      alertsAvailable: await this.repo.alertsAvailable(),
+      alertsAvailable: await this.alerts.tableAvailable(),
     };
   }
 
   private async budgetCacheNeeded(principal: Principal, siteIds: number[], months: string[]): Promise<boolean> {
-    const before = await this.repo.staleBudgetSites(siteIds, months, new Date().toISOString().slice(0, 7));
+    const before = await this.budgetCache.staleSites(siteIds, months);
     if (!before.length) return false;
     await this.budgetCache.ensure(principal, before, months);
     return true;
@@ -202,7 +204,7 @@ export class PortfolioService {
     if (!over.length) return { cost: 0, currency: null };
     const ids = over.map((s) => s.siteId);
     const use = await this.dailyUse.monthly(ids, from, to);
-    const budgets = await this.repo.budgetMonths(ids, months[0]!, months[months.length - 1]!);
+    const budgets = await this.budgetCache.months(ids, months[0]!, months[months.length - 1]!);
     const schedulesOf = await this.rates.allOfSites(ids);
     let cost = 0;
     const currencies = new Set<string>();

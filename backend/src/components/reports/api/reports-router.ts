@@ -4,7 +4,7 @@ import { COMPLIANCE_SORTS } from '@shared/reports/compliance-report-dto';
 import { SITE_KINDS } from '@shared/sites/site';
 import { principalOf } from '../../../platform/auth/guards';
 import { validate } from '../../../platform/validation';
-import { sendFile } from '../../savings/api/savings-router';
+import { sendFile } from '../../../platform/send-file';
 import type { ComplianceService } from '../domain/compliance-service';
 import type { ComplianceNoticeService } from '../domain/compliance-notice-service';
 import { complianceCsv, compliancePdf } from '../domain/compliance-exports';

@@ -1,6 +1,6 @@
 import { toCsv } from '@shared/csv/csv-writer';
 import type { ComplianceReportDto, ComplianceRowDto } from '@shared/reports/compliance-report-dto';
-import { barChart, fmt, heading, muted, newPdf, paragraph, render, table } from './pdf-kit';
+import { barChart, fmt, heading, muted, newPdf, paragraph, render, table } from '../../../platform/pdf-kit';
 
 const r1 = (v: number | null) => (v === null ? null : Number(v.toFixed(1)));
 

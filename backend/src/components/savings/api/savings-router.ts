@@ -1,4 +1,4 @@
-import { Router, type Response } from 'express';
+import { Router } from 'express';
 import { z } from 'zod';
 import { BASELINE_MODEL_FORMS } from '@shared/savings/baseline-model';
 import { SAVINGS_CHANGE_KINDS } from '@shared/savings/savings-project-dto';
@@ -7,6 +7,7 @@ import { idParam, validate } from '../../../platform/validation';
 import type { SavingsProjectsService } from '../domain/savings-projects-service';
 import type { SavingsReportService } from '../domain/savings-report-service';
 import { savingsCsv, savingsPdf } from '../domain/savings-exports';
+import { sendFile } from '../../../platform/send-file';
 
 const month = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'must be a month YYYY-MM');
 const fields = {
@@ -65,11 +66,4 @@ export function savingsProjectsRouter(projects: SavingsProjectsService, reports:
     sendFile(res, await savingsPdf(await reports.report(principalOf(req), id)), 'application/pdf', `savings-${id}.pdf`);
   });
   return router;
-}
-
-export function sendFile(res: Response, body: string | Buffer, type: string, filename: string): void {
-  res.setHeader('Content-Type', type);
-  res.setHeader('Content-Disposition', `attachment; filename="${filename}"`);
-  res.setHeader('Cache-Control', 'no-store');
-  res.send(body);
 }

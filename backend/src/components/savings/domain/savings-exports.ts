@@ -1,7 +1,7 @@
 import { toCsv } from '@shared/csv/csv-writer';
 import type { SavingsReportDto } from '@shared/savings/savings-project-dto';
 import { SAVINGS_CHANGE_LABELS } from '@shared/savings/savings-project-dto';
-import { barChart, fmt, heading, muted, newPdf, paragraph, render, table } from '../../reports/domain/pdf-kit';
+import { barChart, fmt, heading, muted, newPdf, paragraph, render, table } from '../../../platform/pdf-kit';
 
 type MonthRow = {
   period: 'baseline' | 'reporting';

@@ -13,27 +13,27 @@ import { costOfVolume } from '@shared/rates/water-cost';
 import { addDays } from '@shared/weather/day-of-year';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
-import type { DailyUseRepository } from '../../readings/data/daily-use-repository';
+import type { DailyUseRepository } from '../data/daily-use-repository';
 import { scheduleInForce, type RateSchedulesService } from '../../rates/domain/rate-schedules-service';
 import type { SitesService } from '../../sites/domain/sites-service';
-import type { PortfolioRepository } from '../data/portfolio-repository';
-import type { SiteDashboardRepository } from '../data/site-dashboard-repository';
-import type { BudgetCache } from './budget-cache';
+import type { AlertsService } from '../../alerts/domain/alerts-service';
+import type { ReadingsRepository } from '../data/readings-repository';
+import type { BudgetCache } from '../../budgets/domain/budget-cache';
 
 const MAX_OVERVIEW_DAYS = 400;
 const MAX_MONTHS = 25;
 /** A month counts as fully metered when readings cover at least this share of its minutes. */
 const COMPLETE_SHARE = 0.95;
 
-/** One site's dashboard: key figures, daily use against budget, the hour-by-day grid and the monthly table. */
-export class SiteDashboardService {
+/** One site's readings as the site pages show them: key figures, daily use against budget, the hour-by-day grid and the monthly table. */
+export class ReadingsService {
   constructor(
     private readonly sites: SitesService,
-    private readonly repo: SiteDashboardRepository,
-    private readonly portfolio: PortfolioRepository,
+    private readonly repo: ReadingsRepository,
     private readonly dailyUse: DailyUseRepository,
     private readonly budgetCache: BudgetCache,
     private readonly rates: RateSchedulesService,
+    private readonly alerts: AlertsService,
   ) {}
 
   async overview(principal: Principal, siteId: number, from: string, to: string): Promise<SiteOverviewDto> {
@@ -43,7 +43,7 @@ export class SiteDashboardService {
       throw AppError.invalid('to', `at most ${MAX_OVERVIEW_DAYS} days at a time`);
     const months = monthsBetween(from, to);
     await this.budgetCache.ensure(principal, [siteId], months);
-    const budgets = await this.portfolio.budgetMonths([siteId], months[0]!, months[months.length - 1]!);
+    const budgets = await this.budgetCache.months([siteId], months[0]!, months[months.length - 1]!);
     const use = new Map((await this.dailyUse.daily(siteId, from, to)).map((d) => [d.localDate, d]));
     // ETo for the whole months, so each day's share of its month's budget is known even at the range's edges.
     const weather = await this.repo.weather(siteId, `${months[0]}-01`, lastDayOfMonth(months[months.length - 1]!));
@@ -64,7 +64,7 @@ export class SiteDashboardService {
     const budgetTotal = days.every((d) => d.budgetGallons !== null)
       ? days.reduce((s, d) => s + d.budgetGallons!, 0)
       : null;
-    const alerts = await this.portfolio.alertMarkers(siteId, site.timeZone, from, to);
+    const alerts = await this.alerts.markers(siteId, site.timeZone, from, to);
     return {
       site: { id: site.id, name: site.name, timeZone: site.timeZone, organisationName: site.organisationName },
       from,
@@ -112,7 +112,7 @@ export class SiteDashboardService {
     const months = monthsBetween(`${fromMonth}-01`, `${toMonth}-01`);
     if (months.length > MAX_MONTHS) throw AppError.invalid('to', `at most ${MAX_MONTHS} months at a time`);
     await this.budgetCache.ensure(principal, [siteId], months);
-    const budgets = await this.portfolio.budgetMonths([siteId], fromMonth, toMonth);
+    const budgets = await this.budgetCache.months([siteId], fromMonth, toMonth);
     const use = await this.dailyUse.monthly([siteId], `${fromMonth}-01`, lastDayOfMonth(toMonth));
     const schedules = await this.rates.allOfSite(siteId);
     const rows = months.map((month): MonthlyRow => {

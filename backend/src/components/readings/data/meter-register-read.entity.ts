@@ -1,6 +1,6 @@
 import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryColumn } from 'typeorm';
 import { VOLUME_UNITS, type VolumeUnit } from '@shared/units/volume-units';
-import { MeterEntity } from './meter.entity';
+import { MeterEntity } from '../../meters/data/meter.entity';
 
 /**
  * A cumulative register read as the file gave it. `position` tells apart two reads at one instant (a swapped

@@ -1,9 +1,9 @@
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
 import { logger } from '../../../platform/logger';
-import type { BudgetsService } from '../../budgets/domain/budgets-service';
+import type { BudgetsService } from './budgets-service';
 import { monthsBetween } from '@shared/portfolio/period';
-import type { BudgetMonthRow, PortfolioRepository } from '../data/portfolio-repository';
+import type { BudgetCacheRepository, BudgetMonthRow } from '../data/budget-cache-repository';
 
 const PARALLEL = 4;
 
@@ -15,9 +15,19 @@ const PARALLEL = 4;
  */
 export class BudgetCache {
   constructor(
-    private readonly repo: PortfolioRepository,
+    private readonly repo: BudgetCacheRepository,
     private readonly budgets: BudgetsService,
   ) {}
+
+  /** The cached rows of these sites and months, as stored (call `ensure` first for fresh ones). */
+  months(siteIds: number[], fromMonth: string, toMonth: string): Promise<BudgetMonthRow[]> {
+    return this.repo.budgetMonths(siteIds, fromMonth, toMonth);
+  }
+
+  /** Sites among `siteIds` whose rows for these months are missing or stale. */
+  staleSites(siteIds: number[], months: string[]): Promise<number[]> {
+    return this.repo.staleBudgetSites(siteIds, months, new Date().toISOString().slice(0, 7));
+  }
 
   async ensure(principal: Principal, siteIds: number[], months: string[]): Promise<void> {
     const currentMonth = new Date().toISOString().slice(0, 7);

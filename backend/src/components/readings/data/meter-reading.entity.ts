@@ -1,6 +1,6 @@
 import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryColumn } from 'typeorm';
 import { VOLUME_UNITS, type VolumeUnit } from '@shared/units/volume-units';
-import { MeterEntity } from './meter.entity';
+import { MeterEntity } from '../../meters/data/meter.entity';
 
 /**
  * One interval volume. The primary key (meter, start, minutes) is also the clustering order, so a meter's readings

@@ -1,7 +1,7 @@
 import type { DataSource } from 'typeorm';
 
-/** Aggregate reads for one site's dashboard views (the caller has checked access). */
-export class SiteDashboardRepository {
+/** Aggregate reads for one site's readings pages (the caller has checked access). */
+export class ReadingsRepository {
   constructor(private readonly db: DataSource) {}
 
   /** Daily ETo and rain from the site's linked weather station, as stored (no gap filling). */
