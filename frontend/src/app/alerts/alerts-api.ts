@@ -8,7 +8,6 @@ import type {
   AlertSummaryDto,
   NotificationPreferenceDto,
 } from '@shared/alerts/alert-dto';
-import type { WatchRunDto, WatchSettingsDto, WatchSettingsInput } from '@shared/watch/watch-dto';
 import type { FindingKind } from '@shared/watch/finding';
 import { Observable } from 'rxjs';
 import { queryParams } from '../core/http/query-params';
@@ -23,7 +22,7 @@ export interface AlertQuery {
   dir: 'asc' | 'desc';
 }
 
-/** /api/alerts, /api/watch, a site's watch settings and the user's e-mail preference. */
+/** /api/alerts and the user's alert e-mail preference. */
 @Injectable({ providedIn: 'root' })
 export class AlertsApi {
   private readonly http = inject(HttpClient);
@@ -38,22 +37,6 @@ export class AlertsApi {
 
   act(id: number, action: 'acknowledge' | 'resolve' | 'notes', note: string): Observable<AlertDetailDto> {
     return this.http.post<AlertDetailDto>(`/api/alerts/${id}/${action}`, note ? { note } : {});
-  }
-
-  settings(siteId: number): Observable<WatchSettingsDto> {
-    return this.http.get<WatchSettingsDto>(`/api/sites/${siteId}/watch-settings`);
-  }
-
-  saveSettings(siteId: number, input: WatchSettingsInput): Observable<WatchSettingsDto> {
-    return this.http.put<WatchSettingsDto>(`/api/sites/${siteId}/watch-settings`, input);
-  }
-
-  runs(page: number, pageSize: number): Observable<Page<WatchRunDto>> {
-    return this.http.get<Page<WatchRunDto>>('/api/watch/runs', { params: queryParams({ page, pageSize }) });
-  }
-
-  runNow(range?: { from: string; to: string }): Observable<WatchRunDto> {
-    return this.http.post<WatchRunDto>('/api/watch/runs', range ?? {});
   }
 
   notifications(): Observable<NotificationPreferenceDto> {

@@ -1,6 +1,5 @@
 import { Routes } from '@angular/router';
 import { provideEchartsCore } from 'ngx-echarts';
-import { capabilityGuard } from '../core/auth/auth-guards';
 
 export const alertsRoutes: Routes = [
   {
@@ -20,17 +19,6 @@ export const alertsRoutes: Routes = [
         title: 'Alert e-mail · Rillmark',
         loadComponent: () =>
           import('./notification-settings/notification-settings').then((m) => m.NotificationSettings),
-      },
-      {
-        path: 'runs',
-        title: 'Watch runs · Rillmark',
-        canActivate: [capabilityGuard('manageSettings')],
-        loadComponent: () => import('./watch-runs/watch-runs').then((m) => m.WatchRuns),
-      },
-      {
-        path: 'sites/:siteId/settings',
-        title: 'Watch settings · Rillmark',
-        loadComponent: () => import('./watch-settings/watch-settings').then((m) => m.WatchSettings),
       },
       {
         path: ':id',

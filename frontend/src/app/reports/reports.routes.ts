@@ -1,31 +1,9 @@
 import { Routes } from '@angular/router';
-import { provideEchartsCore } from 'ngx-echarts';
 
 export const reportsRoutes: Routes = [
   {
     path: '',
-    // The same ECharts parts as the weather chart (bars and lines), loaded only with these routes.
-    providers: [
-      provideEchartsCore({
-        echarts: () => import('../weather/weather-chart/echarts-parts').then((m) => m.loadEcharts()),
-      }),
-    ],
-    children: [
-      {
-        path: '',
-        title: 'Reports · Rillmark',
-        loadComponent: () => import('./compliance-page/compliance-page').then((m) => m.CompliancePage),
-      },
-      {
-        path: 'sites/:siteId/savings',
-        title: 'Savings projects · Rillmark',
-        loadComponent: () => import('./savings-projects/savings-projects').then((m) => m.SavingsProjects),
-      },
-      {
-        path: 'savings/:id',
-        title: 'Savings report · Rillmark',
-        loadComponent: () => import('./savings-report/savings-report').then((m) => m.SavingsReport),
-      },
-    ],
+    title: 'Reports · Rillmark',
+    loadComponent: () => import('./compliance-page/compliance-page').then((m) => m.CompliancePage),
   },
 ];

@@ -25,12 +25,12 @@ export const sitesRoutes: Routes = [
       },
       {
         path: 'overview',
-        loadChildren: () => import('../site-overview/site-overview.routes').then((m) => m.siteOverviewRoutes),
+        loadChildren: () => import('../readings/readings.routes').then((m) => m.readingsRoutes),
       },
       {
         path: 'monthly',
         title: 'Monthly table · Rillmark',
-        loadComponent: () => import('../site-overview/site-monthly/site-monthly').then((m) => m.SiteMonthly),
+        loadComponent: () => import('../readings/site-monthly/site-monthly').then((m) => m.SiteMonthly),
       },
       {
         path: 'hydrozones',

@@ -13,7 +13,7 @@ import type { UseAgainstBudget } from '@shared/readings/readings-dto';
 import { formatVolume } from '@shared/units/format-quantity';
 import { debounceTime, distinctUntilChanged, map } from 'rxjs';
 import { describeApiError } from '../../core/http/api-error';
-import { lastCompleteMonth, PeriodPicker, type PeriodValue } from '../period-picker/period-picker';
+import { lastCompleteMonth, PeriodPicker, type PeriodValue } from '../../shared/period-picker/period-picker';
 import { PortfolioApi, type PortfolioQuery } from '../portfolio-api';
 import { SitesTable } from '../sites-table/sites-table';
 

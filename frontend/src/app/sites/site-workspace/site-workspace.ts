@@ -11,7 +11,7 @@ import { map } from 'rxjs';
 import { AlertsApi } from '../../alerts/alerts-api';
 import { describeApiError } from '../../core/http/api-error';
 import { dataAge } from '../../portfolio/sites-table/data-age';
-import { SiteOverviewApi } from '../../site-overview/site-overview-api';
+import { ReadingsApi } from '../../readings/readings-api';
 import { SitesApi } from '../sites-api';
 import { monthToDateLabel, siteDate } from '../site-date';
 
@@ -54,7 +54,7 @@ export const SITE_TABS: readonly Tab[] = [
 })
 export class SiteWorkspace {
   private readonly sitesApi = inject(SitesApi);
-  private readonly overviewApi = inject(SiteOverviewApi);
+  private readonly overviewApi = inject(ReadingsApi);
   private readonly alertsApi = inject(AlertsApi);
 
   /** Route parameter. */

@@ -6,7 +6,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { WatchSettingsDto } from '@shared/watch/watch-dto';
 import { describeApiError } from '../../core/http/api-error';
-import { AlertsApi } from '../alerts-api';
+import { WatchApi } from '../watch-api';
 
 /** A site's watch thresholds, each with what it does in plain words; editable at 'edit' level. */
 @Component({
@@ -137,7 +137,7 @@ import { AlertsApi } from '../alerts-api';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class WatchSettings {
-  private readonly api = inject(AlertsApi);
+  private readonly api = inject(WatchApi);
   /** Route parameter. */
   readonly siteId = input.required<string>();
 

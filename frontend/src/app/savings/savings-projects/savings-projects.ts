@@ -11,7 +11,7 @@ import { firstValueFrom } from 'rxjs';
 import { describeApiError } from '../../core/http/api-error';
 import { confirm } from '../../shared/confirm-dialog/confirm-dialog';
 import { SitesApi } from '../../sites/sites-api';
-import { ReportsApi } from '../reports-api';
+import { SavingsApi } from '../savings-api';
 import { SavingsProjectForm } from '../savings-project-form/savings-project-form';
 
 /** `/reports/sites/:siteId/savings`: a site's savings projects, with create, edit and delete for those who may. */
@@ -102,7 +102,7 @@ import { SavingsProjectForm } from '../savings-project-form/savings-project-form
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SavingsProjects {
-  private readonly api = inject(ReportsApi);
+  private readonly api = inject(SavingsApi);
   private readonly sitesApi = inject(SitesApi);
   private readonly dialog = inject(MatDialog);
   private readonly snack = inject(MatSnackBar);

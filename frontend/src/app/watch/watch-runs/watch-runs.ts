@@ -7,7 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { describeApiError } from '../../core/http/api-error';
-import { AlertsApi } from '../alerts-api';
+import { WatchApi } from '../watch-api';
 
 /** Administrators: the watch's run history, "run now", and a re-check of a date range. */
 @Component({
@@ -108,7 +108,7 @@ import { AlertsApi } from '../alerts-api';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class WatchRuns {
-  private readonly api = inject(AlertsApi);
+  private readonly api = inject(WatchApi);
   protected readonly columns = ['started', 'trigger', 'status', 'seconds', 'sites', 'alerts', 'mails', 'errors'];
   protected readonly runs = rxResource({ stream: () => this.api.runs(0, 50) });
   protected readonly rows = computed(() => (this.runs.hasValue() ? this.runs.value().items : []));

@@ -13,7 +13,7 @@ import {
 } from '@shared/savings/savings-project-dto';
 import { firstValueFrom } from 'rxjs';
 import { describeApiError } from '../../core/http/api-error';
-import { ReportsApi } from '../reports-api';
+import { SavingsApi } from '../savings-api';
 
 const MODEL_LABELS: Record<BaselineModelForm, string> = {
   eto: 'Monthly use against ETo',
@@ -106,7 +106,7 @@ const MODEL_LABELS: Record<BaselineModelForm, string> = {
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SavingsProjectForm {
-  private readonly api = inject(ReportsApi);
+  private readonly api = inject(SavingsApi);
   readonly siteId = input.required<number>();
   readonly project = input<SavingsProjectDto | null>(null);
   readonly saved = output<SavingsProjectDto>();

@@ -4,9 +4,9 @@ import type { HourlyGridDto, SiteMonthlyDto, SiteOverviewDto } from '@shared/rea
 import { Observable } from 'rxjs';
 import { queryParams } from '../core/http/query-params';
 
-/** /api/sites/:id/overview, /hourly-grid and /monthly (aggregates only). */
+/** A site's readings: /api/sites/:id/overview, /hourly-grid and /monthly (aggregates only). */
 @Injectable({ providedIn: 'root' })
-export class SiteOverviewApi {
+export class ReadingsApi {
   private readonly http = inject(HttpClient);
 
   overview(siteId: number, from: string, to: string): Observable<SiteOverviewDto> {

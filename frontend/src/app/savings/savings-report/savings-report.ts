@@ -8,7 +8,7 @@ import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { SAVINGS_CHANGE_LABELS } from '@shared/savings/savings-project-dto';
 import { describeApiError } from '../../core/http/api-error';
-import { ReportsApi } from '../reports-api';
+import { SavingsApi } from '../savings-api';
 import { SavingsChart } from '../savings-chart/savings-chart';
 
 /** `/reports/savings/:id`: the savings figure, the chart, the Guideline 14 checks and the verdict in plain words. */
@@ -28,7 +28,7 @@ import { SavingsChart } from '../savings-chart/savings-chart';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SavingsReport {
-  private readonly api = inject(ReportsApi);
+  private readonly api = inject(SavingsApi);
   /** Bound from the route parameter. */
   readonly id = input.required<number, string>({ transform: Number });
 

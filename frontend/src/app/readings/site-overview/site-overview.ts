@@ -7,11 +7,11 @@ import { ActivatedRoute, RouterLink } from '@angular/router';
 import { monthsBetween, resolvePeriod } from '@shared/portfolio/period';
 import { PORTFOLIO_PERIODS, type PortfolioPeriod } from '@shared/portfolio/portfolio-dto';
 import { formatVolume } from '@shared/units/format-quantity';
-import { describeApiError } from '../core/http/api-error';
-import { lastCompleteMonth, PeriodPicker, type PeriodValue } from '../portfolio/period-picker/period-picker';
-import { DailyChart } from './daily-chart/daily-chart';
-import { FlowGrid } from './flow-grid/flow-grid';
-import { SiteOverviewApi } from './site-overview-api';
+import { describeApiError } from '../../core/http/api-error';
+import { lastCompleteMonth, PeriodPicker, type PeriodValue } from '../../shared/period-picker/period-picker';
+import { DailyChart } from '../daily-chart/daily-chart';
+import { FlowGrid } from '../flow-grid/flow-grid';
+import { ReadingsApi } from '../readings-api';
 
 /** `/sites/:id/overview`: a period's key figures, daily use against budget and the hour-by-day flow grid. */
 @Component({
@@ -22,7 +22,7 @@ import { SiteOverviewApi } from './site-overview-api';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SiteOverview {
-  private readonly api = inject(SiteOverviewApi);
+  private readonly api = inject(ReadingsApi);
   private readonly route = inject(ActivatedRoute);
   protected readonly siteId = Number(this.route.snapshot.paramMap.get('id'));
 

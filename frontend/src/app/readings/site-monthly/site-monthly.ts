@@ -7,9 +7,9 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { addMonths } from '@shared/portfolio/period';
 import { describeApiError } from '../../core/http/api-error';
-import { lastCompleteMonth } from '../../portfolio/period-picker/period-picker';
+import { lastCompleteMonth } from '../../shared/period-picker/period-picker';
 import { MonthlyTable } from '../monthly-table/monthly-table';
-import { SiteOverviewApi } from '../site-overview-api';
+import { ReadingsApi } from '../readings-api';
 
 /** `/sites/:id/monthly`: twelve months of use against budget ending at a chosen month, with its CSV. */
 @Component({
@@ -58,7 +58,7 @@ import { SiteOverviewApi } from '../site-overview-api';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SiteMonthly {
-  private readonly api = inject(SiteOverviewApi);
+  private readonly api = inject(ReadingsApi);
 
   /** Route parameter. */
   readonly id = input.required<string>();
