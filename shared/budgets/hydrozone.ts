@@ -7,7 +7,7 @@ export const PLANT_WATER_USE_CATEGORIES = ['very-low', 'low', 'moderate', 'high'
 export type PlantWaterUseCategory = (typeof PLANT_WATER_USE_CATEGORIES)[number];
 
 /**
- * Plant factor ranges by water-use category, MWELO § 492.4(b)(1) after WUCOLS — from memory (REFERENCE.md §3).
+ * Plant factor ranges by water-use category, MWELO § 492.4(b)(1) after WUCOLS — from memory (docs/references.md §3).
  * The gaps between ranges (0.3–0.4, 0.6–0.7) are as the ordinance prints them.
  * `default` is the midpoint, used when only the category is known: common practice, no source.
  */

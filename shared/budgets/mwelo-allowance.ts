@@ -22,7 +22,7 @@ export const MWELO_MAX_ETAF: Readonly<Record<MweloProjectType, number>> = {
   residential: 0.55,
   'non-residential': 0.45,
 };
-/** ETAF of special landscape areas (MWELO § 491, from memory per REFERENCE.md §3). */
+/** ETAF of special landscape areas (MWELO § 491, from memory per docs/references.md §3). */
 export const SLA_ETAF = 1.0;
 /** ETAF of existing, non-rehabilitated landscapes, MWELO § 493.1. */
 export const EXISTING_LANDSCAPE_ETAF = 0.8;

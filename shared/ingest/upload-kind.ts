@@ -1,4 +1,4 @@
-// Ingest only recognises and carries the unit; conversions belong to shared/units (REFERENCE.md §5).
+// Ingest only recognises and carries the unit; conversions belong to shared/units (docs/references.md §5).
 import type { VolumeUnit } from '../units/volume-units';
 
 /**

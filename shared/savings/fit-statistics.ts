@@ -1,5 +1,5 @@
 /**
- * Goodness-of-fit statistics for a baseline model, as ASHRAE Guideline 14 defines them (REFERENCE.md §6, from
+ * Goodness-of-fit statistics for a baseline model, as ASHRAE Guideline 14 defines them (docs/references.md §6, from
  * memory: G14-2002 eqs. 5.4–5.5 per secondary sources). Both divide by n − p, the residual degrees of freedom.
  */
 

@@ -9,7 +9,7 @@ import { twoSidedT } from './student-t';
 /** Money for a volume in one period, e.g. `(gal, p) => costOfVolume(schedule, gal).total` from shared/rates. */
 export type PeriodPrice = (volumeGal: number, period: WeatherPeriod) => number;
 
-/** Guideline 14 states savings uncertainty at 68 % confidence (REFERENCE.md §6, from memory). */
+/** Guideline 14 states savings uncertainty at 68 % confidence (docs/references.md §6, from memory). */
 export const DEFAULT_SAVINGS_CONFIDENCE = 0.68;
 
 export interface SavingsPeriod {

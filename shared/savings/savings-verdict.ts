@@ -1,6 +1,6 @@
 /**
  * Whether a savings figure can be claimed under ASHRAE Guideline 14 and IPMVP, with reasons a contractor or an
- * auditor can read. Every threshold here is from memory (REFERENCE.md §6): the Guideline's text was not at hand.
+ * auditor can read. Every threshold here is from memory (docs/references.md §6): the Guideline's text was not at hand.
  */
 import type { BaselineModel } from './baseline-model';
 import type { SavingsResult } from './savings-calculation';
@@ -8,7 +8,7 @@ import { twoSidedT } from './student-t';
 
 const DAYS_PER_MONTH = 365.25 / 12;
 
-/** G14-2002 §5.2.11, whole-building regression, energy (use) column — from memory (REFERENCE.md §6). */
+/** G14-2002 §5.2.11, whole-building regression, energy (use) column — from memory (docs/references.md §6). */
 export const CV_RMSE_LIMITS: readonly { reportingMonthsAtMost: number; maxPercent: number; describe: string }[] = [
   { reportingMonthsAtMost: 11, maxPercent: 20, describe: 'with less than 12 months of reporting data' },
   { reportingMonthsAtMost: 60, maxPercent: 25, describe: 'with 12 to 60 months of reporting data' },

@@ -4,7 +4,7 @@
  * - `none`: rain is ignored; the budget is the full irrigation requirement (the conservative default).
  * - `fixed-fraction`: a fixed share of rain counts, e.g. 25 %. Under MWELO a local agency may count effective
  *   precipitation at 25 % of annual precipitation (local-code wording, e.g. the ecode360.com/48417262 copy cited
- *   in shared/REFERENCE.md §3). Applied per day here, which gives the same annual total.
+ *   in docs/references.md §3). Applied per day here, which gives the same annual total.
  * - `threshold`: rain below `minimumMm` on a day is ignored (it wets the canopy and evaporates); rain
  *   above it counts up to that day's plant water demand, the excess being runoff or deep drainage.
  *   Common practice, no source.

@@ -13,8 +13,8 @@ import {
 /**
  * A small invented site worked by hand. Formulas: MWELO (2015) App. B — ETo × PF × area × conversion ÷ IE,
  * IE 0.81 drip / 0.75 overhead spray (note c), MAWA note e, ETWU note d; 1 in over 1 ft² = 144/231 gal
- * (shared/REFERENCE.md §3 and §5); 1 ft² = 0.09290304 m² (NIST); CCF = 100 ft³ = 748.0519 gal;
- * PR = 96.25 × gpm ÷ area (REFERENCE.md §4).
+ * (docs/references.md §3 and §5); 1 ft² = 0.09290304 m² (NIST); CCF = 100 ft³ = 748.0519 gal;
+ * PR = 96.25 × gpm ÷ area (docs/references.md §4).
  */
 const GAL_PER_IN_FT2 = 144 / 231;
 const FT2_PER_M2 = 1 / 0.09290304;

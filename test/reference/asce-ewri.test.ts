@@ -1,5 +1,5 @@
 /**
- * Checks for the ASCE-EWRI (2005) standardized reference ET constants. REFERENCE.md §2: the report text was not
+ * Checks for the ASCE-EWRI (2005) standardized reference ET constants. docs/references.md §2: the report text was not
  * available, so the constants are "from memory (matches third-party code)" and cited as "ASCE-EWRI p.21".
  * No ASCE worked example is available; the daily short reference is checked against FAO-56 Example 18, which
  * uses the same equation and constants.
@@ -69,7 +69,7 @@ describe('ASCE daily ETos on FAO-56 Example 18 (Uccle, 6 July)', () => {
   });
 });
 
-describe('ASCE hourly differs from FAO-56 hourly (REFERENCE.md §2 note)', () => {
+describe('ASCE hourly differs from FAO-56 hourly (docs/references.md §2 note)', () => {
   // Inputs of FAO-56 Example 19, p.75–76 (N'Diaye, 1 October).
   const site = { latitudeDeg: 16 + 13 / 60, longitudeDegEast: -16.25, timeZoneMeridianDegEast: -15, elevationM: 8 };
   const dayObs = {

@@ -1,7 +1,7 @@
 /**
  * Checks against FAO Irrigation and Drainage Paper 56 (Allen, Pereira, Raes, Smith 1998), worked examples of
- * Chapter 3/4 and Annex 2 tables, as transcribed in shared/REFERENCE.md §1. Each value is compared at its printed
- * rounding (REFERENCE.md, "Tolerances").
+ * Chapter 3/4 and Annex 2 tables, as transcribed in docs/references.md §1. Each value is compared at its printed
+ * rounding (docs/references.md, "Tolerances").
  */
 import { describe, expect, it } from 'vitest';
 import {
@@ -205,7 +205,7 @@ describe('FAO-56 Example 18: daily ETo at Uccle (Brussels) on 6 July, p.72–73'
   });
 
   it('matches the full-precision chain redone from the raw inputs', () => {
-    // REFERENCE.md §1d, "published + derived": arithmetic redone at full precision.
+    // docs/references.md §1, Example 18 "published + derived": arithmetic redone at full precision.
     expectPrinted(s.windSpeed2mMs!, 2.0776, 4);
     expectPrinted(s.raMj, 41.088, 3);
     expectPrinted(s.daylightHours!, 16.105, 3);
@@ -295,7 +295,7 @@ describe("FAO-56 Example 19: hourly ETo at N'Diaye (Senegal) on 1 October, p.75�
   });
 
   it('matches the recomputed hourly values', () => {
-    // REFERENCE.md §1e: recomputed 0.004 and 0.627 mm/h from the printed inputs.
+    // docs/references.md §1, Example 19: recomputed 0.004 and 0.627 mm/h from the printed inputs.
     expectPrinted(night.etoMm, 0.004, 3);
     expectPrinted(day.etoMm, 0.627, 3);
   });

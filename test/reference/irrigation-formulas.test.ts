@@ -1,5 +1,5 @@
 /**
- * Irrigation formula checks (REFERENCE.md §4).
+ * Irrigation formula checks (docs/references.md §4).
  */
 import { describe, expect, it } from 'vitest';
 import {
@@ -21,16 +21,16 @@ describe('precipitation rate', () => {
   it('60 × 15 ft, 6 half-circle heads at 1.0 GPM and 4 quarter-circle at 0.5 GPM → 0.856 in/h', () => {
     const gpm = 6 * 1.0 + 4 * 0.5;
     expect(gpm).toBe(8);
-    expectPrinted(precipitationRateInPerHour(gpm, 60 * 15), 0.856, 3); // irrigation course slides (REFERENCE.md §4), printed 0.86 (0.856)
-    expectPrinted(precipitationRateInPerHour(gpm, 60 * 15), 0.86, 2); // irrigation course slides (REFERENCE.md §4)
+    expectPrinted(precipitationRateInPerHour(gpm, 60 * 15), 0.856, 3); // irrigation course slides (docs/references.md §4), printed 0.86 (0.856)
+    expectPrinted(precipitationRateInPerHour(gpm, 60 * 15), 0.86, 2); // irrigation course slides (docs/references.md §4)
   });
 
   it('triangular spacing: 6 GPM full circle, 25 × 30 ft → 0.889 in/h', () => {
-    expectPrinted(spacingPrecipitationRateInPerHour(6, 25, 30, 'triangular'), 0.889, 3); // irrigation course slides (REFERENCE.md §4), published + derived
+    expectPrinted(spacingPrecipitationRateInPerHour(6, 25, 30, 'triangular'), 0.889, 3); // irrigation course slides (docs/references.md §4), published + derived
   });
 
   it('square spacing is the plain area formula', () => {
-    // Same formula as the area method for one head's share: 96.25 × 6 / 750 (REFERENCE.md §4 square form).
+    // Same formula as the area method for one head's share: 96.25 × 6 / 750 (docs/references.md §4 square form).
     expectPrinted(spacingPrecipitationRateInPerHour(6, 25, 30, 'square'), 0.77, 4);
   });
 });

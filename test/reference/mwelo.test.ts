@@ -1,5 +1,5 @@
 /**
- * Checks against California's Model Water Efficient Landscape Ordinance (MWELO), REFERENCE.md §3.
+ * Checks against California's Model Water Efficient Landscape Ordinance (MWELO), docs/references.md §3.
  * The 2015 Appendix B is a blank worksheet; the numeric example is the 2009 MWELO Appendix B Fresno example,
  * reproduced in the City of Colton ordinance O-008-14, pp.12–13.
  */
@@ -57,7 +57,7 @@ describe('MWELO 2009 Appendix B example (Fresno), Colton O-008-14 pp.12–13', (
       0,
     ); // MWELO 2009 App. B example, Colton O-008-14 p.13
     const etwu = estimatedTotalWaterUse(51.1, zones);
-    // Colton O-008-14 p.13 OCR reads 1,102,116; a second copy and the arithmetic give 1,102,176 (REFERENCE.md §3,
+    // Colton O-008-14 p.13 OCR reads 1,102,116; a second copy and the arithmetic give 1,102,176 (docs/references.md §3,
     // published + derived). The unrounded product is 1,102,176.6: the ordinance drops the fraction, so allow < 1 gal.
     expect(Math.abs(etwu.gallons - 1_102_176)).toBeLessThan(1);
     expect(mweloCompliance(etwu, mawa, 0.7).complies).toBe(true); // MWELO 2009 App. B example: ETWU < MAWA, complies
@@ -82,7 +82,7 @@ describe('MWELO 2015 rules', () => {
       specialLandscapeAreaFt2: 0,
       etaf: MWELO_MAX_ETAF.residential,
     });
-    expectPrinted(mawa.gallons, 871_255, 0); // REFERENCE.md §3: derived, not published (51.1 × 0.62 × 0.55 × 50,000)
+    expectPrinted(mawa.gallons, 871_255, 0); // docs/references.md §3: derived, not published (51.1 × 0.62 × 0.55 × 50,000)
   });
 
   it('special landscape area gets ETAF 1.0 in MAWA and ETWU', () => {
@@ -122,7 +122,7 @@ describe('0.62 versus 144/231', () => {
   it('the ordinance factor is 0.62 and the exact factor is 0.623377', () => {
     expect(gallonsPerInchSquareFoot('ordinance')).toBe(MWELO_CONVERSION_FACTOR);
     expect(MWELO_CONVERSION_FACTOR).toBe(0.62); // MWELO App. B text and § 491 definition
-    expectPrinted(gallonsPerInchSquareFoot('exact'), 0.623377, 6); // REFERENCE.md §3/§5: 144/231, published + derived
+    expectPrinted(gallonsPerInchSquareFoot('exact'), 0.623377, 6); // docs/references.md §3/§5: 144/231, published + derived
   });
 
   it('the exact factor raises the Fresno MAWA by 144/231 ÷ 0.62', () => {

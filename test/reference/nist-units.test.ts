@@ -1,5 +1,5 @@
 /**
- * Unit facts from NIST Handbook 44 App. C and values derived from them (REFERENCE.md §5).
+ * Unit facts from NIST Handbook 44 App. C and values derived from them (docs/references.md §5).
  */
 import { describe, expect, it } from 'vitest';
 import {
@@ -42,7 +42,7 @@ describe('derived volume facts', () => {
   });
 
   it('1 acre-inch = 27,154.3 gal', () => {
-    expectPrinted(convertVolume(1, 'acre-in', 'gal'), 27_154.3, 1); // derived (REFERENCE.md §5)
+    expectPrinted(convertVolume(1, 'acre-in', 'gal'), 27_154.3, 1); // derived (docs/references.md §5)
   });
 
   it('1 m³ = 264.172 gal', () => {

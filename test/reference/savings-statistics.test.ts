@@ -1,5 +1,5 @@
 /**
- * Savings statistics (issue #7) checked against REFERENCE.md §6 (ASHRAE Guideline 14, IPMVP Option C) and against
+ * Savings statistics (issue #7) checked against docs/references.md §6 (ASHRAE Guideline 14, IPMVP Option C) and against
  * independent general-purpose statistics libraries run on the same invented data:
  *   - simple-statistics (linearRegression, rSquared, mean) for the one-variable model;
  *   - ml-regression-multivariate-linear (normal equations through an SVD inverse) for the multi-variable models,
@@ -101,7 +101,7 @@ describe('two-variable baseline (use ~ a + b·ETo + c·rain) against ml-regressi
   });
 
   it("CV(RMSE) agrees with 100 × the library's residual standard error / mean use (both use n − p)", () => {
-    expect(model.statistics.cvRmsePercent).toBeCloseTo((100 * library.stdError) / mean(use), 9); // ml-regression stdError; G14 CV(RMSE) definition, from memory (REFERENCE.md §6)
+    expect(model.statistics.cvRmsePercent).toBeCloseTo((100 * library.stdError) / mean(use), 9); // ml-regression stdError; G14 CV(RMSE) definition, from memory (docs/references.md §6)
   });
 
   it("the variance of a predicted reporting total agrees with one built from the library's coefficient covariance", () => {
@@ -167,15 +167,15 @@ describe('daily baseline (365 rows) against ml-regression-multivariate-linear', 
   });
 });
 
-describe('REFERENCE.md §6 computed test vector (derived there, not published)', () => {
+describe('docs/references.md §6 computed test vector (derived there, not published)', () => {
   const y = [100, 110, 95, 120, 130, 90, 85, 105, 115, 125, 98, 102];
   const fitted = [98, 112, 97, 118, 127, 93, 88, 103, 113, 128, 99, 100];
   const stats = fitStatistics(y, fitted, 1);
 
   it('ȳ = 106.25, CV(RMSE) = 2.288 %, NMBE = −0.0856 % with p = 1 (sign y − ŷ)', () => {
-    expect(stats.meanActual).toBe(106.25); // REFERENCE.md §6 computed vector (derived, not published)
-    expectPrinted(stats.cvRmsePercent, 2.288, 3); // REFERENCE.md §6 computed vector (derived, not published); G14 formula from memory
-    expectPrinted(stats.nmbePercent, -0.0856, 4); // REFERENCE.md §6 computed vector (derived, not published); G14 formula from memory
+    expect(stats.meanActual).toBe(106.25); // docs/references.md §6 computed vector (derived, not published)
+    expectPrinted(stats.cvRmsePercent, 2.288, 3); // docs/references.md §6 computed vector (derived, not published); G14 formula from memory
+    expectPrinted(stats.nmbePercent, -0.0856, 4); // docs/references.md §6 computed vector (derived, not published); G14 formula from memory
   });
 });
 
@@ -204,7 +204,7 @@ describe("Student's t quantiles", () => {
   });
 });
 
-describe('Guideline 14 and IPMVP thresholds (REFERENCE.md §6)', () => {
+describe('Guideline 14 and IPMVP thresholds (docs/references.md §6)', () => {
   it('whole-building regression CV(RMSE): 20 % under 12 months, 25 % for 12–60, 30 % beyond', () => {
     expect(CV_RMSE_LIMITS.map((l) => l.maxPercent)).toEqual([20, 25, 30]); // G14-2002 §5.2.11, from memory
     expect(CV_RMSE_LIMITS.map((l) => l.reportingMonthsAtMost)).toEqual([11, 60, Number.POSITIVE_INFINITY]); // G14-2002 §5.2.11, from memory
