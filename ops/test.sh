@@ -1,8 +1,8 @@
 #!/usr/bin/env bash
 # The one command that runs every test: installs what is missing (npm packages, Debian's mariadb-server
-# and chromium), starts MariaDB, the fake SMTP server and the fake weather feed if they are not running, runs type checks,
-# unit and reference checks, API tests against MariaDB, Angular component tests, the production build
-# with its bundle budget, and end-to-end tests in Chromium; then stops what it started.
+# and chromium), starts MariaDB, the fake SMTP server and the fake weather feed if they are not running, runs the
+# formatter and linter checks, type checks, unit and reference checks, API tests against MariaDB, Angular component
+# tests, the production build with its bundle budget, and end-to-end tests in Chromium; then stops what it started.
 set -uo pipefail
 . "$(dirname "$0")/lib/env.sh"
 cd "$RILLMARK_ROOT"
@@ -11,7 +11,8 @@ ensure_debian_packages curl mariadb-server mariadb-client chromium
 ensure_node_modules
 
 started=()
-if ! mariadb-admin --no-defaults --protocol=tcp -h "$RILLMARK_DB_HOST" -P "$RILLMARK_DB_PORT" -u"$RILLMARK_DB_USER" -p"$RILLMARK_DB_PASSWORD" ping >/dev/null 2>&1; then
+if ! mariadb-admin --no-defaults --protocol=tcp -h "$RILLMARK_DB_HOST" -P "$RILLMARK_DB_PORT" \
+  -u"$RILLMARK_DB_USER" -p"$RILLMARK_DB_PASSWORD" ping >/dev/null 2>&1; then
   bash ops/db/start.sh || die "could not start MariaDB"
   started+=(db)
 fi
@@ -34,10 +35,16 @@ stage() {
   local name=$1; shift
   log "── $name"
   local t0=$SECONDS
-  if "$@"; then results+=("ok      $name ($((SECONDS - t0)) s)"); else results+=("FAILED  $name ($((SECONDS - t0)) s)"); status=1; fi
+  if "$@"; then
+    results+=("ok      $name ($((SECONDS - t0)) s)")
+  else
+    results+=("FAILED  $name ($((SECONDS - t0)) s)")
+    status=1
+  fi
 }
 
 stage "formatting (Prettier)" npx prettier --check --log-level warn .
+stage "lint (ESLint)" npm run --silent lint
 stage "type check (backend, shared, tests)" npx tsc -p backend/tsconfig.json --noEmit
 stage "type check (frontend)" npx tsc -p frontend/tsconfig.app.json --noEmit
 stage "unit and reference checks" npx vitest run --project unit
