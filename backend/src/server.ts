@@ -18,7 +18,8 @@ async function warnUnlessReadCommitted(db: DataSource): Promise<void> {
   const [row]: { level: string }[] = await db.query('SELECT @@GLOBAL.tx_isolation AS level');
   if (row && row.level !== 'READ-COMMITTED')
     logger.warn(
-      `MariaDB runs ${row.level}; set transaction_isolation = READ-COMMITTED (see README, Scaling) or concurrent writes may deadlock`,
+      `MariaDB runs ${row.level}; set transaction_isolation = READ-COMMITTED ` +
+        '(see README, Scaling) or concurrent writes may deadlock',
     );
 }
 

@@ -20,11 +20,13 @@ export async function connectWithRetry(
       const reason = (err as { code?: string; message?: string }).code ?? (err as Error).message;
       if (attempt >= attempts) {
         throw new Error(
-          `Cannot reach MariaDB at ${host}:${port}/${database} after ${attempts} attempts (${reason}). Is it running? Start it with: npm run db:start`,
+          `Cannot reach MariaDB at ${host}:${port}/${database} after ${attempts} ` +
+            `attempts (${reason}). Is it running? Start it with: npm run db:start`,
         );
       }
       logger.warn(
-        `MariaDB at ${host}:${port}/${database} is not reachable (${reason}); retry ${attempt}/${attempts - 1} in ${delay} ms`,
+        `MariaDB at ${host}:${port}/${database} is not reachable (${reason}); ` +
+          `retry ${attempt}/${attempts - 1} in ${delay} ms`,
       );
       await new Promise((r) => setTimeout(r, delay));
       delay = Math.min(maxDelayMs, delay * 2);

@@ -1,3 +1,4 @@
+import type { MigrationInterface } from 'typeorm';
 import { Foundation1796163915429 } from './migrations/1796163915429-foundation';
 import { Budgets1796170000000 } from './migrations/1796170000000-budgets';
 import { Ingest1796180000000 } from './migrations/1796180000000-ingest';
@@ -10,7 +11,7 @@ import { Reports1796220000000 } from './migrations/1796220000000-reports';
 import { MonthlyUse1796240000000 } from './migrations/1796240000000-monthly-use';
 
 /** Every migration, in order (explicit imports, so bundled builds need no file globbing). Add new ones at the end. */
-export const MIGRATIONS: Function[] = [
+export const MIGRATIONS: (new () => MigrationInterface)[] = [
   Foundation1796163915429,
   Budgets1796170000000,
   Ingest1796180000000,

@@ -89,7 +89,8 @@ export class Watch1796215000000 implements MigrationInterface {
 
     const fk = (table: string, name: string, column: string, ref: string) =>
       q.query(
-        `ALTER TABLE \`${table}\` ADD CONSTRAINT \`${name}\` FOREIGN KEY (\`${column}\`) REFERENCES \`${ref}\`(\`id\`) ON DELETE CASCADE ON UPDATE NO ACTION`,
+        `ALTER TABLE \`${table}\` ADD CONSTRAINT \`${name}\` FOREIGN KEY (\`${column}\`) REFERENCES
+          \`${ref}\`(\`id\`) ON DELETE CASCADE ON UPDATE NO ACTION`,
       );
     await fk('alert', 'fk_alert_site', 'site_id', 'site');
     await fk('alert_event', 'fk_alert_event_alert', 'alert_id', 'alert');

@@ -33,7 +33,8 @@ export class MariaDbRateLimitStore implements Store {
     // MariaDB evaluates the assignments left to right; both IF()s read the old reset_at.
     await this.pool.query(
       `INSERT INTO rate_limit_hit (bucket, hits, reset_at) VALUES (?, 1, ?)
-       ON DUPLICATE KEY UPDATE hits = IF(reset_at <= ?, 1, hits + 1), reset_at = IF(reset_at <= ?, VALUES(reset_at), reset_at)`,
+       ON DUPLICATE KEY UPDATE hits = IF(reset_at <= ?, 1, hits + 1), reset_at = IF(reset_at <= ?,
+        VALUES(reset_at), reset_at)`,
       [bucket, reset, now, now],
     );
     const [rows] = await this.pool.query<RowDataPacket[]>(

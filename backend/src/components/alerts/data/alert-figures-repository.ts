@@ -6,7 +6,10 @@ export class AlertFiguresRepository {
 
   constructor(private readonly db: DataSource) {}
 
-  /** Open alerts per site, over every site the organisation may see (owned or shared); the caller keeps the ones in scope. */
+  /**
+   * Open alerts per site, over every site the organisation may see (owned or shared); the caller keeps the ones in
+   * scope.
+   */
   async openAlerts(viewerOrgId: number): Promise<Map<number, number>> {
     const map = new Map<number, number>();
     const table = await this.alerts();
@@ -30,8 +33,15 @@ export class AlertFiguresRepository {
   ): Promise<{ id: number; date: string; title: string; status: string }[]> {
     const table = await this.alerts();
     if (!table) return [];
+    const statusColumn = table.status
+      ? "IF(status = 'resolved', 'resolved', 'open')"
+      : table.resolvedAt
+        ? "IF(resolved_at IS NULL, 'open', 'resolved')"
+        : "'open'";
     const rows: Record<string, unknown>[] = await this.db.query(
-      `SELECT id, DATE_FORMAT(CONVERT_TZ(${table.dateColumn}, '+00:00', ?), '%Y-%m-%d') AS date, ${table.title ?? "'Alert'"} AS title, ${table.status ? "IF(status = 'resolved', 'resolved', 'open')" : table.resolvedAt ? "IF(resolved_at IS NULL, 'open', 'resolved')" : "'open'"} AS status
+      `SELECT id, DATE_FORMAT(CONVERT_TZ(${table.dateColumn}, '+00:00', ?), '%Y-%m-%d') AS date,
+        ${table.title ?? "'Alert'"} AS title,
+        ${statusColumn} AS status
        FROM alert WHERE site_id = ? HAVING date BETWEEN ? AND ? ORDER BY date LIMIT 500`,
       [timeZone, siteId, from, to],
     );
@@ -47,11 +57,14 @@ export class AlertFiguresRepository {
     return (await this.alerts()) !== null;
   }
 
-  /** Looks the alert table up once it exists (it arrives with the nightly-watch work); the shape is probed, not assumed. */
+  /**
+   * Looks the alert table up once it exists (it arrives with the nightly-watch work); the shape is probed, not assumed.
+   */
   private async alerts() {
     if (this.alertTable) return this.alertTable;
     const cols: { name: string }[] = await this.db.query(
-      "SELECT COLUMN_NAME AS name FROM information_schema.COLUMNS WHERE TABLE_SCHEMA = DATABASE() AND TABLE_NAME = 'alert'",
+      `SELECT COLUMN_NAME AS name FROM information_schema.COLUMNS WHERE TABLE_SCHEMA = DATABASE()
+        AND TABLE_NAME = 'alert'`,
     );
     if (!cols.length) return null;
     const names = new Set(cols.map((c) => c.name));

@@ -22,7 +22,8 @@ const SORT_COLUMNS: Record<AlertListFilter['sort'], string> = {
   period: 'a.period_start_utc',
 };
 
-const SUMMARY_COLUMNS = `a.id, a.site_id, s.name AS site_name, s.time_zone, a.kind, a.sub_kind, a.zone_id, z.name AS zone_name,
+const SUMMARY_COLUMNS = `a.id, a.site_id, s.name AS site_name, s.time_zone, a.kind, a.sub_kind, a.zone_id,
+  z.name AS zone_name,
   a.period_start_utc, a.period_end_utc, a.severity, a.status, a.ongoing, a.water_lost_gal, a.money_lost, a.currency,
   a.first_detected_at, a.last_seen_at, a.reopen_count`;
 
@@ -48,7 +49,8 @@ interface AlertRow {
   reopen_count: number;
 }
 
-const visibleJoin = `JOIN site s ON s.id = a.site_id LEFT JOIN site_share sh ON sh.site_id = s.id AND sh.organisation_id = ?
+const visibleJoin = `JOIN site s ON s.id = a.site_id LEFT JOIN site_share sh ON sh.site_id = s.id
+  AND sh.organisation_id = ?
   LEFT JOIN zone z ON z.id = a.zone_id`;
 const visibleWhere = '(s.organisation_id = ? OR sh.organisation_id IS NOT NULL)';
 
@@ -75,13 +77,15 @@ export class AlertsRepository {
       byKey ??
       (
         (await em.query(
-          'SELECT id, status, resolved_at, period_end_utc FROM alert WHERE site_id = ? AND condition_key = ? ORDER BY period_start_utc DESC, id DESC LIMIT 1 FOR UPDATE',
+          `SELECT id, status, resolved_at, period_end_utc FROM alert WHERE site_id = ? AND
+            condition_key = ? ORDER BY period_start_utc DESC, id DESC LIMIT 1 FOR UPDATE`,
           [siteId, f.conditionKey],
         )) as ExistingRow[]
       )[0];
     if (existing) {
       if (existing.status === 'resolved') {
-        // Data time, not wall time: the person resolved it having seen data up to the period's end; waste after that is the condition returning.
+        // Data time, not wall time: the person resolved it having seen data up to the period's end; waste after that is
+        // the condition returning.
         if (f.periodEndUtc > existing.period_end_utc.getTime()) {
           await this.update(em, existing.id, f, now, 'open');
           await em.query('UPDATE alert SET reopen_count = reopen_count + 1, resolved_at = NULL WHERE id = ?', [
@@ -100,7 +104,8 @@ export class AlertsRepository {
       }
     }
     const result: { insertId: number } = await em.query(
-      `INSERT INTO alert (site_id, kind, sub_kind, zone_id, finding_key, condition_key, period_start_utc, period_end_utc, severity, status, ongoing,
+      `INSERT INTO alert (site_id, kind, sub_kind, zone_id, finding_key, condition_key,
+        period_start_utc, period_end_utc, severity, status, ongoing,
         evidence, water_lost_gal, money_lost, currency, explanation, first_detected_at, last_seen_at)
        VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, 'open', ?, ?, ?, ?, ?, ?, ?, ?)`,
       [
@@ -130,7 +135,8 @@ export class AlertsRepository {
   /** Refreshes period end, loss and evidence; true when anything a person would notice changed. */
   private async update(em: EntityManager, id: number, f: Finding, now: Date, status: 'open' | null): Promise<boolean> {
     const result: { changedRows: number } = await em.query(
-      `UPDATE alert SET period_end_utc = GREATEST(period_end_utc, ?), severity = ?, ongoing = ?, evidence = ?, water_lost_gal = ?, money_lost = ?,
+      `UPDATE alert SET period_end_utc = GREATEST(period_end_utc, ?), severity = ?, ongoing = ?,
+        evidence = ?, water_lost_gal = ?, money_lost = ?,
         currency = ?, explanation = ?${status ? ', status = ?' : ''} WHERE id = ?`,
       [
         new Date(f.periodEndUtc),
@@ -168,13 +174,18 @@ export class AlertsRepository {
   async list(viewerOrgId: number, filter: AlertListFilter): Promise<{ items: AlertSummaryDto[]; total: number }> {
     const where = [visibleWhere];
     const params: unknown[] = [viewerOrgId, viewerOrgId];
-    if (filter.status) (where.push('a.status = ?'), params.push(filter.status));
-    if (filter.kind) (where.push('a.kind = ?'), params.push(filter.kind));
-    if (filter.siteId) (where.push('a.site_id = ?'), params.push(filter.siteId));
+    const narrow = (condition: string, value: unknown) => {
+      where.push(condition);
+      params.push(value);
+    };
+    if (filter.status) narrow('a.status = ?', filter.status);
+    if (filter.kind) narrow('a.kind = ?', filter.kind);
+    if (filter.siteId) narrow('a.site_id = ?', filter.siteId);
     const base = `FROM alert a ${visibleJoin} WHERE ${where.join(' AND ')}`;
     const [{ n }] = (await this.db.query(`SELECT COUNT(*) AS n ${base}`, params)) as [{ n: number | string }];
     const rows: AlertRow[] = await this.db.query(
-      `SELECT ${SUMMARY_COLUMNS} ${base} ORDER BY ${SORT_COLUMNS[filter.sort]} ${filter.dir === 'asc' ? 'ASC' : 'DESC'}, a.id DESC LIMIT ? OFFSET ?`,
+      `SELECT ${SUMMARY_COLUMNS} ${base} ORDER BY ${SORT_COLUMNS[filter.sort]}
+        ${filter.dir === 'asc' ? 'ASC' : 'DESC'}, a.id DESC LIMIT ? OFFSET ?`,
       [...params, filter.pageSize, filter.page * filter.pageSize],
     );
     return { items: rows.map(toSummary), total: Number(n) };
@@ -185,7 +196,8 @@ export class AlertsRepository {
     id: number,
   ): Promise<(AlertSummaryDto & Pick<AlertDetailDto, 'evidence' | 'explanation'>) | null> {
     const [row] = (await this.db.query(
-      `SELECT ${SUMMARY_COLUMNS}, a.evidence, a.explanation FROM alert a ${visibleJoin} WHERE a.id = ? AND ${visibleWhere}`,
+      `SELECT ${SUMMARY_COLUMNS}, a.evidence, a.explanation FROM alert a ${visibleJoin} WHERE a.id
+        = ? AND ${visibleWhere}`,
       [viewerOrgId, id, viewerOrgId],
     )) as (AlertRow & { evidence: string; explanation: string })[];
     return row
@@ -206,7 +218,8 @@ export class AlertsRepository {
       user_id: number | null;
       display_name: string | null;
     }[] = await this.db.query(
-      'SELECT e.id, e.action, e.note, e.at, e.user_id, u.display_name FROM alert_event e LEFT JOIN `user` u ON u.id = e.user_id WHERE e.alert_id = ? ORDER BY e.at, e.id',
+      `SELECT e.id, e.action, e.note, e.at, e.user_id, u.display_name FROM alert_event e LEFT JOIN
+        \`user\` u ON u.id = e.user_id WHERE e.alert_id = ? ORDER BY e.at, e.id`,
       [alertId],
     );
     return rows.map((r) => ({

@@ -37,7 +37,10 @@ function lossText(a: MailAlert): string {
 }
 
 function headline(a: MailAlert): string {
-  return `${a.reopened ? 'Back again: ' : ''}${KIND_LABELS[a.kind]} — ${SUB_KIND_LABELS[a.subKind] ?? a.subKind} at ${a.siteName}`;
+  return (
+    `${a.reopened ? 'Back again: ' : ''}${KIND_LABELS[a.kind]} — ` +
+    `${SUB_KIND_LABELS[a.subKind] ?? a.subKind} at ${a.siteName}`
+  );
 }
 
 const CAUTION =
@@ -52,13 +55,17 @@ export function digestMail(
   const subject = `Rillmark nightly watch: ${alerts.length} new alert${alerts.length === 1 ? '' : 's'}`;
   const lines = alerts.map(
     (a) =>
-      `- ${headline(a)} [${SEVERITY_LABELS[a.severity]}]\n  since ${localDate(a.periodStartUtc, a.timeZone)}; ${lossText(a)}\n  ${a.explanation}\n  ${baseUrl}/alerts/${a.id}`,
+      `- ${headline(a)} [${SEVERITY_LABELS[a.severity]}]\n  since ${localDate(a.periodStartUtc, a.timeZone)}; ` +
+      `${lossText(a)}\n  ${a.explanation}\n  ${baseUrl}/alerts/${a.id}`,
   );
-  const text = `Hello ${name},\n\nLast night's watch found:\n\n${lines.join('\n\n')}\n\n${CAUTION}\n\nChange what you receive: ${baseUrl}/alerts/notifications\n`;
+  const text =
+    `Hello ${name},\n\nLast night's watch found:\n\n${lines.join('\n\n')}\n\n${CAUTION}\n\nChange ` +
+    `what you receive: ${baseUrl}/alerts/notifications\n`;
   const items = alerts
     .map(
       (a) =>
-        `<li><p><strong>${esc(headline(a))}</strong> — ${esc(SEVERITY_LABELS[a.severity])}<br>since ${esc(localDate(a.periodStartUtc, a.timeZone))}; ${esc(lossText(a))}</p>` +
+        `<li><p><strong>${esc(headline(a))}</strong> — ${esc(SEVERITY_LABELS[a.severity])}<br>since ` +
+        `${esc(localDate(a.periodStartUtc, a.timeZone))}; ${esc(lossText(a))}</p>` +
         `<p>${esc(a.explanation)}</p><p><a href="${esc(`${baseUrl}/alerts/${a.id}`)}">Open the alert</a></p></li>`,
     )
     .join('');
@@ -75,9 +82,15 @@ export function singleAlertMail(
   baseUrl: string,
 ): { to: string; subject: string; text: string; html: string } {
   const subject = `Rillmark alert: ${headline(a)}`;
-  const text = `Hello ${name},\n\n${headline(a)} [${SEVERITY_LABELS[a.severity]}]\nsince ${localDate(a.periodStartUtc, a.timeZone)}; ${lossText(a)}\n\n${a.explanation}\n\n${baseUrl}/alerts/${a.id}\n\n${CAUTION}\n`;
+  const text =
+    `Hello ${name},\n\n${headline(a)} [${SEVERITY_LABELS[a.severity]}]\nsince ` +
+    `${localDate(a.periodStartUtc, a.timeZone)}; ${lossText(a)}\n\n${a.explanation}\n\n` +
+    `${baseUrl}/alerts/${a.id}\n\n${CAUTION}\n`;
   const html =
-    `<p>Hello ${esc(name)},</p><p><strong>${esc(headline(a))}</strong> — ${esc(SEVERITY_LABELS[a.severity])}<br>since ${esc(localDate(a.periodStartUtc, a.timeZone))}; ${esc(lossText(a))}</p>` +
-    `<p>${esc(a.explanation)}</p><p><a href="${esc(`${baseUrl}/alerts/${a.id}`)}">Open the alert</a></p><p><em>${esc(CAUTION)}</em></p>`;
+    `<p>Hello ${esc(name)},</p><p><strong>${esc(headline(a))}</strong> ` +
+    `— ${esc(SEVERITY_LABELS[a.severity])}<br>since ${esc(localDate(a.periodStartUtc, a.timeZone))}; ` +
+    `${esc(lossText(a))}</p>` +
+    `<p>${esc(a.explanation)}</p><p><a href="${esc(`${baseUrl}/alerts/${a.id}`)}">Open ` +
+    `the alert</a></p><p><em>${esc(CAUTION)}</em></p>`;
   return { to, subject, text, html };
 }

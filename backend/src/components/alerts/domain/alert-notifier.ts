@@ -28,9 +28,11 @@ export class AlertNotifier {
     if (alerts.length === 0) return 0;
     const reopened = new Map(alerts.map((a) => [a.alertId, a.reopened]));
     const rows: (Omit<MailAlert, 'reopened'> & { site_id: number })[] = (await this.db.query(
-      `SELECT a.id, a.site_id, s.name AS siteName, s.time_zone AS timeZone, a.kind, a.sub_kind AS subKind, a.severity, a.period_start_utc AS periodStartUtc,
+      `SELECT a.id, a.site_id, s.name AS siteName, s.time_zone AS timeZone, a.kind, a.sub_kind AS
+        subKind, a.severity, a.period_start_utc AS periodStartUtc,
         a.water_lost_gal AS waterLostGal, a.money_lost AS moneyLost, a.currency, a.explanation
-       FROM alert a JOIN site s ON s.id = a.site_id WHERE a.id IN (?) ORDER BY FIELD(a.severity, 'act-now', 'act-soon', 'watch'), a.id`,
+       FROM alert a JOIN site s ON s.id = a.site_id WHERE a.id IN (?) ORDER BY FIELD(a.severity,
+        'act-now', 'act-soon', 'watch'), a.id`,
       [[...reopened.keys()]],
     )) as never;
     const mailAlerts = rows.map((r) => ({
@@ -42,9 +44,12 @@ export class AlertNotifier {
     const siteIds = [...new Set(rows.map((r) => r.site_id))];
     // Everyone active in the owning organisation or an organisation the site is shared with.
     const recipients: RecipientRow[] = await this.db.query(
-      `SELECT DISTINCT u.id AS user_id, u.email, u.display_name, x.site_id, COALESCE(n.frequency, 'daily') AS frequency, n.site_ids
-       FROM (SELECT id AS site_id, organisation_id FROM site WHERE id IN (?) UNION SELECT site_id, organisation_id FROM site_share WHERE site_id IN (?)) x
-       JOIN membership m ON m.organisation_id = x.organisation_id JOIN \`user\` u ON u.id = m.user_id AND u.status = 'active'
+      `SELECT DISTINCT u.id AS user_id, u.email, u.display_name, x.site_id, COALESCE(n.frequency,
+        'daily') AS frequency, n.site_ids
+       FROM (SELECT id AS site_id, organisation_id FROM site WHERE id IN (?) UNION SELECT site_id,
+        organisation_id FROM site_share WHERE site_id IN (?)) x
+       JOIN membership m ON m.organisation_id = x.organisation_id JOIN \`user\` u ON u.id =
+        m.user_id AND u.status = 'active'
        LEFT JOIN user_notification n ON n.user_id = u.id ORDER BY u.id`,
       [siteIds, siteIds],
     );

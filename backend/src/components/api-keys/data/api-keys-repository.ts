@@ -84,7 +84,8 @@ export class ApiKeysRepository {
 
   async revoke(em: EntityManager, organisationId: number, id: number): Promise<boolean> {
     const result = await em.query(
-      'UPDATE api_key SET revoked_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND organisation_id = ? AND revoked_at IS NULL',
+      `UPDATE api_key SET revoked_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND organisation_id = ?
+        AND revoked_at IS NULL`,
       [id, organisationId],
     );
     return Number((result as { affectedRows?: number }).affectedRows ?? 0) > 0;

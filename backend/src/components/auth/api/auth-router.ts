@@ -49,7 +49,8 @@ export function authRouter({ auth, passport, csrf, rateLimitStore, config }: Dep
       next(
         new AppError(
           'rate_limited',
-          `Too many sign-in attempts. Wait ${minutes} minutes and try again, or ask your administrator to reset your password.`,
+          `Too many sign-in attempts. Wait ${minutes} minutes and try again, ` +
+            'or ask your administrator to reset your password.',
         ),
       );
     },

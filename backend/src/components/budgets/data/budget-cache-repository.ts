@@ -29,11 +29,14 @@ export class BudgetCacheRepository {
                   JOIN site bs ON bs.id = b.site_id
                   LEFT JOIN weather_station ws ON ws.id = bs.weather_station_id
                   WHERE b.site_id IN (?) AND b.month IN (?)
-                    AND b.computed_at > IF(b.month >= ?, NOW(3) - INTERVAL 1 HOUR, NOW(3) - INTERVAL 1 DAY)
+                    AND b.computed_at > IF(b.month >= ?, NOW(3) - INTERVAL 1 HOUR, NOW(3) -
+        INTERVAL 1 DAY)
                     -- TypeORM stamps updated_at to the whole second, so a change counts for its whole second.
                     AND b.computed_at >= GREATEST(bs.updated_at, COALESCE(ws.updated_at, bs.updated_at),
-                      COALESCE((SELECT MAX(h.updated_at) FROM hydrozone h WHERE h.site_id = b.site_id), bs.updated_at),
-                      COALESCE((SELECT MAX(r.updated_at) FROM rate_schedule r WHERE r.site_id = b.site_id), bs.updated_at)) + INTERVAL 1 SECOND
+                      COALESCE((SELECT MAX(h.updated_at) FROM hydrozone h WHERE h.site_id =
+        b.site_id), bs.updated_at),
+                      COALESCE((SELECT MAX(r.updated_at) FROM rate_schedule r WHERE r.site_id =
+        b.site_id), bs.updated_at)) + INTERVAL 1 SECOND
                   GROUP BY b.site_id) c ON c.site_id = s.id
        WHERE s.id IN (?) AND COALESCE(c.n, 0) < ?`,
       [siteIds, months, currentMonth, siteIds, months.length],
@@ -44,9 +47,12 @@ export class BudgetCacheRepository {
   async saveBudgetMonths(rows: BudgetMonthRow[]): Promise<void> {
     if (!rows.length) return;
     await this.db.query(
-      `INSERT INTO site_monthly_budget (site_id, month, gallons, cost, currency, eto_mm, rain_mm, filled_days, problem, computed_at) VALUES ?
-       ON DUPLICATE KEY UPDATE gallons = VALUES(gallons), cost = VALUES(cost), currency = VALUES(currency), eto_mm = VALUES(eto_mm),
-         rain_mm = VALUES(rain_mm), filled_days = VALUES(filled_days), problem = VALUES(problem), computed_at = VALUES(computed_at)`,
+      `INSERT INTO site_monthly_budget (site_id, month, gallons, cost, currency, eto_mm, rain_mm,
+        filled_days, problem, computed_at) VALUES ?
+       ON DUPLICATE KEY UPDATE gallons = VALUES(gallons), cost = VALUES(cost), currency =
+        VALUES(currency), eto_mm = VALUES(eto_mm),
+         rain_mm = VALUES(rain_mm), filled_days = VALUES(filled_days), problem = VALUES(problem),
+        computed_at = VALUES(computed_at)`,
       [
         rows.map((r) => [
           r.siteId,
@@ -67,7 +73,8 @@ export class BudgetCacheRepository {
   async budgetMonths(siteIds: number[], fromMonth: string, toMonth: string): Promise<BudgetMonthRow[]> {
     if (!siteIds.length) return [];
     const rows: Record<string, unknown>[] = await this.db.query(
-      `SELECT site_id AS siteId, month, gallons, cost, currency, eto_mm AS etoMm, rain_mm AS rainMm, filled_days AS filledDays, problem
+      `SELECT site_id AS siteId, month, gallons, cost, currency, eto_mm AS etoMm, rain_mm AS
+        rainMm, filled_days AS filledDays, problem
        FROM site_monthly_budget WHERE site_id IN (?) AND month BETWEEN ? AND ? ORDER BY site_id, month`,
       [siteIds, fromMonth, toMonth],
     );

@@ -107,7 +107,9 @@ function monthSteps(
   return [
     {
       label: 'Reference ET for the month',
-      formula: `Σ of ${dayCount} daily values = ${fmt(z.etoMm, 1)} mm ÷ 25.4${z.filledDays ? ` (${z.filledDays} day(s) from monthly normals)` : ''}`,
+      formula:
+        `Σ of ${dayCount} daily values = ${fmt(z.etoMm, 1)} mm ÷ 25.4` +
+        (z.filledDays ? ` (${z.filledDays} day(s) from monthly normals)` : ''),
       value: etoIn,
       unit: 'in',
     },
@@ -124,7 +126,9 @@ function monthSteps(
     { label: 'Area', formula: 'entered for this hydrozone', value: zone.areaFt2, unit: 'ft²' },
     {
       label: 'Gross irrigation',
-      formula: `${fmt(etoIn, 3)} in × ${fmt(pf, 2)} × ${fmt(zone.areaFt2, 0)} ft² × 0.623377 gal/(in·ft²) ÷ ${fmt(ie.efficiency, 2)}`,
+      formula:
+        `${fmt(etoIn, 3)} in × ${fmt(pf, 2)} × ${fmt(zone.areaFt2, 0)} ` +
+        `ft² × 0.623377 gal/(in·ft²) ÷ ${fmt(ie.efficiency, 2)}`,
       value: z.grossGallons,
       unit: 'gal',
     },
@@ -138,7 +142,9 @@ function monthSteps(
     {
       label: 'Budget',
       formula: floored
-        ? 'gross irrigation − rain credit, worked day by day; days when rain covered the whole need count as 0, so the total is a little above the difference of the monthly sums'
+        ? 'gross irrigation − rain credit, worked day by day; days when ' +
+          'rain covered the whole need count as 0, so the total is a little ' +
+          'above the difference of the monthly sums'
         : `${fmt(z.grossGallons, 0)} gal − ${fmt(z.rainCreditGallons, 0)} gal`,
       value: z.gallons,
       unit: 'gal',

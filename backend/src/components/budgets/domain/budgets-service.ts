@@ -116,11 +116,16 @@ export class BudgetsService {
       },
       indoor: indoor ?? null,
       formula:
-        'Per hydrozone and day: max(0, ETo (in) × PF × area (ft²) × 0.623377 ÷ IE − effective rain (in) × area (ft²) × 0.623377 ÷ IE), summed by month',
+        'Per hydrozone and day: max(0, ETo (in) × PF × area (ft²) × 0.623377 ' +
+        '÷ IE − effective rain (in) × area (ft²) × 0.623377 ÷ IE), summed by month',
       sources: [
-        'Budget formula: California MWELO (2015) Appendix B form ETo × PF × area × conversion ÷ IE, with 0.623377 = 144/231 gal per inch per ft² (exact; the ordinance prints 0.62).',
-        'Default irrigation efficiencies: MWELO App. B note c (0.81 drip, 0.75 overhead spray); others as noted on each hydrozone.',
-        "Missing days are filled from the station's monthly normals (total ÷ days in the month) and counted as filled days.",
+        'Budget formula: California MWELO (2015) Appendix B form ETo ' +
+          '× PF × area × conversion ÷ IE, with 0.623377 = 144/231 gal per ' +
+          'inch per ft² (exact; the ordinance prints 0.62).',
+        'Default irrigation efficiencies: MWELO App. B note c (0.81 drip, ' +
+          '0.75 overhead spray); others as noted on each hydrozone.',
+        "Missing days are filled from the station's monthly normals (total " +
+          '÷ days in the month) and counted as filled days.',
       ],
     };
   }
@@ -164,7 +169,9 @@ export class BudgetsService {
       projectType: type,
       projectTypeSource: projectType
         ? 'chosen in the request'
-        : `from the site's kind (${site.kind === 'hoa-common-area' ? 'HOA common areas count as residential' : 'non-HOA sites count as non-residential'})`,
+        : site.kind === 'hoa-common-area'
+          ? "from the site's kind (HOA common areas count as residential)"
+          : "from the site's kind (non-HOA sites count as non-residential)",
       etoIn,
       rainIn,
       effectivePrecipitationIn: eppt,
@@ -204,7 +211,9 @@ export class BudgetsService {
         },
         {
           label: 'MAWA',
-          formula: `(${etoIn.toFixed(2)} − ${eppt.toFixed(2)}) × 0.62 × [${maxEtaf} × ${Math.round(la)} + (1 − ${maxEtaf}) × ${Math.round(sla)}] (MWELO App. B)`,
+          formula:
+            `(${etoIn.toFixed(2)} − ${eppt.toFixed(2)}) × 0.62 × [${maxEtaf} ` +
+            `× ${Math.round(la)} + (1 − ${maxEtaf}) × ${Math.round(sla)}] (MWELO App. B)`,
           value: mawa.gallons,
           unit: 'gal/yr',
         },

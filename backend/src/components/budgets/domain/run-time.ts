@@ -30,7 +30,8 @@ export function runTimeAdvice(
   } else {
     throw new AppError(
       'validation_failed',
-      `Hydrozone "${zone.name}" has no flow: enter its design flow (gpm), or its emitter count and flow per emitter (gph).`,
+      `Hydrozone "${zone.name}" has no flow: enter its design flow ` +
+        '(gpm), or its emitter count and flow per emitter (gph).',
       [{ field: 'designFlowGpm', message: 'enter the design flow, or the emitter count and gph' }],
     );
   }

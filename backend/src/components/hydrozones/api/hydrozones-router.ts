@@ -13,7 +13,8 @@ import type { HydrozonesService } from '../domain/hydrozones-service';
 
 const L = HYDROZONE_LIMITS;
 const optionalNumber = (schema: z.ZodNumber) => schema.nullable().optional();
-// Ranges the engine checks with fuller messages (plant factor within its category, efficiency in (0, 1]) are left to it.
+// Ranges the engine checks with fuller messages (plant factor within its category, efficiency in (0, 1]) are left to
+// it.
 const fields = {
   name: z.string().trim().min(1, 'is required').max(L.nameMax, `must be at most ${L.nameMax} characters`),
   area: z

@@ -46,7 +46,10 @@ export class MeterEntity {
   @Column({ type: 'enum', enum: [...WATER_SOURCES], name: 'water_source' })
   waterSource!: WaterSource;
 
-  /** When the current register was installed (after a swap, the swap time); readings before the meter's first install are refused. */
+  /**
+   * When the current register was installed (after a swap, the swap time); readings before the meter's first install
+   * are refused.
+   */
   @Column({ type: 'datetime', name: 'installed_at', nullable: true })
   installedAt!: Date | null;
 

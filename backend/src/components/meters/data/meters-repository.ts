@@ -77,7 +77,8 @@ export class MetersRepository {
 
   async meterHasReadings(meterId: number): Promise<boolean> {
     const [row] = await this.db.query(
-      'SELECT EXISTS(SELECT 1 FROM meter_reading WHERE meter_id = ?) AS r1, EXISTS(SELECT 1 FROM meter_register_read WHERE meter_id = ?) AS r2',
+      `SELECT EXISTS(SELECT 1 FROM meter_reading WHERE meter_id = ?) AS r1, EXISTS(SELECT 1 FROM
+        meter_register_read WHERE meter_id = ?) AS r2`,
       [meterId, meterId],
     );
     return Number(row.r1) === 1 || Number(row.r2) === 1;

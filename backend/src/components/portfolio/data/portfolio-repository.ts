@@ -29,9 +29,11 @@ export interface AggregateFilter {
 const budgetOver = (alias: string) => `
   LEFT JOIN (SELECT b.site_id,
       IF(SUM(b.gallons IS NULL) > 0 OR COUNT(*) < ?, NULL,
-         SUM(b.gallons * (DATEDIFF(LEAST(LAST_DAY(CONCAT(b.month, '-01')), ?), GREATEST(CONCAT(b.month, '-01'), ?)) + 1) / DAY(LAST_DAY(CONCAT(b.month, '-01'))))) AS gal,
+         SUM(b.gallons * (DATEDIFF(LEAST(LAST_DAY(CONCAT(b.month, '-01')), ?),
+  GREATEST(CONCAT(b.month, '-01'), ?)) + 1) / DAY(LAST_DAY(CONCAT(b.month, '-01'))))) AS gal,
       MAX(b.problem) AS problem
-    FROM site_monthly_budget b WHERE b.month BETWEEN ? AND ? GROUP BY b.site_id) ${alias} ON ${alias}.site_id = s.id`;
+    FROM site_monthly_budget b WHERE b.month BETWEEN ? AND ? GROUP BY b.site_id) ${alias} ON
+  ${alias}.site_id = s.id`;
 
 /** Use per site over a date range: whole months from the monthly rollup, anything else from the daily one. */
 function useOver(range: { from: string; to: string }): { sql: string; params: string[] } {
@@ -42,7 +44,8 @@ function useOver(range: { from: string; to: string }): { sql: string; params: st
         params: [range.from.slice(0, 7), range.to.slice(0, 7)],
       }
     : {
-        sql: 'SELECT site_id, SUM(gallons) AS gal FROM site_daily_use WHERE local_date BETWEEN ? AND ? GROUP BY site_id',
+        sql: `SELECT site_id, SUM(gallons) AS gal FROM site_daily_use WHERE local_date BETWEEN ?
+          AND ? GROUP BY site_id`,
         params: [range.from, range.to],
       };
 }
@@ -51,7 +54,10 @@ function useOver(range: { from: string; to: string }): { sql: string; params: st
 export class PortfolioRepository {
   constructor(private readonly db: DataSource) {}
 
-  /** Every site the organisation may see (owned or shared), narrowed by the filter, with its sums; the latest reading per meter comes off the primary key. */
+  /**
+   * Every site the organisation may see (owned or shared), narrowed by the filter, with its sums; the latest reading
+   * per meter comes off the primary key.
+   */
   async aggregates(
     viewerOrgId: number,
     f: AggregateFilter,
@@ -75,10 +81,13 @@ export class PortfolioRepository {
     const periodUse = useOver(period);
     const ytdUse = useOver(ytd);
     const rows: Record<string, unknown>[] = await this.db.query(
-      `SELECT s.id AS siteId, s.name AS siteName, s.organisation_id AS organisationId, o.name AS organisationName, s.time_zone AS timeZone,
-              COALESCE(u.gal, 0) AS useGal, b.gal AS budgetGal, COALESCE(yu.gal, 0) AS ytdUseGal, yb.gal AS ytdBudgetGal,
+      `SELECT s.id AS siteId, s.name AS siteName, s.organisation_id AS organisationId, o.name AS
+        organisationName, s.time_zone AS timeZone,
+              COALESCE(u.gal, 0) AS useGal, b.gal AS budgetGal, COALESCE(yu.gal, 0) AS ytdUseGal,
+        yb.gal AS ytdBudgetGal,
               ld.last AS lastDataAt, b.problem AS problem,
-              (SELECT JSON_ARRAYAGG(t.tag ORDER BY t.tag) FROM site_tag t WHERE t.site_id = s.id) AS tagsJson
+              (SELECT JSON_ARRAYAGG(t.tag ORDER BY t.tag) FROM site_tag t WHERE t.site_id = s.id)
+        AS tagsJson
        FROM site s
        JOIN organisation o ON o.id = s.organisation_id
        LEFT JOIN site_share sh ON sh.site_id = s.id AND sh.organisation_id = ?
@@ -86,7 +95,8 @@ export class PortfolioRepository {
        LEFT JOIN (${ytdUse.sql}) yu ON yu.site_id = s.id
        ${budgetOver('b')}
        ${budgetOver('yb')}
-       LEFT JOIN (SELECT m.site_id, MAX((SELECT r.start_utc + INTERVAL r.minutes MINUTE FROM meter_reading r WHERE r.meter_id = m.id ORDER BY r.start_utc DESC LIMIT 1)) AS last
+       LEFT JOIN (SELECT m.site_id, MAX((SELECT r.start_utc + INTERVAL r.minutes MINUTE FROM
+        meter_reading r WHERE r.meter_id = m.id ORDER BY r.start_utc DESC LIMIT 1)) AS last
                   FROM meter m GROUP BY m.site_id) ld ON ld.site_id = s.id
        WHERE ${where.join(' AND ')}`,
       [

@@ -26,7 +26,9 @@ import type { AlertsService } from '../../alerts/domain/alerts-service';
 import type { BudgetCache } from '../../budgets/domain/budget-cache';
 import { ShortMemo } from './short-memo';
 
-/** What one scope's memo holds: the sums per site, and the money over budget (both independent of paging and sorting). */
+/**
+ * What one scope's memo holds: the sums per site, and the money over budget (both independent of paging and sorting).
+ */
 interface ScopeSums {
   sites: SiteAggregate[];
   money: { cost: number | null; currency: string | null };

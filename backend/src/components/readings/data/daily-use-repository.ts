@@ -75,7 +75,8 @@ export class DailyUseRepository {
   /** Rebuilds a whole site's rollup (seeding, repairs). */
   async rebuildSite(em: EntityManager, siteId: number): Promise<void> {
     const [range]: { first: Date | null; last: Date | null }[] = await em.query(
-      'SELECT MIN(r.start_utc) AS first, MAX(r.start_utc) AS last FROM meter_reading r JOIN meter m ON m.id = r.meter_id WHERE m.site_id = ?',
+      `SELECT MIN(r.start_utc) AS first, MAX(r.start_utc) AS last FROM meter_reading r JOIN meter m
+        ON m.id = r.meter_id WHERE m.site_id = ?`,
       [siteId],
     );
     await em.query('DELETE FROM site_daily_use WHERE site_id = ?', [siteId]);
@@ -110,7 +111,8 @@ export class DailyUseRepository {
     const params: unknown[] = [];
     if (firstWhole <= lastWhole) {
       parts.push(
-        `SELECT site_id, month, gallons, covered_minutes, days FROM site_monthly_use WHERE site_id IN (?) AND month BETWEEN ? AND ?`,
+        `SELECT site_id, month, gallons, covered_minutes, days FROM site_monthly_use WHERE site_id
+          IN (?) AND month BETWEEN ? AND ?`,
       );
       params.push(siteIds, firstWhole, lastWhole);
     }
@@ -124,12 +126,15 @@ export class DailyUseRepository {
         : [[fromDate, toDate]];
     for (const [from, to] of dayRanges) {
       if (!from || !to || to < from) continue;
-      parts.push(`SELECT site_id, DATE_FORMAT(local_date, '%Y-%m') AS month, SUM(gallons) AS gallons, SUM(covered_minutes) AS covered_minutes, COUNT(*) AS days
-                  FROM site_daily_use WHERE site_id IN (?) AND local_date BETWEEN ? AND ? GROUP BY site_id, month`);
+      parts.push(`SELECT site_id, DATE_FORMAT(local_date, '%Y-%m') AS month, SUM(gallons) AS
+        gallons, SUM(covered_minutes) AS covered_minutes, COUNT(*) AS days
+                  FROM site_daily_use WHERE site_id IN (?) AND local_date BETWEEN ? AND ? GROUP BY
+        site_id, month`);
       params.push(siteIds, from, to);
     }
     const rows: Record<string, unknown>[] = await this.db.query(
-      `SELECT site_id AS siteId, month, SUM(gallons) AS gallons, SUM(covered_minutes) AS coveredMinutes, SUM(days) AS days
+      `SELECT site_id AS siteId, month, SUM(gallons) AS gallons, SUM(covered_minutes) AS
+        coveredMinutes, SUM(days) AS days
        FROM (${parts.join(' UNION ALL ')}) AS u
        GROUP BY site_id, month ORDER BY site_id, month`,
       params,

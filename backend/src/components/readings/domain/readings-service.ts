@@ -25,7 +25,10 @@ const MAX_MONTHS = 25;
 /** A month counts as fully metered when readings cover at least this share of its minutes. */
 const COMPLETE_SHARE = 0.95;
 
-/** One site's readings as the site pages show them: key figures, daily use against budget, the hour-by-day grid and the monthly table. */
+/**
+ * One site's readings as the site pages show them: key figures, daily use against budget, the hour-by-day grid and the
+ * monthly table.
+ */
 export class ReadingsService {
   constructor(
     private readonly sites: SitesService,

@@ -35,7 +35,8 @@ export class ComplianceNoticesRepository {
     >,
   ): Promise<boolean> {
     const result: { affectedRows: number } = await em.query(
-      `INSERT IGNORE INTO compliance_notice (site_id, month, sent_by, sender_organisation_id, recipients, percent_of_budget, message) VALUES (?, ?, ?, ?, ?, ?, ?)`,
+      `INSERT IGNORE INTO compliance_notice (site_id, month, sent_by, sender_organisation_id,
+        recipients, percent_of_budget, message) VALUES (?, ?, ?, ?, ?, ?, ?)`,
       [
         notice.siteId,
         notice.month,

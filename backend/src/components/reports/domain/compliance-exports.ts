@@ -40,9 +40,11 @@ export async function compliancePdf(report: ComplianceReportDto): Promise<Buffer
     .font('bold')
     .fontSize(18)
     .text(`Budget compliance, ${report.month ?? report.year}`);
+  const firstRank = report.page * report.pageSize + 1;
   muted(
     doc,
-    `Period ${report.period.from} to ${report.period.to}. ${report.total} sites; this page lists ranks ${report.page * report.pageSize + 1}–${report.page * report.pageSize + report.items.length}.`,
+    `Period ${report.period.from} to ${report.period.to}. ${report.total} ` +
+      `sites; this page lists ranks ${firstRank}–${firstRank + report.items.length - 1}.`,
   );
   heading(doc, 'Percent of budget', 12);
   const top = report.items.slice(0, 16);
@@ -74,7 +76,10 @@ export async function compliancePdf(report: ComplianceReportDto): Promise<Buffer
   paragraph(doc, report.basis);
   paragraph(
     doc,
-    'Sites are ranked by percent of budget, highest first; sites without a computable budget come last. Data completeness is the share of days so far in the period with metered use; trend compares use with the same months of the previous year.',
+    'Sites are ranked by percent of budget, highest first; sites ' +
+      'without a computable budget come last. Data completeness is ' +
+      'the share of days so far in the period with metered use; trend ' +
+      'compares use with the same months of the previous year.',
   );
   return render(doc);
 }

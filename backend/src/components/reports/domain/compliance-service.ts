@@ -74,8 +74,10 @@ export class ComplianceService {
       month: q.month ?? null,
       period: { from, to },
       basis: q.month
-        ? `Metered use in ${q.month} against that month's water budget (hydrozones × ETo, as on each site's budget page).`
-        : `Metered use in ${q.year} against the year's maximum applied water allowance (MAWA, as on each site's compliance page).`,
+        ? `Metered use in ${q.month} against that month's water budget ` +
+          "(hydrozones × ETo, as on each site's budget page)."
+        : `Metered use in ${q.year} against the year's maximum applied ` +
+          "water allowance (MAWA, as on each site's compliance page).",
       items: sorted.slice(q.page * q.pageSize, (q.page + 1) * q.pageSize),
       total: sorted.length,
       page: q.page,

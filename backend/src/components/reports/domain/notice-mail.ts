@@ -43,6 +43,8 @@ export function noticeMail(n: {
       (n.message
         ? `<p>Note from the sender:</p><blockquote>${esc(n.message).replace(/\n/g, '<br>')}</blockquote>`
         : '') +
-      `<p><a href="${esc(link)}">Review the site's budget and use</a></p><p style="color:#5b6770">This notice was sent through Rillmark; one notice is sent per site and month.</p>`,
+      `<p><a href="${esc(link)}">Review the site's budget and use</a></p><p ` +
+      'style="color:#5b6770">This notice was sent through Rillmark; ' +
+      'one notice is sent per site and month.</p>',
   };
 }

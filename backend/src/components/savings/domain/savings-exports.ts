@@ -68,7 +68,8 @@ export async function savingsPdf(r: SavingsReportDto): Promise<Buffer> {
   paragraph(doc, `${r.site.name} · ${r.project.title}`);
   muted(
     doc,
-    `${SAVINGS_CHANGE_LABELS[r.project.changeKind]} installed ${r.project.installedOn} (${r.site.timeZone}). Weather station: ${r.station.name}. ${r.project.changeDescription}`,
+    `${SAVINGS_CHANGE_LABELS[r.project.changeKind]} installed ${r.project.installedOn} ` +
+      `(${r.site.timeZone}). Weather station: ${r.station.name}. ${r.project.changeDescription}`,
   );
 
   heading(doc, 'Savings');
@@ -104,9 +105,12 @@ export async function savingsPdf(r: SavingsReportDto): Promise<Buffer> {
 
   heading(doc, 'Baseline model fit (ASHRAE Guideline 14)', 12);
   const st = r.model.statistics;
+  const coefficients = r.model.coefficients.map((c) => `${c.term}: ${c.value.toFixed(2)} ${c.unit}`).join('; ');
   paragraph(
     doc,
-    `${r.model.equation}. ${r.model.coefficients.map((c) => `${c.term}: ${c.value.toFixed(2)} ${c.unit}`).join('; ')}. R² = ${st.rSquared === null ? '—' : st.rSquared.toFixed(3)} over ${st.n} months.`,
+    `${r.model.equation}. ${coefficients}. ` +
+      `R² = ${st.rSquared === null ? '—' : st.rSquared.toFixed(3)} ` +
+      `over ${st.n} months.`,
   );
   table(
     doc,

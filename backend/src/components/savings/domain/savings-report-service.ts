@@ -22,7 +22,9 @@ const EQUATIONS: Record<string, string> = {
   'eto-rain-per-day': 'use (gal/day) = base use + b × ETo (mm/day) + c × rain (mm/day), weighted by days in the month',
 };
 
-/** Weather-normalised savings of one project (IPMVP Option C on the site's metered use), with the Guideline 14 verdict. */
+/**
+ * Weather-normalised savings of one project (IPMVP Option C on the site's metered use), with the Guideline 14 verdict.
+ */
 export class SavingsReportService {
   constructor(
     private readonly projects: SavingsProjectsService,
@@ -48,7 +50,8 @@ export class SavingsReportService {
       const left = months.filter((m) => m.useGal === null).map((m) => m.month);
       if (left.length)
         warnings.push(
-          `${what} months left out because less than ${MIN_METERED_SHARE * 100} % of their days are metered: ${left.join(', ')}.`,
+          `${what} months left out because less than ${MIN_METERED_SHARE * 100} ` +
+            `% of their days are metered: ${left.join(', ')}.`,
         );
       return months
         .filter((m) => m.useGal !== null)
@@ -170,8 +173,15 @@ export function methodSentences(
   stationName: string,
 ): string[] {
   return [
-    `We fitted a straight-line model of the site's monthly metered water use against the weather at station "${stationName}" over the baseline months ${baselineFrom} to ${baselineTo}, by least squares: ${equation}.`,
-    `We then fed the reporting months' (${reportingFrom} to ${reportingTo}) ETo and rain into that model to predict what the site would have used without the change; savings are that prediction minus the metered use.`,
-    'The fit is judged with ASHRAE Guideline 14 statistics (R², CV(RMSE), NMBE) and its acceptance thresholds; savings are claimed only when the model meets them.',
+    "We fitted a straight-line model of the site's monthly metered " +
+      `water use against the weather at station "${stationName}" over ` +
+      `the baseline months ${baselineFrom} to ${baselineTo}, by least ` +
+      `squares: ${equation}.`,
+    `We then fed the reporting months' (${reportingFrom} to ${reportingTo}) ` +
+      'ETo and rain into that model to predict what the site would ' +
+      'have used without the change; savings are that prediction minus the metered use.',
+    'The fit is judged with ASHRAE Guideline 14 statistics (R², CV(RMSE), ' +
+      'NMBE) and its acceptance thresholds; savings are claimed only ' +
+      'when the model meets them.',
   ];
 }

@@ -74,15 +74,21 @@ export class IngestWriter {
     let into: string;
     if (directUploadId !== undefined) {
       const names = [...t.stageColumns.map(([n]) => `\`${n}\``), '@row_no'].join(', ');
-      into = `\`${t.table}\` CHARACTER SET utf8mb4 FIELDS TERMINATED BY '\\t' ESCAPED BY '\\\\' LINES TERMINATED BY '\\n' (${names}) SET upload_id = ${Number(directUploadId)}`;
+      into =
+        `\`${t.table}\` CHARACTER SET utf8mb4 FIELDS TERMINATED BY '\\t' ` +
+        `ESCAPED BY '\\\\' LINES TERMINATED BY '\\n' (${names}) SET upload_id ` +
+        `= ${Number(directUploadId)}`;
     } else {
       await this.qr.query(`DROP TEMPORARY TABLE IF EXISTS ${STAGE}`);
       const columns = t.stageColumns.map(([name, type]) => `\`${name}\` ${type}`).join(', ');
       await this.qr.query(
-        `CREATE TEMPORARY TABLE ${STAGE} (${columns}, row_no int unsigned NOT NULL, PRIMARY KEY (${t.key.join(', ')})) ENGINE=InnoDB`,
+        `CREATE TEMPORARY TABLE ${STAGE} (${columns}, row_no int unsigned ` +
+          `NOT NULL, PRIMARY KEY (${t.key.join(', ')})) ENGINE=InnoDB`,
       );
       const names = [...t.stageColumns.map(([n]) => `\`${n}\``), 'row_no'].join(', ');
-      into = `${STAGE} CHARACTER SET utf8mb4 FIELDS TERMINATED BY '\\t' ESCAPED BY '\\\\' LINES TERMINATED BY '\\n' (${names})`;
+      into =
+        `${STAGE} CHARACTER SET utf8mb4 FIELDS TERMINATED BY '\\t' ESCAPED ` +
+        `BY '\\\\' LINES TERMINATED BY '\\n' (${names})`;
     }
     this.load = this.rawQuery(`LOAD DATA LOCAL INFILE 'rillmark-upload' IGNORE INTO TABLE ${into}`, [], this.stream);
     // Surface a failed load at once instead of when the stream ends.
@@ -144,7 +150,8 @@ export class IngestWriter {
   private async overlapsStored(): Promise<boolean> {
     const [owner, time] = this.target.key as [string, string];
     const spans: Array<{ id: number; first: Date; last: Date }> = await this.qr.query(
-      `SELECT \`${owner}\` AS id, MIN(\`${time}\`) AS first, MAX(\`${time}\`) AS last FROM ${STAGE} GROUP BY \`${owner}\``,
+      `SELECT \`${owner}\` AS id, MIN(\`${time}\`) AS first, MAX(\`${time}\`) AS last FROM ${STAGE}
+        GROUP BY \`${owner}\``,
     );
     for (const span of spans) {
       const [hit] = await this.qr.query(
@@ -187,7 +194,8 @@ export class IngestWriter {
         ...t.compared.map((c) => `t.\`${c}\` AS \`t_${c}\`, s.\`${c}\` AS \`s_${c}\``),
       ].join(', ');
       const rows: Array<Record<string, unknown>> = await this.qr.query(
-        `SELECT ${select} FROM ${STAGE} s JOIN \`${t.table}\` t ON ${on} WHERE NOT (${same}) ORDER BY s.row_no LIMIT ${Number(listLimit)}`,
+        `SELECT ${select} FROM ${STAGE} s JOIN \`${t.table}\` t ON ${on} WHERE NOT (${same}) ORDER
+          BY s.row_no LIMIT ${Number(listLimit)}`,
       );
       conflicts = rows.map((r) => ({
         rowNo: Number(r['row_no']),
@@ -200,7 +208,9 @@ export class IngestWriter {
         const all = [...t.key, ...t.copied, 'upload_id'];
         const json = all.map((c) => `'${c}', t.\`${c}\``).join(', ');
         await this.qr.query(
-          `INSERT INTO upload_replacement (upload_id, target_table, previous_row) SELECT ?, '${t.table}', JSON_OBJECT(${json}) FROM ${STAGE} s JOIN \`${t.table}\` t ON ${on} WHERE NOT (${same})`,
+          `INSERT INTO upload_replacement (upload_id, target_table, previous_row) SELECT ?,
+            '${t.table}', JSON_OBJECT(${json}) FROM ${STAGE} s JOIN \`${t.table}\` t ON ${on} WHERE
+            NOT (${same})`,
           [uploadId],
         );
         const set = [...t.copied.map((c) => `t.\`${c}\` = s.\`${c}\``), 't.upload_id = ?'].join(', ');

@@ -31,7 +31,8 @@ export interface FinishedUpload extends UploadCounts {
 }
 
 const SELECT = `SELECT u.*, s.organisation_id AS org_id, us.display_name AS by_name, k.name AS key_name
-  FROM upload u JOIN site s ON s.id = u.site_id LEFT JOIN user us ON us.id = u.uploaded_by LEFT JOIN api_key k ON k.id = u.api_key_id`;
+  FROM upload u JOIN site s ON s.id = u.site_id LEFT JOIN user us ON us.id = u.uploaded_by LEFT
+  JOIN api_key k ON k.id = u.api_key_id`;
 
 /** Upload rows, their rejections and the organisation's import profiles. */
 export class UploadsRepository {
@@ -125,7 +126,8 @@ export class UploadsRepository {
   ): Promise<{ items: RejectionDto[]; total: number }> {
     const [count] = await this.db.query('SELECT COUNT(*) AS n FROM upload_rejection WHERE upload_id = ?', [uploadId]);
     const rows = await this.db.query(
-      'SELECT row_no, column_no, kind, message FROM upload_rejection WHERE upload_id = ? ORDER BY row_no, id LIMIT ? OFFSET ?',
+      `SELECT row_no, column_no, kind, message FROM upload_rejection WHERE upload_id = ? ORDER BY
+        row_no, id LIMIT ? OFFSET ?`,
       [uploadId, page.limit, page.offset],
     );
     return {
@@ -148,7 +150,8 @@ export class UploadsRepository {
       const columns = [...t.key, ...t.copied, 'upload_id'];
       const values = columns.map((c) => `JSON_VALUE(previous_row, '$.${c}')`).join(', ');
       await em.query(
-        `INSERT IGNORE INTO \`${t.table}\` (${columns.map((c) => `\`${c}\``).join(', ')}) SELECT ${values} FROM upload_replacement WHERE upload_id = ? AND target_table = ?`,
+        `INSERT IGNORE INTO \`${t.table}\` (${columns.map((c) => `\`${c}\``).join(', ')}) SELECT
+          ${values} FROM upload_replacement WHERE upload_id = ? AND target_table = ?`,
         [uploadId, t.table],
       );
     }

@@ -21,14 +21,20 @@ export function conflictRejections(
     let incoming: string;
     if (target.table === 'runtime_event') {
       what = `zone #${c.key['zone_id']} run at ${utc(c.key['start_utc'])}`;
-      stored = `${num(c.stored['minutes'])} min, ${c.stored['cause'] ?? 'no cause'}, ${num(c.stored['measured_gallons'])} gal`;
-      incoming = `${num(c.incoming['minutes'])} min, ${c.incoming['cause'] ?? 'no cause'}, ${num(c.incoming['measured_gallons'])} gal`;
+      stored =
+        `${num(c.stored['minutes'])} min, ${c.stored['cause'] ?? 'no cause'}, ` +
+        `${num(c.stored['measured_gallons'])} gal`;
+      incoming =
+        `${num(c.incoming['minutes'])} min, ${c.incoming['cause'] ?? 'no cause'}, ` +
+        `${num(c.incoming['measured_gallons'])} gal`;
     } else if (target.table === 'meter_register_read') {
       what = `meter ${meterRefs.get(Number(c.key['meter_id']))} read at ${utc(c.key['read_at'])}`;
       stored = num(c.stored['register_value']);
       incoming = num(c.incoming['register_value']);
     } else {
-      what = `meter ${meterRefs.get(Number(c.key['meter_id']))}, ${c.key['minutes']} min from ${utc(c.key['start_utc'])}`;
+      what =
+        `meter ${meterRefs.get(Number(c.key['meter_id']))}, ${c.key['minutes']} ` +
+        `min from ${utc(c.key['start_utc'])}`;
       stored = `${num(c.stored['volume_gal'])} gal`;
       incoming = `${num(c.incoming['volume_gal'])} gal`;
     }

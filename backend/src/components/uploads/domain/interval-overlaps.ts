@@ -31,15 +31,19 @@ export async function withdrawLengthOverlaps(
     const lengths = span.lengths;
     // Cheap test first: any other upload's reading of another length in this meter's span at all?
     const [maybe] = await qr.query(
-      `SELECT 1 AS hit FROM meter_reading WHERE meter_id = ? AND start_utc >= ? - INTERVAL 1440 MINUTE AND start_utc < ? AND upload_id <> ? AND minutes <= 1440 AND minutes NOT IN (?) LIMIT 1`,
+      `SELECT 1 AS hit FROM meter_reading WHERE meter_id = ? AND start_utc >= ? - INTERVAL 1440
+        MINUTE AND start_utc < ? AND upload_id <> ? AND minutes <= 1440 AND minutes NOT IN (?)
+        LIMIT 1`,
       [span.meterId, span.first, span.last, uploadId, lengths],
     );
     if (!maybe) continue;
     const pairs: Array<{ a_start: Date; a_minutes: number; r_start: Date; r_minutes: number; r_upload: number }> =
       await qr.query(
-        `SELECT a.start_utc AS a_start, a.minutes AS a_minutes, MIN(r.start_utc) AS r_start, MIN(r.minutes) AS r_minutes, MIN(r.upload_id) AS r_upload
+        `SELECT a.start_utc AS a_start, a.minutes AS a_minutes, MIN(r.start_utc) AS r_start,
+          MIN(r.minutes) AS r_minutes, MIN(r.upload_id) AS r_upload
        FROM meter_reading a JOIN meter_reading r ON r.meter_id = a.meter_id
-         AND r.start_utc >= a.start_utc - INTERVAL 1440 MINUTE AND r.start_utc < a.start_utc + INTERVAL a.minutes MINUTE
+         AND r.start_utc >= a.start_utc - INTERVAL 1440 MINUTE AND r.start_utc < a.start_utc +
+          INTERVAL a.minutes MINUTE
          AND r.start_utc + INTERVAL r.minutes MINUTE > a.start_utc
          AND r.upload_id <> a.upload_id AND r.minutes <> a.minutes AND r.minutes <= 1440
        WHERE a.meter_id = ? AND a.upload_id = ? AND a.minutes <= 1440
@@ -58,7 +62,11 @@ export async function withdrawLengthOverlaps(
           row: 0,
           column: null,
           kind: 'conflict',
-          message: `meter ${meterRefs.get(span.meterId)}, ${p.a_minutes} min from ${utc(p.a_start)}: overlaps a stored ${p.r_minutes}-minute reading from ${utc(p.r_start)} (upload #${p.r_upload}); not stored, so no water is counted twice. Roll back one of the two uploads to keep the other.`,
+          message:
+            `meter ${meterRefs.get(span.meterId)}, ${p.a_minutes} min from ` +
+            `${utc(p.a_start)}: overlaps a stored ${p.r_minutes}-minute reading ` +
+            `from ${utc(p.r_start)} (upload #${p.r_upload}); not stored, ` +
+            'so no water is counted twice. Roll back one of the two uploads to keep the other.',
         });
       }
     }
@@ -68,7 +76,8 @@ export async function withdrawLengthOverlaps(
 
 async function storedSpans(qr: QueryRunner, uploadId: number): Promise<MeterSpan[]> {
   const rows: Array<{ meter_id: number; first: Date; last: Date; lengths: string }> = await qr.query(
-    `SELECT meter_id, MIN(start_utc) AS first, MAX(start_utc + INTERVAL minutes MINUTE) AS last, GROUP_CONCAT(DISTINCT minutes) AS lengths
+    `SELECT meter_id, MIN(start_utc) AS first, MAX(start_utc + INTERVAL minutes MINUTE) AS last,
+      GROUP_CONCAT(DISTINCT minutes) AS lengths
      FROM meter_reading WHERE upload_id = ? AND minutes <= ${OVERLAP_MAX_MINUTES} GROUP BY meter_id`,
     [uploadId],
   );

@@ -25,7 +25,8 @@ export async function deriveRegisterVolumes(
     const meter = byId.get(meterId)!;
     const stored: Array<{ read_at: Date; register_value: string; unit: VolumeUnit; upload_id: number }> =
       await qr.query(
-        'SELECT read_at, register_value, unit, upload_id FROM meter_register_read WHERE meter_id = ? ORDER BY read_at, position',
+        `SELECT read_at, register_value, unit, upload_id FROM meter_register_read WHERE meter_id =
+          ? ORDER BY read_at, position`,
         [meterId],
       );
     const rowsOfThisFile = new Map<string, number>();
@@ -64,7 +65,8 @@ export async function deriveRegisterVolumes(
     for (let i = 0; i < values.length; i += 1000) {
       // IGNORE: a volume between two earlier reads is already stored by the upload that brought them.
       const inserted = await qr.query(
-        'INSERT IGNORE INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?',
+        `INSERT IGNORE INTO meter_reading (meter_id, start_utc, minutes, volume_gal,
+          original_value, original_unit, upload_id) VALUES ?`,
         [values.slice(i, i + 1000)],
       );
       out.volumes += affected(inserted);
@@ -74,7 +76,9 @@ export async function deriveRegisterVolumes(
     row: 0,
     column: null,
     kind: 'notice',
-    message: `${out.volumes} interval volume(s) worked out from the register reads${rollovers ? ` (${rollovers} dial rollover(s))` : ''}.`,
+    message:
+      `${out.volumes} interval volume(s) worked out from the register ` +
+      `reads${rollovers ? ` (${rollovers} dial rollover(s))` : ''}.`,
   });
   return out;
 }

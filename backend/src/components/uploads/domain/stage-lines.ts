@@ -39,7 +39,8 @@ export function createStageLines(
         mapping,
         row,
         timeColumn,
-        `${atIso.slice(0, 16).replace('T', ' ')} UTC is before meter ${ref} was installed (${new Date(meter.firstInstalledMs).toISOString().slice(0, 10)})`,
+        `${atIso.slice(0, 16).replace('T', ' ')} UTC is before meter ` +
+          `${ref} was installed (${new Date(meter.firstInstalledMs).toISOString().slice(0, 10)})`,
       );
     }
     if (meter.removedMs !== null && ms >= meter.removedMs) {
@@ -47,7 +48,8 @@ export function createStageLines(
         mapping,
         row,
         timeColumn,
-        `${atIso.slice(0, 16).replace('T', ' ')} UTC is after meter ${ref} was removed (${new Date(meter.removedMs).toISOString().slice(0, 10)})`,
+        `${atIso.slice(0, 16).replace('T', ' ')} UTC is after meter ${ref} ` +
+          `was removed (${new Date(meter.removedMs).toISOString().slice(0, 10)})`,
       );
     }
     return meter.id;
@@ -93,7 +95,8 @@ export function createStageLines(
             mapping,
             row,
             c.station ?? null,
-            `unknown zone "${r.station}" on controller ${r.controllerRef}; add the zone to the controller or fix the file`,
+            `unknown zone "${r.station}" on controller ${r.controllerRef}; ` +
+              'add the zone to the controller or fix the file',
           );
         }
         if (r.minutes > 65_535)

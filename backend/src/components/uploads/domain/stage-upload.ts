@@ -154,7 +154,9 @@ export async function stageUpload(qr: QueryRunner, csv: CsvRows, options: StageO
       row: 0,
       column: null,
       kind: 'notice',
-      message: `${staged.repeats} record(s) repeat a meter/zone and interval given earlier in this file; the first of each was kept.`,
+      message:
+        `${staged.repeats} record(s) repeat a meter/zone and interval ` +
+        'given earlier in this file; the first of each was kept.',
     });
   }
   options.onProgress(staged.rowsRead);
@@ -177,7 +179,9 @@ function decideMapping(head: string[][], csv: CsvRows, options: StageOptions): C
   const mapping = result.mapping!;
   if (options.kind && !options.mapping && mapping.kind !== options.kind) {
     throw new FileProblem(
-      `This looks like a ${mapping.kind} file, not ${options.kind}. ${result.detection?.reasons[0] ?? ''} Choose the columns yourself if the guess is wrong.`,
+      `This looks like a ${mapping.kind} file, not ${options.kind}. ` +
+        `${result.detection?.reasons[0] ?? ''} Choose the columns yourself ` +
+        'if the guess is wrong.',
     );
   }
   if (result.mappingProblems.length) {

@@ -17,7 +17,11 @@ export class RowsRefused extends Error {
 }
 
 export function limitMessage(fileName: string, maxBytes: number): string {
-  return `"${fileName}" is larger than the upload limit of ${formatMb(maxBytes)} (RILLMARK_UPLOAD_MAX_MB). Split the file by month or ask an administrator to raise the limit.`;
+  return (
+    `"${fileName}" is larger than the upload limit of ${formatMb(maxBytes)} ` +
+    '(RILLMARK_UPLOAD_MAX_MB). Split the file by month or ask an ' +
+    'administrator to raise the limit.'
+  );
 }
 
 function formatMb(bytes: number): string {
@@ -41,7 +45,9 @@ export function toUploadError(err: unknown, fileName: string, maxBytes: number):
   if (err instanceof RowsRefused) {
     return new AppError(
       'validation_failed',
-      `"${fileName}": ${err.rejected} row(s) were rejected, and the upload was set to refuse the file on any row error, so nothing was stored. The rejected rows are listed with the upload.`,
+      `"${fileName}": ${err.rejected} row(s) were rejected, and the ` +
+        'upload was set to refuse the file on any row error, so nothing ' +
+        'was stored. The rejected rows are listed with the upload.',
       err.rejections
         .slice(0, 50)
         .map((r) => ({ field: `row ${r.row}${r.column ? `, column ${r.column}` : ''}`, message: r.message })),

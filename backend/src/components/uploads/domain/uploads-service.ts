@@ -111,7 +111,9 @@ export class UploadsService {
         return {
           outcome: 'already-imported',
           upload,
-          message: `"${fileName}" was already imported as upload #${earlier} on ${upload.createdAt.slice(0, 10)}; nothing was changed.`,
+          message:
+            `"${fileName}" was already imported as upload #${earlier} on ` +
+            `${upload.createdAt.slice(0, 10)}; nothing was changed.`,
         };
       }
       if (rowErrors === 'refuse-file' && staged.rejected > 0) throw new RowsRefused(staged.rejected, staged.rejections);

@@ -50,7 +50,8 @@ export class UsersRepository {
    */
   async activeUserWithMemberships(userId: number): Promise<{ user: UserRecord; memberships: MembershipDto[] } | null> {
     const rows: Record<string, unknown>[] = await this.db.query(
-      `SELECT u.id, u.email, u.display_name AS displayName, u.status, m.organisation_id AS organisationId, o.name AS organisationName,
+      `SELECT u.id, u.email, u.display_name AS displayName, u.status, m.organisation_id AS
+        organisationId, o.name AS organisationName,
               o.kind AS organisationKind, m.role
        FROM user u LEFT JOIN membership m ON m.user_id = u.id LEFT JOIN organisation o ON o.id = m.organisation_id
        WHERE u.id = ? AND u.status = 'active' ORDER BY m.id`,

@@ -2,13 +2,15 @@ import { ROLE_LABELS, type Role } from '@shared/auth/roles';
 import type { OutgoingMail } from '../../../platform/mail/mailer';
 
 const escape = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+const BUTTON_STYLE = 'background:#0f5e6b;color:#fff;padding:10px 18px;border-radius:6px;text-decoration:none';
+const LINK_HINT = 'If the button does not work, paste this address into your browser:';
 
 function layout(title: string, paragraphs: string[], action: { label: string; link: string }): string {
   return `<!doctype html><html><body style="font-family:'Open Sans',Arial,sans-serif;color:#17323a;max-width:560px">
 <h2 style="color:#0f5e6b">${escape(title)}</h2>
 ${paragraphs.map((p) => `<p>${escape(p)}</p>`).join('\n')}
-<p><a href="${escape(action.link)}" style="background:#0f5e6b;color:#fff;padding:10px 18px;border-radius:6px;text-decoration:none">${escape(action.label)}</a></p>
-<p style="font-size:12px;color:#5b7077">If the button does not work, paste this address into your browser:<br>${escape(action.link)}</p>
+<p><a href="${escape(action.link)}" style="${BUTTON_STYLE}">${escape(action.label)}</a></p>
+<p style="font-size:12px;color:#5b7077">${LINK_HINT}<br>${escape(action.link)}</p>
 </body></html>`;
 }
 
@@ -59,7 +61,8 @@ export function passwordResetMail(p: {
   const lines = [
     `Hello ${p.displayName},`,
     `${p.requestedBy} asked Rillmark to let you choose a new password.`,
-    'The link works once and expires in 3 days. If you did not expect this, you can ignore this message; your password stays as it is.',
+    'The link works once and expires in 3 days. If you did not expect ' +
+      'this, you can ignore this message; your password stays as it is.',
   ];
   return {
     to: p.to,

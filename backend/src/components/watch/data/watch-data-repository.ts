@@ -27,7 +27,8 @@ export class WatchDataRepository {
 
   async sites(organisationId: number | null): Promise<WatchSiteRow[]> {
     const rows: { id: number; organisation_id: number; name: string; time_zone: string }[] = await this.db.query(
-      `SELECT id, organisation_id, name, time_zone FROM site ${organisationId === null ? '' : 'WHERE organisation_id = ?'} ORDER BY id`,
+      `SELECT id, organisation_id, name, time_zone FROM site
+        ${organisationId === null ? '' : 'WHERE organisation_id = ?'} ORDER BY id`,
       organisationId === null ? [] : [organisationId],
     );
     return rows.map((r) => ({ siteId: r.id, organisationId: r.organisation_id, name: r.name, timeZone: r.time_zone }));
@@ -38,7 +39,8 @@ export class WatchDataRepository {
     if (siteIds.length === 0) return out;
     const rows: { site_id: number; thresholds: string; irrigation_start_hour: number; irrigation_end_hour: number }[] =
       await this.db.query(
-        'SELECT site_id, thresholds, irrigation_start_hour, irrigation_end_hour FROM site_watch_settings WHERE site_id IN (?)',
+        `SELECT site_id, thresholds, irrigation_start_hour, irrigation_end_hour FROM
+          site_watch_settings WHERE site_id IN (?)`,
         [siteIds],
       );
     for (const r of rows)
@@ -59,7 +61,8 @@ export class WatchDataRepository {
       last_checked_as_of_utc: Date | null;
       last_night: string | null;
     }[] = await this.db.query(
-      "SELECT site_id, last_data_utc, last_checked_as_of_utc, DATE_FORMAT(last_night, '%Y-%m-%d') AS last_night FROM watch_site_state WHERE site_id IN (?)",
+      `SELECT site_id, last_data_utc, last_checked_as_of_utc, DATE_FORMAT(last_night, '%Y-%m-%d')
+        AS last_night FROM watch_site_state WHERE site_id IN (?)`,
       [siteIds],
     );
     for (const r of rows)
@@ -107,10 +110,13 @@ export class WatchDataRepository {
     return rows.map((r) => ({ startUtc: Number(r.h) * 1000, gallons: Number(r.gal) }));
   }
 
-  /** Readings longer than an hour (daily or monthly reads): they cannot be spread over hours, only totalled by month. */
+  /**
+   * Readings longer than an hour (daily or monthly reads): they cannot be spread over hours, only totalled by month.
+   */
   async longReadings(siteId: number, fromUtc: Date, toUtc: Date): Promise<{ startUtc: number; gallons: number }[]> {
     const rows: { s: number; gal: string }[] = await this.db.query(
-      `SELECT TIMESTAMPDIFF(SECOND, '1970-01-01', r.start_utc) AS s, r.volume_gal AS gal FROM meter_reading r JOIN meter m ON m.id = r.meter_id
+      `SELECT TIMESTAMPDIFF(SECOND, '1970-01-01', r.start_utc) AS s, r.volume_gal AS gal FROM
+        meter_reading r JOIN meter m ON m.id = r.meter_id
        WHERE m.site_id = ? AND r.start_utc >= ? AND r.start_utc < ? AND r.minutes > 60 ORDER BY r.start_utc`,
       [siteId, fromUtc, toUtc],
     );
@@ -119,7 +125,8 @@ export class WatchDataRepository {
 
   async zones(siteId: number): Promise<ZoneFacts[]> {
     const rows: { id: number; design_gpm: number | null; station: string; name: string }[] = await this.db.query(
-      'SELECT z.id, z.design_gpm, z.station, z.name FROM zone z JOIN controller c ON c.id = z.controller_id WHERE c.site_id = ? ORDER BY z.id',
+      `SELECT z.id, z.design_gpm, z.station, z.name FROM zone z JOIN controller c ON c.id =
+        z.controller_id WHERE c.site_id = ? ORDER BY z.id`,
       [siteId],
     );
     return rows.map((r) => ({
@@ -158,7 +165,8 @@ export class WatchDataRepository {
     toMonth: string,
   ): Promise<{ month: string; gallons: number }[]> {
     const rows: { month: string; gallons: number }[] = await this.db.query(
-      'SELECT month, gallons FROM site_monthly_budget WHERE site_id = ? AND month BETWEEN ? AND ? AND gallons IS NOT NULL ORDER BY month',
+      `SELECT month, gallons FROM site_monthly_budget WHERE site_id = ? AND month BETWEEN ? AND ?
+        AND gallons IS NOT NULL ORDER BY month`,
       [siteId, fromMonth, toMonth],
     );
     return rows.map((r) => ({ month: r.month, gallons: Number(r.gallons) }));
@@ -166,8 +174,10 @@ export class WatchDataRepository {
 
   async saveState(siteId: number, lastDataUtc: Date | null, asOfUtc: Date, lastNight: string | null): Promise<void> {
     await this.db.query(
-      `INSERT INTO watch_site_state (site_id, last_data_utc, last_checked_as_of_utc, last_night) VALUES (?, ?, ?, ?)
-       ON DUPLICATE KEY UPDATE last_data_utc = VALUES(last_data_utc), last_checked_as_of_utc = VALUES(last_checked_as_of_utc),
+      `INSERT INTO watch_site_state (site_id, last_data_utc, last_checked_as_of_utc, last_night)
+        VALUES (?, ?, ?, ?)
+       ON DUPLICATE KEY UPDATE last_data_utc = VALUES(last_data_utc),
+       last_checked_as_of_utc = VALUES(last_checked_as_of_utc),
        last_night = COALESCE(VALUES(last_night), last_night)`,
       [siteId, lastDataUtc, asOfUtc, lastNight],
     );

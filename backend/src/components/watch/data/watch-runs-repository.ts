@@ -34,7 +34,8 @@ export class WatchRunsRepository {
     asOf: Date,
   ): Promise<number> {
     const result: { insertId: number } = await this.db.query(
-      "INSERT INTO watch_run (organisation_id, requested_by, `trigger`, status, range_from_utc, range_to_utc, started_at) VALUES (?, ?, ?, 'running', ?, ?, ?)",
+      `INSERT INTO watch_run (organisation_id, requested_by, \`trigger\`, status, range_from_utc,
+        range_to_utc, started_at) VALUES (?, ?, ?, 'running', ?, ?, ?)`,
       [r.organisationId, r.requestedBy, r.trigger, r.fromUtc ?? null, asOf, new Date()],
     );
     return result.insertId;
@@ -42,7 +43,8 @@ export class WatchRunsRepository {
 
   async finish(id: number, status: 'done' | 'failed', c: RunCounts, errors: WatchRunDto['errors']): Promise<void> {
     await this.db.query(
-      `UPDATE watch_run SET status = ?, finished_at = ?, sites_checked = ?, sites_skipped = ?, findings = ?, alerts_raised = ?, alerts_updated = ?,
+      `UPDATE watch_run SET status = ?, finished_at = ?, sites_checked = ?, sites_skipped = ?,
+        findings = ?, alerts_raised = ?, alerts_updated = ?,
         alerts_reopened = ?, mails_queued = ?, errors = ? WHERE id = ?`,
       [
         status,

@@ -13,10 +13,13 @@ const state = (lastDataH: number, lastNight: string | null = null) => ({
 });
 
 describe('planSiteCheck', () => {
-  it('when a site has data newer than its last check, then it is read from the look-back before the first new hour', () => {
-    const plan = planSiteCheck('manual', undefined, LA, state(25), new Date(asOf.getTime() - H), asOf, 4);
-    expect(plan).toEqual({ fromUtc: new Date(asOf.getTime() - 25 * H - LOOK_BACK_MS), night: null });
-  });
+  it(
+    'when a site has data newer than its last check, then it is read ' + 'from the look-back before the first new hour',
+    () => {
+      const plan = planSiteCheck('manual', undefined, LA, state(25), new Date(asOf.getTime() - H), asOf, 4);
+      expect(plan).toEqual({ fromUtc: new Date(asOf.getTime() - 25 * H - LOOK_BACK_MS), night: null });
+    },
+  );
 
   it('when nothing new arrived and the silence is not news, then the site is skipped', () => {
     expect(planSiteCheck('manual', undefined, LA, state(2), new Date(asOf.getTime() - 2 * H), asOf, 4)).toBeNull();
@@ -48,15 +51,19 @@ describe('planSiteCheck', () => {
     ).toBeNull();
   });
 
-  it('when the schedule ticks, then only sites whose local clock passed 04:00 and whose night is unchecked are due', () => {
-    const latest = new Date(asOf.getTime() - H);
-    expect(planSiteCheck('scheduled', undefined, LA, state(25), latest, asOf, 4)?.night).toBe('2026-07-15');
-    expect(planSiteCheck('scheduled', undefined, LA, state(25, '2026-07-15'), latest, asOf, 4)).toBeNull();
-    expect(planSiteCheck('scheduled', undefined, 'Australia/Sydney', state(25), latest, asOf, 4)?.night).toBe(
-      '2026-07-15',
-    );
-    expect(planSiteCheck('scheduled', undefined, 'Pacific/Honolulu', state(25), latest, asOf, 4)).toBeNull(); // 01:30 there
-  });
+  it(
+    'when the schedule ticks, then only sites whose local clock passed ' + '04:00 and whose night is unchecked are due',
+    () => {
+      const latest = new Date(asOf.getTime() - H);
+      expect(planSiteCheck('scheduled', undefined, LA, state(25), latest, asOf, 4)?.night).toBe('2026-07-15');
+      expect(planSiteCheck('scheduled', undefined, LA, state(25, '2026-07-15'), latest, asOf, 4)).toBeNull();
+      expect(planSiteCheck('scheduled', undefined, 'Australia/Sydney', state(25), latest, asOf, 4)?.night).toBe(
+        '2026-07-15',
+      );
+      // 01:30 there
+      expect(planSiteCheck('scheduled', undefined, 'Pacific/Honolulu', state(25), latest, asOf, 4)).toBeNull();
+    },
+  );
 
   it('when a range is re-checked, then it is read whatever was checked before', () => {
     const from = new Date(Date.UTC(2026, 0, 1));

@@ -52,7 +52,8 @@ export class WatchSettingsService {
     const window = input.irrigationWindow ?? DEFAULT_IRRIGATION_WINDOW;
     await this.db.transaction(async (em) => {
       await em.query(
-        `INSERT INTO site_watch_settings (site_id, thresholds, irrigation_start_hour, irrigation_end_hour, updated_by) VALUES (?, ?, ?, ?, ?)
+        `INSERT INTO site_watch_settings (site_id, thresholds, irrigation_start_hour,
+          irrigation_end_hour, updated_by) VALUES (?, ?, ?, ?, ?)
          ON DUPLICATE KEY UPDATE thresholds = VALUES(thresholds), irrigation_start_hour = VALUES(irrigation_start_hour),
          irrigation_end_hour = VALUES(irrigation_end_hour), updated_by = VALUES(updated_by)`,
         [siteId, JSON.stringify(overrides), window.startHour, window.endHour, principal.userId],

@@ -46,7 +46,8 @@ const rangeQuery = z.object({ from: isoDate, to: isoDate });
 const uploadQuery = z.object({
   format: z.enum(WEATHER_UPLOAD_FORMATS, { message: `must be one of ${WEATHER_UPLOAD_FORMATS.join(', ')}` }),
 });
-// Monthly totals: ETo up to 20 mm/d for 31 days; rain up to 3 m in a month (screening bounds, common practice, no source).
+// Monthly totals: ETo up to 20 mm/d for 31 days; rain up to 3 m in a month (screening bounds, common practice, no
+// source).
 const normalsBody = z.strictObject({
   normals: z.array(
     z.strictObject({

@@ -31,7 +31,8 @@ export class WeatherFeedClient {
   ) {}
 
   async dailyObservations(latitude: number, longitude: number, from: string, to: string): Promise<FeedDay[]> {
-    const url = `${this.baseUrl}/daily-observations?${new URLSearchParams({ lat: String(latitude), lon: String(longitude), from, to })}`;
+    const query = new URLSearchParams({ lat: String(latitude), lon: String(longitude), from, to });
+    const url = `${this.baseUrl}/daily-observations?${query}`;
     let response: Response;
     try {
       response = await fetch(url, {

@@ -65,8 +65,10 @@ export class WeatherRepository {
       .createQueryBuilder('ws')
       .innerJoin(OrganisationEntity, 'o', 'o.id = ws.organisation_id')
       .where(
-        `(ws.organisation_id = :viewer OR EXISTS (SELECT 1 FROM site s LEFT JOIN site_share sh ON sh.site_id = s.id AND sh.organisation_id = :viewer
-          WHERE s.weather_station_id = ws.id AND (s.organisation_id = :viewer OR sh.organisation_id IS NOT NULL)))`,
+        `(ws.organisation_id = :viewer OR EXISTS (SELECT 1 FROM site s LEFT JOIN site_share sh ON
+          sh.site_id = s.id AND sh.organisation_id = :viewer
+          WHERE s.weather_station_id = ws.id AND (s.organisation_id = :viewer OR sh.organisation_id
+          IS NOT NULL)))`,
         { viewer: organisationId },
       );
   }
@@ -191,7 +193,9 @@ export class WeatherRepository {
     return rows.map((r) => ({ month: r.month, etoMm: r.etoMm, rainMm: r.rainMm }));
   }
 
-  /** New weather changes every budget computed from this station: its `updated_at` is what cached budgets compare with. */
+  /**
+   * New weather changes every budget computed from this station: its `updated_at` is what cached budgets compare with.
+   */
   private async touchStation(em: EntityManager, stationId: number): Promise<void> {
     await em.query('UPDATE weather_station SET updated_at = NOW(3) WHERE id = ?', [stationId]);
   }

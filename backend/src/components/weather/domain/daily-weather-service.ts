@@ -176,7 +176,8 @@ export class DailyWeatherService {
     } catch (error) {
       throw new AppError(
         'validation_failed',
-        `Weather for station "${station.name}" is incomplete: ${(error as Error).message}. Upload or fetch the missing days, or enter the station's monthly normals.`,
+        `Weather for station "${station.name}" is incomplete: ${(error as Error).message}. ` +
+          "Upload or fetch the missing days, or enter the station's monthly normals.",
         [{ field: 'weather', message: (error as Error).message }],
       );
     }
@@ -243,7 +244,8 @@ function rowsInvalid(issues: RowIssue[]): AppError {
   const more = issues.length > shown.length ? ` (and ${issues.length - shown.length} more)` : '';
   return new AppError(
     'validation_failed',
-    `The weather file has ${issues.length} problem(s); nothing was stored. First: row ${issues[0]!.row}, ${issues[0]!.field}: ${issues[0]!.message}${more}`,
+    `The weather file has ${issues.length} problem(s); nothing was ` +
+      `stored. First: row ${issues[0]!.row}, ${issues[0]!.field}: ${issues[0]!.message}${more}`,
     shown.map((i) => ({ field: `row ${i.row}.${i.field}`, message: i.message })),
   );
 }
