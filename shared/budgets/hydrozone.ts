@@ -88,7 +88,9 @@ export function validateHydrozone(zone: Hydrozone): HydrozoneIssue[] {
       if (zone.plantFactor < range.min || zone.plantFactor > range.max) {
         issues.push({
           field: 'plantFactor',
-          message: `Plant factor ${zone.plantFactor} is outside the ${zone.plantWaterUse} range ${range.min}–${range.max}`,
+          message:
+            `Plant factor ${zone.plantFactor} is outside the ${zone.plantWaterUse} ` +
+            `range ${range.min}–${range.max}`,
         });
       }
     }

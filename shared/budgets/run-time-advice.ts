@@ -130,11 +130,13 @@ export function adviseRunTime(input: RunTimeAdviceInput): RunTimeAdvice {
   ];
   if (input.isDrip) {
     cautions.unshift(
-      'Drip zones usually need a pressure regulator (around 25–30 psi) and a filter upstream of the emitters (common practice, no source).',
+      'Drip zones usually need a pressure regulator (around 25–30 psi) ' +
+        'and a filter upstream of the emitters (common practice, no source).',
     );
   } else if (input.prInPerHour > 1) {
     cautions.unshift(
-      'Precipitation rate above 1 in/h: expect runoff on most soils unless run in short cycles (common practice, no source).',
+      'Precipitation rate above 1 in/h: expect runoff on most soils ' +
+        'unless run in short cycles (common practice, no source).',
     );
   }
   return { minutesPerWeek, minutesPerWateringDay, cycleSoak, cautions };

@@ -25,7 +25,8 @@ const quarter = { kind: 'fixed-fraction', fraction: 0.25 } as const;
 describe('zoneBudgetForDay', () => {
   it('computes gross, rain credit and budget by hand', () => {
     // ETo 5.08 mm = 0.2 in. Gross = 0.2 × 0.5 × 1000 × 144/231 ÷ 0.75 = 83.117 gal.
-    // Rain 2.54 mm × 25 % = 0.635 mm = 0.025 in. Credit = 0.025 × 1000 × 144/231 ÷ 0.75 = 20.779 gal. Budget 62.338 gal.
+    // Rain 2.54 mm × 25 % = 0.635 mm = 0.025 in. Credit = 0.025 × 1000 × 144/231 ÷ 0.75 = 20.779 gal. Budget 62.338
+    // gal.
     const b = zoneBudgetForDay(lawn, { date: '2026-07-01', etoMm: 5.08, rainMm: 2.54 }, quarter);
     expect(b.grossGallons).toBeCloseTo(83.117, 3);
     expect(b.rainCreditGallons).toBeCloseTo(20.779, 3);

@@ -52,7 +52,8 @@ describe('createIntervalWideReader', () => {
         row: 4,
         column: 5,
         message:
-          'Hr 03: this clock time does not exist on 2026-03-08 in America/Los_Angeles (clocks spring forward); it should be empty',
+          'Hr 03: this clock time does not exist on 2026-03-08 in America/Los_Angeles ' +
+          '(clocks spring forward); it should be empty',
       },
     ]);
   });

@@ -54,7 +54,8 @@ export function createIntervalWideReader(mapping: ColumnMapping, options: ReadOp
                 mapping,
                 row,
                 col,
-                `this clock time does not exist on ${key.slice(0, 10)} in ${options.timeZone} (clocks spring forward); it should be empty`,
+                `this clock time does not exist on ${key.slice(0, 10)} in ${options.timeZone} ` +
+                  '(clocks spring forward); it should be empty',
               ),
             );
           }

@@ -65,7 +65,8 @@ describe('createInstantResolver: spring-forward', () => {
     expect(result).toEqual({
       ok: false,
       message:
-        "2026-03-08 02:30 does not exist in America/Denver (clocks spring forward past it); check the export's clock or the site's time zone",
+        '2026-03-08 02:30 does not exist in America/Denver (clocks spring ' +
+        "forward past it); check the export's clock or the site's time zone",
     });
   });
 });

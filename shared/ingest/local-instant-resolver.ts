@@ -17,7 +17,10 @@ export type ResolvedInstant = { ok: true; utcMs: number } | { ok: false; message
 type ParsedOk = Extract<ParsedTimestamp, { ok: true }>;
 
 export function springGapMessage(wall: WallTime, zone: string): string {
-  return `${formatWallTime(wall)} does not exist in ${zone} (clocks spring forward past it); check the export's clock or the site's time zone`;
+  return (
+    `${formatWallTime(wall)} does not exist in ${zone} (clocks spring ` +
+    "forward past it); check the export's clock or the site's time zone"
+  );
 }
 
 export interface InstantResolver {

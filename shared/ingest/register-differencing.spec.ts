@@ -81,26 +81,29 @@ describe('differenceRegisterReads', () => {
     expect(out.problems).toMatchObject([{ kind: 'meter-swap', severity: 'notice', atUtc: swap }]);
   });
 
-  it('a read after removal with no new register, an oversize read, a duplicate and an unsorted read are reported', () => {
-    const registers = [register({ removedUtc: '2026-10-15T00:00:00.000Z' })];
-    const out = differenceRegisterReads({ meterRef: 'M', registers }, [
-      read('06-01', 100),
-      read('06-01', 101),
-      read('05-01', 90),
-      read('07-01', 12345),
-      read('08-01', 150),
-      read('11-01', 160),
-      read('08-02', 151, 'OTHER'),
-    ]);
-    expect(out.problems.map((p) => p.kind)).toEqual([
-      'duplicate',
-      'not-sorted',
-      'too-many-digits',
-      'outside-install',
-      'other-meter',
-    ]);
-    expect(out.volumes.map((v) => v.volume)).toEqual([50]);
-  });
+  it(
+    'a read after removal with no new register, an oversize read, ' + 'a duplicate and an unsorted read are reported',
+    () => {
+      const registers = [register({ removedUtc: '2026-10-15T00:00:00.000Z' })];
+      const out = differenceRegisterReads({ meterRef: 'M', registers }, [
+        read('06-01', 100),
+        read('06-01', 101),
+        read('05-01', 90),
+        read('07-01', 12345),
+        read('08-01', 150),
+        read('11-01', 160),
+        read('08-02', 151, 'OTHER'),
+      ]);
+      expect(out.problems.map((p) => p.kind)).toEqual([
+        'duplicate',
+        'not-sorted',
+        'too-many-digits',
+        'outside-install',
+        'other-meter',
+      ]);
+      expect(out.volumes.map((v) => v.volume)).toEqual([50]);
+    },
+  );
 
   it('a unit change between reads is not differenced', () => {
     const out = differenceRegisterReads({ meterRef: 'M', registers: [register()] }, [

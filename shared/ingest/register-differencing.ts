@@ -131,7 +131,8 @@ export function differenceRegisterReads(facts: MeterRegisterFacts, reads: Regist
         problem(
           'negative',
           read,
-          `register went down from ${prev.read.value} to ${read.value}, which is not a plausible rollover; not differenced`,
+          `register went down from ${prev.read.value} to ${read.value}, ` +
+            'which is not a plausible rollover; not differenced',
         );
         prev = current;
         continue;

@@ -61,7 +61,8 @@ describe('createRuntimeReader', () => {
 
   it('a run across the fall-back hour lasts its real elapsed time', () => {
     const reader = createRuntimeReader(withEnd, { timeZone: 'America/Denver', now });
-    // 00:50 MDT → 01:20 in the second (MST) pass would be 90 min; the reader picks the first end after the start: 30 min.
+    // 00:50 MDT → 01:20 in the second (MST) pass would be 90 min; the reader picks the first end after the start: 30
+    // min.
     expect(reader.read(['C', '1', '2026-11-01', '00:50', '01:20'], 2)).toMatchObject({
       ok: true,
       record: { minutes: 30 },

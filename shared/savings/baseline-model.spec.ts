@@ -51,14 +51,18 @@ describe('baseline model', () => {
     expect(model.coefficients[1]!.value).toBeCloseTo(400, 8);
   });
 
-  it('when the per-day model is fitted to noisy totals, then weighting by days keeps the totals unbiased (NMBE ≈ 0)', () => {
-    const model = fitBaselineModel(
-      year((i) => 60 * DAYS[i]! + 400 * ETO[i]! - 100 * RAIN[i]! + NOISE[i]!),
-      'eto-rain-per-day',
-    );
-    expect(Math.abs(model.statistics.nmbePercent)).toBeLessThan(1e-9);
-    expect(model.statistics.cvRmsePercent).toBeGreaterThan(0.5);
-  });
+  it(
+    'when the per-day model is fitted to noisy totals, then weighting ' +
+      'by days keeps the totals unbiased (NMBE ≈ 0)',
+    () => {
+      const model = fitBaselineModel(
+        year((i) => 60 * DAYS[i]! + 400 * ETO[i]! - 100 * RAIN[i]! + NOISE[i]!),
+        'eto-rain-per-day',
+      );
+      expect(Math.abs(model.statistics.nmbePercent)).toBeLessThan(1e-9);
+      expect(model.statistics.cvRmsePercent).toBeGreaterThan(0.5);
+    },
+  );
 
   it('when predicting the baseline weather, then the prediction equals the fitted values', () => {
     const baseline = year((i) => 2000 + 400 * ETO[i]! - 120 * RAIN[i]! + NOISE[i]!);

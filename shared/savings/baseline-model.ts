@@ -95,7 +95,8 @@ export function fitBaselineModel(baseline: readonly MeteredPeriod[], form: Basel
     if (error instanceof CollinearColumnsError) {
       const term = ['base use', 'ETo', 'rain'][error.columnIndex];
       throw new RangeError(
-        `The baseline cannot separate the effect of ${term}: it is constant or tracks the other terms in every baseline period` +
+        `The baseline cannot separate the effect of ${term}: it is constant ` +
+          'or tracks the other terms in every baseline period' +
           (term === 'rain' ? ' (no rain in the baseline?); use a model without rain' : ''),
       );
     }

@@ -19,28 +19,31 @@ describe('least squares by QR', () => {
     expect(fit.residualVariance).toBeLessThan(1e-20);
   });
 
-  it('when fitting x = 1..4, y = 2, 4.1, 5.9, 8.2, then slope, intercept and (XᵀX)⁻¹ match the hand calculation', () => {
-    // x̄ = 2.5, ȳ = 5.05, Sxy = 10.2, Sxx = 5 → slope 2.04, intercept 5.05 − 2.04·2.5 = −0.05.
-    // XᵀX = [[4, 10], [10, 30]], det 20 → inverse [[1.5, −0.5], [−0.5, 0.2]].
-    // Residuals −0.09, 0.17, −0.07, −0.01 → SSE 0.042, σ̂² = 0.042/2 = 0.021.
-    const fit = solveLeastSquares(
-      [
-        [1, 1],
-        [1, 2],
-        [1, 3],
-        [1, 4],
-      ],
-      [2, 4.1, 5.9, 8.2],
-    );
-    expect(fit.coefficients[0]).toBeCloseTo(-0.05, 12);
-    expect(fit.coefficients[1]).toBeCloseTo(2.04, 12);
-    expect(fit.unscaledCovariance[0]![0]).toBeCloseTo(1.5, 12);
-    expect(fit.unscaledCovariance[0]![1]).toBeCloseTo(-0.5, 12);
-    expect(fit.unscaledCovariance[1]![0]).toBeCloseTo(-0.5, 12);
-    expect(fit.unscaledCovariance[1]![1]).toBeCloseTo(0.2, 12);
-    expect(fit.residualVariance).toBeCloseTo(0.021, 12);
-    expect(fit.standardErrors[1]).toBeCloseTo(Math.sqrt(0.021 * 0.2), 12);
-  });
+  it(
+    'when fitting x = 1..4, y = 2, 4.1, 5.9, 8.2, then slope, intercept ' + 'and (XᵀX)⁻¹ match the hand calculation',
+    () => {
+      // x̄ = 2.5, ȳ = 5.05, Sxy = 10.2, Sxx = 5 → slope 2.04, intercept 5.05 − 2.04·2.5 = −0.05.
+      // XᵀX = [[4, 10], [10, 30]], det 20 → inverse [[1.5, −0.5], [−0.5, 0.2]].
+      // Residuals −0.09, 0.17, −0.07, −0.01 → SSE 0.042, σ̂² = 0.042/2 = 0.021.
+      const fit = solveLeastSquares(
+        [
+          [1, 1],
+          [1, 2],
+          [1, 3],
+          [1, 4],
+        ],
+        [2, 4.1, 5.9, 8.2],
+      );
+      expect(fit.coefficients[0]).toBeCloseTo(-0.05, 12);
+      expect(fit.coefficients[1]).toBeCloseTo(2.04, 12);
+      expect(fit.unscaledCovariance[0]![0]).toBeCloseTo(1.5, 12);
+      expect(fit.unscaledCovariance[0]![1]).toBeCloseTo(-0.5, 12);
+      expect(fit.unscaledCovariance[1]![0]).toBeCloseTo(-0.5, 12);
+      expect(fit.unscaledCovariance[1]![1]).toBeCloseTo(0.2, 12);
+      expect(fit.residualVariance).toBeCloseTo(0.021, 12);
+      expect(fit.standardErrors[1]).toBeCloseTo(Math.sqrt(0.021 * 0.2), 12);
+    },
+  );
 
   it('when a row has weight 2, then it fits exactly as if the row were given twice', () => {
     const rows = [

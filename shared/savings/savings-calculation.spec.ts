@@ -36,21 +36,27 @@ describe('weather-normalised savings', () => {
     'eto-rain',
   );
 
-  it('when the site uses 70 % of what the baseline predicts in a hotter year, then savings are 30 % of the prediction', () => {
-    // A hotter reporting year (+5 mm ETo each month): comparing raw use would understate the savings.
-    const hotter = months(() => 0, 5);
-    const predicted = hotter.map(
-      (p) =>
-        model.coefficients[0]!.value + model.coefficients[1]!.value * p.etoMm + model.coefficients[2]!.value * p.rainMm,
-    );
-    const reporting = hotter.map((p, i) => ({ ...p, useGal: 0.7 * predicted[i]! }));
-    const savings = calculateSavings(model, reporting);
-    expect(savings.savedPercent).toBeCloseTo(30, 10);
-    expect(savings.savedGal).toBeCloseTo(0.3 * savings.predictedGal, 6);
-    expect(savings.periods[6]!.savedGal).toBeCloseTo(0.3 * predicted[6]!, 6);
-    expect(savings.reportingDays).toBe(365);
-    expect(savings.warnings).toEqual([]);
-  });
+  it(
+    'when the site uses 70 % of what the baseline predicts in a hotter ' +
+      'year, then savings are 30 % of the prediction',
+    () => {
+      // A hotter reporting year (+5 mm ETo each month): comparing raw use would understate the savings.
+      const hotter = months(() => 0, 5);
+      const predicted = hotter.map(
+        (p) =>
+          model.coefficients[0]!.value +
+          model.coefficients[1]!.value * p.etoMm +
+          model.coefficients[2]!.value * p.rainMm,
+      );
+      const reporting = hotter.map((p, i) => ({ ...p, useGal: 0.7 * predicted[i]! }));
+      const savings = calculateSavings(model, reporting);
+      expect(savings.savedPercent).toBeCloseTo(30, 10);
+      expect(savings.savedGal).toBeCloseTo(0.3 * savings.predictedGal, 6);
+      expect(savings.periods[6]!.savedGal).toBeCloseTo(0.3 * predicted[6]!, 6);
+      expect(savings.reportingDays).toBe(365);
+      expect(savings.warnings).toEqual([]);
+    },
+  );
 
   it('when priced at $5/CCF plus a fixed charge, then money saved is $5 × CCF saved (the fixed charge cancels)', () => {
     const reporting = months((i) => 0.8 * truth(i));
@@ -70,14 +76,18 @@ describe('weather-normalised savings', () => {
     expect(savings.periods[0]!.savedMoney).toBeNull();
   });
 
-  it('when the reporting weather is far outside the baseline, then it warns of extrapolation and negative predictions', () => {
-    const odd: MeteredPeriod[] = [{ label: 'Deluge', days: 30, etoMm: 20, rainMm: 400, useGal: 0 }];
-    const savings = calculateSavings(model, odd, { price: (gal) => costOfVolume(uniform, gal).total });
-    expect(savings.warnings.join(' ')).toMatch(/negative use for Deluge/);
-    expect(savings.warnings.join(' ')).toMatch(/Deluge is outside the baseline's range/);
-    // Negative predicted use is priced as none: no money saved, no exception from the rate engine.
-    expect(savings.savedMoney).toBe(0);
-  });
+  it(
+    'when the reporting weather is far outside the baseline, then ' +
+      'it warns of extrapolation and negative predictions',
+    () => {
+      const odd: MeteredPeriod[] = [{ label: 'Deluge', days: 30, etoMm: 20, rainMm: 400, useGal: 0 }];
+      const savings = calculateSavings(model, odd, { price: (gal) => costOfVolume(uniform, gal).total });
+      expect(savings.warnings.join(' ')).toMatch(/negative use for Deluge/);
+      expect(savings.warnings.join(' ')).toMatch(/Deluge is outside the baseline's range/);
+      // Negative predicted use is priced as none: no money saved, no exception from the rate engine.
+      expect(savings.savedMoney).toBe(0);
+    },
+  );
 
   it('when the confidence changes, then the interval scales by the t ratio and the standard error does not', () => {
     const reporting = months((i) => 0.8 * truth(i));
@@ -129,11 +139,15 @@ describe('savings uncertainty', () => {
     return covered / worlds;
   }
 
-  it('when residuals are independent with constant variance, then the 68 % interval covers the truth ~68 % of the time', () => {
-    const share = coverage('eto-rain', 0.68, () => 1500);
-    expect(share).toBeGreaterThan(0.64);
-    expect(share).toBeLessThan(0.72);
-  });
+  it(
+    'when residuals are independent with constant variance, then ' +
+      'the 68 % interval covers the truth ~68 % of the time',
+    () => {
+      const share = coverage('eto-rain', 0.68, () => 1500);
+      expect(share).toBeGreaterThan(0.64);
+      expect(share).toBeLessThan(0.72);
+    },
+  );
 
   it('when the interval is 90 %, then it covers ~90 % of the time', () => {
     const share = coverage('eto', 0.9, () => 1500);

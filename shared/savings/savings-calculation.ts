@@ -76,7 +76,8 @@ export function calculateSavings(
   const negative = periods.filter((p) => p.predictedGal < 0).map((p) => p.label);
   if (negative.length > 0) {
     warnings.push(
-      `The baseline model predicts negative use for ${negative.join(', ')}; its weather lies outside what the baseline saw.`,
+      `The baseline model predicts negative use for ${negative.join(', ')}; ` +
+        'its weather lies outside what the baseline saw.',
     );
   }
   const [low, high] = model.etoPerDayRange;

@@ -52,16 +52,19 @@ describe('Guideline 14 verdict', () => {
     expect(verdict.reasons.join(' ')).toMatch(/uncertain by ±\d+ % of their size at 68 % confidence/);
   });
 
-  it('when CV(RMSE) fails but the savings are large and certain, then the uncertainty route still allows the claim', () => {
-    const model = fit(12);
-    const verdict = judgeSavings(model, calculateSavings(model, reportingAt(0.3)));
-    expect(verdict.baselineModelAcceptable).toBe(false);
-    expect(verdict.route).toBe('uncertainty');
-    expect(verdict.canClaimSavings).toBe(true);
-    expect(verdict.summary).toMatch(
-      /uncertainty route.*although the baseline's CV\(RMSE\) of \d+\.\d % is above the 25 %/,
-    );
-  });
+  it(
+    'when CV(RMSE) fails but the savings are large and certain, then ' + 'the uncertainty route still allows the claim',
+    () => {
+      const model = fit(12);
+      const verdict = judgeSavings(model, calculateSavings(model, reportingAt(0.3)));
+      expect(verdict.baselineModelAcceptable).toBe(false);
+      expect(verdict.route).toBe('uncertainty');
+      expect(verdict.canClaimSavings).toBe(true);
+      expect(verdict.summary).toMatch(
+        /uncertainty route.*although the baseline's CV\(RMSE\) of \d+\.\d % is above the 25 %/,
+      );
+    },
+  );
 
   it('when savings were computed at 90 % confidence, then the uncertainty check is still judged at 68 %', () => {
     const model = fit(12);
@@ -87,15 +90,19 @@ describe('Guideline 14 verdict', () => {
     expect(verdict.route === 'prescriptive').toBe(false);
   });
 
-  it('when savings are 1 % with a good model, then it says the model is fine but the savings are too small to stand out', () => {
-    const model = fit(1);
-    const verdict = judgeSavings(model, calculateSavings(model, reportingAt(0.99)));
-    expect(verdict.baselineModelAcceptable).toBe(true);
-    expect(verdict.canClaimSavings).toBe(false);
-    expect(verdict.summary).toMatch(
-      /^The baseline model meets Guideline 14, but the savings cannot be claimed because the savings \(1\.0 %\) are not above 10 %.*uncertain by ±\d+ %/,
-    );
-  });
+  it(
+    'when savings are 1 % with a good model, then it says the model ' +
+      'is fine but the savings are too small to stand out',
+    () => {
+      const model = fit(1);
+      const verdict = judgeSavings(model, calculateSavings(model, reportingAt(0.99)));
+      expect(verdict.baselineModelAcceptable).toBe(true);
+      expect(verdict.canClaimSavings).toBe(false);
+      expect(verdict.summary).toMatch(
+        /^The baseline model meets Guideline 14, but the savings cannot be claimed because the savings \(1\.0 %\) are not above 10 %.*uncertain by ±\d+ %/,
+      );
+    },
+  );
 
   it('when use went up, then there are no savings to claim', () => {
     const model = fit(1);

@@ -125,12 +125,15 @@ export function judgeSavings(model: BaselineModel, savings: SavingsResult): Savi
   const reasons: string[] = [];
   if (!saved) {
     reasons.push(
-      `the site used ${Math.round(-savings.savedGal).toLocaleString('en-US')} gal more than the weather-adjusted baseline predicts, so there are no savings`,
+      `the site used ${Math.round(-savings.savedGal).toLocaleString('en-US')} ` +
+        'gal more than the weather-adjusted baseline predicts, so there are no savings',
     );
   } else if (route === null) {
     if (!cv.passed)
       reasons.push(
-        `its CV(RMSE) is ${pct(cvRmsePercent)}, above the ${cvLimit.maxPercent} % Guideline 14 allows ${cvLimit.describe}: use scatters too much around the weather line`,
+        `its CV(RMSE) is ${pct(cvRmsePercent)}, above the ${cvLimit.maxPercent} ` +
+          `% Guideline 14 allows ${cvLimit.describe}: use scatters too ` +
+          'much around the weather line',
       );
     if (!nmbe.passed)
       reasons.push(
@@ -144,7 +147,8 @@ export function judgeSavings(model: BaselineModel, savings: SavingsResult): Savi
       reasons.push(
         fsu68 === null
           ? 'the savings uncertainty could not be computed'
-          : `the savings are uncertain by ±${pct(100 * fsu68, 0)} of their size at 68 % confidence, more than the ${100 * MAX_FRACTIONAL_UNCERTAINTY} % allowed`,
+          : `the savings are uncertain by ±${pct(100 * fsu68, 0)} of their ` +
+              `size at 68 % confidence, more than the ${100 * MAX_FRACTIONAL_UNCERTAINTY} % allowed`,
       );
     }
   }
@@ -152,24 +156,30 @@ export function judgeSavings(model: BaselineModel, savings: SavingsResult): Savi
   const warnings = [...savings.warnings];
   if (model.baselineDays < MIN_BASELINE_DAYS) {
     warnings.push(
-      `The baseline covers ${model.baselineDays} days (about ${(model.baselineDays / DAYS_PER_MONTH).toFixed(1)} months); IPMVP expects about 12 months so every season is in it.`,
+      `The baseline covers ${model.baselineDays} days (about ${(model.baselineDays / DAYS_PER_MONTH).toFixed(1)} ` +
+        'months); IPMVP expects about 12 months so every season is in it.',
     );
   }
   const rho = model.residualLagOneAutocorrelation;
   if (rho !== null && rho > MAX_COMFORTABLE_AUTOCORRELATION) {
     warnings.push(
-      `Consecutive residuals are correlated (lag-1 ${rho.toFixed(2)}), so the stated uncertainty is probably too small.`,
+      `Consecutive residuals are correlated (lag-1 ${rho.toFixed(2)}), ` +
+        'so the stated uncertainty is probably too small.',
     );
   }
 
   const canClaimSavings = route !== null;
   const summary = canClaimSavings
     ? route === 'prescriptive'
-      ? `The baseline model meets Guideline 14 (CV(RMSE) ${pct(cvRmsePercent)}, NMBE ${pct(nmbePercent, 4)}) and the savings of ${pct(savings.savedPercent ?? 0)} can be claimed.`
-      : `The savings of ${pct(savings.savedPercent ?? 0)} can be claimed on Guideline 14's uncertainty route: ±${pct(100 * fsu68!, 0)} of the savings at 68 % confidence` +
+      ? `The baseline model meets Guideline 14 (CV(RMSE) ${pct(cvRmsePercent)}, ` +
+        `NMBE ${pct(nmbePercent, 4)}) and the savings of ${pct(savings.savedPercent ?? 0)} can be claimed.`
+      : `The savings of ${pct(savings.savedPercent ?? 0)} can be claimed ` +
+        `on Guideline 14's uncertainty route: ±${pct(100 * fsu68!, 0)} ` +
+        'of the savings at 68 % confidence' +
         (cv.passed
           ? '.'
-          : `, although the baseline's CV(RMSE) of ${pct(cvRmsePercent)} is above the ${cvLimit.maxPercent} % prescriptive limit.`)
+          : `, although the baseline's CV(RMSE) of ${pct(cvRmsePercent)} ` +
+            `is above the ${cvLimit.maxPercent} % prescriptive limit.`)
     : !saved
       ? `No savings to claim: ${reasons[0]}.`
       : baselineModelAcceptable

@@ -17,14 +17,16 @@ export const DEFAULT_THRESHOLDS = {
     value: 15,
     unit: 'min',
     explanation:
-      'Controller clocks drift; the watch looks this many minutes either way for the shift that best lines runs up with metered water (0 turns it off).',
+      'Controller clocks drift; the watch looks this many minutes either ' +
+      'way for the shift that best lines runs up with metered water (0 turns it off).',
   },
   // Leak: continuous flow
   continuousFlowHours: {
     value: 24,
     unit: 'h',
     explanation:
-      'Flag a leak when the meter shows flow in every hour for at least this long (interval-meter rule of thumb; common practice, no source).',
+      'Flag a leak when the meter shows flow in every hour for at least ' +
+      'this long (interval-meter rule of thumb; common practice, no source).',
   },
   continuousFlowMinGph: {
     value: 0,
@@ -61,7 +63,8 @@ export const DEFAULT_THRESHOLDS = {
     value: 4,
     unit: '× spread',
     explanation:
-      "A night is high when its lowest flow is more than this many spreads (scaled MAD) above the site's usual lowest flow.",
+      'A night is high when its lowest flow is more than this many ' +
+      "spreads (scaled MAD) above the site's usual lowest flow.",
   },
   nightFlowMinExcessGph: {
     value: 3,
@@ -79,7 +82,8 @@ export const DEFAULT_THRESHOLDS = {
     value: 1.5,
     unit: '× budget',
     explanation:
-      'For sites read once a month: a month using this many times its budget or more is flagged as a likely leak (common practice, no source).',
+      'For sites read once a month: a month using this many times its ' +
+      'budget or more is flagged as a likely leak (common practice, no source).',
   },
   // Runaway zone: over-volume
   overVolumeRatio: {
@@ -97,7 +101,11 @@ export const DEFAULT_THRESHOLDS = {
     value: 0.2,
     unit: 'share',
     explanation:
-      "With only the site meter, an hour of watering counts as normal within this share of design (design flows on record are often 15–20 % off; common practice, no source). Extra water is pinned on a zone only when its own hours are heavier than this and the watering's other hours are not.",
+      'With only the site meter, an hour of watering counts as normal ' +
+      'within this share of design (design flows on record are often ' +
+      '15–20 % off; common practice, no source). Extra water is pinned ' +
+      'on a zone only when its own hours are heavier than this and ' +
+      "the watering's other hours are not.",
   },
   overVolumeMinRuns: {
     value: 2,
@@ -109,13 +117,15 @@ export const DEFAULT_THRESHOLDS = {
     value: 5,
     unit: '× spread',
     explanation:
-      "A run is long when it exceeds the zone's usual run by more than this many spreads (scaled MAD) of its recent runs.",
+      "A run is long when it exceeds the zone's usual run by more than " +
+      'this many spreads (scaled MAD) of its recent runs.',
   },
   longRunMinRatio: {
     value: 1.5,
     unit: '× usual',
     explanation:
-      "A run must also be at least this many times the zone's usual run to count as long, so weather-driven changes are not flagged.",
+      "A run must also be at least this many times the zone's usual " +
+      'run to count as long, so weather-driven changes are not flagged.',
   },
   longRunHistoryRuns: {
     value: 30,
@@ -137,7 +147,8 @@ export const DEFAULT_THRESHOLDS = {
     value: 0.5,
     unit: '× smallest zone flow',
     explanation:
-      "Flow during the watering window with no zone running, at this share of the smallest zone's design flow or more, looks like a valve stuck open.",
+      'Flow during the watering window with no zone running, at this ' +
+      "share of the smallest zone's design flow or more, looks like a valve stuck open.",
   },
   openValveFallbackGpm: {
     value: 2,
@@ -169,7 +180,10 @@ export const DEFAULT_THRESHOLDS = {
     value: 14,
     unit: 'days',
     explanation:
-      'The recent pace is the average daily use over this many latest days of the month; two whole weeks, so every-other-day and weekly schedules do not swing it. The month-end projection is judged from this day of the month on.',
+      'The recent pace is the average daily use over this many latest ' +
+      'days of the month; two whole weeks, so every-other-day and weekly ' +
+      'schedules do not swing it. The month-end projection is judged ' +
+      'from this day of the month on.',
   },
   // Silent meter
   silentHours: {

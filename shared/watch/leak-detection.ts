@@ -54,7 +54,10 @@ export function detectContinuousFlow(timeline: readonly TimelineHour[], ctx: Wat
           },
         ],
         waterLostGal: lost,
-        explanation: `The meter never stopped for ${hours} hours in a row and never read below ${gal(floorGph)} an hour, so about ${gal(lost)} went to a leak or a valve that does not close.`,
+        explanation:
+          `The meter never stopped for ${hours} hours in a row and never ` +
+          `read below ${gal(floorGph)} an hour, so about ${gal(lost)} went ` +
+          'to a leak or a valve that does not close.',
         pricingMonth: episode[0]!.local.month,
       },
       ctx.site,
@@ -148,7 +151,10 @@ export function detectNightFlow(timeline: readonly TimelineHour[], ctx: WatchCon
           },
         ],
         waterLostGal: lost,
-        explanation: `For ${episode.length} nights the quietest hour still used ${gal(recent)}, against a usual ${gal(baseline.median)}; something is running that no zone explains, about ${gal(lost)} so far.`,
+        explanation:
+          `For ${episode.length} nights the quietest hour still used ${gal(recent)}, ` +
+          `against a usual ${gal(baseline.median)}; something is running ` +
+          `that no zone explains, about ${gal(lost)} so far.`,
         pricingMonth:
           timeline.find((h) => h.startUtc === first.low.firstUtc)?.local.month ?? first.low.night.slice(0, 7),
       },
@@ -201,7 +207,10 @@ export function detectMonthOverBudget(monthlyUse: readonly MonthlyUse[], ctx: Wa
             },
           ],
           waterLostGal: lost,
-          explanation: `${use.month} used ${gal(use.gallons)}, ${ratio.toFixed(1)} times its ${gal(budget)} budget; with only monthly reads this much extra usually means a leak.`,
+          explanation:
+            `${use.month} used ${gal(use.gallons)}, ${ratio.toFixed(1)} times ` +
+            `its ${gal(budget)} budget; with only monthly reads this much ` +
+            'extra usually means a leak.',
           pricingMonth: use.month,
         },
         ctx.site,

@@ -108,11 +108,18 @@ export function detectOverspend(timeline: readonly TimelineHour[], ctx: WatchCon
       const explanation =
         subKind === 'month-to-date'
           ? stillOver
-            ? `By ${latest.date} the site had used ${gal(latest.useSoFar)} this month against ${gal(latest.proratedBudget)} budgeted for those days (${percent} %).`
-            : `Over its budget so far on ${flaggedDays}; by ${latest.date} ${gal(latest.useSoFar)} against ${gal(latest.proratedBudget)} budgeted for those days (${percent} %), under the alert line again.`
+            ? `By ${latest.date} the site had used ${gal(latest.useSoFar)} ` +
+              `this month against ${gal(latest.proratedBudget)} budgeted for ` +
+              `those days (${percent} %).`
+            : `Over its budget so far on ${flaggedDays}; by ${latest.date} ` +
+              `${gal(latest.useSoFar)} against ${gal(latest.proratedBudget)} ` +
+              `budgeted for those days (${percent} %), under the alert line again.`
           : stillOver
-            ? `At the pace of the last days, ${month} would end near ${gal(latest.projected)}, over its ${gal(budget)} budget by ${gal(projectedExtra)}.`
-            : `On ${flaggedDays} the pace pointed past ${month}'s ${gal(budget)} budget; by ${latest.date} it pointed to about ${gal(latest.projected)}, under the alert line again.`;
+            ? `At the pace of the last days, ${month} would end near ${gal(latest.projected)}, ` +
+              `over its ${gal(budget)} budget by ${gal(projectedExtra)}.`
+            : `On ${flaggedDays} the pace pointed past ${month}'s ${gal(budget)} ` +
+              `budget; by ${latest.date} it pointed to about ${gal(latest.projected)}, ` +
+              'under the alert line again.';
       findings.push(
         completeFinding(
           {

@@ -115,7 +115,11 @@ export function detectLongRuns(runs: readonly ZoneRun[], ctx: WatchContext): Fin
               },
             ],
             waterLostGal: lost,
-            explanation: `${zoneName(ctx.zones, zone.zoneId)} ran up to ${longest} minutes where it usually runs ${Math.round(usual)}, ${episode.length} time${episode.length === 1 ? '' : 's'}, about ${gal(lost)} extra: check the program, the seasonal adjustment and the valve.`,
+            explanation:
+              `${zoneName(ctx.zones, zone.zoneId)} ran up to ${longest} minutes ` +
+              `where it usually runs ${Math.round(usual)}, ${episode.length} ` +
+              `time${episode.length === 1 ? '' : 's'}, about ${gal(lost)} extra: ` +
+              'check the program, the seasonal adjustment and the valve.',
             pricingMonth: localHourOf(first.run.startUtc, ctx.site.timeZone).month,
           },
           ctx.site,
@@ -185,7 +189,12 @@ export function detectOpenValve(timeline: readonly TimelineHour[], ctx: WatchCon
           },
         ],
         waterLostGal: lost,
-        explanation: `Water flowed at about ${gal(rateGph)} an hour in the watering window while the controller ran no zone${likely ? ` (close to ${zoneName(ctx.zones, likely.zoneId)}'s flow)` : ''}: a valve is probably stuck open, about ${gal(lost)} so far.`,
+        explanation:
+          `Water flowed at about ${gal(rateGph)} an hour in the watering ` +
+          'window while the controller ran no zone' +
+          (likely ? ` (close to ${zoneName(ctx.zones, likely.zoneId)}'s flow)` : '') +
+          ': ' +
+          `a valve is probably stuck open, about ${gal(lost)} so far.`,
         pricingMonth: episode[0]!.local.month,
       },
       ctx.site,

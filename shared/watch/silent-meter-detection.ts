@@ -45,7 +45,9 @@ export function detectNoReads(timeline: readonly TimelineHour[], ctx: WatchConte
           series: [],
           waterLostGal: null,
           severity: 'act-soon',
-          explanation: `No readings for ${(hours / 24).toFixed(1)} days${g.ongoing ? ' and counting' : ''}; until the meter reports again no leak or overspend can be seen.`,
+          explanation:
+            `No readings for ${(hours / 24).toFixed(1)} days${g.ongoing ? ' and counting' : ''}; ` +
+            'until the meter reports again no leak or overspend can be seen.',
           pricingMonth: g.month,
         },
         ctx.site,
@@ -111,7 +113,10 @@ export function detectZeroWhileRunning(timeline: readonly TimelineHour[], ctx: W
         ],
         waterLostGal: null,
         severity: 'act-soon',
-        explanation: `On ${episode.length} watering days the zones should have drawn ${formatVolume(unmeasured, 'gal')} but the meter read next to nothing: it is broken or bypassed.`,
+        explanation:
+          `On ${episode.length} watering days the zones should have drawn ` +
+          `${formatVolume(unmeasured, 'gal')} but the meter read next to ` +
+          'nothing: it is broken or bypassed.',
         pricingMonth: timeline.find((h) => h.startUtc === first.first)!.local.month,
       },
       ctx.site,

@@ -156,7 +156,10 @@ export function detectOverVolume(
           },
         ],
         waterLostGal: lost,
-        explanation: `${zoneName(ctx.zones, zoneId)} used ${ratio.toFixed(1)} times its design flow on ${episode.length} runs in a row, about ${formatVolume(lost, 'gal')} extra: look for a broken pipe, a missing nozzle or a split drip line.`,
+        explanation:
+          `${zoneName(ctx.zones, zoneId)} used ${ratio.toFixed(1)} times ` +
+          `its design flow on ${episode.length} runs in a row, about ${formatVolume(lost, 'gal')} ` +
+          'extra: look for a broken pipe, a missing nozzle or a split drip line.',
         pricingMonth: localHourOf(firstRun.startUtc, ctx.site.timeZone).month,
       });
     }
@@ -207,6 +210,9 @@ function mergeSuspects(group: FindingDraft[]): FindingDraft {
     ongoing: group.some((d) => d.ongoing),
     evidence: { ...biggest.evidence, suspectZones: zones.length },
     series: group.flatMap((d) => d.series),
-    explanation: `One of zones ${list} used about ${biggest.evidence['medianRatio']!.toFixed(1)} times its design flow on several runs in a row, about ${formatVolume(lost, 'gal')} extra; they share the same meter hours, so walk all of them.`,
+    explanation:
+      `One of zones ${list} used about ${biggest.evidence['medianRatio']!.toFixed(1)} ` +
+      `times its design flow on several runs in a row, about ${formatVolume(lost, 'gal')} ` +
+      'extra; they share the same meter hours, so walk all of them.',
   };
 }

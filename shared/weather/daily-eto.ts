@@ -198,7 +198,8 @@ export function computeDailyEto(obs: DailyWeatherObservation, site: WeatherStati
     if (heightM !== 2) notes.push(`Wind measured at ${heightM} m converted to 2 m (FAO-56 Eq. 47).`);
     if (windSpeed2mMs < MINIMUM_WIND_SPEED_2M) {
       notes.push(
-        `Wind at 2 m raised from ${windSpeed2mMs.toFixed(2)} to ${MINIMUM_WIND_SPEED_2M} m/s (FAO-56 p.63 lower limit).`,
+        `Wind at 2 m raised from ${windSpeed2mMs.toFixed(2)} to ${MINIMUM_WIND_SPEED_2M} ` +
+          'm/s (FAO-56 p.63 lower limit).',
       );
       windSpeed2mMs = MINIMUM_WIND_SPEED_2M;
     }

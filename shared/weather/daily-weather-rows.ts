@@ -30,7 +30,8 @@ export interface InterpretedRows {
   issues: RowIssue[];
 }
 
-// A day's rain above this is a unit or typing mistake (the wettest recorded days are near 1,800 mm): common practice, no source.
+// A day's rain above this is a unit or typing mistake (the wettest recorded days are near 1,800 mm): common practice,
+// no source.
 export const RAIN_DAILY_MAX_MM = 2000;
 const MM_PER_INCH = 25.4;
 

@@ -54,8 +54,15 @@ export function describeEffectiveRainMethod(method: EffectiveRainMethod): string
     case 'none':
       return 'Rain is not credited: the budget is the full irrigation requirement.';
     case 'fixed-fraction':
-      return `${Math.round(method.fraction * 1000) / 10} % of each day's rain is credited (MWELO allows local agencies 25 % of annual precipitation).`;
+      return (
+        `${Math.round(method.fraction * 1000) / 10} % of each day's rain ` +
+        'is credited (MWELO allows local agencies 25 % of annual precipitation).'
+      );
     case 'threshold':
-      return `Rain under ${method.minimumMm} mm on a day is ignored; rain above it is credited up to that day's plant water demand (common practice, no published source).`;
+      return (
+        `Rain under ${method.minimumMm} mm on a day is ignored; rain ` +
+        "above it is credited up to that day's plant water demand (common " +
+        'practice, no published source).'
+      );
   }
 }

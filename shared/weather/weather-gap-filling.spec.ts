@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { fillWeatherGaps, type MonthlyWeatherNormal } from './weather-gap-filling';
 
-// Invented normals: 124 mm ETo and 31 mm rain in January (4 and 1 mm/d), 56 mm and 28 mm in February 2025 (2 and 1 mm/d).
+// Invented normals: 124 mm ETo and 31 mm rain in January (4 and 1 mm/d), 56 mm and 28 mm in February 2025 (2 and 1
+// mm/d).
 const normals: MonthlyWeatherNormal[] = [
   { month: 1, etoMm: 124, rainMm: 31 },
   { month: 2, etoMm: 56, rainMm: 28 },

@@ -17,5 +17,6 @@ export function gallons(value: number | null): string {
 export function money(value: { amount: number; currency: string } | null): string {
   return value === null
     ? 'no rate schedule'
-    : `${value.amount.toLocaleString('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 })} ${value.currency}`;
+    : `${value.amount.toLocaleString('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 })} ` +
+        `${value.currency}`;
 }

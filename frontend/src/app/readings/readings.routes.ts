@@ -1,7 +1,10 @@
 import { Routes } from '@angular/router';
 import { provideEchartsCore } from 'ngx-echarts';
 
-/** A site's overview page (child of the site workspace at /sites/:id/overview); the monthly table is a plain child route. */
+/**
+ * A site's overview page (child of the site workspace at /sites/:id/overview); the monthly table is a plain child
+ * route.
+ */
 export const readingsRoutes: Routes = [
   {
     path: '',

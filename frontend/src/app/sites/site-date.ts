@@ -12,7 +12,9 @@ export function siteDate(timeZone: string, at: Date = new Date()): string {
   return `${part('year')}-${part('month')}-${part('day')}`;
 }
 
-/** The UTC instant (ISO) of local midnight starting `date` in the site's zone; 01:00 where midnight is skipped by DST. */
+/**
+ * The UTC instant (ISO) of local midnight starting `date` in the site's zone; 01:00 where midnight is skipped by DST.
+ */
 export function siteMidnight(date: string, timeZone: string): string {
   const [year, month, day] = date.split('-').map(Number) as [number, number, number];
   for (const hour of [0, 1]) {

@@ -10,7 +10,9 @@ import type { Observable } from 'rxjs';
 export class UploadsApi {
   private readonly http = inject(HttpClient);
 
-  /** Sends the file as multipart, reporting upload progress; the fields go before the file, as the server reads them. */
+  /**
+   * Sends the file as multipart, reporting upload progress; the fields go before the file, as the server reads them.
+   */
   upload(siteId: number, file: File, fields: Record<string, string>): Observable<HttpEvent<UploadResult>> {
     const form = new FormData();
     for (const [name, value] of Object.entries(fields)) form.append(name, value);

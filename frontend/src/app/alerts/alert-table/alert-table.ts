@@ -5,7 +5,9 @@ import { RouterLink } from '@angular/router';
 import { KIND_LABELS, SEVERITY_LABELS, SUB_KIND_LABELS, type AlertSummaryDto } from '@shared/alerts/alert-dto';
 import { gallons, money, siteTime } from '../site-time';
 
-/** A page of alerts: urgency, what (linking to the alert), site, since when, water and money lost, status. Display only. */
+/**
+ * A page of alerts: urgency, what (linking to the alert), site, since when, water and money lost, status. Display only.
+ */
 @Component({
   selector: 'rm-alert-table',
   imports: [RouterLink, MatTableModule, MatSortModule],

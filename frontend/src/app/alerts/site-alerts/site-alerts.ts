@@ -49,7 +49,10 @@ export class SiteAlerts {
   protected readonly emptyText = computed(() => {
     if (this.alerts.isLoading()) return '';
     const status = this.status();
-    return `${status ? `No ${status} alerts at this site.` : 'No alerts at this site yet.'} The watch checks the site's data every night.`;
+    return (
+      `${status ? `No ${status} alerts at this site.` : 'No alerts at this site yet.'} ` +
+      "The watch checks the site's data every night."
+    );
   });
 
   protected filterStatus(value: AlertStatus | ''): void {

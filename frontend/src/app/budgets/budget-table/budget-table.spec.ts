@@ -103,17 +103,20 @@ describe('BudgetTable', () => {
     return { fixture, loader, table, text };
   }
 
-  it('when shown in US units, then each month has ETo in inches, budget in gallons, cost, and filled days flagged', async () => {
-    const { table } = await render('us');
-    const rows = (await table.getCellTextByColumnName()) as unknown as Record<string, { text: string[] }>;
-    expect(rows['month']!.text.map((t) => t.replace(/\s+/g, ' '))).toEqual(['Jun 2025', 'Jul 2025 2 filled']);
-    expect(rows['eto']!.text).toEqual(['6.00 in', '6.00 in']);
-    expect(rows['rain']!.text).toEqual(['0.00 in', '1.00 in']);
-    expect(rows['budget']!.text).toEqual(['2,309 gal', '2,309 gal']);
-    expect(rows['cost']!.text).toEqual(['no rate', '$32.34']);
-    const footer = await (await table.getFooterRows())[0]!.getCellTextByColumnName();
-    expect(footer['budget']).toBe('4,618 gal');
-  });
+  it(
+    'when shown in US units, then each month has ETo in inches, budget ' + 'in gallons, cost, and filled days flagged',
+    async () => {
+      const { table } = await render('us');
+      const rows = (await table.getCellTextByColumnName()) as unknown as Record<string, { text: string[] }>;
+      expect(rows['month']!.text.map((t) => t.replace(/\s+/g, ' '))).toEqual(['Jun 2025', 'Jul 2025 2 filled']);
+      expect(rows['eto']!.text).toEqual(['6.00 in', '6.00 in']);
+      expect(rows['rain']!.text).toEqual(['0.00 in', '1.00 in']);
+      expect(rows['budget']!.text).toEqual(['2,309 gal', '2,309 gal']);
+      expect(rows['cost']!.text).toEqual(['no rate', '$32.34']);
+      const footer = await (await table.getFooterRows())[0]!.getCellTextByColumnName();
+      expect(footer['budget']).toBe('4,618 gal');
+    },
+  );
 
   it('when shown in metric, then depths are in mm and volumes in m³', async () => {
     const { table } = await render('metric');

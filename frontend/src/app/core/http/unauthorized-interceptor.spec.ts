@@ -25,15 +25,18 @@ describe('unauthorizedInterceptor', () => {
 
   const unauthenticated = { error: { code: 'unauthenticated', message: 'Sign in first.' } };
 
-  it('when a data request answers 401, then forgets the user and sends them to sign in, coming back afterwards', async () => {
-    const { auth, navigate, http, client } = setUp('/sites/7');
-    const loading = firstValueFrom(client.get('/api/sites/7'));
-    http.expectOne('/api/sites/7').flush(unauthenticated, { status: 401, statusText: 'Unauthorized' });
+  it(
+    'when a data request answers 401, then forgets the user and sends ' + 'them to sign in, coming back afterwards',
+    async () => {
+      const { auth, navigate, http, client } = setUp('/sites/7');
+      const loading = firstValueFrom(client.get('/api/sites/7'));
+      http.expectOne('/api/sites/7').flush(unauthenticated, { status: 401, statusText: 'Unauthorized' });
 
-    await expect(loading).rejects.toMatchObject({ status: 401 });
-    expect(auth.forget).toHaveBeenCalled();
-    expect(navigate).toHaveBeenCalledWith(['/sign-in'], { queryParams: { returnUrl: '/sites/7' } });
-  });
+      await expect(loading).rejects.toMatchObject({ status: 401 });
+      expect(auth.forget).toHaveBeenCalled();
+      expect(navigate).toHaveBeenCalledWith(['/sign-in'], { queryParams: { returnUrl: '/sites/7' } });
+    },
+  );
 
   it('when the session check or sign-in answers 401, then leaves the answer to the caller', async () => {
     const { auth, navigate, http, client } = setUp('/sign-in');

@@ -104,47 +104,51 @@ describe('EquipmentPage', () => {
 
   afterEach(() => http.verify());
 
-  it('when the page opens, then lists meters and each controller’s zones with units, site-calendar dates and the safety caution', async () => {
-    const { loader, text } = await openPage('contribute');
+  it(
+    'when the page opens, then lists meters and each controller’s ' +
+      'zones with units, site-calendar dates and the safety caution',
+    async () => {
+      const { loader, text } = await openPage('contribute');
 
-    const meters = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Meters"]' }));
-    expect(await (await meters.getRows())[0]!.getCellTextByColumnName()).toMatchObject({
-      ref: 'JR-IRR-01',
-      unit: 'CCF',
-      multiplier: '× 1',
-      digits: '6',
-      purpose: 'Irrigation only',
-      source: 'Recycled',
-      installed: '2025-03-01',
-      removed: 'In service',
-    });
+      const meters = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Meters"]' }));
+      expect(await (await meters.getRows())[0]!.getCellTextByColumnName()).toMatchObject({
+        ref: 'JR-IRR-01',
+        unit: 'CCF',
+        multiplier: '× 1',
+        digits: '6',
+        purpose: 'Irrigation only',
+        source: 'Recycled',
+        installed: '2025-03-01',
+        removed: 'In service',
+      });
 
-    const zones = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Zones of North clock"]' }));
-    const cells = await Promise.all((await zones.getRows()).map((r) => r.getCellTextByColumnName()));
-    expect(cells).toEqual([
-      {
-        station: '1',
-        name: 'Entry turf',
-        hydrozone: 'Front turf',
-        designGpm: '12.5 gpm',
-        emitters: '—',
-        actions: 'edit',
-      },
-      {
-        station: '2',
-        name: 'Parking shrubs',
-        hydrozone: 'Not linked',
-        designGpm: '—',
-        emitters: '40 × 1 gph',
-        actions: 'edit',
-      },
-    ]);
-    expect(text()).toContain("the controller's transformer runs on mains power");
-    expect(text()).toContain('backflow prevention assemblies, to licensed professionals');
-    expect(
-      await loader.getAllHarnesses(MatButtonHarness.with({ text: /Add meter|Add controller|Add zone/ })),
-    ).toHaveLength(3);
-  });
+      const zones = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Zones of North clock"]' }));
+      const cells = await Promise.all((await zones.getRows()).map((r) => r.getCellTextByColumnName()));
+      expect(cells).toEqual([
+        {
+          station: '1',
+          name: 'Entry turf',
+          hydrozone: 'Front turf',
+          designGpm: '12.5 gpm',
+          emitters: '—',
+          actions: 'edit',
+        },
+        {
+          station: '2',
+          name: 'Parking shrubs',
+          hydrozone: 'Not linked',
+          designGpm: '—',
+          emitters: '40 × 1 gph',
+          actions: 'edit',
+        },
+      ]);
+      expect(text()).toContain("the controller's transformer runs on mains power");
+      expect(text()).toContain('backflow prevention assemblies, to licensed professionals');
+      expect(
+        await loader.getAllHarnesses(MatButtonHarness.with({ text: /Add meter|Add controller|Add zone/ })),
+      ).toHaveLength(3);
+    },
+  );
 
   it('when the user may only read the site, then offers no way to add, edit or delete', async () => {
     const { loader } = await openPage('read');
@@ -159,88 +163,98 @@ describe('EquipmentPage', () => {
     expect(await meters.getHeaderRows().then((r) => r[0]!.getCellTextByIndex())).not.toContain('Actions');
   });
 
-  it('when a contributor adds a meter, then the dialog sends it with the install day at the site’s midnight and the list reloads', async () => {
-    const { fixture, loader } = await openPage('contribute', []);
-    await (await loader.getHarness(MatButtonHarness.with({ text: /Add meter/ }))).click();
-    const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
-    expect(await dialog.getTitleText()).toBe('New meter');
-    const input = async (label: string) =>
-      (await (
-        await dialog.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }))
-      ).getControl(MatInputHarness))!;
-    await (await input('Meter ref or serial')).setValue('  JR-IRR-02 ');
-    await (await input('Register multiplier')).setValue('10');
-    await (await input('Register digits')).setValue('5');
-    await (await input('Installed on')).setValue('2026-03-08');
-    const unit = await dialog.getHarness(MatSelectHarness.with({ selector: '[formControlName="unit"]' }));
-    await unit.open();
-    await unit.clickOptions({ text: 'kgal' });
+  it(
+    'when a contributor adds a meter, then the dialog sends it with ' +
+      'the install day at the site’s midnight and the list reloads',
+    async () => {
+      const { fixture, loader } = await openPage('contribute', []);
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Add meter/ }))).click();
+      const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
+      expect(await dialog.getTitleText()).toBe('New meter');
+      const input = async (label: string) =>
+        (await (
+          await dialog.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }))
+        ).getControl(MatInputHarness))!;
+      await (await input('Meter ref or serial')).setValue('  JR-IRR-02 ');
+      await (await input('Register multiplier')).setValue('10');
+      await (await input('Register digits')).setValue('5');
+      await (await input('Installed on')).setValue('2026-03-08');
+      const unit = await dialog.getHarness(MatSelectHarness.with({ selector: '[formControlName="unit"]' }));
+      await unit.open();
+      await unit.clickOptions({ text: 'kgal' });
 
-    const clicked = (await dialog.getHarness(MatButtonHarness.with({ text: 'Add meter' }))).click();
-    const post = await nextRequest({ method: 'POST', url: '/api/sites/4/meters' });
-    expect(post.request.body).toEqual({
-      ref: 'JR-IRR-02',
-      unit: 'kgal',
-      registerMultiplier: 10,
-      registerDigits: 5,
-      purpose: 'dedicated-irrigation',
-      waterSource: 'potable',
-      // Midnight on 8 March 2026 in Los Angeles is still PST (UTC−8); the clocks change at 02:00.
-      installedAt: '2026-03-08T08:00:00.000Z',
-      removedAt: null,
-      previousRegisters: [],
-    });
-    post.flush({
-      ...METER,
-      id: 32,
-      ref: 'JR-IRR-02',
-      unit: 'kgal',
-      registerMultiplier: 10,
-      registerDigits: 5,
-      waterSource: 'potable',
-      installedAt: '2026-03-08T08:00:00.000Z',
-    });
-    (await nextRequest({ method: 'GET', url: '/api/sites/4/meters' })).flush([{ ...METER, id: 32, ref: 'JR-IRR-02' }]);
-    await clicked;
-    await fixture.whenStable();
+      const clicked = (await dialog.getHarness(MatButtonHarness.with({ text: 'Add meter' }))).click();
+      const post = await nextRequest({ method: 'POST', url: '/api/sites/4/meters' });
+      expect(post.request.body).toEqual({
+        ref: 'JR-IRR-02',
+        unit: 'kgal',
+        registerMultiplier: 10,
+        registerDigits: 5,
+        purpose: 'dedicated-irrigation',
+        waterSource: 'potable',
+        // Midnight on 8 March 2026 in Los Angeles is still PST (UTC−8); the clocks change at 02:00.
+        installedAt: '2026-03-08T08:00:00.000Z',
+        removedAt: null,
+        previousRegisters: [],
+      });
+      post.flush({
+        ...METER,
+        id: 32,
+        ref: 'JR-IRR-02',
+        unit: 'kgal',
+        registerMultiplier: 10,
+        registerDigits: 5,
+        waterSource: 'potable',
+        installedAt: '2026-03-08T08:00:00.000Z',
+      });
+      (await nextRequest({ method: 'GET', url: '/api/sites/4/meters' })).flush([
+        { ...METER, id: 32, ref: 'JR-IRR-02' },
+      ]);
+      await clicked;
+      await fixture.whenStable();
 
-    expect(await TestbedHarnessEnvironment.documentRootLoader(fixture).getAllHarnesses(MatDialogHarness)).toHaveLength(
-      0,
-    );
-    const meters = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Meters"]' }));
-    expect((await meters.getCellTextByColumnName())['ref']!.text).toEqual(['JR-IRR-02']);
-  });
+      expect(
+        await TestbedHarnessEnvironment.documentRootLoader(fixture).getAllHarnesses(MatDialogHarness),
+      ).toHaveLength(0);
+      const meters = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Meters"]' }));
+      expect((await meters.getCellTextByColumnName())['ref']!.text).toEqual(['JR-IRR-02']);
+    },
+  );
 
-  it('when a contributor links a zone to its hydrozone, then the edit is sent for that zone and the controllers reload', async () => {
-    const { fixture, loader } = await openPage('contribute');
-    await (
-      await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Edit zone 2 of North clock"]' }))
-    ).click();
-    const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
-    expect(await dialog.getTitleText()).toBe('Edit zone 2 on North clock');
-    const hydrozone = await dialog.getHarness(MatSelectHarness.with({ selector: '[formControlName="hydrozoneId"]' }));
-    await hydrozone.open();
-    await hydrozone.clickOptions({ text: 'Front turf' });
+  it(
+    'when a contributor links a zone to its hydrozone, then the edit ' +
+      'is sent for that zone and the controllers reload',
+    async () => {
+      const { fixture, loader } = await openPage('contribute');
+      await (
+        await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Edit zone 2 of North clock"]' }))
+      ).click();
+      const dialog = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatDialogHarness);
+      expect(await dialog.getTitleText()).toBe('Edit zone 2 on North clock');
+      const hydrozone = await dialog.getHarness(MatSelectHarness.with({ selector: '[formControlName="hydrozoneId"]' }));
+      await hydrozone.open();
+      await hydrozone.clickOptions({ text: 'Front turf' });
 
-    const clicked = (await dialog.getHarness(MatButtonHarness.with({ text: 'Save zone' }))).click();
-    const patch = await nextRequest({ method: 'PATCH', url: '/api/sites/4/controllers/12/zones/2' });
-    expect(patch.request.body).toEqual({
-      station: '2',
-      name: 'Parking shrubs',
-      hydrozoneId: 8,
-      designGpm: null,
-      emitterCount: 40,
-      emitterGph: 1,
-    });
-    const linked = { ...CONTROLLER, zones: [CONTROLLER.zones[0]!, { ...CONTROLLER.zones[1]!, hydrozoneId: 8 }] };
-    patch.flush(linked);
-    (await nextRequest({ method: 'GET', url: '/api/sites/4/controllers' })).flush([linked]);
-    await clicked;
-    await fixture.whenStable();
+      const clicked = (await dialog.getHarness(MatButtonHarness.with({ text: 'Save zone' }))).click();
+      const patch = await nextRequest({ method: 'PATCH', url: '/api/sites/4/controllers/12/zones/2' });
+      expect(patch.request.body).toEqual({
+        station: '2',
+        name: 'Parking shrubs',
+        hydrozoneId: 8,
+        designGpm: null,
+        emitterCount: 40,
+        emitterGph: 1,
+      });
+      const linked = { ...CONTROLLER, zones: [CONTROLLER.zones[0]!, { ...CONTROLLER.zones[1]!, hydrozoneId: 8 }] };
+      patch.flush(linked);
+      (await nextRequest({ method: 'GET', url: '/api/sites/4/controllers' })).flush([linked]);
+      await clicked;
+      await fixture.whenStable();
 
-    const zones = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Zones of North clock"]' }));
-    expect((await zones.getCellTextByColumnName())['hydrozone']!.text).toEqual(['Front turf', 'Front turf']);
-  });
+      const zones = await loader.getHarness(MatTableHarness.with({ selector: '[aria-label="Zones of North clock"]' }));
+      expect((await zones.getCellTextByColumnName())['hydrozone']!.text).toEqual(['Front turf', 'Front turf']);
+    },
+  );
 
   it('when the meters fail to load, then says so and loads them again on request', async () => {
     const { fixture, loader, text } = await openPage('contribute', 'fail');

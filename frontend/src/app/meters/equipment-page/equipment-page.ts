@@ -120,7 +120,10 @@ export class EquipmentPage {
   protected async deleteMeter(meter: MeterDto): Promise<void> {
     const ok = await confirm(this.dialog, {
       title: 'Delete this meter?',
-      message: `Meter “${meter.ref}” will be removed from this site. A meter with readings can't be deleted until the uploads that brought them are rolled back.`,
+      message:
+        `Meter “${meter.ref}” will be removed from this site. A meter ` +
+        "with readings can't be deleted until the uploads that brought " +
+        'them are rolled back.',
       confirmLabel: 'Delete meter',
       danger: true,
     });

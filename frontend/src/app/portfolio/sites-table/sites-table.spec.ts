@@ -57,18 +57,21 @@ async function setup(phone = false) {
 }
 
 describe('SitesTable', () => {
-  it('when rows arrive, then each shows use and budget in gallons, percent, alerts and the age of its data', async () => {
-    const { loader } = await setup();
-    const table = await loader.getHarness(MatTableHarness);
-    const cells = await table.getCellTextByColumnName();
-    expect(cells['siteName']!.text[0]).toContain('Heron Flats HOA');
-    expect(cells['useGallons']!.text).toEqual(['12,500 gal', '3,000 gal']);
-    expect(cells['budgetGallons']!.text).toEqual(['10,000 gal', '—']);
-    expect(cells['percentOfBudget']!.text).toEqual(['125 %', 'no budget']);
-    expect(cells['openAlerts']!.text).toEqual(['2', '0']);
-    expect(cells['lastDataAt']!.text[0]).toBe('3 h ago');
-    expect(cells['lastDataAt']!.text[1]).toContain('13 d ago');
-  });
+  it(
+    'when rows arrive, then each shows use and budget in gallons, ' + 'percent, alerts and the age of its data',
+    async () => {
+      const { loader } = await setup();
+      const table = await loader.getHarness(MatTableHarness);
+      const cells = await table.getCellTextByColumnName();
+      expect(cells['siteName']!.text[0]).toContain('Heron Flats HOA');
+      expect(cells['useGallons']!.text).toEqual(['12,500 gal', '3,000 gal']);
+      expect(cells['budgetGallons']!.text).toEqual(['10,000 gal', '—']);
+      expect(cells['percentOfBudget']!.text).toEqual(['125 %', 'no budget']);
+      expect(cells['openAlerts']!.text).toEqual(['2', '0']);
+      expect(cells['lastDataAt']!.text[0]).toBe('3 h ago');
+      expect(cells['lastDataAt']!.text[1]).toContain('13 d ago');
+    },
+  );
 
   it('when a header is clicked, then the sort is emitted for the server to apply', async () => {
     const { loader, sorts } = await setup();
@@ -84,15 +87,19 @@ describe('SitesTable', () => {
     expect(pages).toEqual([{ pageIndex: 1, pageSize: 25 }]);
   });
 
-  it('when the screen is phone-wide, then only site, percent and latest data remain, and the site links to its overview', async () => {
-    const { loader, fixture } = await setup(true);
-    const table = await loader.getHarness(MatTableHarness);
-    expect(await (await table.getHeaderRows())[0]!.getCellTextByColumnName()).toEqual({
-      siteName: 'Site',
-      percentOfBudget: 'Of budget',
-      lastDataAt: 'Latest data',
-    });
-    const link = fixture.nativeElement.querySelector('a.site-link') as HTMLAnchorElement;
-    expect(link.getAttribute('href')).toBe('/sites/1/overview');
-  });
+  it(
+    'when the screen is phone-wide, then only site, percent and latest ' +
+      'data remain, and the site links to its overview',
+    async () => {
+      const { loader, fixture } = await setup(true);
+      const table = await loader.getHarness(MatTableHarness);
+      expect(await (await table.getHeaderRows())[0]!.getCellTextByColumnName()).toEqual({
+        siteName: 'Site',
+        percentOfBudget: 'Of budget',
+        lastDataAt: 'Latest data',
+      });
+      const link = fixture.nativeElement.querySelector('a.site-link') as HTMLAnchorElement;
+      expect(link.getAttribute('href')).toBe('/sites/1/overview');
+    },
+  );
 });

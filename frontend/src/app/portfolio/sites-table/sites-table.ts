@@ -80,7 +80,8 @@ export class SitesTable {
 
   protected trendLabel(row: PortfolioRow): string {
     const t = row.trend;
-    return `Use over 12 months, ${t[0]?.month} to ${t.at(-1)?.month}: ${t.map((m) => formatVolume(m.gallons, 'gal')).join(', ')}`;
+    const volumes = t.map((m) => formatVolume(m.gallons, 'gal')).join(', ');
+    return `Use over 12 months, ${t[0]?.month} to ${t.at(-1)?.month}: ${volumes}`;
   }
 
   protected sortBy(event: Sort): void {

@@ -72,7 +72,8 @@ export class RateScheduleList {
     return c.tiers
       .map(
         (t) =>
-          `${t.upToPercentOfBudget === null ? 'above' : `to ${t.upToPercentOfBudget} % of budget`}: ${money(t.pricePerUnit)}/${unit}`,
+          `${t.upToPercentOfBudget === null ? 'above' : `to ${t.upToPercentOfBudget} % of budget`}: ` +
+          `${money(t.pricePerUnit)}/${unit}`,
       )
       .join(' · ');
   }

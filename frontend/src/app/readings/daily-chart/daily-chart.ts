@@ -29,7 +29,10 @@ export class DailyChart {
 
   protected readonly summary = computed(() => {
     const d = this.data();
-    return `Daily use against budget from ${d.from} to ${d.to}: ${fmt(d.figures.useGallons)} gal used, budget ${fmt(d.figures.budgetGallons)} gal`;
+    return (
+      `Daily use against budget from ${d.from} to ${d.to}: ${fmt(d.figures.useGallons)} ` +
+      `gal used, budget ${fmt(d.figures.budgetGallons)} gal`
+    );
   });
 
   protected readonly options = computed<EChartsCoreOption>(() => {
@@ -60,7 +63,11 @@ export class DailyChart {
             .filter((m) => m.xAxis === day.date)
             .map((m) => `<br/>${m.name}`)
             .join('');
-          return `<b>${day.date}</b><br/>Use ${fmt(day.useGallons)} gal · budget ${fmt(day.budgetGallons)} gal<br/>ETo ${fmt(day.etoMm, 1)} mm · rain ${fmt(day.rainMm, 1)} mm${marks}`;
+          return (
+            `<b>${day.date}</b><br/>Use ${fmt(day.useGallons)} gal · budget ` +
+            `${fmt(day.budgetGallons)} gal<br/>ETo ${fmt(day.etoMm, 1)} mm ` +
+            `· rain ${fmt(day.rainMm, 1)} mm${marks}`
+          );
         },
       },
       grid: { left: 64, right: 56, top: 40, bottom: 64 },

@@ -32,7 +32,10 @@ export class FlowGrid {
   protected readonly summary = computed(() => {
     const g = this.grid();
     const night = g.days.reduce((s, d) => s + d.hours.slice(0, 5).reduce<number>((a, h) => a + (h ?? 0), 0), 0);
-    return `Hour-by-day flow for ${g.month} in ${g.timeZone}; ${Math.round(night).toLocaleString('en-US')} gal between midnight and 05:00 over the month`;
+    return (
+      `Hour-by-day flow for ${g.month} in ${g.timeZone}; ${Math.round(night).toLocaleString('en-US')} ` +
+      'gal between midnight and 05:00 over the month'
+    );
   });
 
   protected readonly options = computed<EChartsCoreOption>(() => {
@@ -47,7 +50,10 @@ export class FlowGrid {
       tooltip: {
         formatter: (p: { data: [number, number, number | null] }) => {
           const [hour, day, v] = p.data;
-          return `${g.days[day]?.date} ${HOURS[hour]}–${HOURS[(hour + 1) % 24]} (${g.timeZone})<br/>${v === null ? 'no reading' : `${v.toLocaleString('en-US')} gal`}`;
+          return (
+            `${g.days[day]?.date} ${HOURS[hour]}–${HOURS[(hour + 1) % 24]} ` +
+            `(${g.timeZone})<br/>${v === null ? 'no reading' : `${v.toLocaleString('en-US')} gal`}`
+          );
         },
       },
       grid: { left: 56, right: 16, top: 8, bottom: 96 },

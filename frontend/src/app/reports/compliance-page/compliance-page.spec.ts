@@ -60,33 +60,36 @@ describe('CompliancePage', () => {
 
   afterEach(() => http.verify());
 
-  it('when an auditor opens it, then the ranking shows units, bars and a send action only for sites over budget', async () => {
-    const { fixture, loader } = await setUp('auditor');
-    const req = await next('/api/reports/compliance');
-    expect(req.request.params.get('sort')).toBe('rank');
-    expect(req.request.params.get('month')).toMatch(/^\d{4}-\d{2}$/);
-    const report: ComplianceReportDto = {
-      year: 2026,
-      month: '2026-06',
-      period: { from: '2026-06-01', to: '2026-06-30' },
-      basis: "Metered use in 2026-06 against that month's water budget.",
-      items: [row(1, 'Larkspur Green', 140), row(2, 'Dry Creek Park', 80), row(3, 'Ochre Yard', null)],
-      total: 3,
-      page: 0,
-      pageSize: 25,
-    };
-    req.flush(report);
-    await fixture.whenStable();
-    const rows = await (await loader.getHarness(MatTableHarness)).getRows();
-    const cells = await Promise.all(rows.map((r) => r.getCellTextByColumnName()));
-    expect(cells[0]!['use']).toBe('1,000 gal');
-    expect(cells[0]!['percent']).toContain('140 %');
-    expect(cells[0]!['completeness']).toBe('50 %');
-    expect(cells[0]!['trend']).toBe('-12.5 %');
-    expect(cells[0]!['notice']).toContain('Send');
-    expect(cells[1]!['notice']).not.toContain('Send');
-    expect(cells[2]!['percent']).toContain('no hydrozones');
-  });
+  it(
+    'when an auditor opens it, then the ranking shows units, bars ' + 'and a send action only for sites over budget',
+    async () => {
+      const { fixture, loader } = await setUp('auditor');
+      const req = await next('/api/reports/compliance');
+      expect(req.request.params.get('sort')).toBe('rank');
+      expect(req.request.params.get('month')).toMatch(/^\d{4}-\d{2}$/);
+      const report: ComplianceReportDto = {
+        year: 2026,
+        month: '2026-06',
+        period: { from: '2026-06-01', to: '2026-06-30' },
+        basis: "Metered use in 2026-06 against that month's water budget.",
+        items: [row(1, 'Larkspur Green', 140), row(2, 'Dry Creek Park', 80), row(3, 'Ochre Yard', null)],
+        total: 3,
+        page: 0,
+        pageSize: 25,
+      };
+      req.flush(report);
+      await fixture.whenStable();
+      const rows = await (await loader.getHarness(MatTableHarness)).getRows();
+      const cells = await Promise.all(rows.map((r) => r.getCellTextByColumnName()));
+      expect(cells[0]!['use']).toBe('1,000 gal');
+      expect(cells[0]!['percent']).toContain('140 %');
+      expect(cells[0]!['completeness']).toBe('50 %');
+      expect(cells[0]!['trend']).toBe('-12.5 %');
+      expect(cells[0]!['notice']).toContain('Send');
+      expect(cells[1]!['notice']).not.toContain('Send');
+      expect(cells[2]!['percent']).toContain('no hydrozones');
+    },
+  );
 
   it('when a column header is clicked, then the server is asked for that order from the first page', async () => {
     const { fixture, loader } = await setUp('manager');

@@ -24,7 +24,10 @@ export class SavingsChart {
 
   protected readonly summary = computed(() => {
     const r = this.report();
-    return `Monthly metered use against the weather-adjusted baseline: ${r.baselineMonths.length} baseline months, ${r.reportingMonths.length} reporting months`;
+    return (
+      `Monthly metered use against the weather-adjusted baseline: ${r.baselineMonths.length} ` +
+      `baseline months, ${r.reportingMonths.length} reporting months`
+    );
   });
 
   protected readonly options = computed<EChartsCoreOption>(() => {

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, input, output, signal, type OnInit } from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -105,7 +105,7 @@ const MODEL_LABELS: Record<BaselineModelForm, string> = {
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class SavingsProjectForm {
+export class SavingsProjectForm implements OnInit {
   private readonly api = inject(SavingsApi);
   readonly siteId = input.required<number>();
   readonly project = input<SavingsProjectDto | null>(null);

@@ -67,7 +67,8 @@ const report = {
     route: null,
     reasons: [],
     summary:
-      'The baseline model is not good enough to claim savings because its CV(RMSE) is 31.2 %, above the 20 % Guideline 14 allows.',
+      'The baseline model is not good enough to claim savings because ' +
+      'its CV(RMSE) is 31.2 %, above the 20 % Guideline 14 allows.',
     checks: [
       {
         id: 'cv-rmse',
@@ -85,29 +86,32 @@ const report = {
 } as unknown as SavingsReportDto;
 
 describe('SavingsReport', () => {
-  it('when the model fails Guideline 14, then the verdict, the failed check and the figures with units are shown', async () => {
-    TestBed.configureTestingModule({
-      imports: [SavingsReport],
-      providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])],
-    });
-    const http = TestBed.inject(HttpTestingController);
-    const fixture = TestBed.createComponent(SavingsReport);
-    fixture.componentRef.setInput('id', '7');
-    TestBed.tick();
-    (await vi.waitFor(() => http.expectOne('/api/savings-projects/7/report'))).flush(report);
-    await vi.waitFor(() =>
-      expect((fixture.nativeElement as HTMLElement).textContent).toContain('not good enough to claim savings'),
-    );
-    fixture.detectChanges();
-    const text = (fixture.nativeElement as HTMLElement).textContent!.replace(/\s+/g, ' ');
-    expect(text).toContain('20,000 gal');
-    expect(text).toContain('20.0 %');
-    expect(text).toContain('61.50 USD');
-    expect(text).toContain('31.2 %');
-    expect(text).toMatch(/≤ 20 %\s*fail/);
-    expect(
-      (fixture.nativeElement as HTMLElement).querySelector('a[href="/api/savings-projects/7/report.pdf"]'),
-    ).not.toBeNull();
-    http.verify();
-  });
+  it(
+    'when the model fails Guideline 14, then the verdict, the failed ' + 'check and the figures with units are shown',
+    async () => {
+      TestBed.configureTestingModule({
+        imports: [SavingsReport],
+        providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])],
+      });
+      const http = TestBed.inject(HttpTestingController);
+      const fixture = TestBed.createComponent(SavingsReport);
+      fixture.componentRef.setInput('id', '7');
+      TestBed.tick();
+      (await vi.waitFor(() => http.expectOne('/api/savings-projects/7/report'))).flush(report);
+      await vi.waitFor(() =>
+        expect((fixture.nativeElement as HTMLElement).textContent).toContain('not good enough to claim savings'),
+      );
+      fixture.detectChanges();
+      const text = (fixture.nativeElement as HTMLElement).textContent!.replace(/\s+/g, ' ');
+      expect(text).toContain('20,000 gal');
+      expect(text).toContain('20.0 %');
+      expect(text).toContain('61.50 USD');
+      expect(text).toContain('31.2 %');
+      expect(text).toMatch(/≤ 20 %\s*fail/);
+      expect(
+        (fixture.nativeElement as HTMLElement).querySelector('a[href="/api/savings-projects/7/report.pdf"]'),
+      ).not.toBeNull();
+      http.verify();
+    },
+  );
 });

@@ -85,7 +85,9 @@ export class ApiKeyList {
   protected async revoke(key: ApiKeyDto): Promise<void> {
     const sure = await confirm(this.dialog, {
       title: `Revoke “${key.name}”?`,
-      message: `Scripts using ${key.prefix}… will be refused from now on. This cannot be undone; make a new key if you need one again.`,
+      message:
+        `Scripts using ${key.prefix}… will be refused from now on. This ` +
+        'cannot be undone; make a new key if you need one again.',
       confirmLabel: 'Revoke key',
       danger: true,
     });

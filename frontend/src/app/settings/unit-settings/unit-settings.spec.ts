@@ -36,33 +36,37 @@ describe('UnitSettings', () => {
 
   afterEach(() => http.verify());
 
-  it('when an administrator picks metric and saves, then the organisation and the open pages switch to m³, mm and m²', async () => {
-    const { fixture, loader, text } = await open('admin');
-    (await next('GET', '/api/organisation/settings')).flush(SETTINGS);
-    await fixture.whenStable();
+  it(
+    'when an administrator picks metric and saves, then the organisation ' +
+      'and the open pages switch to m³, mm and m²',
+    async () => {
+      const { fixture, loader, text } = await open('admin');
+      (await next('GET', '/api/organisation/settings')).flush(SETTINGS);
+      await fixture.whenStable();
 
-    const group = await loader.getHarness(
-      MatRadioGroupHarness.with({ selector: '[aria-label="Unit system for the organisation"]' }),
-    );
-    expect(await group.getCheckedValue()).toBe('us');
-    const [us, metric] = await group.getRadioButtons();
-    expect(await us!.getLabelText()).toContain('12,500 gal · 1.50 in · 8,000 ft²');
-    expect(await metric!.getLabelText()).toContain('47.32 m³ · 38.0 mm · 743 m²');
-    const save = await loader.getHarness(MatButtonHarness.with({ text: 'Save unit system' }));
-    expect(await save.isDisabled()).toBe(true);
+      const group = await loader.getHarness(
+        MatRadioGroupHarness.with({ selector: '[aria-label="Unit system for the organisation"]' }),
+      );
+      expect(await group.getCheckedValue()).toBe('us');
+      const [us, metric] = await group.getRadioButtons();
+      expect(await us!.getLabelText()).toContain('12,500 gal · 1.50 in · 8,000 ft²');
+      expect(await metric!.getLabelText()).toContain('47.32 m³ · 38.0 mm · 743 m²');
+      const save = await loader.getHarness(MatButtonHarness.with({ text: 'Save unit system' }));
+      expect(await save.isDisabled()).toBe(true);
 
-    await metric!.check();
-    expect(await save.isDisabled()).toBe(false);
-    await save.click();
-    const req = await next('PATCH', '/api/organisation/settings');
-    expect(req.request.body).toEqual({ unitSystem: 'metric' });
-    req.flush({ ...SETTINGS, unitSystem: 'metric' });
+      await metric!.check();
+      expect(await save.isDisabled()).toBe(false);
+      await save.click();
+      const req = await next('PATCH', '/api/organisation/settings');
+      expect(req.request.body).toEqual({ unitSystem: 'metric' });
+      req.flush({ ...SETTINGS, unitSystem: 'metric' });
 
-    await vi.waitFor(() => expect(text()).toContain('Saved. Figures are now shown in Metric units.'));
-    expect(TestBed.inject(UnitSystemStore).system()).toBe('metric');
-    expect(TestBed.inject(UnitSystemStore).volume(264.172)).toBe('1.00 m³');
-    expect(await save.isDisabled()).toBe(true);
-  });
+      await vi.waitFor(() => expect(text()).toContain('Saved. Figures are now shown in Metric units.'));
+      expect(TestBed.inject(UnitSystemStore).system()).toBe('metric');
+      expect(TestBed.inject(UnitSystemStore).volume(264.172)).toBe('1.00 m³');
+      expect(await save.isDisabled()).toBe(true);
+    },
+  );
 
   it('when the save is refused, then the message shows and the choice stays for another try', async () => {
     const { fixture, loader, text } = await open('admin');
@@ -86,17 +90,20 @@ describe('UnitSettings', () => {
     expect(text()).not.toContain('Saved.');
   });
 
-  it('when an auditor opens it, then the system in force is shown with its units and nothing can be changed', async () => {
-    const { fixture, loader, text } = await open('auditor');
-    (await next('GET', '/api/organisation/settings')).flush({ ...SETTINGS, unitSystem: 'metric' });
-    await fixture.whenStable();
+  it(
+    'when an auditor opens it, then the system in force is shown ' + 'with its units and nothing can be changed',
+    async () => {
+      const { fixture, loader, text } = await open('auditor');
+      (await next('GET', '/api/organisation/settings')).flush({ ...SETTINGS, unitSystem: 'metric' });
+      await fixture.whenStable();
 
-    expect(await loader.getAllHarnesses(MatRadioGroupHarness)).toHaveLength(0);
-    expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /Save/ }))).toHaveLength(0);
-    expect(text()).toContain('Metric');
-    expect(text()).toContain('cubic metres (m³), millimetres (mm), square metres (m²)');
-    expect(text()).toContain('Only administrators can change the unit system.');
-  });
+      expect(await loader.getAllHarnesses(MatRadioGroupHarness)).toHaveLength(0);
+      expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /Save/ }))).toHaveLength(0);
+      expect(text()).toContain('Metric');
+      expect(text()).toContain('cubic metres (m³), millimetres (mm), square metres (m²)');
+      expect(text()).toContain('Only administrators can change the unit system.');
+    },
+  );
 
   it('when the settings cannot be loaded, then an error with a retry appears, and the retry loads them', async () => {
     const { fixture, loader, text } = await open('manager');

@@ -29,13 +29,17 @@ const OPTIONS: SystemOption[] = [
     value: 'us',
     label: 'US customary',
     units: 'gallons (gal), inches (in), square feet (ft²)',
-    example: `${formatVolume(EXAMPLE.gallons, 'gal')} · ${formatDepth(mmToInches(EXAMPLE.depthMm), 'in')} · ${formatArea(EXAMPLE.areaFt2, 'ft2')}`,
+    example:
+      `${formatVolume(EXAMPLE.gallons, 'gal')} · ${formatDepth(mmToInches(EXAMPLE.depthMm), 'in')} ` +
+      `· ${formatArea(EXAMPLE.areaFt2, 'ft2')}`,
   },
   {
     value: 'metric',
     label: 'Metric',
     units: 'cubic metres (m³), millimetres (mm), square metres (m²)',
-    example: `${formatVolume(fromGallons(EXAMPLE.gallons, 'm3'), 'm3')} · ${formatDepth(EXAMPLE.depthMm, 'mm')} · ${formatArea(convertArea(EXAMPLE.areaFt2, 'ft2', 'm2'), 'm2')}`,
+    example:
+      `${formatVolume(fromGallons(EXAMPLE.gallons, 'm3'), 'm3')} · ` +
+      `${formatDepth(EXAMPLE.depthMm, 'mm')} · ${formatArea(convertArea(EXAMPLE.areaFt2, 'ft2', 'm2'), 'm2')}`,
   },
 ];
 

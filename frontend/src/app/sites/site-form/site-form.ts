@@ -174,7 +174,9 @@ export class SiteForm {
     if (!site) return;
     const confirmed = await confirm(this.dialog, {
       title: 'Delete this site?',
-      message: `“${site.name}” and everything recorded for it will be removed for every organisation it is shared with. This cannot be undone.`,
+      message:
+        `“${site.name}” and everything recorded for it will be removed ` +
+        'for every organisation it is shared with. This cannot be undone.',
       confirmLabel: 'Delete site',
       danger: true,
     });

@@ -93,28 +93,31 @@ describe('SiteList', () => {
     expect(rows['tags'].text[0]).toContain('zone-3');
   });
 
-  it('when a column header is clicked, then asks the server for that sort, and again for the other direction', async () => {
-    const { fixture, loader } = await setUp();
-    (await nextRequest('/api/sites')).flush(page([site(1, 'Juniper Court HOA')]));
-    await fixture.whenStable();
-    const [kindHeader] = await (await loader.getHarness(MatSortHarness)).getSortHeaders({ label: 'Kind' });
+  it(
+    'when a column header is clicked, then asks the server for that ' + 'sort, and again for the other direction',
+    async () => {
+      const { fixture, loader } = await setUp();
+      (await nextRequest('/api/sites')).flush(page([site(1, 'Juniper Court HOA')]));
+      await fixture.whenStable();
+      const [kindHeader] = await (await loader.getHarness(MatSortHarness)).getSortHeaders({ label: 'Kind' });
 
-    const firstClick = kindHeader.click();
-    const ascending = await nextRequest('/api/sites');
-    expect(ascending.request.params.get('sort')).toBe('kind');
-    expect(ascending.request.params.get('dir')).toBe('asc');
-    expect(ascending.request.params.get('page')).toBe('0');
-    ascending.flush(page([site(1, 'Juniper Court HOA')]));
-    await firstClick;
+      const firstClick = kindHeader.click();
+      const ascending = await nextRequest('/api/sites');
+      expect(ascending.request.params.get('sort')).toBe('kind');
+      expect(ascending.request.params.get('dir')).toBe('asc');
+      expect(ascending.request.params.get('page')).toBe('0');
+      ascending.flush(page([site(1, 'Juniper Court HOA')]));
+      await firstClick;
 
-    const secondClick = kindHeader.click();
-    const descending = await nextRequest('/api/sites');
-    expect(descending.request.params.get('sort')).toBe('kind');
-    expect(descending.request.params.get('dir')).toBe('desc');
-    descending.flush(page([site(1, 'Juniper Court HOA')]));
-    await secondClick;
-    expect(await kindHeader.getSortDirection()).toBe('desc');
-  });
+      const secondClick = kindHeader.click();
+      const descending = await nextRequest('/api/sites');
+      expect(descending.request.params.get('sort')).toBe('kind');
+      expect(descending.request.params.get('dir')).toBe('desc');
+      descending.flush(page([site(1, 'Juniper Court HOA')]));
+      await secondClick;
+      expect(await kindHeader.getSortDirection()).toBe('desc');
+    },
+  );
 
   it('when the next page is requested, then asks the server for page 1 and keeps the sort', async () => {
     const { fixture, loader } = await setUp();
@@ -136,29 +139,35 @@ describe('SiteList', () => {
     expect((await table.getCellTextByColumnName())['name'].text).toEqual(['Tamarisk Median Strip']);
   });
 
-  it('when opened with a view in the address, then requests that view, and records changes in the address', async () => {
-    const { fixture, loader } = await setUp('manager', '/sites?sort=timeZone&dir=desc&tag=reclaimed&kind=park&page=1');
-    const req = await nextRequest('/api/sites');
-    expect(req.request.params.get('sort')).toBe('timeZone');
-    expect(req.request.params.get('dir')).toBe('desc');
-    expect(req.request.params.get('tag')).toBe('reclaimed');
-    expect(req.request.params.get('kind')).toBe('park');
-    expect(req.request.params.get('page')).toBe('1');
-    req.flush(page([site(26, 'Tamarisk Median Strip', { kind: 'park' })], 26, 1));
-    await fixture.whenStable();
+  it(
+    'when opened with a view in the address, then requests that view, ' + 'and records changes in the address',
+    async () => {
+      const { fixture, loader } = await setUp(
+        'manager',
+        '/sites?sort=timeZone&dir=desc&tag=reclaimed&kind=park&page=1',
+      );
+      const req = await nextRequest('/api/sites');
+      expect(req.request.params.get('sort')).toBe('timeZone');
+      expect(req.request.params.get('dir')).toBe('desc');
+      expect(req.request.params.get('tag')).toBe('reclaimed');
+      expect(req.request.params.get('kind')).toBe('park');
+      expect(req.request.params.get('page')).toBe('1');
+      req.flush(page([site(26, 'Tamarisk Median Strip', { kind: 'park' })], 26, 1));
+      await fixture.whenStable();
 
-    const [nameHeader] = await (await loader.getHarness(MatSortHarness)).getSortHeaders({ label: 'Name' });
-    const clicking = nameHeader.click();
-    (await nextRequest('/api/sites')).flush(page([site(1, 'Juniper Court HOA', { kind: 'park' })], 1));
-    await clicking;
+      const [nameHeader] = await (await loader.getHarness(MatSortHarness)).getSortHeaders({ label: 'Name' });
+      const clicking = nameHeader.click();
+      (await nextRequest('/api/sites')).flush(page([site(1, 'Juniper Court HOA', { kind: 'park' })], 1));
+      await clicking;
 
-    const url = new URL(TestBed.inject(Router).url, 'http://x');
-    // Name ascending and page 0 are the defaults, so they leave the address; the filters stay.
-    expect(url.searchParams.get('sort')).toBeNull();
-    expect(url.searchParams.get('page')).toBeNull();
-    expect(url.searchParams.get('tag')).toBe('reclaimed');
-    expect(url.searchParams.get('kind')).toBe('park');
-  });
+      const url = new URL(TestBed.inject(Router).url, 'http://x');
+      // Name ascending and page 0 are the defaults, so they leave the address; the filters stay.
+      expect(url.searchParams.get('sort')).toBeNull();
+      expect(url.searchParams.get('page')).toBeNull();
+      expect(url.searchParams.get('tag')).toBe('reclaimed');
+      expect(url.searchParams.get('kind')).toBe('park');
+    },
+  );
 
   it('when loading fails, then shows the error and retries on request', async () => {
     const { fixture, loader } = await setUp();
@@ -179,13 +188,16 @@ describe('SiteList', () => {
     expect((await table.getCellTextByColumnName())['name'].text).toEqual(['Juniper Court HOA']);
   });
 
-  it('when the user may create sites and there are none, then offers "New site" and says the list is empty', async () => {
-    const manager = await setUp('manager');
-    (await nextRequest('/api/sites')).flush(page([]));
-    await manager.fixture.whenStable();
-    expect(await manager.loader.getAllHarnesses(MatButtonHarness.with({ text: /New site/ }))).toHaveLength(1);
-    expect((manager.fixture.nativeElement as HTMLElement).textContent).toContain('No sites yet.');
-  });
+  it(
+    'when the user may create sites and there are none, then offers ' + '"New site" and says the list is empty',
+    async () => {
+      const manager = await setUp('manager');
+      (await nextRequest('/api/sites')).flush(page([]));
+      await manager.fixture.whenStable();
+      expect(await manager.loader.getAllHarnesses(MatButtonHarness.with({ text: /New site/ }))).toHaveLength(1);
+      expect((manager.fixture.nativeElement as HTMLElement).textContent).toContain('No sites yet.');
+    },
+  );
 
   it('when the user is an auditor, then there is no "New site" button', async () => {
     const auditor = await setUp('auditor');

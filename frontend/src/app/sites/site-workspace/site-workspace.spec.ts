@@ -99,22 +99,26 @@ describe('SiteWorkspace', () => {
     vi.useRealTimers();
   });
 
-  it('when the site and its month load, then the header shows name, organisation, zone and the month-to-date figures with units', async () => {
-    const { fixture, text, figures } = await openWorkspace();
-    (await nextRequest({ method: 'GET', url: '/api/sites/7' })).flush(SITE);
-    await answerFigures(fixture);
+  it(
+    'when the site and its month load, then the header shows name, ' +
+      'organisation, zone and the month-to-date figures with units',
+    async () => {
+      const { fixture, text, figures } = await openWorkspace();
+      (await nextRequest({ method: 'GET', url: '/api/sites/7' })).flush(SITE);
+      await answerFigures(fixture);
 
-    const heading = (fixture.nativeElement as HTMLElement).querySelector('h1')!;
-    expect(heading.textContent!.trim()).toBe('Quailbrush Commons');
-    expect(text()).toContain('Saltgrass Property Partners · HOA common area · times in America/Los_Angeles');
-    expect(figures()).toEqual([
-      ['Use, 1–30 Nov 2026', '61,250 gal'],
-      ['Budget to date', '50,000 gal'],
-      ['Of budget', '123 %'],
-      ['Open alerts', '3'],
-      ['Latest data', '9 h ago'],
-    ]);
-  });
+      const heading = (fixture.nativeElement as HTMLElement).querySelector('h1')!;
+      expect(heading.textContent!.trim()).toBe('Quailbrush Commons');
+      expect(text()).toContain('Saltgrass Property Partners · HOA common area · times in America/Los_Angeles');
+      expect(figures()).toEqual([
+        ['Use, 1–30 Nov 2026', '61,250 gal'],
+        ['Budget to date', '50,000 gal'],
+        ['Of budget', '123 %'],
+        ['Open alerts', '3'],
+        ['Latest data', '9 h ago'],
+      ]);
+    },
+  );
 
   it('when the page opens, then every view of the site is a tab linking under /sites/:id', async () => {
     const { fixture, loader } = await openWorkspace();

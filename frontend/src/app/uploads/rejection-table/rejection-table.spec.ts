@@ -12,7 +12,8 @@ const rows: RejectionDto[] = [
     column: null,
     kind: 'conflict',
     message:
-      'meter LARK-07, 60 min from 2026-11-20 10:00 UTC: stored 2.5 gal (upload #4), this file 99 gal; the stored value was kept.',
+      'meter LARK-07, 60 min from 2026-11-20 10:00 UTC: stored 2.5 ' +
+      'gal (upload #4), this file 99 gal; the stored value was kept.',
   },
   {
     row: 0,

@@ -217,7 +217,9 @@ export class UploadPage {
   protected async rollBack(upload: UploadDto): Promise<void> {
     const ok = await confirm(this.dialog, {
       title: `Roll back upload #${upload.id}?`,
-      message: `Removes the ${upload.accepted} readings or runs "${upload.fileName}" stored, and puts back any values it replaced.`,
+      message:
+        `Removes the ${upload.accepted} readings or runs "${upload.fileName}" ` +
+        'stored, and puts back any values it replaced.',
       confirmLabel: 'Roll back',
       danger: true,
     });
@@ -257,7 +259,10 @@ export class UploadPage {
     const local = (iso: string) =>
       new Date(iso).toLocaleString('en-CA', { timeZone: this.site()!.timeZone, hour12: false }).replace(',', '');
     if ('controllerRef' in r)
-      return `${r.controllerRef} station ${r.station} · ${local(r.startUtc)} · ${r.minutes} min · ${r.cause ?? 'cause not given'}`;
+      return (
+        `${r.controllerRef} station ${r.station} · ${local(r.startUtc)} ` +
+        `· ${r.minutes} min · ${r.cause ?? 'cause not given'}`
+      );
     if ('atUtc' in r)
       return `${r.meterRef} · read at ${local(r.atUtc)} · register ${r.value} ${this.unitLabels[r.unit]}`;
     return `${r.meterRef} · ${local(r.startUtc)} · ${r.minutes} min · ${r.volume} ${this.unitLabels[r.unit]}`;

@@ -47,7 +47,11 @@ export class WeatherChart {
         formatter: (items: { dataIndex: number }[]) => {
           const d = days[items[0]?.dataIndex ?? 0];
           if (!d) return '';
-          return `${d.date}<br/>ETo ${v(d.etoMm)} ${unit} · rain ${v(d.rainMm)} ${unit}<br/>${DAILY_WEATHER_METHOD_LABELS[d.method]} · source: ${d.source}${d.filled ? `<br/><b>filled from normals (${d.filledFields.join(', ')})</b>` : ''}`;
+          return (
+            `${d.date}<br/>ETo ${v(d.etoMm)} ${unit} · rain ${v(d.rainMm)} ` +
+            `${unit}<br/>${DAILY_WEATHER_METHOD_LABELS[d.method]} · source: ` +
+            `${d.source}${d.filled ? `<br/><b>filled from normals (${d.filledFields.join(', ')})</b>` : ''}`
+          );
         },
       },
       grid: { left: 56, right: 56, top: 40, bottom: 56 },
