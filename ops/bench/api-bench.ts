@@ -61,7 +61,8 @@ if (!org || process.env['BENCH_REBUILD']) {
   const t0 = performance.now();
   if (org) {
     await db.query(
-      'DELETE r FROM meter_reading r JOIN meter m ON m.id = r.meter_id JOIN site s ON s.id = m.site_id WHERE s.organisation_id = ?',
+      `DELETE r FROM meter_reading r JOIN meter m ON m.id = r.meter_id JOIN site s ON s.id =
+        m.site_id WHERE s.organisation_id = ?`,
       [org.id],
     );
     await db.query('DELETE d FROM site_daily_use d JOIN site s ON s.id = d.site_id WHERE s.organisation_id = ?', [
@@ -101,7 +102,8 @@ if (!org || process.env['BENCH_REBUILD']) {
     sites.map((s) => [s.id, 'BENCH-01', 'gal', 1, 'dedicated-irrigation', 'recycled']),
   ]);
   const meters: { id: number; siteId: number }[] = await db.query(
-    'SELECT m.id, m.site_id AS siteId FROM meter m JOIN site s ON s.id = m.site_id WHERE s.organisation_id = ? ORDER BY m.id',
+    `SELECT m.id, m.site_id AS siteId FROM meter m JOIN site s ON s.id = m.site_id WHERE
+      s.organisation_id = ? ORDER BY m.id`,
     [org.id],
   );
   const [upload] = await db.query(
@@ -131,14 +133,18 @@ if (!org || process.env['BENCH_REBUILD']) {
     database: config.db.database,
   });
   await conn.query({
-    sql: `LOAD DATA LOCAL INFILE 'readings.tsv' INTO TABLE meter_reading FIELDS TERMINATED BY '\\t' LINES TERMINATED BY '\\n' (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id)`,
+    sql:
+      "LOAD DATA LOCAL INFILE 'readings.tsv' INTO TABLE meter_reading " +
+      "FIELDS TERMINATED BY '\\t' LINES TERMINATED BY '\\n' (meter_id, " +
+      'start_utc, minutes, volume_gal, original_value, original_unit, upload_id)',
     infileStreamFactory: () => createReadStream(tsv),
   });
   await conn.end();
   // The daily rollup for all bench sites in one statement (the same grouping DailyUseRepository.refresh uses).
   await db.query(
     `INSERT INTO site_daily_use (site_id, local_date, gallons, covered_minutes, reading_count)
-     SELECT m.site_id, DATE(CONVERT_TZ(r.start_utc, '+00:00', s.time_zone)) AS d, SUM(r.volume_gal), SUM(r.minutes), COUNT(*)
+     SELECT m.site_id, DATE(CONVERT_TZ(r.start_utc, '+00:00', s.time_zone)) AS d,
+      SUM(r.volume_gal), SUM(r.minutes), COUNT(*)
      FROM meter_reading r JOIN meter m ON m.id = r.meter_id JOIN site s ON s.id = m.site_id
      WHERE s.organisation_id = ? GROUP BY m.site_id, d`,
     [org.id],
@@ -150,10 +156,12 @@ if (!org || process.env['BENCH_REBUILD']) {
     [org.id],
   );
   console.log(
-    `generated ${SITES} sites × ${HOURS} hourly readings = ${(SITES * HOURS).toLocaleString('en-US')} rows in ${((performance.now() - t0) / 1000).toFixed(0)} s`,
+    `generated ${SITES} sites × ${HOURS} hourly readings = ${(SITES * HOURS).toLocaleString('en-US')} ` +
+      `rows in ${((performance.now() - t0) / 1000).toFixed(0)} s`,
   );
 }
-// Budgets: the cache the portfolio reads, refreshed every run so it counts as fresh (synthetic, 24,000–36,000 gal a month;
+// Budgets: the cache the portfolio reads, refreshed every run so it counts as fresh (synthetic, 24,000–36,000 gal a
+// month;
 // 5,000 for a tenth of the sites).
 const siteIds: number[] = (await db.query('SELECT id FROM site WHERE organisation_id = ? ORDER BY id', [org.id])).map(
   (s: { id: number }) => Number(s.id),
@@ -178,15 +186,18 @@ for (let i = 0; i < siteIds.length; i += 200) {
       ]),
     );
   await db.query(
-    'REPLACE INTO site_monthly_budget (site_id, month, gallons, cost, currency, eto_mm, rain_mm, filled_days, problem, computed_at) VALUES ?',
+    `REPLACE INTO site_monthly_budget (site_id, month, gallons, cost, currency, eto_mm, rain_mm,
+      filled_days, problem, computed_at) VALUES ?`,
     [rows],
   );
 }
 
 // 2. The bare SQL floor: the same aggregate the portfolio needs, without the app.
 const floorSql = `SELECT s.id, COALESCE(u.gal, 0) AS gal, b.gal AS budget FROM site s
-  LEFT JOIN (SELECT site_id, SUM(gallons) AS gal FROM site_daily_use WHERE local_date BETWEEN '2025-06-01' AND '2025-06-30' GROUP BY site_id) u ON u.site_id = s.id
-  LEFT JOIN (SELECT site_id, SUM(gallons) AS gal FROM site_monthly_budget WHERE month = '2025-06' GROUP BY site_id) b ON b.site_id = s.id
+  LEFT JOIN (SELECT site_id, SUM(gallons) AS gal FROM site_daily_use WHERE local_date BETWEEN
+  '2025-06-01' AND '2025-06-30' GROUP BY site_id) u ON u.site_id = s.id
+  LEFT JOIN (SELECT site_id, SUM(gallons) AS gal FROM site_monthly_budget WHERE month = '2025-06'
+  GROUP BY site_id) b ON b.site_id = s.id
   WHERE s.organisation_id = ? ORDER BY u.gal / b.gal DESC LIMIT 25`;
 const floor: number[] = [];
 for (let i = 0; i < 30; i++) {
@@ -246,7 +257,9 @@ for (const target of targets.filter((t) => t.name.includes(process.env['BENCH_ON
   const r = await autocannon({ url: server.url + target.path, connections: 20, duration: DURATION, headers });
   const cpuPerRequest = ((await serverCpuMs()) - cpu0) / r.requests.total;
   results.push(
-    `${target.name.padEnd(56)} p50 ${r.latency.p50} ms  p95 ${percentile(r, 95)} ms  p99 ${r.latency.p99} ms  ${Math.round(r.requests.average)} req/s  (${r.non2xx} non-2xx)  server CPU ${cpuPerRequest.toFixed(1)} ms/request`,
+    `${target.name.padEnd(56)} p50 ${r.latency.p50} ms  p95 ${percentile(r, 95)} ` +
+      `ms  p99 ${r.latency.p99} ms  ${Math.round(r.requests.average)} ` +
+      `req/s  (${r.non2xx} non-2xx)  server CPU ${cpuPerRequest.toFixed(1)} ms/request`,
   );
 }
 // Uncached: the portfolio memoises one scope's sums for 20 s, so also time requests that each miss it
@@ -255,7 +268,8 @@ const cold: number[] = [];
 for (let i = 0; i < 15; i++) {
   const t = performance.now();
   const res = await fetch(
-    `${server.url}/api/portfolio?period=custom&from=2025-05-01&to=2025-06-${String(10 + i).padStart(2, '0')}&sort=percentOfBudget&dir=desc`,
+    `${server.url}/api/portfolio?period=custom&from=2025-05-01&to=2025-06-${String(10 + i).padStart(2, '0')}` +
+      '&sort=percentOfBudget&dir=desc',
     { headers },
   );
   await res.arrayBuffer();
@@ -263,19 +277,22 @@ for (let i = 0; i < 15; i++) {
 }
 cold.sort((a, b) => a - b);
 results.push(
-  `${'portfolio, memo missed every time (1 connection, 15 runs)'.padEnd(56)} p50 ${cold[7]!.toFixed(0)} ms  max ${cold[14]!.toFixed(0)} ms`,
+  `${'portfolio, memo missed every time (1 connection, 15 runs)'.padEnd(56)} ` +
+    `p50 ${cold[7]!.toFixed(0)} ms  max ${cold[14]!.toFixed(0)} ms`,
 );
 child.send({ cmd: 'stop' });
 await once(child, 'exit');
 const floorP50 = floor[Math.floor(floor.length / 2)]!;
 console.log(
-  `\n20 connections, ${DURATION} s each, ${SITES} sites, database ${config.db.database}; load average before ${loadBefore}, after ${loadavg()
-    .map((l) => l.toFixed(1))
-    .join(' ')} (${availableParallelism()} cores)`,
+  `\n20 connections, ${DURATION} s each, ${SITES} sites, database ${config.db.database}; ` +
+    `load average before ${loadBefore}, after ${loadavg()
+      .map((l) => l.toFixed(1))
+      .join(' ')} (${availableParallelism()} cores)`,
 );
 for (const line of results) console.log(line);
 console.log(
-  `bare SQL portfolio aggregate: p50 ${floorP50.toFixed(1)} ms (single connection, 30 runs) — the floor for the portfolio endpoint`,
+  `bare SQL portfolio aggregate: p50 ${floorP50.toFixed(1)} ms ` +
+    '(single connection, 30 runs) — the floor for the portfolio endpoint',
 );
 
 /** autocannon reports p90/p97.5/p99; p95 is interpolated between p90 and p97.5. */

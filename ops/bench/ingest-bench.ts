@@ -114,7 +114,8 @@ const loadBefore = loadavg()
 await ask('reset');
 const boundary = `----rillmark-bench-${Date.now()}`;
 const head = Buffer.from(
-  `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="readings.csv"\r\nContent-Type: text/csv\r\n\r\n`,
+  `--${boundary}\r\nContent-Disposition: form-data; name="file"; ` +
+    'filename="readings.csv"\r\nContent-Type: text/csv\r\n\r\n',
 );
 const tail = Buffer.from(`\r\n--${boundary}--\r\n`);
 const t0 = performance.now();
@@ -163,7 +164,9 @@ const conn = await createConnection({
 const rawLoad = async (table: string, tail: string, values: unknown[] = []): Promise<number> => {
   const t = performance.now();
   await conn.query({
-    sql: `LOAD DATA LOCAL INFILE 'readings.tsv' INTO TABLE ${table} FIELDS TERMINATED BY '\\t' LINES TERMINATED BY '\\n' ${tail}`,
+    sql:
+      `LOAD DATA LOCAL INFILE 'readings.tsv' INTO TABLE ${table} FIELDS ` +
+      `TERMINATED BY '\\t' LINES TERMINATED BY '\\n' ${tail}`,
     values,
     infileStreamFactory: () => createReadStream(rawPath),
   });
@@ -174,7 +177,8 @@ const rawLoad = async (table: string, tail: string, values: unknown[] = []): Pro
 await conn.query('DROP TABLE IF EXISTS bench_raw_reading, bench_raw_reading_bare');
 await conn.query('CREATE TABLE bench_raw_reading LIKE meter_reading');
 await conn.query(
-  'ALTER TABLE bench_raw_reading ADD CONSTRAINT fk_bench_raw_reading_meter FOREIGN KEY (meter_id) REFERENCES meter (id) ON DELETE CASCADE',
+  `ALTER TABLE bench_raw_reading ADD CONSTRAINT fk_bench_raw_reading_meter FOREIGN KEY (meter_id)
+    REFERENCES meter (id) ON DELETE CASCADE`,
 );
 const rawSeconds = await rawLoad(
   'bench_raw_reading',
@@ -182,7 +186,9 @@ const rawSeconds = await rawLoad(
   [upload.id],
 );
 await conn.query(
-  'CREATE TABLE bench_raw_reading_bare (meter_id int unsigned NOT NULL, start_utc datetime NOT NULL, minutes mediumint unsigned NOT NULL, volume_gal decimal(12,4) NOT NULL, PRIMARY KEY (meter_id, start_utc, minutes)) ENGINE=InnoDB',
+  `CREATE TABLE bench_raw_reading_bare (meter_id int unsigned NOT NULL, start_utc datetime NOT
+    NULL, minutes mediumint unsigned NOT NULL, volume_gal decimal(12,4) NOT NULL, PRIMARY KEY
+    (meter_id, start_utc, minutes)) ENGINE=InnoDB`,
 );
 const bareSeconds = await rawLoad('bench_raw_reading_bare', '(meter_id, start_utc, minutes, volume_gal)');
 await conn.end();
@@ -199,14 +205,18 @@ const apiRate = ROWS / apiSeconds;
 const rawRate = ROWS / rawSeconds;
 const growthMb = (memory.peak - memory.baseline) / (1024 * 1024);
 console.log(
-  `API upload:        ${apiSeconds.toFixed(2)} s, ${Math.round(apiRate).toLocaleString('en-US')} rows/s (send + parse + stage + merge, one transaction)`,
+  `API upload:        ${apiSeconds.toFixed(2)} s, ${Math.round(apiRate).toLocaleString('en-US')} ` +
+    'rows/s (send + parse + stage + merge, one transaction)',
 );
 console.log(
-  `raw LOAD DATA:     ${rawSeconds.toFixed(2)} s, ${Math.round(rawRate).toLocaleString('en-US')} rows/s (into a copy of meter_reading: same columns, indexes, foreign key)`,
+  `raw LOAD DATA:     ${rawSeconds.toFixed(2)} s, ${Math.round(rawRate).toLocaleString('en-US')} ` +
+    'rows/s (into a copy of meter_reading: same columns, indexes, foreign key)',
 );
 console.log(`ratio API / raw:   ${(apiRate / rawRate).toFixed(2)}  (target ≥ 0.50)`);
 console.log(
-  `for comparison, raw LOAD DATA into a bare table (primary key only, 4 columns): ${bareSeconds.toFixed(2)} s, ${Math.round(ROWS / bareSeconds).toLocaleString('en-US')} rows/s; API / bare ${(apiRate / (ROWS / bareSeconds)).toFixed(2)}`,
+  'for comparison, raw LOAD DATA into a bare table (primary key ' +
+    `only, 4 columns): ${bareSeconds.toFixed(2)} s, ${Math.round(ROWS / bareSeconds).toLocaleString('en-US')} ` +
+    `rows/s; API / bare ${(apiRate / (ROWS / bareSeconds)).toFixed(2)}`,
 );
 console.log(
   `load average before ${loadBefore}, after ${loadavg()
@@ -214,5 +224,6 @@ console.log(
     .join(' ')} (${availableParallelism()} cores)`,
 );
 console.log(
-  `server RSS growth: ${growthMb.toFixed(0)} MB peak during the upload (baseline ${(memory.baseline / 1048576).toFixed(0)} MB; target < 300 MB)`,
+  `server RSS growth: ${growthMb.toFixed(0)} MB peak during the ` +
+    `upload (baseline ${(memory.baseline / 1048576).toFixed(0)} MB; target < 300 MB)`,
 );

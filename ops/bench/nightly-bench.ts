@@ -67,7 +67,8 @@ const orgId = Number(((await db.query('SELECT id FROM organisation WHERE name = 
 // 1. One night: every site was checked yesterday at this time and has one new day of data since.
 await resetWatch(siteIds);
 await db.query(
-  'INSERT INTO watch_site_state (site_id, last_data_utc, last_checked_as_of_utc) SELECT id, ?, ? FROM site WHERE organisation_id = ?',
+  `INSERT INTO watch_site_state (site_id, last_data_utc, last_checked_as_of_utc) SELECT id, ?, ?
+    FROM site WHERE organisation_id = ?`,
   [new Date(END - 25 * HOUR), new Date(END - 24 * HOUR), orgId],
 );
 const night = await timed(() =>
@@ -75,7 +76,8 @@ const night = await timed(() =>
 );
 const nightFloor = await timed(() =>
   conn.query(
-    `SELECT m.site_id, COUNT(*), SUM(r.volume_gal) FROM meter_reading r JOIN meter m ON m.id = r.meter_id WHERE m.site_id IN (?) AND r.start_utc >= ? GROUP BY m.site_id`,
+    `SELECT m.site_id, COUNT(*), SUM(r.volume_gal) FROM meter_reading r JOIN meter m ON m.id =
+      r.meter_id WHERE m.site_id IN (?) AND r.start_utc >= ? GROUP BY m.site_id`,
     [siteIds, new Date(END - 25 * HOUR - 45 * 24 * HOUR)],
   ),
 );
@@ -94,7 +96,8 @@ const backfill = await timed(() =>
 );
 const backfillFloor = await timed(() =>
   conn.query(
-    'SELECT m.site_id, COUNT(*), SUM(r.volume_gal) FROM meter_reading r JOIN meter m ON m.id = r.meter_id WHERE m.site_id IN (?) GROUP BY m.site_id',
+    `SELECT m.site_id, COUNT(*), SUM(r.volume_gal) FROM meter_reading r JOIN meter m ON m.id =
+      r.meter_id WHERE m.site_id IN (?) GROUP BY m.site_id`,
     [siteIds],
   ),
 );
@@ -114,9 +117,11 @@ function report(
 ): void {
   const r = run.value!;
   console.log(
-    `${label}: ${run.seconds.toFixed(1)} s for ${r.sitesChecked} sites (${r.sitesSkipped} skipped, ${r.errors.length} errors), ` +
+    `${label}: ${run.seconds.toFixed(1)} s for ${r.sitesChecked} ` +
+      `sites (${r.sitesSkipped} skipped, ${r.errors.length} errors), ` +
       `${r.findings} findings, ${r.alertsRaised} alerts raised; peak RSS ${run.peakRssMb.toFixed(0)} MB; ` +
-      `bare SQL scan of the same rows ${floor.seconds.toFixed(1)} s; ratio ${(run.seconds / floor.seconds).toFixed(1)}×`,
+      `bare SQL scan of the same rows ${floor.seconds.toFixed(1)} s; ` +
+      `ratio ${(run.seconds / floor.seconds).toFixed(1)}×`,
   );
 }
 
@@ -184,7 +189,8 @@ async function ensureData(c: Connection): Promise<number[]> {
   ])) as unknown as [{ id: number }[]];
   const ids = siteRows.map((r) => r.id);
   await c.query(
-    "INSERT INTO meter (site_id, ref, unit, purpose, water_source) SELECT id, 'M1', 'gal', 'dedicated-irrigation', 'potable' FROM site WHERE organisation_id = ?",
+    `INSERT INTO meter (site_id, ref, unit, purpose, water_source) SELECT id, 'M1', 'gal',
+      'dedicated-irrigation', 'potable' FROM site WHERE organisation_id = ?`,
     [org!.id],
   );
   await c.query(
@@ -193,7 +199,8 @@ async function ensureData(c: Connection): Promise<number[]> {
   );
   for (let z = 1; z <= ZONES; z++) {
     await c.query(
-      'INSERT INTO zone (controller_id, station, name, design_gpm) SELECT c.id, ?, ?, 8 FROM controller c JOIN site s ON s.id = c.site_id WHERE s.organisation_id = ?',
+      `INSERT INTO zone (controller_id, station, name, design_gpm) SELECT c.id, ?, ?, 8 FROM
+        controller c JOIN site s ON s.id = c.site_id WHERE s.organisation_id = ?`,
       [String(z), `Station ${z}`, org!.id],
     );
   }
@@ -201,7 +208,8 @@ async function ensureData(c: Connection): Promise<number[]> {
     { id: number; site_id: number }[],
   ];
   const [zones] = (await c.query(
-    'SELECT z.id, c.site_id, z.station FROM zone z JOIN controller c ON c.id = z.controller_id WHERE c.site_id IN (?) ORDER BY z.id',
+    `SELECT z.id, c.site_id, z.station FROM zone z JOIN controller c ON c.id = z.controller_id
+      WHERE c.site_id IN (?) ORDER BY z.id`,
     [ids],
   )) as unknown as [{ id: number; site_id: number; station: string }[]];
   const meterOf = new Map(meters.map((m) => [m.site_id, m.id]));
@@ -227,7 +235,8 @@ async function ensureData(c: Connection): Promise<number[]> {
         let gal = 0;
         if (waters && (h === 4 || h === 5)) gal = ((ZONES * 8 * 30) / 2) * (d === longZoneDay && h === 5 ? 2 : 1);
         if (leakDay >= 0 && d >= leakDay && d < leakDay + 7) gal += 25;
-        rChunk += `${meterOf.get(siteId)}\t${iso(dayStart + h * HOUR)}\t60\t${gal.toFixed(4)}\t${gal.toFixed(4)}\tgal\t0\n`;
+        const volume = gal.toFixed(4);
+        rChunk += `${meterOf.get(siteId)}\t${iso(dayStart + h * HOUR)}\t60\t${volume}\t${volume}\tgal\t0\n`;
       }
       if (waters) {
         zonesOf.get(siteId)!.forEach((zoneId, i) => {
@@ -244,11 +253,17 @@ async function ensureData(c: Connection): Promise<number[]> {
   await Promise.all([once(rOut, 'finish'), once(eOut, 'finish')]);
   const t0 = performance.now();
   await c.query({
-    sql: "LOAD DATA LOCAL INFILE 'r.tsv' INTO TABLE meter_reading FIELDS TERMINATED BY '\\t' LINES TERMINATED BY '\\n' (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id)",
+    sql:
+      "LOAD DATA LOCAL INFILE 'r.tsv' INTO TABLE meter_reading FIELDS " +
+      "TERMINATED BY '\\t' LINES TERMINATED BY '\\n' (meter_id, start_utc, " +
+      'minutes, volume_gal, original_value, original_unit, upload_id)',
     infileStreamFactory: () => createReadStream(readings),
   });
   await c.query({
-    sql: "LOAD DATA LOCAL INFILE 'e.tsv' INTO TABLE runtime_event FIELDS TERMINATED BY '\\t' LINES TERMINATED BY '\\n' (zone_id, start_utc, minutes, cause, upload_id)",
+    sql:
+      "LOAD DATA LOCAL INFILE 'e.tsv' INTO TABLE runtime_event FIELDS " +
+      "TERMINATED BY '\\t' LINES TERMINATED BY '\\n' (zone_id, start_utc, " +
+      'minutes, cause, upload_id)',
     infileStreamFactory: () => createReadStream(runs),
   });
   console.log(`loaded in ${((performance.now() - t0) / 1000).toFixed(0)} s`);

@@ -23,7 +23,8 @@ export async function seedWatchSettings(db: DataSource): Promise<number> {
     )) as { id: number }[];
     if (!site) continue;
     await db.query(
-      `INSERT INTO site_watch_settings (site_id, thresholds, irrigation_start_hour, irrigation_end_hour) VALUES (?, ?, 21, 7)
+      `INSERT INTO site_watch_settings (site_id, thresholds, irrigation_start_hour,
+        irrigation_end_hour) VALUES (?, ?, 21, 7)
        ON DUPLICATE KEY UPDATE thresholds = VALUES(thresholds)`,
       [site.id, JSON.stringify(thresholds)],
     );

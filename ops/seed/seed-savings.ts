@@ -41,7 +41,8 @@ export async function seedSavings(db: DataSource): Promise<{ readings: number; p
   if (!existing) {
     if (!site.weatherStationId) throw new Error(`${SITE} has no weather station; run seedBudgets first`);
     const weather: { date: string | Date; eto: number | null; rain: number | null }[] = await db.query(
-      'SELECT date, eto_mm AS eto, rain_mm AS rain FROM daily_weather WHERE station_id = ? AND date BETWEEN ? AND ? ORDER BY date',
+      `SELECT date, eto_mm AS eto, rain_mm AS rain FROM daily_weather WHERE station_id = ? AND date
+        BETWEEN ? AND ? ORDER BY date`,
       [site.weatherStationId, FROM, TO],
     );
     const byDate = new Map(weather.map((w) => [dateOnly(w.date), w]));
@@ -79,13 +80,15 @@ export async function seedSavings(db: DataSource): Promise<{ readings: number; p
         rows.push([meter.id, new Date(start), minutes, gallons, gallons, 'gal']);
       }
       const upload = await em.query(
-        `INSERT INTO upload (site_id, uploaded_by, kind, file_name, size_bytes, status, rows_read, accepted, finished_at) VALUES (?, ?, 'interval-long', ?, 0, 'done', ?, ?, ?)`,
+        `INSERT INTO upload (site_id, uploaded_by, kind, file_name, size_bytes, status, rows_read,
+          accepted, finished_at) VALUES (?, ?, 'interval-long', ?, 0, 'done', ?, ?, ?)`,
         [site.id, author?.id ?? null, FILE_NAME, rows.length, rows.length, new Date()],
       );
       const uploadId = Number(upload.insertId);
       for (let i = 0; i < rows.length; i += 500) {
         await em.query(
-          'INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?',
+          `INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value,
+            original_unit, upload_id) VALUES ?`,
           [rows.slice(i, i + 500).map((r) => [...r, uploadId])],
         );
       }
@@ -119,7 +122,9 @@ function nextDate(date: string): string {
   return new Date(Date.parse(`${date}T00:00:00Z`) + 86_400_000).toISOString().slice(0, 10);
 }
 
-/** UTC instant of a local midnight; the offset at UTC midnight matches local midnight for zones that switch at 02:00. */
+/**
+ * UTC instant of a local midnight; the offset at UTC midnight matches local midnight for zones that switch at 02:00.
+ */
 function localMidnightUtc(date: string, zone: string): number {
   const guess = Date.parse(`${date}T00:00:00Z`);
   return guess - zoneOffsetMinutes(guess, zone) * 60_000;

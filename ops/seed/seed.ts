@@ -17,7 +17,8 @@ logger.info(
 );
 const budgets = await seedBudgets(db);
 logger.info(
-  `demo budgets seeded: ${budgets.stations} weather stations, ${budgets.days} days of weather, ${budgets.hydrozones} hydrozones`,
+  `demo budgets seeded: ${budgets.stations} weather stations, ${budgets.days} ` +
+    `days of weather, ${budgets.hydrozones} hydrozones`,
 );
 const water = await seedMeters(db, loadConfig());
 logger.info(

@@ -47,14 +47,17 @@ describe('who may see and act on alerts', () => {
     await auditor.post(`/api/alerts/${alertId}/notes`, { note: 'seen' }).expect(403);
   });
 
-  it('when another organisation asks for the alert, then it does not exist for them (404) and their inbox omits it', async () => {
-    const other = await createWorld(app.db);
-    const stranger = await signedIn(app, other.users.admin.email);
-    await stranger.get(`/api/alerts/${alertId}`).expect(404);
-    await stranger.post(`/api/alerts/${alertId}/acknowledge`, {}).expect(404);
-    const inbox = (await stranger.get('/api/alerts').expect(200)).body;
-    expect(inbox.items.map((a: { id: number }) => a.id)).not.toContain(alertId);
-  });
+  it(
+    'when another organisation asks for the alert, then it does not ' + 'exist for them (404) and their inbox omits it',
+    async () => {
+      const other = await createWorld(app.db);
+      const stranger = await signedIn(app, other.users.admin.email);
+      await stranger.get(`/api/alerts/${alertId}`).expect(404);
+      await stranger.post(`/api/alerts/${alertId}/acknowledge`, {}).expect(404);
+      const inbox = (await stranger.get('/api/alerts').expect(200)).body;
+      expect(inbox.items.map((a: { id: number }) => a.id)).not.toContain(alertId);
+    },
+  );
 
   it('when a contractor has a contributing share, then they may act; a read share may only look', async () => {
     const contractorOrg = await createOrganisation(app.db, 'contractor', 'Crew');

@@ -37,19 +37,23 @@ async function keyAnswer(secret: string): Promise<number> {
 }
 
 describe('API keys across organisations and roles', () => {
-  it("when another organisation's administrator lists or revokes a key, then they never see it and it keeps working", async () => {
-    const key = await newKey();
-    const theirs = (await otherAdmin.get('/api/api-keys').expect(200)).body as Array<{ id: number }>;
-    expect(theirs.map((k) => k.id)).not.toContain(key.id);
+  it(
+    "when another organisation's administrator lists or revokes a " +
+      'key, then they never see it and it keeps working',
+    async () => {
+      const key = await newKey();
+      const theirs = (await otherAdmin.get('/api/api-keys').expect(200)).body as Array<{ id: number }>;
+      expect(theirs.map((k) => k.id)).not.toContain(key.id);
 
-    const res = await otherAdmin.delete(`/api/api-keys/${key.id}`).expect(404);
-    expect(res.body.error.code).toBe('not_found');
-    expect(await keyAnswer(key.secret)).toBe(404);
-    const mine = (
-      (await admin.get('/api/api-keys').expect(200)).body as Array<{ id: number; revokedAt: string | null }>
-    ).find((k) => k.id === key.id);
-    expect(mine).toMatchObject({ revokedAt: null });
-  });
+      const res = await otherAdmin.delete(`/api/api-keys/${key.id}`).expect(404);
+      expect(res.body.error.code).toBe('not_found');
+      expect(await keyAnswer(key.secret)).toBe(404);
+      const mine = (
+        (await admin.get('/api/api-keys').expect(200)).body as Array<{ id: number; revokedAt: string | null }>
+      ).find((k) => k.id === key.id);
+      expect(mine).toMatchObject({ revokedAt: null });
+    },
+  );
 
   it('when a manager or an auditor asks for the keys, then they are refused and the key is untouched', async () => {
     const key = await newKey();
@@ -65,19 +69,22 @@ describe('API keys across organisations and roles', () => {
     await request(app.server.url).get('/api/api-keys').expect(401);
   });
 
-  it('when the owning administrator revokes a key twice, then it stops working and the second try finds nothing', async () => {
-    const key = await newKey();
-    await admin.delete(`/api/api-keys/${key.id}`).expect(204);
-    expect(await keyAnswer(key.secret)).toBe(401);
-    await admin.delete(`/api/api-keys/${key.id}`).expect(404);
-    const listed = (
-      (await admin.get('/api/api-keys').expect(200)).body as Array<{
-        id: number;
-        revokedAt: string | null;
-        secret?: string;
-      }>
-    ).find((k) => k.id === key.id);
-    expect(listed?.revokedAt).toEqual(expect.any(String));
-    expect(listed?.secret).toBeUndefined();
-  });
+  it(
+    'when the owning administrator revokes a key twice, then it stops ' + 'working and the second try finds nothing',
+    async () => {
+      const key = await newKey();
+      await admin.delete(`/api/api-keys/${key.id}`).expect(204);
+      expect(await keyAnswer(key.secret)).toBe(401);
+      await admin.delete(`/api/api-keys/${key.id}`).expect(404);
+      const listed = (
+        (await admin.get('/api/api-keys').expect(200)).body as Array<{
+          id: number;
+          revokedAt: string | null;
+          secret?: string;
+        }>
+      ).find((k) => k.id === key.id);
+      expect(listed?.revokedAt).toEqual(expect.any(String));
+      expect(listed?.secret).toBeUndefined();
+    },
+  );
 });

@@ -134,20 +134,23 @@ describe('health', () => {
     expect(res.body).toMatchObject({ status: 'ok', database: { status: 'up' } });
   });
 
-  it('when MariaDB cannot be reached at start, then the server says so on each retry and finally fails plainly', async () => {
-    const lines: string[] = [];
-    const spy = vi.spyOn(process.stderr, 'write').mockImplementation((chunk) => (lines.push(String(chunk)), true));
-    try {
-      await expect(
-        startServer(testConfig({ RILLMARK_DB_PORT: '1', RILLMARK_LOG_LEVEL: 'warn' }), { dbAttempts: 3 }),
-      ).rejects.toThrow(
-        /Cannot reach MariaDB at 127\.0\.0\.1:1\/\w+ after 3 attempts .*Is it running\? Start it with: npm run db:start/,
-      );
-    } finally {
-      spy.mockRestore();
-    }
-    expect(lines.filter((l) => /MariaDB at 127\.0\.0\.1:1\/\w+ is not reachable .* retry \d\/2/.test(l))).toHaveLength(
-      2,
-    );
-  });
+  it(
+    'when MariaDB cannot be reached at start, then the server says ' + 'so on each retry and finally fails plainly',
+    async () => {
+      const lines: string[] = [];
+      const spy = vi.spyOn(process.stderr, 'write').mockImplementation((chunk) => (lines.push(String(chunk)), true));
+      try {
+        await expect(
+          startServer(testConfig({ RILLMARK_DB_PORT: '1', RILLMARK_LOG_LEVEL: 'warn' }), { dbAttempts: 3 }),
+        ).rejects.toThrow(
+          /Cannot reach MariaDB at 127\.0\.0\.1:1\/\w+ after 3 attempts .*Is it running\? Start it with: npm run db:start/,
+        );
+      } finally {
+        spy.mockRestore();
+      }
+      expect(
+        lines.filter((l) => /MariaDB at 127\.0\.0\.1:1\/\w+ is not reachable .* retry \d\/2/.test(l)),
+      ).toHaveLength(2);
+    },
+  );
 });

@@ -118,36 +118,43 @@ describe('site budget', () => {
     expect(june.cost.total).toBeCloseTo(Math.round((20 + 4 * ccf) * 100) / 100, 2);
   });
 
-  it("when the meter also serves 10 people at 50 gal a day, then June's cost covers landscape + 15,000 gal indoor", async () => {
-    const june = (
-      await manager
-        .get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-06&occupants=10&gallonsPerPersonPerDay=50`)
-        .expect(200)
-    ).body.months[0];
-    expect(june.indoorGallons).toBe(10 * 50 * 30);
-    const ccf = (june.gallons + 15000) / GAL_PER_CCF;
-    expect(june.cost.total).toBeCloseTo(Math.round((20 + 4 * ccf) * 100) / 100, 2);
-    const half = await manager.get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-06&occupants=10`).expect(400);
-    expect(half.body.error.details[0].field).toBe('occupants');
-  });
+  it(
+    "when the meter also serves 10 people at 50 gal a day, then June's " + 'cost covers landscape + 15,000 gal indoor',
+    async () => {
+      const june = (
+        await manager
+          .get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-06&occupants=10&gallonsPerPersonPerDay=50`)
+          .expect(200)
+      ).body.months[0];
+      expect(june.indoorGallons).toBe(10 * 50 * 30);
+      const ccf = (june.gallons + 15000) / GAL_PER_CCF;
+      expect(june.cost.total).toBeCloseTo(Math.round((20 + 4 * ccf) * 100) / 100, 2);
+      const half = await manager.get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-06&occupants=10`).expect(400);
+      expect(half.body.error.details[0].field).toBe('occupants');
+    },
+  );
 
-  it('when July misses a day and 25 % of rain is credited, then the day is filled from normals and flagged, and the credit is hand-checkable', async () => {
-    const res = await manager
-      .get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-07&rain=fixed-fraction&rainValue=0.25`)
-      .expect(200);
-    const july = res.body.months[1];
-    expect(july.filledDays).toBe(1);
-    expect(july.methods).toEqual(expect.arrayContaining(['measured', 'normal-filled']));
-    // 30 measured days at 6 mm + the 15th from the July normal 186 mm ÷ 31 = 6 mm → 186 mm.
-    expect(july.etoMm).toBeCloseTo(186, 6);
-    const shrub = july.zones.find((z: { zoneName: string }) => z.zoneName === 'Shrub bed');
-    // Effective rain 0.25 × 8 mm = 2 mm, below that day's need 6 × 0.5 = 3 mm, so no day floors at zero.
-    const netIn = (186 * 0.5 - 2) / 25.4;
-    expect(shrub.gallons).toBeCloseTo((netIn * 1000 * GAL_PER_IN_FT2) / 0.81, 6);
-    expect(shrub.rainCreditGallons).toBeCloseTo(((2 / 25.4) * 1000 * GAL_PER_IN_FT2) / 0.81, 6);
-    expect(res.body.totals.filledDays).toBe(1);
-    expect(res.body.rainCredit.description).toMatch(/25 %/);
-  });
+  it(
+    'when July misses a day and 25 % of rain is credited, then the ' +
+      'day is filled from normals and flagged, and the credit is hand-checkable',
+    async () => {
+      const res = await manager
+        .get(`/api/sites/${siteId}/budget?from=2025-06&to=2025-07&rain=fixed-fraction&rainValue=0.25`)
+        .expect(200);
+      const july = res.body.months[1];
+      expect(july.filledDays).toBe(1);
+      expect(july.methods).toEqual(expect.arrayContaining(['measured', 'normal-filled']));
+      // 30 measured days at 6 mm + the 15th from the July normal 186 mm ÷ 31 = 6 mm → 186 mm.
+      expect(july.etoMm).toBeCloseTo(186, 6);
+      const shrub = july.zones.find((z: { zoneName: string }) => z.zoneName === 'Shrub bed');
+      // Effective rain 0.25 × 8 mm = 2 mm, below that day's need 6 × 0.5 = 3 mm, so no day floors at zero.
+      const netIn = (186 * 0.5 - 2) / 25.4;
+      expect(shrub.gallons).toBeCloseTo((netIn * 1000 * GAL_PER_IN_FT2) / 0.81, 6);
+      expect(shrub.rainCreditGallons).toBeCloseTo(((2 / 25.4) * 1000 * GAL_PER_IN_FT2) / 0.81, 6);
+      expect(res.body.totals.filledDays).toBe(1);
+      expect(res.body.rainCredit.description).toMatch(/25 %/);
+    },
+  );
 
   it('when the range or the rain credit is nonsense, then 400 names the field', async () => {
     const bad = await manager.get(`/api/sites/${siteId}/budget?from=2025-13&to=2025-06`).expect(400);
@@ -160,27 +167,31 @@ describe('site budget', () => {
     expect(fraction.body.error.details[0].field).toBe('rainValue');
   });
 
-  it('when a month has missing days and no normals, then 400 says the weather is incomplete instead of a short budget', async () => {
-    const other = (await createSite(app.db, world.org.id)).id;
-    await manager
-      .post(`/api/sites/${other}/hydrozones`, {
-        name: 'Bed',
-        area: 500,
-        areaUnit: 'ft2',
-        plantFactor: 0.3,
-        irrigationMethod: 'drip',
-      })
-      .expect(201);
-    const stationId = await stationForSite(manager, other);
-    await manager
-      .postText(
-        `/api/weather-stations/${stationId}/daily?format=eto-rain`,
-        etoRainCsv('2025-06-01', 20, () => [5, 0]),
-      )
-      .expect(200);
-    const res = await manager.get(`/api/sites/${other}/budget?from=2025-06&to=2025-06`).expect(400);
-    expect(res.body.error.message).toMatch(/2025-06-21.*no normal for month 6/);
-  });
+  it(
+    'when a month has missing days and no normals, then 400 says ' +
+      'the weather is incomplete instead of a short budget',
+    async () => {
+      const other = (await createSite(app.db, world.org.id)).id;
+      await manager
+        .post(`/api/sites/${other}/hydrozones`, {
+          name: 'Bed',
+          area: 500,
+          areaUnit: 'ft2',
+          plantFactor: 0.3,
+          irrigationMethod: 'drip',
+        })
+        .expect(201);
+      const stationId = await stationForSite(manager, other);
+      await manager
+        .postText(
+          `/api/weather-stations/${stationId}/daily?format=eto-rain`,
+          etoRainCsv('2025-06-01', 20, () => [5, 0]),
+        )
+        .expect(200);
+      const res = await manager.get(`/api/sites/${other}/budget?from=2025-06&to=2025-06`).expect(400);
+      expect(res.body.error.message).toMatch(/2025-06-21.*no normal for month 6/);
+    },
+  );
 
   it('when the site has no hydrozones or no station, then 400 says what to add', async () => {
     const bare = (await createSite(app.db, world.org.id)).id;
@@ -201,21 +212,25 @@ describe('site budget', () => {
 });
 
 describe('MWELO compliance', () => {
-  it('when the shrubs run at ETAF 0.62 on a non-residential site, then MAWA and ETWU match App. B and it does not comply', async () => {
-    const res = await manager.get(`/api/sites/${siteId}/compliance?year=2025`).expect(200);
-    const c = res.body;
-    // ETo for 2025: ten months of normals at 150 mm + June 152.4 mm + July 186 mm.
-    const etoIn = (10 * 150 + 152.4 + 186) / 25.4;
-    const la = 1000 + 100 * FT2_PER_M2;
-    const sla = 100 * FT2_PER_M2;
-    expect(c.projectType).toBe('non-residential');
-    expect(c.etoIn).toBeCloseTo(etoIn, 6);
-    expect(c.mawaGallons).toBeCloseTo(etoIn * 0.62 * (0.45 * la + 0.55 * sla), 4);
-    expect(c.etwuGallons).toBeCloseTo(etoIn * 0.62 * ((0.5 / 0.81) * 1000 + 1.0 * sla), 4);
-    expect(c.regularAreaEtaf).toBeCloseTo(0.5 / 0.81, 9);
-    expect(c.complies).toBe(false);
-    expect(c.reasons.join(' ')).toMatch(/ETAF 0\.62 exceeds the maximum 0\.45/);
-  });
+  it(
+    'when the shrubs run at ETAF 0.62 on a non-residential site, ' +
+      'then MAWA and ETWU match App. B and it does not comply',
+    async () => {
+      const res = await manager.get(`/api/sites/${siteId}/compliance?year=2025`).expect(200);
+      const c = res.body;
+      // ETo for 2025: ten months of normals at 150 mm + June 152.4 mm + July 186 mm.
+      const etoIn = (10 * 150 + 152.4 + 186) / 25.4;
+      const la = 1000 + 100 * FT2_PER_M2;
+      const sla = 100 * FT2_PER_M2;
+      expect(c.projectType).toBe('non-residential');
+      expect(c.etoIn).toBeCloseTo(etoIn, 6);
+      expect(c.mawaGallons).toBeCloseTo(etoIn * 0.62 * (0.45 * la + 0.55 * sla), 4);
+      expect(c.etwuGallons).toBeCloseTo(etoIn * 0.62 * ((0.5 / 0.81) * 1000 + 1.0 * sla), 4);
+      expect(c.regularAreaEtaf).toBeCloseTo(0.5 / 0.81, 9);
+      expect(c.complies).toBe(false);
+      expect(c.reasons.join(' ')).toMatch(/ETAF 0\.62 exceeds the maximum 0\.45/);
+    },
+  );
 
   it('when residential is chosen, then the 0.55 ETAF is used', async () => {
     const c = (await manager.get(`/api/sites/${siteId}/compliance?year=2025&projectType=residential`).expect(200)).body;
@@ -225,24 +240,28 @@ describe('MWELO compliance', () => {
 });
 
 describe('run-time advice', () => {
-  it('when a drip zone has 100 × 1 gph emitters, then PR, minutes and the safety cautions follow the hand calculation', async () => {
-    const res = await manager
-      .get(`/api/sites/${siteId}/hydrozones/${shrubId}/advice?month=2025-06&daysPerWeek=3`)
-      .expect(200);
-    const flow = (100 * 1) / 60;
-    const pr = (96.25 * flow) / 1000;
-    const weeklyIn = ((6.0 * 0.5) / 0.81) * (7 / 30);
-    expect(res.body.flowGpm).toBeCloseTo(flow, 9);
-    expect(res.body.prInPerHour).toBeCloseTo(pr, 9);
-    expect(res.body.weeklyDepthIn).toBeCloseTo(weeklyIn, 9);
-    expect(res.body.minutesPerWeek).toBeCloseTo((weeklyIn / pr) * 60, 6);
-    expect(res.body.minutesPerWateringDay).toBeCloseTo((weeklyIn / pr) * 20, 6);
-    const cautions = res.body.cautions.join(' ');
-    expect(cautions).toMatch(/pressure regulator \(around 25–30 psi\)/);
-    expect(cautions).toMatch(/filter/);
-    expect(cautions).toMatch(/[Bb]ackflow/);
-    expect(cautions).toMatch(/licensed professionals/);
-  });
+  it(
+    'when a drip zone has 100 × 1 gph emitters, then PR, minutes ' +
+      'and the safety cautions follow the hand calculation',
+    async () => {
+      const res = await manager
+        .get(`/api/sites/${siteId}/hydrozones/${shrubId}/advice?month=2025-06&daysPerWeek=3`)
+        .expect(200);
+      const flow = (100 * 1) / 60;
+      const pr = (96.25 * flow) / 1000;
+      const weeklyIn = ((6.0 * 0.5) / 0.81) * (7 / 30);
+      expect(res.body.flowGpm).toBeCloseTo(flow, 9);
+      expect(res.body.prInPerHour).toBeCloseTo(pr, 9);
+      expect(res.body.weeklyDepthIn).toBeCloseTo(weeklyIn, 9);
+      expect(res.body.minutesPerWeek).toBeCloseTo((weeklyIn / pr) * 60, 6);
+      expect(res.body.minutesPerWateringDay).toBeCloseTo((weeklyIn / pr) * 20, 6);
+      const cautions = res.body.cautions.join(' ');
+      expect(cautions).toMatch(/pressure regulator \(around 25–30 psi\)/);
+      expect(cautions).toMatch(/filter/);
+      expect(cautions).toMatch(/[Bb]ackflow/);
+      expect(cautions).toMatch(/licensed professionals/);
+    },
+  );
 
   it('when a zone has no flow entered, then 400 names the design flow field', async () => {
     const lawn = (await manager.get(`/api/sites/${siteId}/hydrozones?q=Play`).expect(200)).body.items[0];

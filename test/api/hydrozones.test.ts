@@ -124,12 +124,15 @@ describe('hydrozone input', () => {
     expect(z.areaFt2).toBeCloseTo(250 / 0.09290304, 9);
   });
 
-  it('when only the category is given, then the MWELO range midpoint and the method default efficiency are used', async () => {
-    const z = (await post({ plantWaterUse: 'moderate', irrigationMethod: 'spray' }).expect(201)).body;
-    expect(z.effectivePlantFactor).toBe(0.5);
-    expect(z.effectiveEfficiency).toBe(0.75);
-    expect(z.efficiencySource).toMatch(/App\. B/);
-  });
+  it(
+    'when only the category is given, then the MWELO range midpoint ' + 'and the method default efficiency are used',
+    async () => {
+      const z = (await post({ plantWaterUse: 'moderate', irrigationMethod: 'spray' }).expect(201)).body;
+      expect(z.effectivePlantFactor).toBe(0.5);
+      expect(z.effectiveEfficiency).toBe(0.75);
+      expect(z.efficiencySource).toMatch(/App\. B/);
+    },
+  );
 
   it('when two zones of a site share a name, then 409', async () => {
     const name = `Twin ${suffix()}`;

@@ -21,41 +21,44 @@ beforeAll(async () => {
 afterAll(async () => app?.stop());
 
 describe('mail queue', () => {
-  it('when SMTP is down, then the message waits in MariaDB, is retried, and arrives exactly once when SMTP is back', async () => {
-    const subject = `Queued ${suffix()}`;
-    const down = createSmtpMailer({ ...testConfig().mail, port: 1 });
-    const up = createSmtpMailer(testConfig().mail);
-    const queueDown = new MailQueue(app.db, down);
-    const queueUp = new MailQueue(app.db, up);
-    try {
-      await app.db.transaction((em) =>
-        queueDown.enqueue(em, { to: 'ops@test.example', subject, text: 'hello' }, `test:${subject}`),
-      );
-      const first = await queueDown.deliverDue();
-      expect(first.retrying).toBeGreaterThanOrEqual(1);
-      const row = await app.db.getRepository(MailMessageEntity).findOneByOrFail({ dedupeKey: `test:${subject}` });
-      expect(row).toMatchObject({ status: 'queued', attempts: 1 });
-      expect(row.lastError).toBeTruthy();
-      expect(await received(subject)).toBe(0);
+  it(
+    'when SMTP is down, then the message waits in MariaDB, is retried, ' + 'and arrives exactly once when SMTP is back',
+    async () => {
+      const subject = `Queued ${suffix()}`;
+      const down = createSmtpMailer({ ...testConfig().mail, port: 1 });
+      const up = createSmtpMailer(testConfig().mail);
+      const queueDown = new MailQueue(app.db, down);
+      const queueUp = new MailQueue(app.db, up);
+      try {
+        await app.db.transaction((em) =>
+          queueDown.enqueue(em, { to: 'ops@test.example', subject, text: 'hello' }, `test:${subject}`),
+        );
+        const first = await queueDown.deliverDue();
+        expect(first.retrying).toBeGreaterThanOrEqual(1);
+        const row = await app.db.getRepository(MailMessageEntity).findOneByOrFail({ dedupeKey: `test:${subject}` });
+        expect(row).toMatchObject({ status: 'queued', attempts: 1 });
+        expect(row.lastError).toBeTruthy();
+        expect(await received(subject)).toBe(0);
 
-      // Not due yet (back-off): nothing is sent; make it due, as time passing would.
-      await queueUp.deliverDue();
-      expect(await received(subject)).toBe(0);
-      await app.db
-        .getRepository(MailMessageEntity)
-        .update({ id: row.id }, { nextAttemptAt: new Date(Date.now() - 1000) });
-      await queueUp.deliverDue();
-      await queueUp.deliverDue();
-      expect(await received(subject)).toBe(1);
-      expect(await app.db.getRepository(MailMessageEntity).findOneByOrFail({ id: row.id })).toMatchObject({
-        status: 'sent',
-        attempts: 2,
-      });
-    } finally {
-      down.close();
-      up.close();
-    }
-  });
+        // Not due yet (back-off): nothing is sent; make it due, as time passing would.
+        await queueUp.deliverDue();
+        expect(await received(subject)).toBe(0);
+        await app.db
+          .getRepository(MailMessageEntity)
+          .update({ id: row.id }, { nextAttemptAt: new Date(Date.now() - 1000) });
+        await queueUp.deliverDue();
+        await queueUp.deliverDue();
+        expect(await received(subject)).toBe(1);
+        expect(await app.db.getRepository(MailMessageEntity).findOneByOrFail({ id: row.id })).toMatchObject({
+          status: 'sent',
+          attempts: 2,
+        });
+      } finally {
+        down.close();
+        up.close();
+      }
+    },
+  );
 
   it('when the same message is queued twice with one key, then it is stored and sent once', async () => {
     const subject = `Once ${suffix()}`;
@@ -95,20 +98,24 @@ describe('mail queue', () => {
     }
   });
 
-  it('when an admin invites someone while SMTP is down, then the invitation is still created and its mail is queued', async () => {
-    const world = await createWorld(app.db);
-    const broken = await createTestApp({ RILLMARK_SMTP_PORT: '1' });
-    try {
-      const admin = await signedIn(broken, world.users.admin.email);
-      const email = `late-${suffix()}@test.example`;
-      await admin.post('/api/users/invitations', { email, displayName: 'Late Mail', role: 'manager' }).expect(201);
-      await new Promise((r) => setTimeout(r, 300));
-      const queued = await app.db.getRepository(MailMessageEntity).findOneByOrFail({ to: email });
-      expect(queued.status).toBe('queued');
-    } finally {
-      await broken.stop();
-    }
-  });
+  it(
+    'when an admin invites someone while SMTP is down, then the invitation ' +
+      'is still created and its mail is queued',
+    async () => {
+      const world = await createWorld(app.db);
+      const broken = await createTestApp({ RILLMARK_SMTP_PORT: '1' });
+      try {
+        const admin = await signedIn(broken, world.users.admin.email);
+        const email = `late-${suffix()}@test.example`;
+        await admin.post('/api/users/invitations', { email, displayName: 'Late Mail', role: 'manager' }).expect(201);
+        await new Promise((r) => setTimeout(r, 300));
+        const queued = await app.db.getRepository(MailMessageEntity).findOneByOrFail({ to: email });
+        expect(queued.status).toBe('queued');
+      } finally {
+        await broken.stop();
+      }
+    },
+  );
 });
 
 describe('job lease', () => {

@@ -35,7 +35,8 @@ let privateSite: { id: number; name: string };
 
 async function hourlyReadings(siteId: number, fromUtc: string, hours: number, gallons: (hour: number) => number) {
   const meter = await app.db.query(
-    `INSERT INTO meter (site_id, ref, unit, register_multiplier, purpose, water_source) VALUES (?, ?, 'gal', 1, 'dedicated-irrigation', 'recycled')`,
+    `INSERT INTO meter (site_id, ref, unit, register_multiplier, purpose, water_source) VALUES (?,
+      ?, 'gal', 1, 'dedicated-irrigation', 'recycled')`,
     [siteId, `M-${suffix()}`],
   );
   const [upload] = await app.db.query(
@@ -53,7 +54,8 @@ async function hourlyReadings(siteId: number, fromUtc: string, hours: number, ga
     upload.id,
   ]);
   await app.db.query(
-    'INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?',
+    `INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value,
+      original_unit, upload_id) VALUES ?`,
     [rows],
   );
   await app.db.transaction((em) => new DailyUseRepository(app.db).rebuildSite(em, siteId));
@@ -150,38 +152,45 @@ describe('portfolio', () => {
     expect(body.headline.yearToDate.useGallons).toBeCloseTo(USE + 124, 6);
   });
 
-  it('when sorted by percent descending and filtered by condition or tag, then the server sorts, filters and pages', async () => {
-    const tag = (globalThis as Record<string, unknown>)['dashTag'] as string;
-    const over = (await manager.get(`${june}&condition=over-budget&organisationId=${owner.org.id}`).expect(200)).body;
-    expect(over.sites.items.map((r: { siteId: number }) => r.siteId)).toEqual([budgeted.id]);
-    const tagged = (await manager.get(`${june}&tag=${tag}&sort=useGallons&dir=desc`).expect(200)).body;
-    expect(tagged.sites.items.map((r: { siteId: number }) => r.siteId)).toEqual([budgeted.id, unbudgeted.id]);
-    expect(tagged.sites.items.map((r: { tags: string[] }) => r.tags)).toEqual([[tag], [tag]]);
-    const paged = (await manager.get(`${june}&tag=${tag}&sort=useGallons&dir=desc&page=1&pageSize=1`).expect(200)).body;
-    expect(paged.sites).toMatchObject({ total: 2, page: 1, pageSize: 1 });
-    expect(paged.sites.items[0].siteId).toBe(unbudgeted.id);
-    await manager.get(`${june}&sort=bogus`).expect(400);
-  });
+  it(
+    'when sorted by percent descending and filtered by condition ' + 'or tag, then the server sorts, filters and pages',
+    async () => {
+      const tag = (globalThis as Record<string, unknown>)['dashTag'] as string;
+      const over = (await manager.get(`${june}&condition=over-budget&organisationId=${owner.org.id}`).expect(200)).body;
+      expect(over.sites.items.map((r: { siteId: number }) => r.siteId)).toEqual([budgeted.id]);
+      const tagged = (await manager.get(`${june}&tag=${tag}&sort=useGallons&dir=desc`).expect(200)).body;
+      expect(tagged.sites.items.map((r: { siteId: number }) => r.siteId)).toEqual([budgeted.id, unbudgeted.id]);
+      expect(tagged.sites.items.map((r: { tags: string[] }) => r.tags)).toEqual([[tag], [tag]]);
+      const paged = (await manager.get(`${june}&tag=${tag}&sort=useGallons&dir=desc&page=1&pageSize=1`).expect(200))
+        .body;
+      expect(paged.sites).toMatchObject({ total: 2, page: 1, pageSize: 1 });
+      expect(paged.sites.items[0].siteId).toBe(unbudgeted.id);
+      await manager.get(`${june}&sort=bogus`).expect(400);
+    },
+  );
 
-  it('when a contractor, an auditor or another organisation asks, then each sees only what is shared with it', async () => {
-    for (const [world, expected] of [
-      [contractorOrg, [budgeted.id]],
-      [utility, [budgeted.id]],
-      [stranger, []],
-    ] as const) {
-      for (const role of ['manager', 'contractor', 'auditor'] as const) {
-        const client = await signedIn(app, world.users[role].email);
-        const body = (await client.get(june).expect(200)).body;
-        expect(body.sites.items.map((r: { siteId: number }) => r.siteId)).toEqual(expected);
-        const status = expected.length ? 200 : 404;
-        await client.get(`/api/sites/${budgeted.id}/overview?from=2025-06-01&to=2025-06-30`).expect(status);
-        await client.get(`/api/sites/${privateSite.id}/monthly?from=2025-06&to=2025-06`).expect(404);
-        await client.get(`/api/sites/${privateSite.id}/hourly-grid?month=2025-06`).expect(404);
+  it(
+    'when a contractor, an auditor or another organisation asks, ' + 'then each sees only what is shared with it',
+    async () => {
+      for (const [world, expected] of [
+        [contractorOrg, [budgeted.id]],
+        [utility, [budgeted.id]],
+        [stranger, []],
+      ] as const) {
+        for (const role of ['manager', 'contractor', 'auditor'] as const) {
+          const client = await signedIn(app, world.users[role].email);
+          const body = (await client.get(june).expect(200)).body;
+          expect(body.sites.items.map((r: { siteId: number }) => r.siteId)).toEqual(expected);
+          const status = expected.length ? 200 : 404;
+          await client.get(`/api/sites/${budgeted.id}/overview?from=2025-06-01&to=2025-06-30`).expect(status);
+          await client.get(`/api/sites/${privateSite.id}/monthly?from=2025-06&to=2025-06`).expect(404);
+          await client.get(`/api/sites/${privateSite.id}/hourly-grid?month=2025-06`).expect(404);
+        }
       }
-    }
-    const auditor = await signedIn(app, owner.users.auditor.email);
-    expect((await auditor.get(`${june}&organisationId=${owner.org.id}`).expect(200)).body.sites.total).toBe(3);
-  });
+      const auditor = await signedIn(app, owner.users.auditor.email);
+      expect((await auditor.get(`${june}&organisationId=${owner.org.id}`).expect(200)).body.sites.total).toBe(3);
+    },
+  );
 });
 
 describe('site dashboard', () => {
@@ -222,85 +231,97 @@ describe('site dashboard', () => {
     expect(jun.flags).toEqual(['over-budget']);
   });
 
-  it('when the monthly table is exported, then the CSV has units in its headers and the site name cannot run as a formula', async () => {
-    const res = await manager.get(`/api/sites/${budgeted.id}/monthly?from=2025-06&to=2025-06&format=csv`).expect(200);
-    expect(res.headers['content-type']).toMatch(/text\/csv/);
-    expect(res.headers['content-disposition']).toMatch(
-      /attachment; filename="Sum-Park-[a-f0-9]+-monthly-2025-06-to-2025-06\.csv"/,
-    );
-    const [header, row] = res.text.trim().split(/\r?\n/);
-    expect(header).toBe(
-      'Site,Month,Use (gal),Budget (gal),Variance (gal),Percent of budget (%),ETo (mm),Rain (mm),Cost,Currency,Flags',
-    );
-    expect(row!.startsWith(`'=Sum Park`)).toBe(true);
-    expect(row).toContain(',2025-06,2880,');
-  });
+  it(
+    'when the monthly table is exported, then the CSV has units in ' +
+      'its headers and the site name cannot run as a formula',
+    async () => {
+      const res = await manager.get(`/api/sites/${budgeted.id}/monthly?from=2025-06&to=2025-06&format=csv`).expect(200);
+      expect(res.headers['content-type']).toMatch(/text\/csv/);
+      expect(res.headers['content-disposition']).toMatch(
+        /attachment; filename="Sum-Park-[a-f0-9]+-monthly-2025-06-to-2025-06\.csv"/,
+      );
+      const [header, row] = res.text.trim().split(/\r?\n/);
+      expect(header).toBe(
+        'Site,Month,Use (gal),Budget (gal),Variance (gal),Percent of budget (%),ETo (mm),Rain (mm),Cost,Currency,Flags',
+      );
+      expect(row!.startsWith(`'=Sum Park`)).toBe(true);
+      expect(row).toContain(',2025-06,2880,');
+    },
+  );
 });
 
 describe('open alerts', () => {
-  it('when the site has one open and one resolved alert, then the portfolio counts one and the overview marks both', async () => {
-    const base = {
-      kind: 'leak',
-      subKind: 'night-flow',
-      start: new Date('2025-06-10T09:00:00Z'),
-      end: new Date('2025-06-10T13:00:00Z'),
-    };
-    for (const [status, key] of [
-      ['open', `a-${suffix()}`],
-      ['resolved', `b-${suffix()}`],
-    ] as const) {
-      await app.db.query(
-        `INSERT INTO alert (site_id, kind, sub_kind, finding_key, condition_key, period_start_utc, period_end_utc, severity, status, evidence, explanation, first_detected_at, last_seen_at)
+  it(
+    'when the site has one open and one resolved alert, then the ' + 'portfolio counts one and the overview marks both',
+    async () => {
+      const base = {
+        kind: 'leak',
+        subKind: 'night-flow',
+        start: new Date('2025-06-10T09:00:00Z'),
+        end: new Date('2025-06-10T13:00:00Z'),
+      };
+      for (const [status, key] of [
+        ['open', `a-${suffix()}`],
+        ['resolved', `b-${suffix()}`],
+      ] as const) {
+        await app.db.query(
+          `INSERT INTO alert (site_id, kind, sub_kind, finding_key, condition_key, period_start_utc,
+          period_end_utc, severity, status, evidence, explanation, first_detected_at, last_seen_at)
          VALUES (?, ?, ?, ?, ?, ?, ?, 'act-soon', ?, '{}', 'Water ran every night hour.', NOW(3), NOW(3))`,
-        [unbudgeted.id, base.kind, base.subKind, key, key, base.start, base.end, status],
-      );
-    }
-    const body = (await manager.get(`${june}&condition=open-alerts&organisationId=${owner.org.id}`).expect(200)).body;
-    expect(body.alertsAvailable).toBe(true);
-    expect(body.sites.items.map((r: { siteId: number; openAlerts: number }) => [r.siteId, r.openAlerts])).toEqual([
-      [unbudgeted.id, 1],
-    ]);
-    const overview = (
-      await manager.get(`/api/sites/${unbudgeted.id}/overview?from=2025-06-01&to=2025-06-30`).expect(200)
-    ).body;
-    expect(overview.alerts.map((a: { date: string; status: string }) => [a.date, a.status])).toEqual([
-      ['2025-06-10', 'open'],
-      ['2025-06-10', 'resolved'],
-    ]);
-    expect(overview.figures.openAlerts).toBe(1);
-  });
+          [unbudgeted.id, base.kind, base.subKind, key, key, base.start, base.end, status],
+        );
+      }
+      const body = (await manager.get(`${june}&condition=open-alerts&organisationId=${owner.org.id}`).expect(200)).body;
+      expect(body.alertsAvailable).toBe(true);
+      expect(body.sites.items.map((r: { siteId: number; openAlerts: number }) => [r.siteId, r.openAlerts])).toEqual([
+        [unbudgeted.id, 1],
+      ]);
+      const overview = (
+        await manager.get(`/api/sites/${unbudgeted.id}/overview?from=2025-06-01&to=2025-06-30`).expect(200)
+      ).body;
+      expect(overview.alerts.map((a: { date: string; status: string }) => [a.date, a.status])).toEqual([
+        ['2025-06-10', 'open'],
+        ['2025-06-10', 'resolved'],
+      ]);
+      expect(overview.figures.openAlerts).toBe(1);
+    },
+  );
 });
 
 describe('cached monthly budgets follow their inputs', () => {
   // The site's monthly table reads the same cache as the portfolio (the portfolio also memoises its sums for
   // a few seconds, so it would lag by that much).
-  it('when a hydrozone is added, changed or removed after a month was cached, then the next read shows the new budget', async () => {
-    const site = await createSite(app.db, owner.org.id, { name: `Cache ${suffix()}` });
-    const stationId = await stationForSite(manager, site.id);
-    await manager
-      .postText(
-        `/api/weather-stations/${stationId}/daily?format=eto-rain`,
-        etoRainCsv('2025-06-01', 30, () => [5.08, 0]),
-      )
-      .expect(200);
-    const budgetOf = async () => {
-      const res = await manager.get(`/api/sites/${site.id}/monthly?from=2025-06&to=2025-06`).expect(200);
-      return res.body.months[0].budgetGallons as number | null;
-    };
-    expect(await budgetOf()).toBeNull(); // no hydrozones yet: cached as "no budget"
-    const zone = await manager
-      .post(`/api/sites/${site.id}/hydrozones`, {
-        name: 'Shrubs',
-        area: 1000,
-        areaUnit: 'ft2',
-        plantFactor: 0.5,
-        irrigationMethod: 'drip',
-      })
-      .expect(201);
-    expect(await budgetOf()).toBeCloseTo(BUDGET, 0);
-    await manager.patch(`/api/sites/${site.id}/hydrozones/${zone.body.id}`, { area: 2000 }).expect(200);
-    expect(await budgetOf()).toBeCloseTo(2 * BUDGET, 0);
-    await manager.delete(`/api/sites/${site.id}/hydrozones/${zone.body.id}`).expect(204);
-    expect(await budgetOf()).toBeNull();
-  });
+  it(
+    'when a hydrozone is added, changed or removed after a month ' +
+      'was cached, then the next read shows the new budget',
+    async () => {
+      const site = await createSite(app.db, owner.org.id, { name: `Cache ${suffix()}` });
+      const stationId = await stationForSite(manager, site.id);
+      await manager
+        .postText(
+          `/api/weather-stations/${stationId}/daily?format=eto-rain`,
+          etoRainCsv('2025-06-01', 30, () => [5.08, 0]),
+        )
+        .expect(200);
+      const budgetOf = async () => {
+        const res = await manager.get(`/api/sites/${site.id}/monthly?from=2025-06&to=2025-06`).expect(200);
+        return res.body.months[0].budgetGallons as number | null;
+      };
+      expect(await budgetOf()).toBeNull(); // no hydrozones yet: cached as "no budget"
+      const zone = await manager
+        .post(`/api/sites/${site.id}/hydrozones`, {
+          name: 'Shrubs',
+          area: 1000,
+          areaUnit: 'ft2',
+          plantFactor: 0.5,
+          irrigationMethod: 'drip',
+        })
+        .expect(201);
+      expect(await budgetOf()).toBeCloseTo(BUDGET, 0);
+      await manager.patch(`/api/sites/${site.id}/hydrozones/${zone.body.id}`, { area: 2000 }).expect(200);
+      expect(await budgetOf()).toBeCloseTo(2 * BUDGET, 0);
+      await manager.delete(`/api/sites/${site.id}/hydrozones/${zone.body.id}`).expect(204);
+      expect(await budgetOf()).toBeNull();
+    },
+  );
 });

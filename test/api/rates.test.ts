@@ -143,17 +143,21 @@ describe('rate schedules', () => {
 });
 
 describe('organisation unit setting', () => {
-  it('when an administrator switches to metric, then everyone in the organisation reads metric; a manager may not change it', async () => {
-    const admin = await signedIn(app, owner.users.admin.email);
-    expect((await manager.get('/api/organisation/settings').expect(200)).body.unitSystem).toBe('us');
-    await manager.patch('/api/organisation/settings', { unitSystem: 'metric' }).expect(403);
-    expect(
-      (await admin.patch('/api/organisation/settings', { unitSystem: 'metric' }).expect(200)).body.unitSystem,
-    ).toBe('metric');
-    expect((await manager.get('/api/organisation/settings').expect(200)).body.unitSystem).toBe('metric');
-    expect(
-      (await admin.patch('/api/organisation/settings', { unitSystem: 'imperial' }).expect(400)).body.error.details[0]
-        .field,
-    ).toBe('unitSystem');
-  });
+  it(
+    'when an administrator switches to metric, then everyone in the ' +
+      'organisation reads metric; a manager may not change it',
+    async () => {
+      const admin = await signedIn(app, owner.users.admin.email);
+      expect((await manager.get('/api/organisation/settings').expect(200)).body.unitSystem).toBe('us');
+      await manager.patch('/api/organisation/settings', { unitSystem: 'metric' }).expect(403);
+      expect(
+        (await admin.patch('/api/organisation/settings', { unitSystem: 'metric' }).expect(200)).body.unitSystem,
+      ).toBe('metric');
+      expect((await manager.get('/api/organisation/settings').expect(200)).body.unitSystem).toBe('metric');
+      expect(
+        (await admin.patch('/api/organisation/settings', { unitSystem: 'imperial' }).expect(400)).body.error.details[0]
+          .field,
+      ).toBe('unitSystem');
+    },
+  );
 });

@@ -145,7 +145,8 @@ describe('compliance ranking', () => {
     expect(mails[0]!.text).toMatch(/used 140,000 gal in 2025-06, \d+ % of its water budget of [\d,]+ gal/);
     expect(mails[0]!.text).toContain('Please check the north valves.');
     const log = await app.db.query(
-      "SELECT user_id AS userId, organisation_id AS org FROM audit_entry WHERE entity = 'site' AND entity_id = ? AND action = 'compliance-notice'",
+      `SELECT user_id AS userId, organisation_id AS org FROM audit_entry WHERE entity = 'site' AND
+        entity_id = ? AND action = 'compliance-notice'`,
       [String(site.id)],
     );
     expect(log).toHaveLength(1);

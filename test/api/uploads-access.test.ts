@@ -68,23 +68,27 @@ describe('who may upload', () => {
 });
 
 describe('size limit', () => {
-  it('when a file is over RILLMARK_UPLOAD_MAX_MB, then it is refused with 413 naming the limit, and nothing is stored', async () => {
-    const siteId = await equippedSite();
-    const row = 'SCHOOL-01,2026-11-20 00:00,1.00\n';
-    const big = Buffer.from(
-      'Meter #,Interval Start,Usage (Gal)\n' + row.repeat(Math.ceil((1.2 * 1024 * 1024) / row.length)),
-    );
-    const res = await uploadFile(
-      manager,
-      siteId,
-      big,
-      { overrides: JSON.stringify({ intervalMinutes: 60 }) },
-      'big.csv',
-    );
-    expect(res.status, JSON.stringify(res.body)).toBe(413);
-    expect(res.body.error.message).toMatch(/upload limit of 1 MB \(RILLMARK_UPLOAD_MAX_MB\)/);
-    expect(await siteReadings(app.db, siteId)).toEqual([]);
-  });
+  it(
+    'when a file is over RILLMARK_UPLOAD_MAX_MB, then it is refused ' +
+      'with 413 naming the limit, and nothing is stored',
+    async () => {
+      const siteId = await equippedSite();
+      const row = 'SCHOOL-01,2026-11-20 00:00,1.00\n';
+      const big = Buffer.from(
+        'Meter #,Interval Start,Usage (Gal)\n' + row.repeat(Math.ceil((1.2 * 1024 * 1024) / row.length)),
+      );
+      const res = await uploadFile(
+        manager,
+        siteId,
+        big,
+        { overrides: JSON.stringify({ intervalMinutes: 60 }) },
+        'big.csv',
+      );
+      expect(res.status, JSON.stringify(res.body)).toBe(413);
+      expect(res.body.error.message).toMatch(/upload limit of 1 MB \(RILLMARK_UPLOAD_MAX_MB\)/);
+      expect(await siteReadings(app.db, siteId)).toEqual([]);
+    },
+  );
 
   it('when the declared length is far over the limit, then it is refused before the file is read', async () => {
     const siteId = await equippedSite();
@@ -107,21 +111,24 @@ describe('API keys', () => {
       .set('Authorization', `Bearer ${secret}`)
       .attach('file', `${SAMPLES}/meters/interval-long-hourly.csv`);
 
-  it('when a script uploads with a key, then the upload is stored under the key and its status can be read', async () => {
-    const siteId = await equippedSite();
-    const key = await newKey([siteId]);
-    const res = await machine(siteId, key.secret).expect(201);
-    expect(res.body.upload).toMatchObject({ accepted: 98, viaApiKey: `Nightly ${siteId}` });
-    await request(app.server.url)
-      .get(`/api/uploads/${res.body.upload.id}`)
-      .set('Authorization', `Bearer ${key.secret}`)
-      .expect(200);
-    const listed = (await admin.get('/api/api-keys').expect(200)).body.find((k: { id: number }) => k.id === key.id);
-    expect(listed).toMatchObject({ siteIds: [siteId], revokedAt: null, lastUsedAt: expect.any(String) });
-    expect(listed.secret).toBeUndefined();
-    const [stored] = await app.db.query('SELECT secret_hash FROM api_key WHERE id = ?', [key.id]);
-    expect(stored.secret_hash).not.toContain(key.secret.slice(12));
-  });
+  it(
+    'when a script uploads with a key, then the upload is stored ' + 'under the key and its status can be read',
+    async () => {
+      const siteId = await equippedSite();
+      const key = await newKey([siteId]);
+      const res = await machine(siteId, key.secret).expect(201);
+      expect(res.body.upload).toMatchObject({ accepted: 98, viaApiKey: `Nightly ${siteId}` });
+      await request(app.server.url)
+        .get(`/api/uploads/${res.body.upload.id}`)
+        .set('Authorization', `Bearer ${key.secret}`)
+        .expect(200);
+      const listed = (await admin.get('/api/api-keys').expect(200)).body.find((k: { id: number }) => k.id === key.id);
+      expect(listed).toMatchObject({ siteIds: [siteId], revokedAt: null, lastUsedAt: expect.any(String) });
+      expect(listed.secret).toBeUndefined();
+      const [stored] = await app.db.query('SELECT secret_hash FROM api_key WHERE id = ?', [key.id]);
+      expect(stored.secret_hash).not.toContain(key.secret.slice(12));
+    },
+  );
 
   it('when a key is revoked, then it gets 401', async () => {
     const siteId = await equippedSite();

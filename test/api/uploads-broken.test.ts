@@ -87,34 +87,43 @@ describe('row problems: the valid rows are kept, each bad row is listed with row
     expect(listed[0]!.message).toContain('unknown meter "HOA-SOUTH-99"');
   });
 
-  it('when a register drops in a way no rollover explains, then the reads are kept but no volume is made from the drop', async () => {
-    const { siteId, before } = await siteWithData('America/Los_Angeles');
-    const res = await uploadFile(manager, siteId, 'broken/register-not-a-rollover.csv');
-    expect(res.body.upload).toMatchObject({ status: 'done', accepted: 3, rejected: 1 });
-    const listed = await rejections(res.body.upload.id);
-    expect(listed.find((r) => r.kind === 'rejected')).toMatchObject({
-      row: 3,
-      message: expect.stringContaining('not a plausible rollover'),
-    });
-    expect((await siteReadings(app.db, siteId)).length).toBe(before.length + 1);
-  });
+  it(
+    'when a register drops in a way no rollover explains, then the ' +
+      'reads are kept but no volume is made from the drop',
+    async () => {
+      const { siteId, before } = await siteWithData('America/Los_Angeles');
+      const res = await uploadFile(manager, siteId, 'broken/register-not-a-rollover.csv');
+      expect(res.body.upload).toMatchObject({ status: 'done', accepted: 3, rejected: 1 });
+      const listed = await rejections(res.body.upload.id);
+      expect(listed.find((r) => r.kind === 'rejected')).toMatchObject({
+        row: 3,
+        message: expect.stringContaining('not a plausible rollover'),
+      });
+      expect((await siteReadings(app.db, siteId)).length).toBe(before.length + 1);
+    },
+  );
 
-  it('when the uploader chose to refuse the file on any row error, then nothing is stored and the rows are still listed', async () => {
-    const { siteId, before } = await siteWithData('America/Los_Angeles');
-    const res = await uploadFile(manager, siteId, 'broken/negative-volume.csv', { rowErrors: 'refuse-file' });
-    expect(res.status).toBe(400);
-    expect(res.body.error.message).toMatch(/"negative-volume\.csv": 1 row\(s\) were rejected/);
-    expect(res.body.error.details[0]).toMatchObject({ field: 'row 3, column 3' });
-    expect(await siteReadings(app.db, siteId)).toEqual(before);
-    const failed = (await manager.get(`/api/sites/${siteId}/uploads`).expect(200)).body.items[0];
-    expect(failed.status).toBe('failed');
-    expect((await rejections(failed.id)).map((r) => [r.row, r.column])).toEqual([[3, 3]]);
-  });
+  it(
+    'when the uploader chose to refuse the file on any row error, ' +
+      'then nothing is stored and the rows are still listed',
+    async () => {
+      const { siteId, before } = await siteWithData('America/Los_Angeles');
+      const res = await uploadFile(manager, siteId, 'broken/negative-volume.csv', { rowErrors: 'refuse-file' });
+      expect(res.status).toBe(400);
+      expect(res.body.error.message).toMatch(/"negative-volume\.csv": 1 row\(s\) were rejected/);
+      expect(res.body.error.details[0]).toMatchObject({ field: 'row 3, column 3' });
+      expect(await siteReadings(app.db, siteId)).toEqual(before);
+      const failed = (await manager.get(`/api/sites/${siteId}/uploads`).expect(200)).body.items[0];
+      expect(failed.status).toBe('failed');
+      expect((await rejections(failed.id)).map((r) => [r.row, r.column])).toEqual([[3, 3]]);
+    },
+  );
 
   it('when a reading is older than the meter, then that row is refused naming the install date', async () => {
     const { siteId } = await siteWithData('America/Los_Angeles');
     const csv =
-      'Meter #,Interval Start,Usage (Gal)\nHOA-NORTH-01,2019-06-01 00:00,10\nHOA-NORTH-01,2026-11-20 00:00,11\nHOA-NORTH-01,2026-11-20 01:00,12\n';
+      'Meter #,Interval Start,Usage (Gal)\nHOA-NORTH-01,2019-06-01 ' +
+      '00:00,10\nHOA-NORTH-01,2026-11-20 00:00,11\nHOA-NORTH-01,2026-11-20 01:00,12\n';
     const res = await uploadFile(
       manager,
       siteId,
@@ -130,16 +139,19 @@ describe('row problems: the valid rows are kept, each bad row is listed with row
     });
   });
 
-  it('when the rejected rows are downloaded as CSV, then each line names the file, row, column and reason', async () => {
-    const { siteId } = await siteWithData('America/Los_Angeles');
-    const res = await uploadFile(manager, siteId, 'broken/unknown-meter.csv');
-    const csv = await manager
-      .get(`/api/uploads/${res.body.upload.id}/rejections?format=csv`)
-      .expect(200)
-      .expect('content-type', /text\/csv/);
-    const lines = csv.text.trim().split('\r\n');
-    expect(lines[0]).toBe('file,row,column,kind,reason');
-    expect(lines[1]).toMatch(/^unknown-meter\.csv,4,1,rejected,.*HOA-SOUTH-99/);
-    expect(lines).toHaveLength(3);
-  });
+  it(
+    'when the rejected rows are downloaded as CSV, then each line ' + 'names the file, row, column and reason',
+    async () => {
+      const { siteId } = await siteWithData('America/Los_Angeles');
+      const res = await uploadFile(manager, siteId, 'broken/unknown-meter.csv');
+      const csv = await manager
+        .get(`/api/uploads/${res.body.upload.id}/rejections?format=csv`)
+        .expect(200)
+        .expect('content-type', /text\/csv/);
+      const lines = csv.text.trim().split('\r\n');
+      expect(lines[0]).toBe('file,row,column,kind,reason');
+      expect(lines[1]).toMatch(/^unknown-meter\.csv,4,1,rejected,.*HOA-SOUTH-99/);
+      expect(lines).toHaveLength(3);
+    },
+  );
 });

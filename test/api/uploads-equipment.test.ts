@@ -108,52 +108,65 @@ async function siteWithController(): Promise<{
   return { siteId: site.id, controllerId: res.body.id, zones: res.body.zones };
 }
 
-/** Editing one zone of a controller: PATCH /api/sites/:id/controllers/:controllerId/zones/:zoneId (invented equipment). */
+/**
+ * Editing one zone of a controller: PATCH /api/sites/:id/controllers/:controllerId/zones/:zoneId (invented equipment).
+ */
 describe('zone edits', () => {
-  it('when a manager renames a zone and gives its flows, then the controller comes back with the change and the audit log has it', async () => {
-    const { siteId, controllerId, zones } = await siteWithController();
-    const lawn = zones.find((z) => z.station === '1')!;
-    const res = await manager
-      .patch(`/api/sites/${siteId}/controllers/${controllerId}/zones/${lawn.id}`, {
-        name: 'North lawn',
-        designGpm: 14.5,
-        emitterCount: null,
-      })
-      .expect(200);
-    expect(res.body.zones).toEqual([
-      {
-        id: lawn.id,
-        controllerId,
-        station: '1',
-        name: 'North lawn',
-        hydrozoneId: null,
-        designGpm: 14.5,
-        emitterCount: null,
-        emitterGph: null,
-      },
-      expect.objectContaining({ station: '2', name: 'Beds', designGpm: null }),
-    ]);
-    const stored = (await manager.get(`/api/sites/${siteId}/controllers`).expect(200)).body[0].zones[0];
-    expect(stored).toMatchObject({ name: 'North lawn', designGpm: 14.5 });
-    const [audit] = await app.db.query(
-      "SELECT action, user_id AS userId FROM audit_entry WHERE entity = 'zone' AND entity_id = ? ORDER BY id DESC LIMIT 1",
-      [String(lawn.id)],
-    );
-    expect(audit).toEqual({ action: 'update', userId: world.users.manager.id });
-  });
+  it(
+    'when a manager renames a zone and gives its flows, then the ' +
+      'controller comes back with the change and the audit log has it',
+    async () => {
+      const { siteId, controllerId, zones } = await siteWithController();
+      const lawn = zones.find((z) => z.station === '1')!;
+      const res = await manager
+        .patch(`/api/sites/${siteId}/controllers/${controllerId}/zones/${lawn.id}`, {
+          name: 'North lawn',
+          designGpm: 14.5,
+          emitterCount: null,
+        })
+        .expect(200);
+      expect(res.body.zones).toEqual([
+        {
+          id: lawn.id,
+          controllerId,
+          station: '1',
+          name: 'North lawn',
+          hydrozoneId: null,
+          designGpm: 14.5,
+          emitterCount: null,
+          emitterGph: null,
+        },
+        expect.objectContaining({ station: '2', name: 'Beds', designGpm: null }),
+      ]);
+      const stored = (await manager.get(`/api/sites/${siteId}/controllers`).expect(200)).body[0].zones[0];
+      expect(stored).toMatchObject({ name: 'North lawn', designGpm: 14.5 });
+      const [audit] = await app.db.query(
+        `SELECT action, user_id AS userId FROM audit_entry WHERE entity = 'zone' AND entity_id = ?
+        ORDER BY id DESC LIMIT 1`,
+        [String(lawn.id)],
+      );
+      expect(audit).toEqual({ action: 'update', userId: world.users.manager.id });
+    },
+  );
 
-  it('when the new station is already used on the controller, then the edit is refused and nothing changes', async () => {
-    const { siteId, controllerId, zones } = await siteWithController();
-    const beds = zones.find((z) => z.station === '2')!;
-    const res = await manager
-      .patch(`/api/sites/${siteId}/controllers/${controllerId}/zones/${beds.id}`, { station: '1' })
-      .expect(409);
-    expect(res.body.error.details).toEqual([{ field: 'station', message: 'is already used' }]);
-    // Keeping its own station is not a clash.
-    await manager
-      .patch(`/api/sites/${siteId}/controllers/${controllerId}/zones/${beds.id}`, { station: '2', name: 'Shrub beds' })
-      .expect(200);
-  });
+  it(
+    'when the new station is already used on the controller, then ' + 'the edit is refused and nothing changes',
+    async () => {
+      const { siteId, controllerId, zones } = await siteWithController();
+      const beds = zones.find((z) => z.station === '2')!;
+      const res = await manager
+        .patch(`/api/sites/${siteId}/controllers/${controllerId}/zones/${beds.id}`, { station: '1' })
+        .expect(409);
+      expect(res.body.error.details).toEqual([{ field: 'station', message: 'is already used' }]);
+      // Keeping its own station is not a clash.
+      await manager
+        .patch(`/api/sites/${siteId}/controllers/${controllerId}/zones/${beds.id}`, {
+          station: '2',
+          name: 'Shrub beds',
+        })
+        .expect(200);
+    },
+  );
 
   it('when the zone belongs to another controller or the body has unknown fields, then 404 and 400', async () => {
     const first = await siteWithController();
@@ -178,51 +191,60 @@ describe('zone edits', () => {
     expect(unchanged.name).toBe('Lawn');
   });
 
-  it("when a zone is linked to another site's hydrozone, then it is refused and nothing changes; its own site's is accepted", async () => {
-    const { siteId, controllerId, zones } = await siteWithController();
-    const other = await siteWithController();
-    const hydrozone = (siteOf: number) =>
-      manager
-        .post(`/api/sites/${siteOf}/hydrozones`, {
-          name: 'Bed',
-          area: 500,
-          areaUnit: 'ft2',
-          plantFactor: 0.3,
-          irrigationMethod: 'drip',
+  it(
+    "when a zone is linked to another site's hydrozone, then it is " +
+      "refused and nothing changes; its own site's is accepted",
+    async () => {
+      const { siteId, controllerId, zones } = await siteWithController();
+      const other = await siteWithController();
+      const hydrozone = (siteOf: number) =>
+        manager
+          .post(`/api/sites/${siteOf}/hydrozones`, {
+            name: 'Bed',
+            area: 500,
+            areaUnit: 'ft2',
+            plantFactor: 0.3,
+            irrigationMethod: 'drip',
+          })
+          .expect(201)
+          .then((r) => r.body.id as number);
+      const own = await hydrozone(siteId);
+      const foreign = await hydrozone(other.siteId);
+      const url = `/api/sites/${siteId}/controllers/${controllerId}/zones`;
+      const refused = await manager.patch(`${url}/${zones[0]!.id}`, { hydrozoneId: foreign }).expect(400);
+      expect(refused.body.error.details).toEqual([
+        { field: 'hydrozoneId', message: 'is not a hydrozone of this site' },
+      ]);
+      await manager.post(url, { station: '9', name: 'Borrowed', hydrozoneId: foreign }).expect(400);
+      await manager
+        .post(`/api/sites/${siteId}/controllers`, {
+          ref: 'C-X',
+          name: 'Second',
+          zones: [{ station: '1', name: 'Z', hydrozoneId: foreign }],
         })
-        .expect(201)
-        .then((r) => r.body.id as number);
-    const own = await hydrozone(siteId);
-    const foreign = await hydrozone(other.siteId);
-    const url = `/api/sites/${siteId}/controllers/${controllerId}/zones`;
-    const refused = await manager.patch(`${url}/${zones[0]!.id}`, { hydrozoneId: foreign }).expect(400);
-    expect(refused.body.error.details).toEqual([{ field: 'hydrozoneId', message: 'is not a hydrozone of this site' }]);
-    await manager.post(url, { station: '9', name: 'Borrowed', hydrozoneId: foreign }).expect(400);
-    await manager
-      .post(`/api/sites/${siteId}/controllers`, {
-        ref: 'C-X',
-        name: 'Second',
-        zones: [{ station: '1', name: 'Z', hydrozoneId: foreign }],
-      })
-      .expect(400);
-    const after = (await manager.get(`/api/sites/${siteId}/controllers`).expect(200)).body;
-    expect(after).toHaveLength(1);
-    expect(after[0].zones.map((z: { hydrozoneId: number | null }) => z.hydrozoneId)).toEqual([null, null]);
-    const linked = await manager.patch(`${url}/${zones[0]!.id}`, { hydrozoneId: own }).expect(200);
-    expect(linked.body.zones[0].hydrozoneId).toBe(own);
-  });
+        .expect(400);
+      const after = (await manager.get(`/api/sites/${siteId}/controllers`).expect(200)).body;
+      expect(after).toHaveLength(1);
+      expect(after[0].zones.map((z: { hydrozoneId: number | null }) => z.hydrozoneId)).toEqual([null, null]);
+      const linked = await manager.patch(`${url}/${zones[0]!.id}`, { hydrozoneId: own }).expect(200);
+      expect(linked.body.zones[0].hydrozoneId).toBe(own);
+    },
+  );
 
-  it('when a read-only organisation or an auditor tries, then the site refuses and a stranger sees no site', async () => {
-    const { siteId, controllerId, zones } = await siteWithController();
-    const utility = await createWorld(app.db, 'utility');
-    await shareSite(app.db, siteId, utility.org.id, 'read');
-    const reader = await signedIn(app, utility.users.manager.email);
-    const auditor = await signedIn(app, world.users.auditor.email);
-    const stranger = await signedIn(app, (await createWorld(app.db)).users.manager.email);
-    const url = `/api/sites/${siteId}/controllers/${controllerId}/zones/${zones[0]!.id}`;
-    await reader.patch(url, { name: 'Nope' }).expect(403);
-    await auditor.patch(url, { name: 'Nope' }).expect(403);
-    await stranger.patch(url, { name: 'Nope' }).expect(404);
-    expect((await manager.get(`/api/sites/${siteId}/controllers`).expect(200)).body[0].zones[0].name).toBe('Lawn');
-  });
+  it(
+    'when a read-only organisation or an auditor tries, then the ' + 'site refuses and a stranger sees no site',
+    async () => {
+      const { siteId, controllerId, zones } = await siteWithController();
+      const utility = await createWorld(app.db, 'utility');
+      await shareSite(app.db, siteId, utility.org.id, 'read');
+      const reader = await signedIn(app, utility.users.manager.email);
+      const auditor = await signedIn(app, world.users.auditor.email);
+      const stranger = await signedIn(app, (await createWorld(app.db)).users.manager.email);
+      const url = `/api/sites/${siteId}/controllers/${controllerId}/zones/${zones[0]!.id}`;
+      await reader.patch(url, { name: 'Nope' }).expect(403);
+      await auditor.patch(url, { name: 'Nope' }).expect(403);
+      await stranger.patch(url, { name: 'Nope' }).expect(404);
+      expect((await manager.get(`/api/sites/${siteId}/controllers`).expect(200)).body[0].zones[0].name).toBe('Lawn');
+    },
+  );
 });

@@ -33,37 +33,41 @@ beforeAll(async () => {
 afterAll(async () => app?.stop());
 
 describe('inviting users', () => {
-  it('when an admin invites someone, then an e-mail with a one-time link arrives and accepting it signs them in with that role', async () => {
-    const email = `new-${suffix()}@test.example`;
-    const invited = await admin
-      .post('/api/users/invitations', { email, displayName: 'Rowan Test', role: 'contractor' })
-      .expect(201);
-    expect(invited.body).toMatchObject({ email, role: 'contractor', status: 'invited' });
+  it(
+    'when an admin invites someone, then an e-mail with a one-time ' +
+      'link arrives and accepting it signs them in with that role',
+    async () => {
+      const email = `new-${suffix()}@test.example`;
+      const invited = await admin
+        .post('/api/users/invitations', { email, displayName: 'Rowan Test', role: 'contractor' })
+        .expect(201);
+      expect(invited.body).toMatchObject({ email, role: 'contractor', status: 'invited' });
 
-    const mail = await mailTo(email);
-    expect(mail.subject).toMatch(/Invitation to .* on Rillmark/);
-    expect(mail.html).toContain('Choose a password');
-    const token = linkToken(mail);
+      const mail = await mailTo(email);
+      expect(mail.subject).toMatch(/Invitation to .* on Rillmark/);
+      expect(mail.html).toContain('Choose a password');
+      const token = linkToken(mail);
 
-    const visitor = new Client(app.server.url);
-    expect((await visitor.get(`/api/auth/tokens/${token}`).expect(200)).body).toEqual({
-      email,
-      displayName: 'Rowan Test',
-      purpose: 'invite',
-    });
-    await visitor.fetchCsrf();
-    await visitor.post('/api/auth/accept-invite', { token, password: 'short' }).expect(400);
-    const accepted = await visitor
-      .post('/api/auth/accept-invite', { token, password: 'a-long-enough-secret' })
-      .expect(200);
-    expect(accepted.body.organisation).toMatchObject({ organisationId: world.org.id, role: 'contractor' });
+      const visitor = new Client(app.server.url);
+      expect((await visitor.get(`/api/auth/tokens/${token}`).expect(200)).body).toEqual({
+        email,
+        displayName: 'Rowan Test',
+        purpose: 'invite',
+      });
+      await visitor.fetchCsrf();
+      await visitor.post('/api/auth/accept-invite', { token, password: 'short' }).expect(400);
+      const accepted = await visitor
+        .post('/api/auth/accept-invite', { token, password: 'a-long-enough-secret' })
+        .expect(200);
+      expect(accepted.body.organisation).toMatchObject({ organisationId: world.org.id, role: 'contractor' });
 
-    // The link works once.
-    await visitor.get(`/api/auth/tokens/${token}`).expect(404);
-    await new Client(app.server.url).signIn(email, 'a-long-enough-secret').then((r) => expect(r.status).toBe(200));
-    const listed = await admin.get(`/api/users?q=${encodeURIComponent(email)}`).expect(200);
-    expect(listed.body.items[0]).toMatchObject({ email, status: 'active', role: 'contractor' });
-  });
+      // The link works once.
+      await visitor.get(`/api/auth/tokens/${token}`).expect(404);
+      await new Client(app.server.url).signIn(email, 'a-long-enough-secret').then((r) => expect(r.status).toBe(200));
+      const listed = await admin.get(`/api/users?q=${encodeURIComponent(email)}`).expect(200);
+      expect(listed.body.items[0]).toMatchObject({ email, status: 'active', role: 'contractor' });
+    },
+  );
 
   it('when the invitee is already a member, then 409 on email', async () => {
     const res = await admin

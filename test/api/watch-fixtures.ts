@@ -8,7 +8,8 @@ export const thisHour = () => Math.floor(Date.now() / HOUR) * HOUR;
 
 export async function addMeter(db: DataSource, siteId: number): Promise<number> {
   const r: { insertId: number } = await db.query(
-    "INSERT INTO meter (site_id, ref, unit, purpose, water_source) VALUES (?, ?, 'gal', 'dedicated-irrigation', 'potable')",
+    `INSERT INTO meter (site_id, ref, unit, purpose, water_source) VALUES (?, ?, 'gal',
+      'dedicated-irrigation', 'potable')`,
     [siteId, `M-${siteId}`],
   );
   return r.insertId;
@@ -26,7 +27,8 @@ export async function addHours(
   for (let t = fromMs; t < toMs; t += HOUR) rows.push([meterId, new Date(t), 60, gallons, gallons, 'gal', 0]);
   if (rows.length)
     await db.query(
-      'INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value, original_unit, upload_id) VALUES ?',
+      `INSERT INTO meter_reading (meter_id, start_utc, minutes, volume_gal, original_value,
+        original_unit, upload_id) VALUES ?`,
       [rows],
     );
 }

@@ -106,37 +106,40 @@ describe('daily weather upload', () => {
     expect(await dayCount(id)).toBe(0);
   });
 
-  it('when days are missing inside the file, then the gaps are reported and, with normals, filled and flagged', async () => {
-    const id = await newStation();
-    const report = (
-      await upload(
-        id,
-        etoRainCsv('2025-01-01', 31, () => [2, 1], ['2025-01-10', '2025-01-11', '2025-01-20']),
-      ).expect(200)
-    ).body;
-    expect(report.gaps).toEqual([
-      { from: '2025-01-10', to: '2025-01-11', days: 2 },
-      { from: '2025-01-20', to: '2025-01-20', days: 1 },
-    ]);
-    const bare = (await manager.get(`/api/weather-stations/${id}/daily?from=2025-01-01&to=2025-01-31`).expect(200))
-      .body;
-    expect(bare.missingNormals).toEqual([1]);
-    expect(bare.days).toHaveLength(28);
-    await manager
-      .put(`/api/weather-stations/${id}/normals`, { normals: normals({ etoMm: 62, rainMm: 31 }) })
-      .expect(200);
-    const filled = (await manager.get(`/api/weather-stations/${id}/daily?from=2025-01-01&to=2025-01-31`).expect(200))
-      .body;
-    expect(filled.filledDays).toBe(3);
-    // January normal 62 mm ÷ 31 days = 2 mm/d ETo, 31 mm ÷ 31 = 1 mm/d rain.
-    expect(filled.days.find((d: { date: string }) => d.date === '2025-01-10')).toMatchObject({
-      etoMm: 2,
-      rainMm: 1,
-      filled: true,
-      method: 'normal-filled',
-      source: 'normals',
-    });
-  });
+  it(
+    'when days are missing inside the file, then the gaps are reported ' + 'and, with normals, filled and flagged',
+    async () => {
+      const id = await newStation();
+      const report = (
+        await upload(
+          id,
+          etoRainCsv('2025-01-01', 31, () => [2, 1], ['2025-01-10', '2025-01-11', '2025-01-20']),
+        ).expect(200)
+      ).body;
+      expect(report.gaps).toEqual([
+        { from: '2025-01-10', to: '2025-01-11', days: 2 },
+        { from: '2025-01-20', to: '2025-01-20', days: 1 },
+      ]);
+      const bare = (await manager.get(`/api/weather-stations/${id}/daily?from=2025-01-01&to=2025-01-31`).expect(200))
+        .body;
+      expect(bare.missingNormals).toEqual([1]);
+      expect(bare.days).toHaveLength(28);
+      await manager
+        .put(`/api/weather-stations/${id}/normals`, { normals: normals({ etoMm: 62, rainMm: 31 }) })
+        .expect(200);
+      const filled = (await manager.get(`/api/weather-stations/${id}/daily?from=2025-01-01&to=2025-01-31`).expect(200))
+        .body;
+      expect(filled.filledDays).toBe(3);
+      // January normal 62 mm ÷ 31 days = 2 mm/d ETo, 31 mm ÷ 31 = 1 mm/d rain.
+      expect(filled.days.find((d: { date: string }) => d.date === '2025-01-10')).toMatchObject({
+        etoMm: 2,
+        rainMm: 1,
+        filled: true,
+        method: 'normal-filled',
+        source: 'normals',
+      });
+    },
+  );
 
   it('when the header is wrong, then 400 names the column on row 1', async () => {
     const id = await newStation();
@@ -146,20 +149,23 @@ describe('daily weather upload', () => {
     expect(fields).toContain('row 1.date');
   });
 
-  it('when observations are uploaded, then ETo is computed and temperature-only days are marked Hargreaves', async () => {
-    const id = await newStation();
-    const csv = [
-      'date,tmax_c,tmin_c,rh_max_pct,rh_min_pct,wind_ms,solar_mj,rain_mm',
-      '2025-07-06,21.5,12.3,84,63,2.78,22.07,0',
-      '2025-07-07,30,15,,,,,0',
-    ].join('\n');
-    const report = (await upload(id, csv, 'observations').expect(200)).body;
-    expect(report.methods).toEqual({ 'penman-monteith': 1, hargreaves: 1 });
-    const days = (await manager.get(`/api/weather-stations/${id}/daily?from=2025-07-06&to=2025-07-07`).expect(200)).body
-      .days;
-    expect(days.map((d: { method: string }) => d.method)).toEqual(['penman-monteith', 'hargreaves']);
-    for (const d of days) expect(d.etoMm).toBeGreaterThan(0);
-  });
+  it(
+    'when observations are uploaded, then ETo is computed and temperature-only ' + 'days are marked Hargreaves',
+    async () => {
+      const id = await newStation();
+      const csv = [
+        'date,tmax_c,tmin_c,rh_max_pct,rh_min_pct,wind_ms,solar_mj,rain_mm',
+        '2025-07-06,21.5,12.3,84,63,2.78,22.07,0',
+        '2025-07-07,30,15,,,,,0',
+      ].join('\n');
+      const report = (await upload(id, csv, 'observations').expect(200)).body;
+      expect(report.methods).toEqual({ 'penman-monteith': 1, hargreaves: 1 });
+      const days = (await manager.get(`/api/weather-stations/${id}/daily?from=2025-07-06&to=2025-07-07`).expect(200))
+        .body.days;
+      expect(days.map((d: { method: string }) => d.method)).toEqual(['penman-monteith', 'hargreaves']);
+      for (const d of days) expect(d.etoMm).toBeGreaterThan(0);
+    },
+  );
 
   it('when an observation is out of physical bounds, then 400 names the row and column', async () => {
     const id = await newStation();
@@ -199,55 +205,60 @@ describe('invented sample files', () => {
 });
 
 describe('weather feed', () => {
-  it('when January is fetched from the fake feed, then each returned day is stored with its computed ETo and missing days are reported', async () => {
-    const id = await newStation();
-    const report = (
-      await manager.post(`/api/weather-stations/${id}/fetch`, { from: '2025-01-01', to: '2025-01-31' }).expect(200)
-    ).body;
-    // Ask the feed directly, as an independent reading of what it serves.
-    const direct = (await (
-      await fetch(
-        `${app.config.weather.feedUrl}/daily-observations?lat=${TEST_STATION.latitude}&lon=${TEST_STATION.longitude}&from=2025-01-01&to=2025-01-31`,
-      )
-    ).json()) as {
-      days: {
-        date: string;
-        tempHighC: number;
-        tempLowC: number;
-        humidityHighPct: number;
-        humidityLowPct: number;
-        wind2mMs: number;
-        solarMj: number;
-        rainMm: number;
-      }[];
-    };
-    expect(report.rows).toBe(direct.days.length);
-    expect(report.inserted).toBe(direct.days.length);
-    expect(report.gaps.reduce((s: number, g: { days: number }) => s + g.days, 0)).toBe(31 - direct.days.length);
-    const stored = (await manager.get(`/api/weather-stations/${id}/daily?from=2025-01-01&to=2025-01-31`).expect(200))
-      .body.days;
-    const first = direct.days[0]!;
-    const expected = computeDailyEto(
-      {
-        date: first.date,
-        tMaxC: first.tempHighC,
-        tMinC: first.tempLowC,
-        rhMaxPct: first.humidityHighPct,
-        rhMinPct: first.humidityLowPct,
-        windSpeedMs: first.wind2mMs,
-        windHeightM: 2,
-        solarRadiationMj: first.solarMj,
-      },
-      { latitudeDeg: TEST_STATION.latitude, elevationM: TEST_STATION.elevationM },
-    );
-    const day = stored.find((d: { date: string }) => d.date === first.date);
-    expect(day).toMatchObject({ source: 'feed', method: 'penman-monteith', rainMm: first.rainMm });
-    expect(day.etoMm).toBeCloseTo(expected.etoMm, 9);
-    const again = (
-      await manager.post(`/api/weather-stations/${id}/fetch`, { from: '2025-01-01', to: '2025-01-31' }).expect(200)
-    ).body;
-    expect(again).toMatchObject({ inserted: 0, unchanged: direct.days.length });
-  });
+  it(
+    'when January is fetched from the fake feed, then each returned ' +
+      'day is stored with its computed ETo and missing days are reported',
+    async () => {
+      const id = await newStation();
+      const report = (
+        await manager.post(`/api/weather-stations/${id}/fetch`, { from: '2025-01-01', to: '2025-01-31' }).expect(200)
+      ).body;
+      // Ask the feed directly, as an independent reading of what it serves.
+      const direct = (await (
+        await fetch(
+          `${app.config.weather.feedUrl}/daily-observations?lat=${TEST_STATION.latitude}` +
+            `&lon=${TEST_STATION.longitude}&from=2025-01-01&to=2025-01-31`,
+        )
+      ).json()) as {
+        days: {
+          date: string;
+          tempHighC: number;
+          tempLowC: number;
+          humidityHighPct: number;
+          humidityLowPct: number;
+          wind2mMs: number;
+          solarMj: number;
+          rainMm: number;
+        }[];
+      };
+      expect(report.rows).toBe(direct.days.length);
+      expect(report.inserted).toBe(direct.days.length);
+      expect(report.gaps.reduce((s: number, g: { days: number }) => s + g.days, 0)).toBe(31 - direct.days.length);
+      const stored = (await manager.get(`/api/weather-stations/${id}/daily?from=2025-01-01&to=2025-01-31`).expect(200))
+        .body.days;
+      const first = direct.days[0]!;
+      const expected = computeDailyEto(
+        {
+          date: first.date,
+          tMaxC: first.tempHighC,
+          tMinC: first.tempLowC,
+          rhMaxPct: first.humidityHighPct,
+          rhMinPct: first.humidityLowPct,
+          windSpeedMs: first.wind2mMs,
+          windHeightM: 2,
+          solarRadiationMj: first.solarMj,
+        },
+        { latitudeDeg: TEST_STATION.latitude, elevationM: TEST_STATION.elevationM },
+      );
+      const day = stored.find((d: { date: string }) => d.date === first.date);
+      expect(day).toMatchObject({ source: 'feed', method: 'penman-monteith', rainMm: first.rainMm });
+      expect(day.etoMm).toBeCloseTo(expected.etoMm, 9);
+      const again = (
+        await manager.post(`/api/weather-stations/${id}/fetch`, { from: '2025-01-01', to: '2025-01-31' }).expect(200)
+      ).body;
+      expect(again).toMatchObject({ inserted: 0, unchanged: direct.days.length });
+    },
+  );
 
   it('when the feed does not answer, then 502 says so and nothing is stored', async () => {
     const offline = await createTestApp({
@@ -270,24 +281,28 @@ describe('weather feed', () => {
 });
 
 describe('station access and normals', () => {
-  it('when a site is linked, then an auditor who sees the site sees the station but cannot change it; strangers get 404', async () => {
-    const id = await stationForSite(manager, site.id);
-    const auditor = await signedIn(app, utility.users.auditor.email);
-    expect((await auditor.get(`/api/weather-stations/${id}`).expect(200)).body.canEdit).toBe(false);
-    expect((await auditor.get(`/api/sites/${site.id}/weather-station`).expect(200)).body.station.id).toBe(id);
-    await auditor
-      .postText(`/api/weather-stations/${id}/daily?format=eto-rain`, 'date,eto_mm,rain_mm\n2025-01-01,1,0\n')
-      .expect(403);
-    await auditor.put(`/api/sites/${site.id}/weather-station`, { stationId: null }).expect(403);
-    const outsider = await signedIn(app, stranger.users.admin.email);
-    await outsider.get(`/api/weather-stations/${id}`).expect(404);
-    expect(
-      (await outsider.get('/api/weather-stations?pageSize=200').expect(200)).body.items.map(
-        (s: { id: number }) => s.id,
-      ),
-    ).not.toContain(id);
-    await outsider.put(`/api/sites/${site.id}/weather-station`, { stationId: id }).expect(404);
-  });
+  it(
+    'when a site is linked, then an auditor who sees the site sees ' +
+      'the station but cannot change it; strangers get 404',
+    async () => {
+      const id = await stationForSite(manager, site.id);
+      const auditor = await signedIn(app, utility.users.auditor.email);
+      expect((await auditor.get(`/api/weather-stations/${id}`).expect(200)).body.canEdit).toBe(false);
+      expect((await auditor.get(`/api/sites/${site.id}/weather-station`).expect(200)).body.station.id).toBe(id);
+      await auditor
+        .postText(`/api/weather-stations/${id}/daily?format=eto-rain`, 'date,eto_mm,rain_mm\n2025-01-01,1,0\n')
+        .expect(403);
+      await auditor.put(`/api/sites/${site.id}/weather-station`, { stationId: null }).expect(403);
+      const outsider = await signedIn(app, stranger.users.admin.email);
+      await outsider.get(`/api/weather-stations/${id}`).expect(404);
+      expect(
+        (await outsider.get('/api/weather-stations?pageSize=200').expect(200)).body.items.map(
+          (s: { id: number }) => s.id,
+        ),
+      ).not.toContain(id);
+      await outsider.put(`/api/sites/${site.id}/weather-station`, { stationId: id }).expect(404);
+    },
+  );
 
   it('when normals miss a month or exceed bounds, then 400 names them', async () => {
     const id = await newStation();

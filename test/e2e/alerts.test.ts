@@ -10,7 +10,10 @@ import { DESKTOP, openBrowser, screenshot } from '../support/browser';
 import { createSite, shareSite, suffix } from '../support/test-app';
 import { e2eDatabase } from '../support/e2e-database';
 
-/** An administrator runs the watch, finds the leak in the inbox, reads its evidence and acknowledges it; an auditor only reads. */
+/**
+ * An administrator runs the watch, finds the leak in the inbox, reads its evidence and acknowledges it; an auditor only
+ * reads.
+ */
 let server: RunningServer;
 let db: DataSource;
 let siteName: string;
@@ -45,35 +48,38 @@ async function signIn(page: import('playwright-core').Page, role: 'admin' | 'aud
 }
 
 describe('alerts pages', () => {
-  it('when an administrator runs the watch, then the leak shows in the inbox and its detail can be acknowledged', async () => {
-    const browser = await openBrowser(DESKTOP);
-    try {
-      const { page } = browser;
-      await signIn(page, 'admin');
-      await page.getByRole('link', { name: 'Alerts' }).click();
-      await page.getByRole('heading', { name: 'Alerts', level: 1 }).waitFor();
-      await page.getByRole('link', { name: 'Watch runs' }).click();
-      await page.getByRole('button', { name: 'Run now' }).click();
-      await page.getByRole('cell', { name: 'manual' }).first().waitFor();
-      await screenshot(page, 'alerts-runs');
-      await page.goto(`${server.url}/alerts`);
-      const row = page.getByRole('row').filter({ hasText: siteName }).filter({ hasText: 'Flow that never stops' });
-      await row.waitFor();
-      expect(await row.textContent()).toMatch(/gal/);
-      await screenshot(page, 'alerts-inbox');
-      await row.getByRole('link').click();
-      await page.getByRole('heading', { name: 'Leak — Flow that never stops' }).waitFor();
-      await page.getByRole('img').first().waitFor();
-      await page.waitForTimeout(1200);
-      await screenshot(page, 'alerts-detail');
-      await page.getByLabel('Note (what was found or done)').fill('Crew checking the lateral line on Thursday.');
-      await page.getByRole('button', { name: 'Acknowledge' }).click();
-      await page.getByText('“Crew checking the lateral line on Thursday.”').waitFor();
-      expect(await page.getByText('status: acknowledged').count()).toBe(1);
-    } finally {
-      await browser.close();
-    }
-  });
+  it(
+    'when an administrator runs the watch, then the leak shows in ' + 'the inbox and its detail can be acknowledged',
+    async () => {
+      const browser = await openBrowser(DESKTOP);
+      try {
+        const { page } = browser;
+        await signIn(page, 'admin');
+        await page.getByRole('link', { name: 'Alerts' }).click();
+        await page.getByRole('heading', { name: 'Alerts', level: 1 }).waitFor();
+        await page.getByRole('link', { name: 'Watch runs' }).click();
+        await page.getByRole('button', { name: 'Run now' }).click();
+        await page.getByRole('cell', { name: 'manual' }).first().waitFor();
+        await screenshot(page, 'alerts-runs');
+        await page.goto(`${server.url}/alerts`);
+        const row = page.getByRole('row').filter({ hasText: siteName }).filter({ hasText: 'Flow that never stops' });
+        await row.waitFor();
+        expect(await row.textContent()).toMatch(/gal/);
+        await screenshot(page, 'alerts-inbox');
+        await row.getByRole('link').click();
+        await page.getByRole('heading', { name: 'Leak — Flow that never stops' }).waitFor();
+        await page.getByRole('img').first().waitFor();
+        await page.waitForTimeout(1200);
+        await screenshot(page, 'alerts-detail');
+        await page.getByLabel('Note (what was found or done)').fill('Crew checking the lateral line on Thursday.');
+        await page.getByRole('button', { name: 'Acknowledge' }).click();
+        await page.getByText('“Crew checking the lateral line on Thursday.”').waitFor();
+        expect(await page.getByText('status: acknowledged').count()).toBe(1);
+      } finally {
+        await browser.close();
+      }
+    },
+  );
 
   it('when an auditor opens the alert, then they see the evidence but no way to act', async () => {
     const browser = await openBrowser(DESKTOP);

@@ -112,7 +112,7 @@ describe('dashboard in the browser', () => {
         await expect(page.getByRole('list', { name: 'Headline figures' }).innerText()).resolves.toMatch(/gal/);
         await screenshot(page, `dashboard-${tag}-portfolio-${width}`);
 
-        const { siteName, siteId } = await openWorstSite(page);
+        const { siteId } = await openWorstSite(page);
         await page.locator('rm-daily-chart canvas, rm-daily-chart + p, .panel .rm-state').first().waitFor();
         await page.waitForTimeout(300);
         await screenshot(page, `dashboard-${tag}-overview-${width}`);
@@ -195,8 +195,10 @@ describe('dashboard in the browser', () => {
         const tab = tabs.getByRole('tab', { name: label, exact: true });
         if (width === 'desktop') await tab.click();
         else {
-          // At phone width the tab bar scrolls sideways, and a tab half under the arrow slides into view as it takes focus
-          // (Material), which moves it away from an emulated mouse before the button comes up. Keyboard users go this way too.
+          // At phone width the tab bar scrolls sideways, and a tab half under the arrow slides into view as it takes
+          // focus
+          // (Material), which moves it away from an emulated mouse before the button comes up. Keyboard users go this
+          // way too.
           await tab.focus();
           await tab.press('Enter');
         }

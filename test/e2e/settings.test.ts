@@ -51,79 +51,83 @@ async function sectionTabs(page: Page): Promise<string[]> {
 }
 
 describe('settings page', () => {
-  it('when an administrator makes an API key, then the secret shows once with the upload command, works, and stops working once revoked', async () => {
-    const browser = await openBrowser(DESKTOP);
-    try {
-      const { page } = browser;
-      await signIn(page, 'admin');
-      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Settings' }).click();
-      await page.getByRole('heading', { name: 'Units', level: 1 }).waitFor();
-      expect(await sectionTabs(page)).toEqual(['Units', 'Notifications', 'API keys', 'Users']);
+  it(
+    'when an administrator makes an API key, then the secret shows ' +
+      'once with the upload command, works, and stops working once revoked',
+    async () => {
+      const browser = await openBrowser(DESKTOP);
+      try {
+        const { page } = browser;
+        await signIn(page, 'admin');
+        await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Settings' }).click();
+        await page.getByRole('heading', { name: 'Units', level: 1 }).waitFor();
+        expect(await sectionTabs(page)).toEqual(['Units', 'Notifications', 'API keys', 'Users']);
 
-      // Units: switch to metric, see it survive a reload, and switch back.
-      const units = page.getByRole('radiogroup', { name: 'Unit system for the organisation' });
-      await units.getByRole('radio', { name: /Metric/ }).check();
-      await page.getByRole('button', { name: 'Save unit system' }).click();
-      await page.getByText('Saved. Figures are now shown in Metric units.').waitFor();
-      await page.reload();
-      await expect(units.getByRole('radio', { name: /Metric/ }).isChecked()).resolves.toBe(true);
-      await screenshot(page, 'settings-units-admin-desktop');
-      await units.getByRole('radio', { name: /US customary/ }).check();
-      await page.getByRole('button', { name: 'Save unit system' }).click();
-      await page.getByText('Saved. Figures are now shown in US customary units.').waitFor();
+        // Units: switch to metric, see it survive a reload, and switch back.
+        const units = page.getByRole('radiogroup', { name: 'Unit system for the organisation' });
+        await units.getByRole('radio', { name: /Metric/ }).check();
+        await page.getByRole('button', { name: 'Save unit system' }).click();
+        await page.getByText('Saved. Figures are now shown in Metric units.').waitFor();
+        await page.reload();
+        await expect(units.getByRole('radio', { name: /Metric/ }).isChecked()).resolves.toBe(true);
+        await screenshot(page, 'settings-units-admin-desktop');
+        await units.getByRole('radio', { name: /US customary/ }).check();
+        await page.getByRole('button', { name: 'Save unit system' }).click();
+        await page.getByText('Saved. Figures are now shown in US customary units.').waitFor();
 
-      // API keys: create one for a single site.
-      await page.getByRole('tablist', { name: 'Settings' }).getByRole('tab', { name: 'API keys' }).click();
-      await page.getByRole('heading', { name: 'API keys', level: 1 }).waitFor();
-      await page.getByRole('button', { name: 'New API key' }).click();
-      const name = `Pump house logger ${suffix()}`;
-      const dialog = page.getByRole('dialog');
-      await dialog.getByLabel('Name').fill(name);
-      await dialog.getByRole('combobox', { name: 'Sites' }).click();
-      await page.getByRole('option', { name: SITE }).click();
-      await page.keyboard.press('Tab');
-      await dialog.getByRole('button', { name: 'Create key' }).click();
+        // API keys: create one for a single site.
+        await page.getByRole('tablist', { name: 'Settings' }).getByRole('tab', { name: 'API keys' }).click();
+        await page.getByRole('heading', { name: 'API keys', level: 1 }).waitFor();
+        await page.getByRole('button', { name: 'New API key' }).click();
+        const name = `Pump house logger ${suffix()}`;
+        const dialog = page.getByRole('dialog');
+        await dialog.getByLabel('Name').fill(name);
+        await dialog.getByRole('combobox', { name: 'Sites' }).click();
+        await page.getByRole('option', { name: SITE }).click();
+        await page.keyboard.press('Tab');
+        await dialog.getByRole('button', { name: 'Create key' }).click();
 
-      await dialog.getByText('This is the only time Rillmark shows it').waitFor();
-      const secret = await dialog.getByLabel('API key').inputValue();
-      expect(secret).toMatch(/^rk_[0-9a-f]{8}_[A-Za-z0-9_-]{43}$/);
-      const command = await dialog.getByLabel('Upload command').innerText();
-      expect(command).toContain('-F file=@readings.csv');
-      expect(command).toContain(`${server.url}/api/sites/${siteId}/uploads`);
-      await page.waitForTimeout(400); // the dialog's opening animation
-      await screenshot(page, 'settings-api-key-secret-desktop');
-      // Escape does not throw the only copy away.
-      await page.keyboard.press('Escape');
-      await expect(dialog.isVisible()).resolves.toBe(true);
-      expect(await keyStatus(secret)).toBe(404);
+        await dialog.getByText('This is the only time Rillmark shows it').waitFor();
+        const secret = await dialog.getByLabel('API key').inputValue();
+        expect(secret).toMatch(/^rk_[0-9a-f]{8}_[A-Za-z0-9_-]{43}$/);
+        const command = await dialog.getByLabel('Upload command').innerText();
+        expect(command).toContain('-F file=@readings.csv');
+        expect(command).toContain(`${server.url}/api/sites/${siteId}/uploads`);
+        await page.waitForTimeout(400); // the dialog's opening animation
+        await screenshot(page, 'settings-api-key-secret-desktop');
+        // Escape does not throw the only copy away.
+        await page.keyboard.press('Escape');
+        await expect(dialog.isVisible()).resolves.toBe(true);
+        expect(await keyStatus(secret)).toBe(404);
 
-      await dialog.getByRole('button', { name: 'I have stored the key' }).click();
-      await dialog.waitFor({ state: 'detached' });
-      const row = page.getByRole('row').filter({ hasText: name });
-      await row.getByText('Active').waitFor();
-      expect(await row.innerText()).toContain(SITE);
-      expect(await page.content()).not.toContain(secret);
-      await screenshot(page, 'settings-api-keys-desktop');
+        await dialog.getByRole('button', { name: 'I have stored the key' }).click();
+        await dialog.waitFor({ state: 'detached' });
+        const row = page.getByRole('row').filter({ hasText: name });
+        await row.getByText('Active').waitFor();
+        expect(await row.innerText()).toContain(SITE);
+        expect(await page.content()).not.toContain(secret);
+        await screenshot(page, 'settings-api-keys-desktop');
 
-      // Revoke, through the confirmation.
-      await row.getByRole('button', { name: `Revoke ${name}` }).click();
-      await page
-        .getByRole('dialog')
-        .getByRole('heading', { name: `Revoke “${name}”?` })
-        .waitFor();
-      await page.getByRole('dialog').getByRole('button', { name: 'Revoke key' }).click();
-      await row.getByText(/^Revoked /).waitFor();
-      expect(await row.getByRole('button', { name: /Revoke/ }).count()).toBe(0);
-      expect(await keyStatus(secret)).toBe(401);
+        // Revoke, through the confirmation.
+        await row.getByRole('button', { name: `Revoke ${name}` }).click();
+        await page
+          .getByRole('dialog')
+          .getByRole('heading', { name: `Revoke “${name}”?` })
+          .waitFor();
+        await page.getByRole('dialog').getByRole('button', { name: 'Revoke key' }).click();
+        await row.getByText(/^Revoked /).waitFor();
+        expect(await row.getByRole('button', { name: /Revoke/ }).count()).toBe(0);
+        expect(await keyStatus(secret)).toBe(401);
 
-      // The people in the organisation, in the same frame.
-      await page.getByRole('tablist', { name: 'Settings' }).getByRole('tab', { name: 'Users' }).click();
-      await page.getByRole('table', { name: 'Users' }).locator('tbody tr').first().waitFor();
-      await screenshot(page, 'settings-users-admin-desktop');
-    } finally {
-      await browser.close();
-    }
-  });
+        // The people in the organisation, in the same frame.
+        await page.getByRole('tablist', { name: 'Settings' }).getByRole('tab', { name: 'Users' }).click();
+        await page.getByRole('table', { name: 'Users' }).locator('tbody tr').first().waitFor();
+        await screenshot(page, 'settings-users-admin-desktop');
+      } finally {
+        await browser.close();
+      }
+    },
+  );
 
   it('when an administrator opens settings on a phone, then the sections fit the screen', async () => {
     const browser = await openBrowser(PHONE);

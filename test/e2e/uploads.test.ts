@@ -62,61 +62,66 @@ afterAll(async () => {
 });
 
 describe('upload page', () => {
-  it('when a manager drops a sample file, then the preview, the result, the no-op re-upload and the roll-back all show', async () => {
-    const manager = DEMO_USERS.find((u) => u.role === 'manager')!;
-    const browser = await openBrowser(DESKTOP);
-    try {
-      const { page } = browser;
-      await page.goto(`${server.url}/`);
-      await page.getByLabel('E-mail address').fill(manager.email);
-      await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-      await page.getByRole('button', { name: 'Sign in' }).click();
-      // Home after sign-in is the portfolio; this test is about the sites list.
-      await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
-      await page.goto(`${server.url}/sites`);
-      await page.getByRole('heading', { name: 'Sites', level: 1 }).waitFor();
+  it(
+    'when a manager drops a sample file, then the preview, the result, ' +
+      'the no-op re-upload and the roll-back all show',
+    async () => {
+      const manager = DEMO_USERS.find((u) => u.role === 'manager')!;
+      const browser = await openBrowser(DESKTOP);
+      try {
+        const { page } = browser;
+        await page.goto(`${server.url}/`);
+        await page.getByLabel('E-mail address').fill(manager.email);
+        await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
+        await page.getByRole('button', { name: 'Sign in' }).click();
+        // Home after sign-in is the portfolio; this test is about the sites list.
+        await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
+        await page.goto(`${server.url}/sites`);
+        await page.getByRole('heading', { name: 'Sites', level: 1 }).waitFor();
 
-      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Uploads' }).click();
-      await page.getByRole('heading', { name: 'Data uploads' }).waitFor();
-      await page.getByRole('combobox', { name: 'Site' }).click();
-      await page.getByRole('option', { name: siteName }).click();
-      await page.getByText('America/Los_Angeles').waitFor();
+        await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Uploads' }).click();
+        await page.getByRole('heading', { name: 'Data uploads' }).waitFor();
+        await page.getByRole('combobox', { name: 'Site' }).click();
+        await page.getByRole('option', { name: siteName }).click();
+        await page.getByText('America/Los_Angeles').waitFor();
 
-      const file = resolve(SAMPLES, 'meters/interval-long-us-ampm.csv');
-      await page.getByLabel('CSV file', { exact: true }).setInputFiles(file);
-      await page.getByRole('heading', { name: 'How the file will be read' }).waitFor();
-      // 12:00 AM, 1:00 AM (PDT), 1:00 AM again (PST): read in the site's zone.
-      const sample = page.locator('ul.sample li');
-      expect(await sample.count()).toBe(6);
-      expect(await sample.first().innerText()).toMatch(/^SCHOOL-01 · 2026-11-01 00:00:00 · 60 min · 83\.25/);
-      await screenshot(page, 'uploads-preview');
+        const file = resolve(SAMPLES, 'meters/interval-long-us-ampm.csv');
+        await page.getByLabel('CSV file', { exact: true }).setInputFiles(file);
+        await page.getByRole('heading', { name: 'How the file will be read' }).waitFor();
+        // 12:00 AM, 1:00 AM (PDT), 1:00 AM again (PST): read in the site's zone.
+        const sample = page.locator('ul.sample li');
+        expect(await sample.count()).toBe(6);
+        expect(await sample.first().innerText()).toMatch(/^SCHOOL-01 · 2026-11-01 00:00:00 · 60 min · 83\.25/);
+        await screenshot(page, 'uploads-preview');
 
-      await page.getByRole('button', { name: 'Upload', exact: true }).click();
-      await page.getByRole('heading', { name: /Upload #\d+ imported/ }).waitFor();
-      const counts = page.locator('dl.counts');
-      expect(await counts.locator('div', { hasText: 'New' }).locator('dd').innerText()).toBe('6');
-      await screenshot(page, 'uploads-result');
+        await page.getByRole('button', { name: 'Upload', exact: true }).click();
+        await page.getByRole('heading', { name: /Upload #\d+ imported/ }).waitFor();
+        const counts = page.locator('dl.counts');
+        expect(await counts.locator('div', { hasText: 'New' }).locator('dd').innerText()).toBe('6');
+        await screenshot(page, 'uploads-result');
 
-      await page.getByRole('button', { name: 'Upload', exact: true }).click();
-      await page.getByRole('heading', { name: 'Nothing to do' }).waitFor();
-      expect(await page.getByText(/already imported as upload #\d+/).count()).toBe(1);
+        await page.getByRole('button', { name: 'Upload', exact: true }).click();
+        await page.getByRole('heading', { name: 'Nothing to do' }).waitFor();
+        expect(await page.getByText(/already imported as upload #\d+/).count()).toBe(1);
 
-      const history = page.getByRole('table', { name: 'Upload history' });
-      expect(await history.locator('tbody tr').count()).toBe(1);
-      await history.getByRole('button', { name: 'Roll back' }).click();
-      await page.getByRole('dialog').getByRole('button', { name: 'Roll back' }).click();
-      await history.getByText('Rolled back').waitFor();
-      const [left] = await db.query(
-        'SELECT COUNT(*) AS n FROM meter_reading r JOIN meter m ON m.id = r.meter_id JOIN site s ON s.id = m.site_id WHERE s.name = ?',
-        [siteName],
-      );
-      expect(Number(left.n)).toBe(0);
-      await screenshot(page, 'uploads-rolled-back');
-    } catch (err) {
-      await screenshot(browser.page, 'uploads-failure');
-      throw err;
-    } finally {
-      await browser.close();
-    }
-  });
+        const history = page.getByRole('table', { name: 'Upload history' });
+        expect(await history.locator('tbody tr').count()).toBe(1);
+        await history.getByRole('button', { name: 'Roll back' }).click();
+        await page.getByRole('dialog').getByRole('button', { name: 'Roll back' }).click();
+        await history.getByText('Rolled back').waitFor();
+        const [left] = await db.query(
+          `SELECT COUNT(*) AS n FROM meter_reading r JOIN meter m ON m.id = r.meter_id JOIN site s ON
+          s.id = m.site_id WHERE s.name = ?`,
+          [siteName],
+        );
+        expect(Number(left.n)).toBe(0);
+        await screenshot(page, 'uploads-rolled-back');
+      } catch (err) {
+        await screenshot(browser.page, 'uploads-failure');
+        throw err;
+      } finally {
+        await browser.close();
+      }
+    },
+  );
 });

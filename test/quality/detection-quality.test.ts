@@ -73,21 +73,24 @@ describe('detection quality on synthetic sites', () => {
     expect(rows.filter((r) => r.id.startsWith('long-run') && !r.exact)).toEqual([]);
   });
 
-  it('recovers the controller clock offset the generator put in to within two minutes, on sites with hourly data', () => {
-    const hourly = sites.filter(({ site }) => site.input.meterHours);
-    const errors = hourly.map(
-      ({ site }) =>
-        estimateControllerShiftMinutes(site.input.meterHours!, site.input.runs, site.input.zones, 15) +
-        site.controllerClockAheadMinutes,
-    );
-    console.log(
-      `Controller clock shift error, minutes: ${[...new Set(errors)]
-        .sort((a, b) => a - b)
-        .map((e) => `${e}: ${errors.filter((x) => x === e).length}`)
-        .join(', ')}`,
-    );
-    expect(errors.filter((e) => Math.abs(e) <= 2).length / errors.length).toBeGreaterThanOrEqual(0.9);
-  });
+  it(
+    'recovers the controller clock offset the generator put in to ' + 'within two minutes, on sites with hourly data',
+    () => {
+      const hourly = sites.filter(({ site }) => site.input.meterHours);
+      const errors = hourly.map(
+        ({ site }) =>
+          estimateControllerShiftMinutes(site.input.meterHours!, site.input.runs, site.input.zones, 15) +
+          site.controllerClockAheadMinutes,
+      );
+      console.log(
+        `Controller clock shift error, minutes: ${[...new Set(errors)]
+          .sort((a, b) => a - b)
+          .map((e) => `${e}: ${errors.filter((x) => x === e).length}`)
+          .join(', ')}`,
+      );
+      expect(errors.filter((e) => Math.abs(e) <= 2).length / errors.length).toBeGreaterThanOrEqual(0.9);
+    },
+  );
 
   it('raises nothing over a whole clean year on any site, through every season and both DST changes', () => {
     const findings = SITE_PROFILES.flatMap((profile) =>

@@ -127,13 +127,18 @@ export function scoreOutcomes(outcomes: readonly ScenarioOutcome[]): QualityRepo
           explained: 0,
           falseAlarms: 0,
         };
-        if (verdict === 'hit') ((hits += 1), (row.hits += 1));
-        else if (verdict === 'explained') ((explained += 1), (row.explained += 1));
-        else {
+        if (verdict === 'hit') {
+          hits += 1;
+          row.hits += 1;
+        } else if (verdict === 'explained') {
+          explained += 1;
+          row.explained += 1;
+        } else {
           alarms += 1;
           row.falseAlarms += 1;
           falseAlarms.push(
-            `${o.scenarioId}: ${f.kind}/${f.subKind}${f.zoneId ? ` ${f.zoneId}` : ''} ${iso(f.periodStartUtc)} → ${iso(f.periodEndUtc)}: ${f.explanation}`,
+            `${o.scenarioId}: ${f.kind}/${f.subKind}${f.zoneId ? ` ${f.zoneId}` : ''} ` +
+              `${iso(f.periodStartUtc)} → ${iso(f.periodEndUtc)}: ${f.explanation}`,
           );
         }
         subKinds.set(`${kind}/${f.subKind}`, row);
@@ -168,11 +173,14 @@ export function formatQualityMarkdown(report: QualityReport, scenarioCount: numb
   const lines = [
     `Detection quality on ${scenarioCount} synthetic scenarios (seeded; \`test/quality/detection-quality.test.ts\`).`,
     '',
-    '| Detector | True events | Found | Findings | Hits | Explained by another event | False alarms | Precision | Recall | Median hours to detect |',
+    '| Detector | True events | Found | Findings | Hits | Explained ' +
+      'by another event | False alarms | Precision | Recall | Median hours to detect |',
     '|---|---:|---:|---:|---:|---:|---:|---:|---:|---:|',
     ...report.scores.map(
       (s) =>
-        `| ${s.kind} | ${s.events} | ${s.found} | ${s.findings} | ${s.hits} | ${s.explained} | ${s.falseAlarms} | ${pct(s.precision)} | ${pct(s.recall)} | ${s.medianHoursToDetect === null ? '–' : s.medianHoursToDetect.toFixed(0)} |`,
+        `| ${s.kind} | ${s.events} | ${s.found} | ${s.findings} | ${s.hits} ` +
+        `| ${s.explained} | ${s.falseAlarms} | ${pct(s.precision)} | ` +
+        `${pct(s.recall)} | ${s.medianHoursToDetect === null ? '–' : s.medianHoursToDetect.toFixed(0)} |`,
     ),
     '',
     'Findings by check:',
@@ -187,11 +195,14 @@ export function formatQualityMarkdown(report: QualityReport, scenarioCount: numb
     '|---|---:|---:|---:|---|---:|',
     ...report.byFamily.map(
       (r) =>
-        `| ${r.family} | ${r.scenarios} | ${r.events} | ${r.found} | ${r.foundBy.join(', ') || '–'} | ${r.falseAlarms} |`,
+        `| ${r.family} | ${r.scenarios} | ${r.events} | ${r.found} | ` +
+        `${r.foundBy.join(', ') || '–'} | ${r.falseAlarms} |`,
     ),
     '',
-    'Precision = hits ÷ (hits + false alarms); recall = true events found ÷ true events. "Explained" findings overlap an',
-    'injected event that rightly causes that kind too (a stuck valve is also continuous flow; a large leak also overspends)',
+    'Precision = hits ÷ (hits + false alarms); recall = true events ' +
+      'found ÷ true events. "Explained" findings overlap an',
+    'injected event that rightly causes that kind too (a stuck valve ' +
+      'is also continuous flow; a large leak also overspends)',
     "and that began before the finding was first detected. Hours to detect run from the event's start to the first",
     'moment the data met the condition; the nightly job adds up to a day on top.',
   ];

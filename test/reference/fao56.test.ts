@@ -326,7 +326,8 @@ describe('FAO-56 Annex 2 tables (p.213–222)', () => {
       [2000, 0.053],
       [4000, 0.041],
     ];
-    for (const [z, g] of rows) expectPrinted(psychrometricConstantKpaPerC(atmosphericPressureKpa(z)), g, 3); // FAO-56 Annex 2 Table 2.2
+    // FAO-56 Annex 2 Table 2.2
+    for (const [z, g] of rows) expectPrinted(psychrometricConstantKpaPerC(atmosphericPressureKpa(z)), g, 3);
   });
 
   it('Table 2.3 saturation vapour pressure', () => {

@@ -11,7 +11,8 @@ import { expectPrinted } from './printed-rounding';
 
 describe('precipitation rate', () => {
   it('the constant is 96.25 = 60 × 12 / 7.48', () => {
-    expectPrinted(PRECIPITATION_RATE_CONSTANT, 96.25, 4); // Kitsap PUD kpud.org/sprinklerRates.php; 720/7.480519 = 96.2500 (derived)
+    // Kitsap PUD kpud.org/sprinklerRates.php; 720/7.480519 = 96.2500 (derived)
+    expectPrinted(PRECIPITATION_RATE_CONSTANT, 96.25, 4);
   });
 
   it('10 GPM over 1,000 ft² → 0.9625 in/h', () => {
@@ -21,12 +22,15 @@ describe('precipitation rate', () => {
   it('60 × 15 ft, 6 half-circle heads at 1.0 GPM and 4 quarter-circle at 0.5 GPM → 0.856 in/h', () => {
     const gpm = 6 * 1.0 + 4 * 0.5;
     expect(gpm).toBe(8);
-    expectPrinted(precipitationRateInPerHour(gpm, 60 * 15), 0.856, 3); // irrigation course slides (docs/references.md §4), printed 0.86 (0.856)
-    expectPrinted(precipitationRateInPerHour(gpm, 60 * 15), 0.86, 2); // irrigation course slides (docs/references.md §4)
+    // irrigation course slides (docs/references.md §4), printed 0.86 (0.856)
+    expectPrinted(precipitationRateInPerHour(gpm, 60 * 15), 0.856, 3);
+    // irrigation course slides (docs/references.md §4)
+    expectPrinted(precipitationRateInPerHour(gpm, 60 * 15), 0.86, 2);
   });
 
   it('triangular spacing: 6 GPM full circle, 25 × 30 ft → 0.889 in/h', () => {
-    expectPrinted(spacingPrecipitationRateInPerHour(6, 25, 30, 'triangular'), 0.889, 3); // irrigation course slides (docs/references.md §4), published + derived
+    // irrigation course slides (docs/references.md §4), published + derived
+    expectPrinted(spacingPrecipitationRateInPerHour(6, 25, 30, 'triangular'), 0.889, 3);
   });
 
   it('square spacing is the plain area formula', () => {

@@ -34,7 +34,8 @@ describe('MWELO 2009 Appendix B example (Fresno), Colton O-008-14 pp.12–13', (
 
   it('MAWA = 1,482 HCF/yr', () => {
     // The example divides by 748 gal/HCF; the exact 748.05 gives the same whole number.
-    expect(Math.round(convertVolume(mawa.gallons, 'gal', 'ccf'))).toBe(1482); // MWELO 2009 App. B example, Colton O-008-14 p.12
+    // MWELO 2009 App. B example, Colton O-008-14 p.12
+    expect(Math.round(convertVolume(mawa.gallons, 'gal', 'ccf'))).toBe(1482);
   });
 
   it('ETWU = 1,102,176 gal/yr with IE 0.71 and complies', () => {
@@ -82,7 +83,8 @@ describe('MWELO 2015 rules', () => {
       specialLandscapeAreaFt2: 0,
       etaf: MWELO_MAX_ETAF.residential,
     });
-    expectPrinted(mawa.gallons, 871_255, 0); // docs/references.md §3: derived, not published (51.1 × 0.62 × 0.55 × 50,000)
+    // docs/references.md §3: derived, not published (51.1 × 0.62 × 0.55 × 50,000)
+    expectPrinted(mawa.gallons, 871_255, 0);
   });
 
   it('special landscape area gets ETAF 1.0 in MAWA and ETWU', () => {
@@ -103,7 +105,8 @@ describe('MWELO 2015 rules', () => {
   it('existing landscapes: MAWA = 0.8 × ETo × LA × 0.62', () => {
     expect(EXISTING_LANDSCAPE_ETAF).toBe(0.8); // MWELO § 493.1, Baldwin Park code copy
     // Invented inputs: ETo 40 in, 25,000 ft² → 0.8 × 40 × 25,000 × 0.62 = 496,000 gal.
-    expectPrinted(existingLandscapeAllowance(40, 25_000).gallons, 496_000, 0); // MWELO § 493.1 formula, Baldwin Park code copy
+    // MWELO § 493.1 formula, Baldwin Park code copy
+    expectPrinted(existingLandscapeAllowance(40, 25_000).gallons, 496_000, 0);
   });
 
   it('effective precipitation (local option) is subtracted from ETo', () => {
@@ -114,7 +117,8 @@ describe('MWELO 2015 rules', () => {
       etoInPerYear: 50,
       effectivePrecipitationInPerYear: 0.25 * 12,
     });
-    expect(withRain.gallons).toBeCloseTo(47 * 0.62 * 0.55 * 10_000, 6); // MWELO local option (ETo − Eppt), ecode360.com/48417262
+    // MWELO local option (ETo − Eppt), ecode360.com/48417262
+    expect(withRain.gallons).toBeCloseTo(47 * 0.62 * 0.55 * 10_000, 6);
   });
 });
 
@@ -122,7 +126,8 @@ describe('0.62 versus 144/231', () => {
   it('the ordinance factor is 0.62 and the exact factor is 0.623377', () => {
     expect(gallonsPerInchSquareFoot('ordinance')).toBe(MWELO_CONVERSION_FACTOR);
     expect(MWELO_CONVERSION_FACTOR).toBe(0.62); // MWELO App. B text and § 491 definition
-    expectPrinted(gallonsPerInchSquareFoot('exact'), 0.623377, 6); // docs/references.md §3/§5: 144/231, published + derived
+    // docs/references.md §3/§5: 144/231, published + derived
+    expectPrinted(gallonsPerInchSquareFoot('exact'), 0.623377, 6);
   });
 
   it('the exact factor raises the Fresno MAWA by 144/231 ÷ 0.62', () => {

@@ -18,18 +18,21 @@ describe('NIST Handbook 44 App. C', () => {
 
   it('1 US gallon = 231 in³ exactly, consistent with the 25.4 mm inch', () => {
     // 231 × (2.54 cm)³ = 3785.411784 cm³: the litre figure and the inch agree.
-    expect((231 * Math.pow(MILLIMETRES_PER_INCH / 10, 3)) / 1000).toBeCloseTo(LITRES_PER_GALLON, 12); // NIST Handbook 44 App. C ("231 cubic inches (exactly)")
+    // NIST Handbook 44 App. C ("231 cubic inches (exactly)")
+    expect((231 * Math.pow(MILLIMETRES_PER_INCH / 10, 3)) / 1000).toBeCloseTo(LITRES_PER_GALLON, 12);
   });
 });
 
 describe('derived volume facts', () => {
   it('1 ft³ = 7.480519 gal', () => {
-    expectPrinted(GALLONS_PER_CUBIC_FOOT, 7.480519, 6); // derived from NIST HB44 (1728/231); OAS water-conversion annex gives 7.4805
+    // derived from NIST HB44 (1728/231); OAS water-conversion annex gives 7.4805
+    expectPrinted(GALLONS_PER_CUBIC_FOOT, 7.480519, 6);
     expectPrinted(convertVolume(1, 'ft3', 'gal'), 7.4805, 4); // OAS water-conversion annex
   });
 
   it('1 CCF = 748.05 gal', () => {
-    expectPrinted(convertVolume(1, 'ccf', 'gal'), 748.05, 2); // derived from NIST HB44; MWELO 2009 example rounds to 748
+    // derived from NIST HB44; MWELO 2009 example rounds to 748
+    expectPrinted(convertVolume(1, 'ccf', 'gal'), 748.05, 2);
   });
 
   it('1 acre-foot = 325,851.4 gal = 1,233.48 m³', () => {

@@ -64,7 +64,8 @@ describe('one-variable baseline (use ~ a + b·ETo) against simple-statistics', (
   });
 
   it('R² agrees with simple-statistics rSquared', () => {
-    expect(model.statistics.rSquared!).toBeCloseTo(rSquared(pairs, linearRegressionLine(library)), 12); // simple-statistics 7.12 rSquared
+    // simple-statistics 7.12 rSquared
+    expect(model.statistics.rSquared!).toBeCloseTo(rSquared(pairs, linearRegressionLine(library)), 12);
   });
 
   it('mean use agrees with simple-statistics mean', () => {
@@ -89,43 +90,56 @@ describe('two-variable baseline (use ~ a + b·ETo + c·rain) against ml-regressi
 
   it('standard errors agree', () => {
     const [seEto, seRain, seIntercept] = library.stdErrors;
-    expect(model.coefficients[0]!.standardError).toBeCloseTo(seIntercept!, 5); // ml-regression-multivariate-linear stdErrors
+    // ml-regression-multivariate-linear stdErrors
+    expect(model.coefficients[0]!.standardError).toBeCloseTo(seIntercept!, 5);
     expect(model.coefficients[1]!.standardError).toBeCloseTo(seEto!, 8); // ml-regression-multivariate-linear stdErrors
     expect(model.coefficients[2]!.standardError).toBeCloseTo(seRain!, 8); // ml-regression-multivariate-linear stdErrors
   });
 
-  it("R² agrees with the squared correlation of use and the library's predictions (simple-statistics sampleCorrelation)", () => {
-    const predicted = baseline.map((p) => library.predict([p.etoMm, p.rainMm])[0]!);
-    // With an intercept, OLS R² equals corr(y, ŷ)².
-    expect(model.statistics.rSquared!).toBeCloseTo(sampleCorrelation(use, predicted) ** 2, 10); // simple-statistics sampleCorrelation
-  });
+  it(
+    "R² agrees with the squared correlation of use and the library's " +
+      'predictions (simple-statistics sampleCorrelation)',
+    () => {
+      const predicted = baseline.map((p) => library.predict([p.etoMm, p.rainMm])[0]!);
+      // With an intercept, OLS R² equals corr(y, ŷ)².
+      // simple-statistics sampleCorrelation
+      expect(model.statistics.rSquared!).toBeCloseTo(sampleCorrelation(use, predicted) ** 2, 10);
+    },
+  );
 
   it("CV(RMSE) agrees with 100 × the library's residual standard error / mean use (both use n − p)", () => {
-    expect(model.statistics.cvRmsePercent).toBeCloseTo((100 * library.stdError) / mean(use), 9); // ml-regression stdError; G14 CV(RMSE) definition, from memory (docs/references.md §6)
+    // ml-regression stdError; G14 CV(RMSE) definition, from memory (docs/references.md §6)
+    expect(model.statistics.cvRmsePercent).toBeCloseTo((100 * library.stdError) / mean(use), 9);
   });
 
-  it("the variance of a predicted reporting total agrees with one built from the library's coefficient covariance", () => {
-    // Var(total) = gᵀ·Cov(β)·g + m·σ̂², g = summed design rows of the reporting months.
-    const reporting = baseline.map((p) => ({ ...p, etoMm: p.etoMm + 7, useGal: 0.75 * p.useGal }));
-    const savings = calculateSavings(model, reporting, { confidence: UNCERTAINTY_CONFIDENCE });
-    const g = [
-      reporting.reduce((s, p) => s + p.etoMm, 0),
-      reporting.reduce((s, p) => s + p.rainMm, 0),
-      reporting.length,
-    ];
-    const cov = library.stdErrorMatrix.to2DArray();
-    const quadratic = g.reduce((sum, gi, i) => sum + g.reduce((inner, gj, j) => inner + gi * cov[i]![j]! * gj, 0), 0);
-    const variance = quadratic + reporting.length * library.stdError ** 2;
-    expect(savings.uncertainty.standardErrorGal).toBeCloseTo(Math.sqrt(variance), 4); // ml-regression-multivariate-linear stdErrorMatrix
-    // And the ±interval uses jstat's t at 68 % with n − p = 9 degrees of freedom.
-    expect(savings.uncertainty.plusMinusGal).toBeCloseTo(jStat.studentt.inv(0.84, 9) * Math.sqrt(variance), 4); // jstat 1.9.6 studentt.inv
-  });
+  it(
+    'the variance of a predicted reporting total agrees with one ' + "built from the library's coefficient covariance",
+    () => {
+      // Var(total) = gᵀ·Cov(β)·g + m·σ̂², g = summed design rows of the reporting months.
+      const reporting = baseline.map((p) => ({ ...p, etoMm: p.etoMm + 7, useGal: 0.75 * p.useGal }));
+      const savings = calculateSavings(model, reporting, { confidence: UNCERTAINTY_CONFIDENCE });
+      const g = [
+        reporting.reduce((s, p) => s + p.etoMm, 0),
+        reporting.reduce((s, p) => s + p.rainMm, 0),
+        reporting.length,
+      ];
+      const cov = library.stdErrorMatrix.to2DArray();
+      const quadratic = g.reduce((sum, gi, i) => sum + g.reduce((inner, gj, j) => inner + gi * cov[i]![j]! * gj, 0), 0);
+      const variance = quadratic + reporting.length * library.stdError ** 2;
+      // ml-regression-multivariate-linear stdErrorMatrix
+      expect(savings.uncertainty.standardErrorGal).toBeCloseTo(Math.sqrt(variance), 4);
+      // And the ±interval uses jstat's t at 68 % with n − p = 9 degrees of freedom.
+      // jstat 1.9.6 studentt.inv
+      expect(savings.uncertainty.plusMinusGal).toBeCloseTo(jStat.studentt.inv(0.84, 9) * Math.sqrt(variance), 4);
+    },
+  );
 });
 
 describe('per-day baseline, weighted by days, against ml-regression-multivariate-linear on √days-scaled rows', () => {
   it('coefficients agree', () => {
     const model = fitBaselineModel(baseline, 'eto-rain-per-day');
-    // Weighted least squares is ordinary least squares on rows multiplied by √weight; the intercept column becomes √days.
+    // Weighted least squares is ordinary least squares on rows multiplied by √weight; the intercept column becomes
+    // √days.
     const rows = baseline.map((p) => [
       Math.sqrt(p.days),
       (p.etoMm / p.days) * Math.sqrt(p.days),
@@ -136,7 +150,8 @@ describe('per-day baseline, weighted by days, against ml-regression-multivariate
       baseline.map((p) => [(p.useGal / p.days) * Math.sqrt(p.days)]),
       { intercept: false },
     );
-    library.weights.forEach(([w], j) => expect(model.coefficients[j]!.value).toBeCloseTo(w!, 6)); // ml-regression-multivariate-linear 2.0.4 weights
+    // ml-regression-multivariate-linear 2.0.4 weights
+    library.weights.forEach(([w], j) => expect(model.coefficients[j]!.value).toBeCloseTo(w!, 6));
   });
 });
 
@@ -174,8 +189,10 @@ describe('docs/references.md §6 computed test vector (derived there, not publis
 
   it('ȳ = 106.25, CV(RMSE) = 2.288 %, NMBE = −0.0856 % with p = 1 (sign y − ŷ)', () => {
     expect(stats.meanActual).toBe(106.25); // docs/references.md §6 computed vector (derived, not published)
-    expectPrinted(stats.cvRmsePercent, 2.288, 3); // docs/references.md §6 computed vector (derived, not published); G14 formula from memory
-    expectPrinted(stats.nmbePercent, -0.0856, 4); // docs/references.md §6 computed vector (derived, not published); G14 formula from memory
+    // docs/references.md §6 computed vector (derived, not published); G14 formula from memory
+    expectPrinted(stats.cvRmsePercent, 2.288, 3);
+    // docs/references.md §6 computed vector (derived, not published); G14 formula from memory
+    expectPrinted(stats.nmbePercent, -0.0856, 4);
   });
 });
 
@@ -207,7 +224,8 @@ describe("Student's t quantiles", () => {
 describe('Guideline 14 and IPMVP thresholds (docs/references.md §6)', () => {
   it('whole-building regression CV(RMSE): 20 % under 12 months, 25 % for 12–60, 30 % beyond', () => {
     expect(CV_RMSE_LIMITS.map((l) => l.maxPercent)).toEqual([20, 25, 30]); // G14-2002 §5.2.11, from memory
-    expect(CV_RMSE_LIMITS.map((l) => l.reportingMonthsAtMost)).toEqual([11, 60, Number.POSITIVE_INFINITY]); // G14-2002 §5.2.11, from memory
+    // G14-2002 §5.2.11, from memory
+    expect(CV_RMSE_LIMITS.map((l) => l.reportingMonthsAtMost)).toEqual([11, 60, Number.POSITIVE_INFINITY]);
   });
 
   it('net determination bias ≤ 0.005 %, savings > 10 %, otherwise FSU < 50 % at 68 % confidence', () => {

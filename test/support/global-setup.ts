@@ -18,7 +18,8 @@ function portAnswers(host: string, port: number): Promise<boolean> {
 }
 
 /**
- * Once per test run: start MariaDB, the fake SMTP server and the fake weather feed if their ports are silent (the README's
+ * Once per test run: start MariaDB, the fake SMTP server and the fake weather feed if their ports are silent (the
+ * README's
  * test command starts them already), then migrate the test database.
  */
 export default async function setup(): Promise<void> {

@@ -100,7 +100,8 @@ export async function siteReadings(
   siteId: number,
 ): Promise<Array<{ ref: string; start: string; minutes: number; gallons: string; uploadId: number }>> {
   const rows = await db.query(
-    `SELECT m.ref, r.start_utc, r.minutes, r.volume_gal, r.upload_id FROM meter_reading r JOIN meter m ON m.id = r.meter_id
+    `SELECT m.ref, r.start_utc, r.minutes, r.volume_gal, r.upload_id FROM meter_reading r JOIN
+      meter m ON m.id = r.meter_id
      WHERE m.site_id = ? ORDER BY m.ref, r.start_utc, r.minutes`,
     [siteId],
   );
@@ -115,7 +116,8 @@ export async function siteReadings(
 
 export async function siteRuns(db: DataSource, siteId: number): Promise<number> {
   const [row] = await db.query(
-    'SELECT COUNT(*) AS n FROM runtime_event e JOIN zone z ON z.id = e.zone_id JOIN controller c ON c.id = z.controller_id WHERE c.site_id = ?',
+    `SELECT COUNT(*) AS n FROM runtime_event e JOIN zone z ON z.id = e.zone_id JOIN controller c ON
+      c.id = z.controller_id WHERE c.site_id = ?`,
     [siteId],
   );
   return Number(row.n);
