@@ -3,10 +3,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { DataSource } from 'typeorm';
 import { OrganisationEntity } from '../../backend/src/components/organisations/data/organisation.entity';
 import { startServer, type RunningServer } from '../../backend/src/server';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../ops/seed/demo-scenario';
+import { DEMO_USERS } from '../../ops/seed/demo-scenario';
 import { seedDemo } from '../../ops/seed/seed-demo';
 import { leakingSite } from '../api/watch-fixtures';
-import { DESKTOP, openBrowser, screenshot } from '../support/browser';
+import { DESKTOP, openBrowser, screenshot, signIn } from '../support/browser';
 import { createSite, shareSite, suffix } from '../support/test-app';
 import { e2eDatabase } from '../support/e2e-database';
 
@@ -38,13 +38,9 @@ afterAll(async () => {
   await db?.destroy();
 });
 
-async function signIn(page: import('playwright-core').Page, role: 'admin' | 'auditor'): Promise<void> {
+async function signInAs(page: import('playwright-core').Page, role: 'admin' | 'auditor'): Promise<void> {
   const user = DEMO_USERS.find((u) => u.role === role && (role === 'auditor' || u.organisation === 'cobalt'))!;
-  await page.goto(`${server.url}/`);
-  await page.getByLabel('E-mail address').fill(user.email);
-  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
+  await signIn(page, { baseUrl: server.url, email: user.email });
 }
 
 describe('alerts pages', () => {
@@ -54,7 +50,7 @@ describe('alerts pages', () => {
       const browser = await openBrowser(DESKTOP);
       try {
         const { page } = browser;
-        await signIn(page, 'admin');
+        await signInAs(page, 'admin');
         await page.getByRole('link', { name: 'Alerts' }).click();
         await page.getByRole('heading', { name: 'Alerts', level: 1 }).waitFor();
         await page.getByRole('link', { name: 'Watch runs' }).click();
@@ -85,7 +81,7 @@ describe('alerts pages', () => {
     const browser = await openBrowser(DESKTOP);
     try {
       const { page } = browser;
-      await signIn(page, 'auditor');
+      await signInAs(page, 'auditor');
       await page.goto(`${server.url}/alerts?`);
       await page.getByRole('heading', { name: 'Alerts', level: 1 }).waitFor();
       // The inbox opens on open alerts; the admin acknowledged this one, so look at every status.

@@ -2,10 +2,9 @@
 /// <reference lib="dom.iterable" />
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startServer, type RunningServer } from '../../backend/src/server';
-import { DEMO_PASSWORD } from '../../ops/seed/demo-scenario';
 import { seedBudgets } from '../../ops/seed/seed-budgets';
 import { seedDemo } from '../../ops/seed/seed-demo';
-import { DESKTOP, openBrowser, screenshot } from '../support/browser';
+import { DESKTOP, openBrowser, screenshot, signIn } from '../support/browser';
 import { e2eDatabase } from '../support/e2e-database';
 
 /**
@@ -32,13 +31,8 @@ describe('demo site budget in the browser', () => {
       const browser = await openBrowser(DESKTOP);
       const { page } = browser;
       try {
-        await page.goto(`${server.url}/`);
-        await page.waitForURL(/\/sign-in/);
-        await page.getByLabel('E-mail address').fill('morgan.manager@cobaltridge.example');
-        await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-        await page.getByRole('button', { name: 'Sign in' }).click();
+        await signIn(page, { baseUrl: server.url, email: 'morgan.manager@cobaltridge.example' });
         // Home is the portfolio; this test starts from the sites list.
-        await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
         await page.goto(`${server.url}/sites`);
         await page.getByRole('link', { name: 'Willowmere HOA — North Commons' }).click();
         // The site's pages are tabs of its workspace.

@@ -3,12 +3,12 @@ import { resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { startServer, type RunningServer } from '../../backend/src/server';
-import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_USERS, type DemoUser } from '../../ops/seed/demo-scenario';
+import { DEMO_ORGANISATIONS, DEMO_USERS, type DemoUser } from '../../ops/seed/demo-scenario';
 import { seedAlerts } from '../../ops/seed/seed-alerts';
 import { seedBudgets } from '../../ops/seed/seed-budgets';
 import { seedDemo } from '../../ops/seed/seed-demo';
 import { seedMeters } from '../../ops/seed/seed-meters';
-import { ARTIFACTS, DESKTOP, openBrowser, PHONE, screenshot } from '../support/browser';
+import { ARTIFACTS, DESKTOP, openBrowser, PHONE, screenshot, signIn } from '../support/browser';
 import { e2eDatabase } from '../support/e2e-database';
 
 /**
@@ -33,13 +33,8 @@ beforeAll(async () => {
 }, 300_000);
 afterAll(async () => server?.stop());
 
-async function signIn(page: Page, user: DemoUser): Promise<void> {
-  await page.goto(`${server.url}/portfolio?`);
-  await page.waitForURL(/\/sign-in/);
-  await page.getByLabel('E-mail address').fill(user.email);
-  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
+async function signInAs(page: Page, user: DemoUser): Promise<void> {
+  await signIn(page, { baseUrl: server.url, email: user.email, path: '/portfolio?' });
 }
 
 async function openPortfolioMonth(page: Page): Promise<void> {
@@ -107,7 +102,7 @@ describe('dashboard in the browser', () => {
     async (name, user) => {
       const tag = name.replace(/[^a-z]+/gi, '-').replace(/-$/, '');
       await atEachWidth(`dashboard-${tag}-failure`, async (page, width) => {
-        await signIn(page, user);
+        await signInAs(page, user);
         await openPortfolioMonth(page);
         await expect(page.getByRole('list', { name: 'Headline figures' }).innerText()).resolves.toMatch(/gal/);
         await screenshot(page, `dashboard-${tag}-portfolio-${width}`);
@@ -169,7 +164,7 @@ describe('dashboard in the browser', () => {
   it('a manager opens a site from the portfolio and goes through every tab of its workspace', async () => {
     const manager = DEMO_USERS.find((u) => u.role === 'manager')!;
     await atEachWidth('site-workspace-failure', async (page, width) => {
-      await signIn(page, manager);
+      await signInAs(page, manager);
       await openPortfolioMonth(page);
       // The month's worst site has readings, equipment and uploads from the demo seed.
       const { siteName, siteId } = await openWorstSite(page);

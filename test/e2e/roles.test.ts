@@ -3,9 +3,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { startServer, type RunningServer } from '../../backend/src/server';
-import { DEMO_ORGANISATIONS, DEMO_PASSWORD, DEMO_SITES, DEMO_USERS, type DemoUser } from '../../ops/seed/demo-scenario';
+import { DEMO_ORGANISATIONS, DEMO_SITES, DEMO_USERS, type DemoUser } from '../../ops/seed/demo-scenario';
 import { seedDemo } from '../../ops/seed/seed-demo';
-import { DESKTOP, openBrowser, PHONE, screenshot } from '../support/browser';
+import { DESKTOP, openBrowser, PHONE, screenshot, signIn } from '../support/browser';
 import { e2eDatabase } from '../support/e2e-database';
 
 /**
@@ -43,14 +43,9 @@ function expectedSites(user: DemoUser): string[] {
     .sort();
 }
 
-async function signIn(page: Page, user: DemoUser): Promise<void> {
-  await page.goto(`${server.url}/`);
-  await page.waitForURL(/\/sign-in/);
-  await page.getByLabel('E-mail address').fill(user.email);
-  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  // Home after sign-in is the portfolio; this test is about the sites list.
-  await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
+/** Signs in (home is the portfolio) and opens the sites list, which this test is about. */
+async function signInToSites(page: Page, user: DemoUser): Promise<void> {
+  await signIn(page, { baseUrl: server.url, email: user.email });
   await page.goto(`${server.url}/sites`);
   await page.getByRole('heading', { name: 'Sites', level: 1 }).waitFor();
   await page.getByRole('table', { name: 'Sites' }).locator('tbody tr').first().waitFor();
@@ -74,7 +69,7 @@ describe('each demo role in the browser', () => {
       browser.page.on('console', (m) => m.text().includes('Content Security Policy') && cspViolations.push(m.text()));
       try {
         const { page } = browser;
-        await signIn(page, user);
+        await signInToSites(page, user);
         await expectRightSites(page, user);
 
         const canCreate = role === 'admin' || role === 'manager';
@@ -116,7 +111,7 @@ describe('each demo role in the browser', () => {
     async (role, user) => {
       const browser = await openBrowser(PHONE);
       try {
-        await signIn(browser.page, user);
+        await signInToSites(browser.page, user);
         await expectRightSites(browser.page, user);
         await expect(browser.page.getByRole('button', { name: 'Navigation menu' }).isVisible()).resolves.toBe(true);
         await screenshot(browser.page, `${role}-sites-phone`);
@@ -129,7 +124,7 @@ describe('each demo role in the browser', () => {
   it('an auditor who types an admin page address is turned away', async () => {
     const browser = await openBrowser(DESKTOP);
     try {
-      await signIn(
+      await signInToSites(
         browser.page,
         DEMO_USERS.find((u) => u.role === 'auditor')!,
       );

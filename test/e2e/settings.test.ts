@@ -2,9 +2,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { startServer, type RunningServer } from '../../backend/src/server';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../ops/seed/demo-scenario';
+import { DEMO_USERS } from '../../ops/seed/demo-scenario';
 import { seedDemo } from '../../ops/seed/seed-demo';
-import { DESKTOP, openBrowser, PHONE, screenshot } from '../support/browser';
+import { DESKTOP, openBrowser, PHONE, screenshot, signIn } from '../support/browser';
 import { suffix } from '../support/test-app';
 import { e2eDatabase } from '../support/e2e-database';
 
@@ -28,13 +28,9 @@ afterAll(async () => server?.stop());
 
 type DemoRole = 'admin' | 'manager' | 'auditor';
 
-async function signIn(page: Page, role: DemoRole): Promise<void> {
+async function signInAs(page: Page, role: DemoRole): Promise<void> {
   const user = DEMO_USERS.find((u) => u.role === role && u.organisation !== 'harrowgate')!;
-  await page.goto(`${server.url}/`);
-  await page.getByLabel('E-mail address').fill(user.email);
-  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
+  await signIn(page, { baseUrl: server.url, email: user.email });
 }
 
 /** What a nightly script would see when it follows an upload with the key: 404 means "signed in, no such upload". */
@@ -58,7 +54,7 @@ describe('settings page', () => {
       const browser = await openBrowser(DESKTOP);
       try {
         const { page } = browser;
-        await signIn(page, 'admin');
+        await signInAs(page, 'admin');
         await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Settings' }).click();
         await page.getByRole('heading', { name: 'Units', level: 1 }).waitFor();
         expect(await sectionTabs(page)).toEqual(['Units', 'Notifications', 'API keys', 'Users']);
@@ -133,7 +129,7 @@ describe('settings page', () => {
     const browser = await openBrowser(PHONE);
     try {
       const { page } = browser;
-      await signIn(page, 'admin');
+      await signInAs(page, 'admin');
       await page.goto(`${server.url}/settings/api-keys`);
       await page.getByRole('heading', { name: 'API keys', level: 1 }).waitFor();
       await page.getByRole('table', { name: 'API keys' }).waitFor();
@@ -176,7 +172,7 @@ describe('settings page', () => {
       const browser = await openBrowser(viewport);
       try {
         const { page } = browser;
-        await signIn(page, role);
+        await signInAs(page, role);
         await page.goto(`${server.url}/settings`);
         await page.getByRole('heading', { name: 'Units', level: 1 }).waitFor();
         await page.getByText('Only administrators can change the unit system.').waitFor();

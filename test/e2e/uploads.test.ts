@@ -7,9 +7,9 @@ import { MeterEntity } from '../../backend/src/components/meters/data/meter.enti
 import { ZoneEntity } from '../../backend/src/components/meters/data/zone.entity';
 import { OrganisationEntity } from '../../backend/src/components/organisations/data/organisation.entity';
 import { startServer, type RunningServer } from '../../backend/src/server';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../ops/seed/demo-scenario';
+import { DEMO_USERS } from '../../ops/seed/demo-scenario';
 import { seedDemo } from '../../ops/seed/seed-demo';
-import { DESKTOP, openBrowser, screenshot } from '../support/browser';
+import { DESKTOP, openBrowser, screenshot, signIn } from '../support/browser';
 import { SAMPLES } from '../support/ingest-fixtures';
 import { createSite, suffix } from '../support/test-app';
 import { e2eDatabase } from '../support/e2e-database';
@@ -70,14 +70,7 @@ describe('upload page', () => {
       const browser = await openBrowser(DESKTOP);
       try {
         const { page } = browser;
-        await page.goto(`${server.url}/`);
-        await page.getByLabel('E-mail address').fill(manager.email);
-        await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-        await page.getByRole('button', { name: 'Sign in' }).click();
-        // Home after sign-in is the portfolio; this test is about the sites list.
-        await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
-        await page.goto(`${server.url}/sites`);
-        await page.getByRole('heading', { name: 'Sites', level: 1 }).waitFor();
+        await signIn(page, { baseUrl: server.url, email: manager.email });
 
         await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Uploads' }).click();
         await page.getByRole('heading', { name: 'Data uploads' }).waitFor();

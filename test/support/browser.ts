@@ -2,6 +2,7 @@ import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { DEMO_PASSWORD } from '../../ops/seed/demo-scenario';
 
 export const ARTIFACTS = resolve(import.meta.dirname, '../../test-artifacts/e2e');
 
@@ -48,4 +49,20 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   const path = join(ARTIFACTS, `${name}.png`);
   await page.screenshot({ path, fullPage: true });
   return path;
+}
+
+/**
+ * Signs in through the sign-in page the way a person does, and waits for the home page (the portfolio).
+ * `path` is where the browser starts; signed out, the app sends it to the sign-in page first.
+ */
+export async function signIn(
+  page: Page,
+  user: { baseUrl: string; email: string; password?: string; path?: string },
+): Promise<void> {
+  await page.goto(`${user.baseUrl}${user.path ?? '/'}`);
+  await page.waitForURL(/\/sign-in/);
+  await page.getByLabel('E-mail address').fill(user.email);
+  await page.getByLabel('Password', { exact: true }).fill(user.password ?? DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
 }
