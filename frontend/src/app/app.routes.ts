@@ -33,12 +33,9 @@ export const routes: Routes = [
       },
       { path: 'sites', loadChildren: () => import('./sites/sites.routes').then((m) => m.sitesRoutes) },
       { path: 'uploads', loadChildren: () => import('./uploads/uploads.routes').then((m) => m.uploadsRoutes) },
-      // Watch runs and watch settings sit under /alerts/…; listed first, since the alerts' ':id' would take 'runs'.
-      { path: 'alerts', loadChildren: () => import('./watch/watch.routes').then((m) => m.watchRoutes) },
       { path: 'alerts', loadChildren: () => import('./alerts/alerts.routes').then((m) => m.alertsRoutes) },
       { path: 'weather-stations', loadChildren: () => import('./weather/weather.routes').then((m) => m.weatherRoutes) },
       { path: 'reports', loadChildren: () => import('./reports/reports.routes').then((m) => m.reportsRoutes) },
-      { path: 'reports', loadChildren: () => import('./savings/savings.routes').then((m) => m.savingsRoutes) },
       { path: 'settings', loadChildren: () => import('./settings/settings.routes').then((m) => m.settingsRoutes) },
       {
         path: 'admin/users',

@@ -1,6 +1,8 @@
 import { Routes } from '@angular/router';
 import { provideEchartsCore } from 'ngx-echarts';
+import { capabilityGuard } from '../core/auth/auth-guards';
 
+/** The Alerts section: the inbox, alert e-mail, and the watch's pages (runs, a site's settings) from watch/. */
 export const alertsRoutes: Routes = [
   {
     path: '',
@@ -19,6 +21,17 @@ export const alertsRoutes: Routes = [
         title: 'Alert e-mail · Rillmark',
         loadComponent: () =>
           import('./notification-settings/notification-settings').then((m) => m.NotificationSettings),
+      },
+      {
+        path: 'runs',
+        title: 'Watch runs · Rillmark',
+        canActivate: [capabilityGuard('manageSettings')],
+        loadComponent: () => import('../watch/watch-runs/watch-runs').then((m) => m.WatchRuns),
+      },
+      {
+        path: 'sites/:siteId/settings',
+        title: 'Watch settings · Rillmark',
+        loadComponent: () => import('../watch/watch-settings/watch-settings').then((m) => m.WatchSettings),
       },
       {
         path: ':id',
