@@ -14,6 +14,7 @@ export const KIND_LABELS: Record<FindingKind, string> = {
   'runaway-zone': 'Runaway zone',
   overspend: 'Over budget',
   'silent-meter': 'Silent meter',
+  weather: 'Weather data',
 };
 export const SUB_KIND_LABELS: Record<string, string> = {
   'continuous-flow': 'Flow that never stops',
@@ -22,10 +23,13 @@ export const SUB_KIND_LABELS: Record<string, string> = {
   'over-volume': 'Zone uses too much',
   'long-run': 'Zone runs too long',
   'open-valve': 'Valve open with nothing scheduled',
+  'calendar-month': 'Month over budget',
+  // Stored before months became one alert each (the projection now sits inside the month's alert).
   'month-to-date': 'Over budget so far this month',
   'projected-month-end': 'Heading over budget by month end',
   'no-reads': 'No readings',
   'zero-while-running': 'No flow while zones ran',
+  'station-gap': 'Weather station missing days',
 };
 export const SEVERITY_LABELS: Record<Severity, string> = {
   watch: 'Keep an eye on',

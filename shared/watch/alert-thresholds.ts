@@ -147,18 +147,20 @@ export const DEFAULT_THRESHOLDS = {
     value: 0.5,
     unit: '× smallest zone flow',
     explanation:
-      'Flow during the watering window with no zone running, at this ' +
-      "share of the smallest zone's design flow or more, looks like a valve stuck open.",
+      'Extra flow with no zone running, at this share of the smallest ' +
+      "zone's design flow or more, is checked for a valve stuck open.",
   },
-  openValveFallbackGpm: {
-    value: 2,
-    unit: 'gpm',
-    explanation: 'The open-valve flow limit when no zone has a design flow on record.',
+  openValveDesignTolerance: {
+    value: 0.25,
+    unit: 'share',
+    explanation:
+      'A valve is blamed only when the extra water starts as a run ends and flows within this share of that ' +
+      "zone's design flow (design flows on record are often 15–20 % off; common practice, no source).",
   },
   openValveMinHours: {
     value: 2,
     unit: 'h',
-    explanation: 'Flag an open valve after this many such hours.',
+    explanation: 'Flag an open valve after this many hours of such flow with no zone running.',
   },
   // Overspend
   overspendMinDays: {

@@ -6,14 +6,17 @@ import { costOfGap } from '../rates/water-cost';
 import type { AlertThresholds } from './alert-thresholds';
 import type { SiteFacts } from './watch-inputs';
 
-export const FINDING_KINDS = ['leak', 'runaway-zone', 'overspend', 'silent-meter'] as const;
+export const FINDING_KINDS = ['leak', 'runaway-zone', 'overspend', 'silent-meter', 'weather'] as const;
 export type FindingKind = (typeof FINDING_KINDS)[number];
 
 export const FINDING_SUB_KINDS = {
   leak: ['continuous-flow', 'night-flow', 'month-far-over-budget'],
   'runaway-zone': ['over-volume', 'long-run', 'open-valve'],
-  overspend: ['month-to-date', 'projected-month-end'],
+  // One alert per site and calendar month, with the month-end projection inside it.
+  overspend: ['calendar-month'],
   'silent-meter': ['no-reads', 'zero-while-running'],
+  // A weather station's missing or late days (filed by the job, not by `watchSite`).
+  weather: ['station-gap'],
 } as const satisfies Record<FindingKind, readonly string[]>;
 export type FindingSubKind = (typeof FINDING_SUB_KINDS)[FindingKind][number];
 
@@ -43,6 +46,11 @@ export interface Finding {
   zoneId?: string;
   /** When the data cannot tell which of several zones is at fault, all of them (and no `zoneId`). */
   suspectZoneIds?: string[];
+  /**
+   * Bounds the condition to one period when its episodes must never run into each other, e.g. the calendar month
+   * (`YYYY-MM`) of an overspend: May's alert is never extended into June.
+   */
+  scope?: string;
   /** [start, end) in epoch ms. The start is fixed once seen; the end grows while the condition lasts. */
   periodStartUtc: number;
   periodEndUtc: number;
@@ -68,8 +76,14 @@ export type FindingDraft = Omit<Finding, 'key' | 'conditionKey' | 'siteId' | 'mo
   severity?: Severity;
 };
 
-export function conditionKeyOf(siteId: string, kind: FindingKind, subKind: FindingSubKind, zoneId?: string): string {
-  return [siteId, kind, subKind, zoneId ?? '-'].join('|');
+export function conditionKeyOf(
+  siteId: string,
+  kind: FindingKind,
+  subKind: FindingSubKind,
+  zoneId?: string,
+  scope?: string,
+): string {
+  return [siteId, kind, subKind, zoneId ?? '-', ...(scope ? [scope] : [])].join('|');
 }
 
 export function findingKeyOf(conditionKey: string, periodStartUtc: number): string {
@@ -118,7 +132,7 @@ export function severityOfLoss(lostGalPerDay: number, site: SiteFacts, threshold
 /** Completes a detector's draft with keys, money and severity. */
 export function completeFinding(draft: FindingDraft, site: SiteFacts, thresholds: AlertThresholds): Finding {
   const { pricingMonth, severity, ...rest } = draft;
-  const conditionKey = conditionKeyOf(site.siteId, draft.kind, draft.subKind, draft.zoneId);
+  const conditionKey = conditionKeyOf(site.siteId, draft.kind, draft.subKind, draft.zoneId, draft.scope);
   const days = Math.max(1 / 24, (draft.periodEndUtc - draft.periodStartUtc) / 86_400_000);
   return {
     ...rest,

@@ -1,13 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { buildTimeline } from './hour-timeline';
-import { detectContinuousFlow, detectMonthOverBudget, detectNightFlow } from './leak-detection';
+import { detectContinuousFlow, detectNightFlow } from './leak-detection';
+import { detectMonthOverBudget } from './monthly-read-leak';
 import { HOUR_MS, localMidnightUtc } from './site-clock';
 import { hours, repeat, run, T0, testContext, testZones } from './watch-test-input';
 
 const DAY = 24 * HOUR_MS;
 
 describe('detectContinuousFlow', () => {
-  it('flags 30 hours of unbroken flow and counts the floor under it as lost', () => {
+  it('flags 30 hours of unbroken flow and counts every hour above the usual flow as lost', () => {
     // 6 quiet hours, then 30 hours at 12 gal/h with one 400-gal irrigation hour inside, then quiet.
     const values = [...repeat(0, 6), ...repeat(12, 10), 400, ...repeat(12, 19), ...repeat(0, 6)];
     const ctx = testContext();
@@ -21,7 +22,8 @@ describe('detectContinuousFlow', () => {
       ongoing: false,
     });
     expect(f!.evidence['lowestHourGal']).toBe(12);
-    expect(f!.waterLostGal).toBe(12 * 30);
+    // No run explains the 400-gal hour: it is lost water too.
+    expect(f!.waterLostGal).toBe(12 * 29 + 400);
     expect(f!.detectedAtUtc).toBe(T0 + 30 * HOUR_MS);
   });
 
@@ -63,8 +65,9 @@ describe('detectNightFlow', () => {
     expect(f!.periodStartUtc).toBe(T0 + 20 * DAY + HOUR_MS);
     expect(f!.evidence['baselineMedianGph']).toBe(1);
     expect(f!.evidence['limitGph']).toBeCloseTo(1 + 4 * 1.4826, 3);
-    // (18 − 1) gal/h × 24 h × 3 nights.
-    expect(f!.waterLostGal).toBeCloseTo(17 * 24 * 3, 6);
+    // Water lost is what the meter saw above the usual low: (18 − 1) gal/h in the four night hours of three nights
+    // (this meter shows nothing by day), not a night rate assumed to run all day.
+    expect(f!.waterLostGal).toBeCloseTo(17 * 4 * 3, 6);
   });
 
   it('ignores night hours in which a zone was running', () => {

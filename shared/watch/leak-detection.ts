@@ -1,13 +1,14 @@
 /**
  * Leaks: water that flows when nothing should be watering. Three views, for the data a site has:
- * continuous flow and raised minimum night flow on hourly meters, and a month far over budget on monthly reads.
+ * continuous flow and raised minimum night flow on hourly meters (monthly reads: monthly-read-leak.ts).
  */
 import { formatVolume } from '../units/format-quantity';
 import { completeFinding, type ChartPoint, type Finding } from './finding';
 import { groupConsecutive, itemAtCount, type TimelineHour } from './hour-timeline';
-import { robustUpperLimit } from './robust-statistics';
-import { HOUR_MS, localMidnightUtc, nightOf } from './site-clock';
-import type { MonthlyUse, WatchContext } from './watch-inputs';
+import { median, robustUpperLimit } from './robust-statistics';
+import { DAY_MS, HOUR_MS, nightOf } from './site-clock';
+import type { WatchContext } from './watch-inputs';
+import { WATER_LOST_METHOD, waterLostOver } from './water-lost';
 
 const gal = (v: number) => formatVolume(v, 'gal');
 
@@ -17,33 +18,73 @@ function hourlyPoints(timeline: readonly TimelineHour[], fromUtc: number, toUtc:
     .map((h) => ({ atUtc: h.startUtc, value: h.gallons! }));
 }
 
+function longestUnbroken(hours: readonly TimelineHour[]): number {
+  return Math.max(...groupConsecutive(hours, (a, b) => b.startUtc - a.startUtc === HOUR_MS).map((g) => g.length));
+}
+
+function lowerQuartile(values: readonly number[]): number {
+  if (values.length === 0) return 0;
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.floor((sorted.length - 1) / 4)]!;
+}
+
+/**
+ * Both views of one leak: continuous flow and raised night flow usually see the same water, so a night-flow episode
+ * overlapping a continuous-flow one (within a day) is left out: one leak, one alert.
+ */
+export function detectLeaks(timeline: readonly TimelineHour[], ctx: WatchContext): Finding[] {
+  const continuous = detectContinuousFlow(timeline, ctx);
+  const near = (a: Finding, b: Finding) =>
+    a.periodStartUtc < b.periodEndUtc + DAY_MS && b.periodStartUtc < a.periodEndUtc + DAY_MS;
+  const night = detectNightFlow(timeline, ctx).filter((n) => !continuous.some((c) => near(c, n)));
+  return [...continuous, ...night];
+}
+
+/** The usual lowest night hour before `beforeUtc` (median of the latest baseline nights); 0 with no history. */
+function usualNightLow(lows: readonly NightLow[], beforeUtc: number, ctx: WatchContext): number {
+  const earlier = lows.filter((l) => l.lastUtc < beforeUtc).slice(-ctx.thresholds.nightBaselineNights);
+  return earlier.length > 0 ? median(earlier.map((l) => l.lowestGal)) : 0;
+}
+
 /** Flow in every hour for at least `continuousFlowHours` (interval-meter rule of thumb; common practice, no source). */
 export function detectContinuousFlow(timeline: readonly TimelineHour[], ctx: WatchContext): Finding[] {
   const t = ctx.thresholds;
   const lastHour = timeline[timeline.length - 1]?.startUtc;
+  const lows = nightLows(timeline, ctx);
+  // "Flowing" is above the site's own quietest nights (lower quartile, so a long leak cannot raise it): a site
+  // with a steady trickle still has leaks that end, when the flow is back to that baseline.
+  const baseline = lows.length >= t.nightMinBaselineNights ? lowerQuartile(lows.map((l) => l.lowestGal)) : 0;
+  const floor = t.continuousFlowMinGph + baseline;
   // A missing hour breaks the run: we cannot claim flow we did not see.
-  const flowing = timeline.filter((h) => h.gallons !== null && h.gallons > t.continuousFlowMinGph);
-  const episodes = groupConsecutive(flowing, (a, b) => b.startUtc - a.startUtc === HOUR_MS).filter(
-    (g) => g.length >= t.continuousFlowHours,
-  );
+  const flowing = timeline.filter((h) => h.gallons !== null && h.gallons > floor);
+  // One lost reading between flowing hours does not end the episode, but the flag needs enough unbroken hours.
+  const missing = new Set(timeline.filter((h) => h.gallons === null).map((h) => h.startUtc));
+  const episodes = groupConsecutive(
+    flowing,
+    (a, b) =>
+      b.startUtc - a.startUtc === HOUR_MS ||
+      (b.startUtc - a.startUtc === 2 * HOUR_MS && missing.has(a.startUtc + HOUR_MS)),
+  ).filter((g) => longestUnbroken(g) >= t.continuousFlowHours);
   return episodes.map((episode) => {
     const start = episode[0]!.startUtc;
     const end = episode[episode.length - 1]!.startUtc + HOUR_MS;
-    // The floor under every hour is what never stopped; irrigation on top of it is not waste.
     const floorGph = Math.min(...episode.map((h) => h.gallons!));
-    const hours = episode.length;
-    const lost = floorGph * hours;
+    const hours = Math.round((end - start) / HOUR_MS);
+    const baseline = usualNightLow(lows, start, ctx);
+    const lost = waterLostOver(timeline, start, end, baseline);
     return completeFinding(
       {
         kind: 'leak',
         subKind: 'continuous-flow',
         periodStartUtc: start,
         periodEndUtc: end,
-        detectedAtUtc: start + t.continuousFlowHours * HOUR_MS,
+        detectedAtUtc: start + Math.max(t.continuousFlowHours, 1) * HOUR_MS,
         ongoing: episode[episode.length - 1]!.startUtc === lastHour,
         evidence: {
           hoursFlowing: hours,
           lowestHourGal: floorGph,
+          excessRateGph: lost.rateGph,
+          usualNightLowGph: baseline,
           totalGal: episode.reduce((s, h) => s + h.gallons!, 0),
         },
         series: [
@@ -53,11 +94,11 @@ export function detectContinuousFlow(timeline: readonly TimelineHour[], ctx: Wat
             points: hourlyPoints(timeline, start - 24 * HOUR_MS, end),
           },
         ],
-        waterLostGal: lost,
+        waterLostGal: lost.gallons,
         explanation:
-          `The meter never stopped for ${hours} hours in a row and never ` +
-          `read below ${gal(floorGph)} an hour, so about ${gal(lost)} went ` +
-          'to a leak or a valve that does not close.',
+          `The meter never stopped for ${hours} hours in a row, about ${gal(lost.rateGph)} an hour above ` +
+          `the usual ${gal(baseline)} when no zone ran: about ${gal(lost.gallons)} went to a leak. ` +
+          WATER_LOST_METHOD,
         pricingMonth: episode[0]!.local.month,
       },
       ctx.site,
@@ -122,8 +163,9 @@ export function detectNightFlow(timeline: readonly TimelineHour[], ctx: WatchCon
     const first = episode[0]!;
     const last = episode[episode.length - 1]!;
     const baseline = first.limit!;
-    // Night excess over the usual low, assumed to run all day: a leak does not stop at dawn.
-    const lost = episode.reduce((s, e) => s + Math.max(0, e.low.lowestGal - baseline.median) * 24, 0);
+    // The episode runs from its first high night to the last: a leak does not stop at dawn, and it ends when a
+    // night's low is back to the usual.
+    const lost = waterLostOver(timeline, first.low.firstUtc, last.low.lastUtc + HOUR_MS, baseline.median);
     const recent = last.low.lowestGal;
     const chartFrom = first.low.firstUtc - 14 * 86_400_000;
     return completeFinding(
@@ -150,11 +192,11 @@ export function detectNightFlow(timeline: readonly TimelineHour[], ctx: WatchCon
               .map((l) => ({ atUtc: l.firstUtc, value: l.lowestGal })),
           },
         ],
-        waterLostGal: lost,
+        waterLostGal: lost.gallons,
         explanation:
           `For ${episode.length} nights the quietest hour still used ${gal(recent)}, ` +
           `against a usual ${gal(baseline.median)}; something is running ` +
-          `that no zone explains, about ${gal(lost)} so far.`,
+          `that no zone explains, about ${gal(lost.gallons)} so far. ${WATER_LOST_METHOD}`,
         pricingMonth:
           timeline.find((h) => h.startUtc === first.low.firstUtc)?.local.month ?? first.low.night.slice(0, 7),
       },
@@ -162,61 +204,4 @@ export function detectNightFlow(timeline: readonly TimelineHour[], ctx: WatchCon
       t,
     );
   });
-}
-
-/** Monthly-read sites: a month at `monthlyLeakRatio` × budget or more (common practice, no source). */
-export function detectMonthOverBudget(monthlyUse: readonly MonthlyUse[], ctx: WatchContext): Finding[] {
-  const t = ctx.thresholds;
-  const budgets = new Map(ctx.site.monthlyBudgets.map((b) => [b.month, b.gallons]));
-  const findings: Finding[] = [];
-  for (const use of [...monthlyUse].sort((a, b) => a.month.localeCompare(b.month))) {
-    const budget = budgets.get(use.month);
-    if (!budget || budget <= 0) continue;
-    const ratio = use.gallons / budget;
-    if (ratio < t.monthlyLeakRatio) continue;
-    const [y, m] = use.month.split('-').map(Number) as [number, number];
-    const next = new Date(Date.UTC(y, m, 1)).toISOString().slice(0, 10);
-    const start = localMidnightUtc(`${use.month}-01`, ctx.site.timeZone);
-    const lost = use.gallons - budget;
-    findings.push(
-      completeFinding(
-        {
-          kind: 'leak',
-          subKind: 'month-far-over-budget',
-          periodStartUtc: start,
-          periodEndUtc: localMidnightUtc(next, ctx.site.timeZone),
-          detectedAtUtc: localMidnightUtc(next, ctx.site.timeZone),
-          ongoing: false,
-          evidence: { monthGal: use.gallons, budgetGal: budget, ratio },
-          series: [
-            {
-              label: 'Monthly use, gallons',
-              unit: 'gal',
-              points: monthlyUse.map((u) => ({
-                atUtc: localMidnightUtc(`${u.month}-01`, ctx.site.timeZone),
-                value: u.gallons,
-              })),
-            },
-            {
-              label: 'Monthly budget, gallons',
-              unit: 'gal',
-              points: ctx.site.monthlyBudgets.map((b) => ({
-                atUtc: localMidnightUtc(`${b.month}-01`, ctx.site.timeZone),
-                value: b.gallons,
-              })),
-            },
-          ],
-          waterLostGal: lost,
-          explanation:
-            `${use.month} used ${gal(use.gallons)}, ${ratio.toFixed(1)} times ` +
-            `its ${gal(budget)} budget; with only monthly reads this much ` +
-            'extra usually means a leak.',
-          pricingMonth: use.month,
-        },
-        ctx.site,
-        t,
-      ),
-    );
-  }
-  return findings;
 }

@@ -21,7 +21,7 @@ describe('detectOverspend', () => {
     ).toEqual([]);
   });
 
-  it('flags month-to-date and projected overspend, with the month as the period', () => {
+  it('flags the month once, with the month-to-date figure and the month-end projection in the same finding', () => {
     // 1,300 gal/day for 14 days: 18,200 against 14,000 prorated (130 %); projected 18,200 + 1,300 × 16 = 39,000.
     const findings = detectOverspend(
       june(14, () => 1300),
@@ -38,34 +38,36 @@ describe('detectOverspend', () => {
         },
       ),
     );
-    expect(findings.map((f) => f.subKind)).toEqual(['month-to-date', 'projected-month-end']);
-    const [toDate, projected] = findings;
-    expect(toDate).toMatchObject({
+    expect(findings).toHaveLength(1);
+    const [f] = findings;
+    expect(f).toMatchObject({
+      subKind: 'calendar-month',
+      scope: '2026-06',
       periodStartUtc: T0,
       periodEndUtc: T0 + 14 * 24 * HOUR_MS,
       ongoing: true,
       waterLostGal: 4200,
     });
-    // Month to date is first judged on day 7 (9,100 > 1.1 × 7,000); the projection once it has 14 days.
-    expect(toDate!.detectedAtUtc).toBe(T0 + 7 * 24 * HOUR_MS);
-    expect(projected!.detectedAtUtc).toBe(T0 + 14 * 24 * HOUR_MS);
-    expect(projected!.evidence['projectedGal']).toBe(39_000);
+    expect(f!.key).toContain('|2026-06|');
+    // First judged on day 7 (9,100 > 1.1 × 7,000).
+    expect(f!.detectedAtUtc).toBe(T0 + 7 * 24 * HOUR_MS);
+    expect(f!.evidence['projectedGal']).toBe(39_000);
     // 9,000 gal over at $4 per kgal.
-    expect(projected!.evidence['projectedExtraCost']).toBe(36);
+    expect(f!.evidence['projectedExtraCost']).toBe(36);
+    expect(f!.explanation).toMatch(
+      /18,200 gal .* 14,000 gal .*\(130 %\)\. At the pace .* 39,000 gal, over its 30,000 gal/,
+    );
   });
 
   it('says a month came back under the alert line instead of calling it over by 0 gal', () => {
     // 1,300 gal/day for 10 days (13,000 vs 10,000 prorated: flagged), then 600 a day for 10: 19,000 vs 20,000 (95 %).
-    const findings = detectOverspend(
+    const [f] = detectOverspend(
       june(20, (d) => (d < 10 ? 1300 : 600)),
       testContext(),
     );
-    const toDate = findings.find((f) => f.subKind === 'month-to-date')!;
-    expect(toDate).toMatchObject({ ongoing: false, waterLostGal: 0 });
-    expect(toDate.explanation).toMatch(
-      /^Over its budget so far on \d+ days? \(first on 2026-06-\d\d\); by 2026-06-20 19,000 gal against 20,000 gal .*\(95 %\), under the alert line again\.$/,
-    );
-    expect(toDate.explanation).not.toMatch(/by 0 gal/);
+    expect(f).toMatchObject({ ongoing: false, waterLostGal: 0 });
+    expect(f!.explanation).toMatch(/\(95 %\).* is under it again\.$/);
+    expect(f!.explanation).not.toMatch(/by 0 gal/);
   });
 
   it('projects from the recent pace, so a late surge shows before the month-to-date total catches up', () => {
@@ -75,7 +77,7 @@ describe('detectOverspend', () => {
       june(24, (d) => (d < 20 ? 800 : 2500)),
       testContext(),
     );
-    expect(findings.map((f) => f.subKind)).toEqual(['projected-month-end']);
+    expect(findings).toHaveLength(1);
     expect(findings[0]!.evidence['projectedGal']).toBeCloseTo(26_000 + (18_000 / 14) * 6, 6);
   });
 
@@ -89,7 +91,22 @@ describe('detectOverspend', () => {
       june(10, () => 1000),
       testContext({}, { dailyBudgets }),
     );
-    expect(findings[0]).toMatchObject({ subKind: 'month-to-date' });
     expect(findings[0]!.evidence['proratedBudgetGal']).toBe(6000);
+  });
+
+  it('judges a partial month (no weather for its last day) over the days its budget covers, and says so', () => {
+    // Weather missing on June 30: the budget covers 29 days at 1,000 gal; the site uses 1,300 a day all month.
+    const dailyBudgets = Array.from({ length: 29 }, (_, i) => ({
+      date: `2026-06-${String(i + 1).padStart(2, '0')}`,
+      gallons: 1000,
+    }));
+    const [f, ...rest] = detectOverspend(
+      june(30, () => 1300),
+      testContext({}, { dailyBudgets, monthlyBudgets: [{ month: '2026-06', gallons: 29_000, coveredDays: 29 }] }),
+    );
+    expect(rest).toEqual([]);
+    expect(f!.evidence['useSoFarGal']).toBe(29 * 1300);
+    expect(f!.evidence['proratedBudgetGal']).toBe(29_000);
+    expect(f!.explanation).toContain('The budget covers 29 of 30 days');
   });
 });

@@ -1,8 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { buildTimeline } from './hour-timeline';
-import { detectLongRuns, detectOpenValve } from './runaway-zone-detection';
+import { detectLongRuns } from './runaway-zone-detection';
 import { HOUR_MS } from './site-clock';
-import { hours, repeat, run, T0, testContext, testZones } from './watch-test-input';
+import { run, T0, testContext, testZones } from './watch-test-input';
 
 const DAY = 24 * HOUR_MS;
 
@@ -58,43 +57,5 @@ describe('detectLongRuns', () => {
     const findings = detectLongRuns([run('A', T0, 16)], testContext({}, {}, zones));
     expect(findings).toHaveLength(1);
     expect(findings[0]!.evidence['usualMinutes']).toBe(10);
-  });
-});
-
-describe('detectOpenValve', () => {
-  it("flags flow in the watering window with no zone running, at half the smallest zone's flow or more", () => {
-    // Smallest zone 8 gpm → limit 4 gpm = 240 gal/h. Hours 02–05 read 480 gal/h with nothing running.
-    const values = [...repeat(0, 2), ...repeat(480, 3), ...repeat(0, 19)];
-    const [f, ...rest] = detectOpenValve(buildTimeline(hours(T0, values), [], testZones, 'UTC'), testContext());
-    expect(rest).toEqual([]);
-    expect(f).toMatchObject({
-      subKind: 'open-valve',
-      periodStartUtc: T0 + 2 * HOUR_MS,
-      periodEndUtc: T0 + 5 * HOUR_MS,
-    });
-    expect(f!.evidence['limitGph']).toBe(240);
-    expect(f!.explanation).toMatch(/close to Zone C's flow/); // 480 gal/h = 8 gpm
-  });
-
-  it('does not flag the same flow outside the window, below the limit, or while a zone runs', () => {
-    const ctx = testContext();
-    const daytime = [...repeat(0, 10), ...repeat(480, 3), ...repeat(0, 11)];
-    expect(detectOpenValve(buildTimeline(hours(T0, daytime), [], testZones, 'UTC'), ctx)).toEqual([]);
-    const leakSized = [...repeat(0, 2), ...repeat(120, 3), ...repeat(0, 19)];
-    expect(detectOpenValve(buildTimeline(hours(T0, leakSized), [], testZones, 'UTC'), ctx)).toEqual([]);
-    const watering = [...repeat(0, 2), ...repeat(600, 3), ...repeat(0, 19)];
-    expect(
-      detectOpenValve(buildTimeline(hours(T0, watering), [run('A', T0 + 2 * HOUR_MS, 180)], testZones, 'UTC'), ctx),
-    ).toEqual([]);
-  });
-
-  it('keeps nights a day apart in one episode, as a stuck valve flows night after night', () => {
-    const night = [...repeat(0, 2), ...repeat(480, 3), ...repeat(0, 19)];
-    const findings = detectOpenValve(
-      buildTimeline(hours(T0, [...night, ...night]), [], testZones, 'UTC'),
-      testContext(),
-    );
-    expect(findings).toHaveLength(1);
-    expect(findings[0]!.evidence['openHours']).toBe(6);
   });
 });

@@ -1,13 +1,12 @@
 /**
- * Runaway zone, from the controller's side: a zone running much longer than its history or its schedule, and
- * water flowing in the watering window while the controller says no zone runs (a valve stuck open).
- * Over-volume against design flow lives in zone-over-volume.ts.
+ * Runaway zone, from the controller's side: a zone running much longer than its history or its schedule.
+ * Over-volume against design flow lives in zone-over-volume.ts, a valve stuck open in open-valve-detection.ts.
  */
 import { formatVolume } from '../units/format-quantity';
 import { completeFinding, type Finding } from './finding';
-import { groupConsecutive, itemAtCount, type TimelineHour } from './hour-timeline';
+import { groupConsecutive } from './hour-timeline';
 import { median, robustUpperLimit } from './robust-statistics';
-import { HOUR_MS, inLocalWindow, localHourOf } from './site-clock';
+import { localHourOf } from './site-clock';
 import { runWatered, zoneName, type WatchContext, type ZoneRun } from './watch-inputs';
 
 const gal = (v: number) => formatVolume(v, 'gal');
@@ -16,6 +15,30 @@ interface RunJudgement {
   run: ZoneRun;
   usualMinutes: number | null;
   long: boolean;
+}
+
+interface WateringDay {
+  /** Local date of the day's first run. */
+  date: string;
+  runs: RunJudgement[];
+  long: boolean;
+}
+
+/** A zone's runs within this long of the day's first run belong to the same watering day (cycle and soak). */
+const WATERING_DAY_MS = 12 * 3_600_000;
+
+function wateringDays(judged: readonly RunJudgement[], timeZone: string): WateringDay[] {
+  const days: WateringDay[] = [];
+  for (const j of judged) {
+    let current = days[days.length - 1];
+    if (!current || j.run.startUtc - current.runs[0]!.run.startUtc >= WATERING_DAY_MS) {
+      current = { date: localHourOf(j.run.startUtc, timeZone).date, runs: [], long: false };
+      days.push(current);
+    }
+    current.runs.push(j);
+    current.long ||= j.long;
+  }
+  return days;
 }
 
 /** Runs that follow one another within this gap belong to the same watering program. */
@@ -80,16 +103,21 @@ export function detectLongRuns(runs: readonly ZoneRun[], ctx: WatchContext): Fin
       return { run, usualMinutes: usual, long };
     });
     const lastRun = zoneRuns[zoneRuns.length - 1];
-    const episodes = groupConsecutive(judged, (a, b) => a.long && b.long).filter((g) => g[0]!.long);
+    // One alert per group of watering days that ran long, closed by the first day the zone ran normally again.
+    const days = wateringDays(judged, ctx.site.timeZone);
+    const episodes = groupConsecutive(days, (a, b) => a.long && b.long).filter((g) => g[0]!.long);
     for (const episode of episodes) {
-      const first = episode[0]!;
-      const last = episode[episode.length - 1]!;
+      const longRuns = episode.flatMap((d) => d.runs.filter((j) => j.long));
+      const first = longRuns[0]!;
+      const last = episode[episode.length - 1]!.runs[episode[episode.length - 1]!.runs.length - 1]!;
       const usual = first.usualMinutes!;
-      const extraMinutes = episode.reduce((s, j) => s + Math.max(0, j.run.minutes - usual), 0);
+      const extraMinutes = longRuns.reduce((s, j) => s + Math.max(0, j.run.minutes - usual), 0);
       const lost = extraMinutes * zone.designGpm;
-      const longest = Math.max(...episode.map((j) => j.run.minutes));
+      const longest = Math.max(...longRuns.map((j) => j.run.minutes));
       const from = first.run.startUtc - 30 * 86_400_000;
       const shown = zoneRuns.filter((r) => r.startUtc >= from && r.startUtc <= last.run.startUtc);
+      const dates = episode.map((d) => d.date);
+      const name = zoneName(ctx.zones, zone.zoneId);
       findings.push(
         completeFinding(
           {
@@ -101,7 +129,8 @@ export function detectLongRuns(runs: readonly ZoneRun[], ctx: WatchContext): Fin
             detectedAtUtc: first.run.startUtc + first.run.minutes * 60_000,
             ongoing: last.run === lastRun,
             evidence: {
-              longRuns: episode.length,
+              longRuns: longRuns.length,
+              wateringDays: dates.length,
               longestMinutes: longest,
               usualMinutes: usual,
               extraMinutes,
@@ -109,16 +138,16 @@ export function detectLongRuns(runs: readonly ZoneRun[], ctx: WatchContext): Fin
             },
             series: [
               {
-                label: `${zoneName(ctx.zones, zone.zoneId)} run length, minutes`,
+                label: `${name} run length, minutes`,
                 unit: 'min',
                 points: shown.map((r) => ({ atUtc: r.startUtc, value: r.minutes })),
               },
             ],
             waterLostGal: lost,
             explanation:
-              `${zoneName(ctx.zones, zone.zoneId)} ran up to ${longest} minutes ` +
-              `where it usually runs ${Math.round(usual)}, ${episode.length} ` +
-              `time${episode.length === 1 ? '' : 's'}, about ${gal(lost)} extra: ` +
+              `${name} ran up to ${longest} minutes where it usually runs ${Math.round(usual)}, ` +
+              `on ${dates.length} watering day${dates.length === 1 ? '' : 's'} in a row (${dates.join(', ')}), ` +
+              `about ${gal(lost)} extra (the extra minutes × its design flow): ` +
               'check the program, the seasonal adjustment and the valve.',
             pricingMonth: localHourOf(first.run.startUtc, ctx.site.timeZone).month,
           },
@@ -129,76 +158,4 @@ export function detectLongRuns(runs: readonly ZoneRun[], ctx: WatchContext): Fin
     }
   }
   return findings;
-}
-
-/**
- * Flow in the irrigation window while no zone runs, at least a set share of the smallest zone's design flow:
- * below that it looks like a leak (leak-detection.ts), above it like a whole zone's worth of water.
- * Flagged hours less than a day apart belong to the same episode, since a stuck valve flows night after night.
- */
-export function detectOpenValve(timeline: readonly TimelineHour[], ctx: WatchContext): Finding[] {
-  const t = ctx.thresholds;
-  const known = ctx.zones.filter((z) => z.designGpm > 0);
-  const limitGpm =
-    known.length > 0
-      ? t.openValveShareOfSmallestZone * Math.min(...known.map((z) => z.designGpm))
-      : t.openValveFallbackGpm;
-  const limitGph = limitGpm * 60;
-  const lastHour = timeline[timeline.length - 1]?.startUtc ?? 0;
-  const open = timeline.filter(
-    (h) =>
-      h.gallons !== null &&
-      h.shares.length === 0 &&
-      inLocalWindow(h.local.hour, ctx.site.irrigationWindow) &&
-      h.gallons >= limitGph,
-  );
-  const episodes = groupConsecutive(open, (a, b) => b.startUtc - a.startUtc <= 24 * HOUR_MS).filter(
-    (g) => g.length >= t.openValveMinHours,
-  );
-  return episodes.map((episode) => {
-    const start = episode[0]!.startUtc;
-    const end = episode[episode.length - 1]!.startUtc + HOUR_MS;
-    const rateGph = median(episode.map((h) => h.gallons!));
-    // Between flagged nights the valve most likely kept flowing; the days count too.
-    const lost = rateGph * ((end - start) / HOUR_MS);
-    const likely =
-      known.length > 0
-        ? [...known].sort((a, b) => Math.abs(a.designGpm * 60 - rateGph) - Math.abs(b.designGpm * 60 - rateGph))[0]!
-        : null;
-    return completeFinding(
-      {
-        kind: 'runaway-zone',
-        subKind: 'open-valve',
-        periodStartUtc: start,
-        periodEndUtc: end,
-        detectedAtUtc: itemAtCount(episode, t.openValveMinHours).startUtc + HOUR_MS,
-        ongoing: lastHour - episode[episode.length - 1]!.startUtc < 24 * HOUR_MS,
-        evidence: {
-          openHours: episode.length,
-          medianGph: rateGph,
-          limitGph,
-          ...(likely ? { closestZoneGpm: likely.designGpm } : {}),
-        },
-        series: [
-          {
-            label: 'Meter, gallons per hour',
-            unit: 'gal/h',
-            points: timeline
-              .filter((h) => h.startUtc >= start - 24 * HOUR_MS && h.startUtc < end && h.gallons !== null)
-              .map((h) => ({ atUtc: h.startUtc, value: h.gallons! })),
-          },
-        ],
-        waterLostGal: lost,
-        explanation:
-          `Water flowed at about ${gal(rateGph)} an hour in the watering ` +
-          'window while the controller ran no zone' +
-          (likely ? ` (close to ${zoneName(ctx.zones, likely.zoneId)}'s flow)` : '') +
-          ': ' +
-          `a valve is probably stuck open, about ${gal(lost)} so far.`,
-        pricingMonth: episode[0]!.local.month,
-      },
-      ctx.site,
-      t,
-    );
-  });
 }

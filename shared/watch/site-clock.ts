@@ -38,6 +38,11 @@ export function localHourOf(utcMs: number, zone: string): LocalHour {
   return { date: iso.slice(0, 10), month: iso.slice(0, 7), hour: local.getUTCHours() };
 }
 
+/** `YYYY-MM-DD HH:MM` wall time of an instant in `zone`, for alert texts. */
+export function localDateTimeOf(utcMs: number, zone: string): string {
+  return new Date(utcMs + cachedOffsetMinutes(utcMs, zone) * 60_000).toISOString().slice(0, 16).replace('T', ' ');
+}
+
 /** True when a local hour falls in [start, end), wrapping past midnight when start > end. */
 export function inLocalWindow(hour: number, window: LocalHourWindow): boolean {
   if (window.startHour === window.endHour) return false;

@@ -6,10 +6,13 @@ import { resolveThresholds } from './alert-thresholds';
 import { estimateControllerShiftMinutes } from './controller-clock-skew';
 import type { Finding } from './finding';
 import { buildTimeline } from './hour-timeline';
-import { detectContinuousFlow, detectMonthOverBudget, detectNightFlow } from './leak-detection';
+import { detectLeaks } from './leak-detection';
+import { detectMonthOverBudget } from './monthly-read-leak';
 import { detectOverspend } from './overspend-detection';
-import { detectLongRuns, detectOpenValve } from './runaway-zone-detection';
+import { detectOpenValve } from './open-valve-detection';
+import { detectLongRuns } from './runaway-zone-detection';
 import { detectNoReads, detectZeroWhileRunning } from './silent-meter-detection';
+import { DAY_MS } from './site-clock';
 import type { SiteWatchInput, WatchContext } from './watch-inputs';
 import { detectOverVolume } from './zone-over-volume';
 
@@ -31,11 +34,11 @@ export function watchSite(input: SiteWatchInput): Finding[] {
     const runs =
       shiftMinutes === 0 ? input.runs : input.runs.map((r) => ({ ...r, startUtc: r.startUtc + shiftMinutes * 60_000 }));
     const timeline = buildTimeline(input.meterHours, runs, input.zones, input.site.timeZone);
+    const valves = detectOpenValve(timeline, runs, ctx);
     findings.push(
-      ...detectContinuousFlow(timeline, ctx),
-      ...detectNightFlow(timeline, ctx),
+      ...withoutWaterExplainedBy(valves, detectLeaks(timeline, ctx)),
+      ...valves,
       ...detectOverVolume(timeline, runs, ctx),
-      ...detectOpenValve(timeline, ctx),
       ...detectOverspend(timeline, ctx),
       ...detectNoReads(timeline, ctx),
       ...detectZeroWhileRunning(timeline, ctx),
@@ -43,4 +46,11 @@ export function watchSite(input: SiteWatchInput): Finding[] {
   }
   if (input.monthlyUse && input.monthlyUse.length > 0) findings.push(...detectMonthOverBudget(input.monthlyUse, ctx));
   return findings.sort((a, b) => a.periodStartUtc - b.periodStartUtc || a.key.localeCompare(b.key));
+}
+
+/** A valve stuck open is also flow that never stops: the valve's alert is the one alert for that water. */
+function withoutWaterExplainedBy(valves: readonly Finding[], leaks: readonly Finding[]): Finding[] {
+  return leaks.filter(
+    (l) => !valves.some((v) => l.periodStartUtc < v.periodEndUtc + DAY_MS && v.periodStartUtc < l.periodEndUtc),
+  );
 }

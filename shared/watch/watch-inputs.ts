@@ -41,14 +41,27 @@ export interface LocalHourWindow {
   endHour: number;
 }
 
+export interface MonthBudget {
+  month: string;
+  /** For the days covered: a partial month's budget counts only the days that had weather. */
+  gallons: number;
+  /** Days the budget covers, when fewer than the month's (no weather for the others). */
+  coveredDays?: number;
+  /** Days whose weather was estimated (the station's recent days or a neighbouring station). */
+  estimatedDays?: number;
+}
+
 export interface SiteFacts {
   siteId: string;
   /** IANA zone; night and the irrigation window are local hours in it. */
   timeZone: string;
   irrigationWindow: LocalHourWindow;
   /** Budget per local month (`YYYY-MM`). */
-  monthlyBudgets: ReadonlyArray<{ month: string; gallons: number }>;
-  /** Budget per local day (`YYYY-MM-DD`), when known; prorating follows its shape instead of the calendar. */
+  monthlyBudgets: readonly MonthBudget[];
+  /**
+   * Budget per local day (`YYYY-MM-DD`), when known; prorating follows its shape instead of the calendar. A partial
+   * month lists only the days its budget covers, and overspend compares use on those days only.
+   */
   dailyBudgets?: ReadonlyArray<{ date: string; gallons: number }>;
   rateSchedule?: RateSchedule;
   thresholds?: Partial<AlertThresholds>;

@@ -165,7 +165,7 @@ export function detectOverVolume(
     }
   }
   const findings = overlappingGroups(drafts).map((group) =>
-    completeFinding(group.length === 1 ? group[0]! : mergeSuspects(group), ctx.site, t),
+    completeFinding(group.length === 1 ? group[0]! : mergeSuspects(group, ctx), ctx.site, t),
   );
   return findings;
 }
@@ -191,18 +191,37 @@ function overlappingGroups(drafts: FindingDraft[]): FindingDraft[][] {
 }
 
 /**
- * Several zones blamed at once: with only hourly meter data, zones that share the same hours cannot be told
- * apart. One finding names them all rather than one alert per zone; its water is the largest single estimate,
- * since each zone's estimate counts the same extra water.
+ * Several zones blamed at once: with only hourly meter data, zones that share the same hours (cycle and soak)
+ * cannot always be told apart. One finding for them all rather than one alert per zone; its water is the largest
+ * single estimate, since each zone's estimate counts the same extra water. When one zone was heavy on more runs
+ * than any other it is named as the most likely, with that reason; otherwise they are listed by name.
  */
-function mergeSuspects(group: FindingDraft[]): FindingDraft {
+function mergeSuspects(group: FindingDraft[], ctx: WatchContext): FindingDraft {
+  const byRuns = [...group].sort(
+    (a, b) =>
+      (b.evidence['heavyRuns'] ?? 0) - (a.evidence['heavyRuns'] ?? 0) || (a.zoneId ?? '').localeCompare(b.zoneId ?? ''),
+  );
   const zones = group.map((d) => d.zoneId!).sort();
+  const names = zones.map((z) => zoneName(ctx.zones, z));
   const biggest = group.reduce((a, b) => ((b.waterLostGal ?? 0) > (a.waterLostGal ?? 0) ? b : a));
   const lost = biggest.waterLostGal ?? 0;
+  const top = byRuns[0]!;
+  const runnerUp = byRuns[1]!.evidence['heavyRuns'] ?? 0;
+  const likely = (top.evidence['heavyRuns'] ?? 0) > runnerUp ? top : null;
   const { zoneId: _single, ...rest } = biggest;
-  const list = `${zones.slice(0, -1).join(', ')} or ${zones[zones.length - 1]}`;
+  const ratio = biggest.evidence['medianRatio']!.toFixed(1);
+  const others = names.filter((n) => !likely || n !== zoneName(ctx.zones, likely.zoneId!));
+  const explanation = likely
+    ? `${zoneName(ctx.zones, likely.zoneId!)} most likely used about ${ratio} times its design flow, about ` +
+      `${formatVolume(lost, 'gal')} extra: it was heavy on ${likely.evidence['heavyRuns']} runs, while ` +
+      `${listOf(others)}, which share its meter hours, were heavy on at most ${runnerUp}. ` +
+      'Look for a broken pipe, a missing nozzle or a split drip line there first.'
+    : `One of ${listOf(names, 'or')} used about ${ratio} times its design flow on several runs in a row, about ` +
+      `${formatVolume(lost, 'gal')} extra; they run in the same meter hours (cycle and soak), so the meter cannot ` +
+      'tell them apart: walk all of them.';
   return {
     ...rest,
+    ...(likely ? { zoneId: likely.zoneId! } : {}),
     suspectZoneIds: zones,
     periodStartUtc: Math.min(...group.map((d) => d.periodStartUtc)),
     periodEndUtc: Math.max(...group.map((d) => d.periodEndUtc)),
@@ -210,9 +229,11 @@ function mergeSuspects(group: FindingDraft[]): FindingDraft {
     ongoing: group.some((d) => d.ongoing),
     evidence: { ...biggest.evidence, suspectZones: zones.length },
     series: group.flatMap((d) => d.series),
-    explanation:
-      `One of zones ${list} used about ${biggest.evidence['medianRatio']!.toFixed(1)} ` +
-      `times its design flow on several runs in a row, about ${formatVolume(lost, 'gal')} ` +
-      'extra; they share the same meter hours, so walk all of them.',
+    explanation,
   };
+}
+
+/** "A, B and C" (or "A, B or C"). */
+function listOf(names: readonly string[], last: 'and' | 'or' = 'and'): string {
+  return names.length <= 1 ? (names[0] ?? '') : `${names.slice(0, -1).join(', ')} ${last} ${names[names.length - 1]}`;
 }

@@ -9,10 +9,31 @@ import { FINDING_KINDS, type Finding, type FindingKind } from '../../shared/watc
 import { median } from '../../shared/watch/robust-statistics';
 import type { GroundTruthEvent } from './synthetic-sites';
 
+/** The kinds `watchSite` finds; weather-station health is the nightly job's own check, scored in the API tests. */
+export const SCORED_KINDS = FINDING_KINDS.filter((k) => k !== 'weather');
+
 export interface ScenarioOutcome {
   scenarioId: string;
   truth: GroundTruthEvent[];
   findings: Finding[];
+  /** Local midnights bounding the scenario's days (site-days for the per-day score). */
+  dayBoundsUtc: number[];
+}
+
+/**
+ * Per detector, counted over site-days: a day is true when an event of the kind touches it, flagged when a finding
+ * does.
+ */
+export interface DayScore {
+  kind: FindingKind;
+  trueDays: number;
+  flaggedDays: number;
+  hitDays: number;
+  /** Flagged days that only an event rightly causing this kind too explains: counted neither way. */
+  explainedDays: number;
+  falseDays: number;
+  precision: number;
+  recall: number;
 }
 
 export interface DetectorScore {
@@ -31,6 +52,7 @@ export interface DetectorScore {
 
 export interface QualityReport {
   scores: DetectorScore[];
+  dayScores: DayScore[];
   /** Findings per sub-kind and verdict, to see which check did the work. */
   bySubKind: Array<{ kind: FindingKind; subKind: string; hits: number; explained: number; falseAlarms: number }>;
   /** Per scenario family (the scenario id without its number): events found, by which checks, and false alarms. */
@@ -91,6 +113,32 @@ function verdictOf(finding: Finding, truth: readonly GroundTruthEvent[]): Verdic
   return 'false-alarm';
 }
 
+function dayScore(kind: FindingKind, outcomes: readonly ScenarioOutcome[]): DayScore {
+  const counts = { trueDays: 0, flaggedDays: 0, hitDays: 0, explainedDays: 0, falseDays: 0 };
+  for (const o of outcomes) {
+    const findings = o.findings.filter((f) => f.kind === kind);
+    for (let d = 0; d + 1 < o.dayBoundsUtc.length; d++) {
+      const day = { startUtc: o.dayBoundsUtc[d]!, endUtc: o.dayBoundsUtc[d + 1]! };
+      const touches = (a: { startUtc: number; endUtc: number }) => a.startUtc < day.endUtc && day.startUtc < a.endUtc;
+      const isTrue = o.truth.some((e) => e.kind === kind && touches(e));
+      const onDay = findings.filter((f) => touches({ startUtc: f.periodStartUtc, endUtc: f.periodEndUtc }));
+      if (isTrue) counts.trueDays += 1;
+      if (onDay.length === 0) continue;
+      counts.flaggedDays += 1;
+      if (isTrue) counts.hitDays += 1;
+      else if (onDay.every((f) => verdictOf(f, o.truth) !== 'false-alarm')) counts.explainedDays += 1;
+      else counts.falseDays += 1;
+    }
+  }
+  const judged = counts.hitDays + counts.falseDays;
+  return {
+    kind,
+    ...counts,
+    precision: judged === 0 ? 0 : counts.hitDays / judged,
+    recall: counts.trueDays === 0 ? 0 : counts.hitDays / counts.trueDays,
+  };
+}
+
 const iso = (ms: number) => new Date(ms).toISOString().slice(0, 16);
 
 export function scoreOutcomes(outcomes: readonly ScenarioOutcome[]): QualityReport {
@@ -100,7 +148,7 @@ export function scoreOutcomes(outcomes: readonly ScenarioOutcome[]): QualityRepo
     string,
     { kind: FindingKind; subKind: string; hits: number; explained: number; falseAlarms: number }
   >();
-  const scores = FINDING_KINDS.map((kind): DetectorScore => {
+  const scores = SCORED_KINDS.map((kind): DetectorScore => {
     let events = 0;
     let found = 0;
     let findings = 0;
@@ -161,6 +209,7 @@ export function scoreOutcomes(outcomes: readonly ScenarioOutcome[]): QualityRepo
   });
   return {
     scores,
+    dayScores: SCORED_KINDS.map((kind) => dayScore(kind, outcomes)),
     byFamily: familyTable(outcomes),
     bySubKind: [...subKinds.values()].sort((a, b) => `${a.kind}/${a.subKind}`.localeCompare(`${b.kind}/${b.subKind}`)),
     misses,
@@ -181,6 +230,16 @@ export function formatQualityMarkdown(report: QualityReport, scenarioCount: numb
         `| ${s.kind} | ${s.events} | ${s.found} | ${s.findings} | ${s.hits} ` +
         `| ${s.explained} | ${s.falseAlarms} | ${pct(s.precision)} | ` +
         `${pct(s.recall)} | ${s.medianHoursToDetect === null ? '–' : s.medianHoursToDetect.toFixed(0)} |`,
+    ),
+    '',
+    'Per site-day (a day is true when an injected event of the kind touches it, flagged when a finding does):',
+    '',
+    '| Detector | True days | Flagged days | Hit days | Explained days | False days | Precision | Recall |',
+    '|---|---:|---:|---:|---:|---:|---:|---:|',
+    ...report.dayScores.map(
+      (s) =>
+        `| ${s.kind} | ${s.trueDays} | ${s.flaggedDays} | ${s.hitDays} | ${s.explainedDays} | ${s.falseDays} ` +
+        `| ${pct(s.precision)} | ${pct(s.recall)} |`,
     ),
     '',
     'Findings by check:',

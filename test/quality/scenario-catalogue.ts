@@ -24,6 +24,19 @@ const MONTH_STARTS = [
 
 const step = (i: number, min: number, max: number) => min + ((max - min) * i) / (VARIATIONS - 1);
 
+/** Indexes of the two zones with the longest runs on the profile `variations` gives variation i. */
+function longestTwo(i: number): [number, number] {
+  const zones = SITE_PROFILES[i % SITE_PROFILES.length]!.zones;
+  const order = zones.map((z, k) => ({ k, m: z.minutesAtReferenceEto })).sort((a, b) => b.m - a.m || a.k - b.k);
+  return [order[0]!.k, order[1]!.k];
+}
+
+/** The last date of the month `offset` months after `first`. */
+function lastDayOfMonth(first: string, offset: number): string {
+  const [y, m] = first.split('-').map(Number) as [number, number];
+  return new Date(Date.UTC(y, m - 1 + offset + 1, 0)).toISOString().slice(0, 10);
+}
+
 function daysOfMonths(first: string, count: number): number {
   const [y, m] = first.split('-').map(Number) as [number, number];
   return Math.round((Date.UTC(y, m - 1 + count, 1) - Date.UTC(y, m - 1, 1)) / 86_400_000);
@@ -31,19 +44,18 @@ function daysOfMonths(first: string, count: number): number {
 
 function variations(
   name: string,
-  make: (i: number) => { event: InjectedEvent | null; days?: number; startDate?: string; monthlyReadsOnly?: boolean },
+  make: (i: number) => Partial<Omit<Scenario, 'id' | 'profile' | 'seed' | 'event'>> & { event: InjectedEvent | null },
 ): Scenario[] {
   return Array.from({ length: VARIATIONS }, (_, i) => {
     const made = make(i);
     const profile = SITE_PROFILES[i % SITE_PROFILES.length]!;
     return {
+      ...made,
       id: `${name}-${String(i + 1).padStart(2, '0')}`,
       profile,
       seed: seedFrom(`${name}/${i}`),
       startDate: made.startDate ?? START_DATES[i % START_DATES.length]!,
       days: made.days ?? 75,
-      event: made.event,
-      ...(made.monthlyReadsOnly ? { monthlyReadsOnly: true } : {}),
     };
   });
 }
@@ -114,8 +126,61 @@ export function buildScenarios(): Scenario[] {
         days: daysOfMonths(first, 3),
         event:
           i % 2 === 0
-            ? { kind: 'overspend-month', monthIndex: 2, how: 'seasonal-adjust', factor: step(i, 1.45, 1.8) }
-            : { kind: 'overspend-month', monthIndex: 2, how: 'extra-start', factor: 2 },
+            ? { kind: 'overspend-month', monthIndexes: [2], how: 'seasonal-adjust', factor: step(i, 1.45, 1.8) }
+            : { kind: 'overspend-month', monthIndexes: [2], how: 'extra-start', factor: 2 },
+      };
+    }),
+    // The over month's last day has no weather and no normals: its budget covers the other days and still judges.
+    ...variations('overspend-missing-weather', (i) => {
+      const first = MONTH_STARTS[i % MONTH_STARTS.length]!;
+      return {
+        startDate: first,
+        days: daysOfMonths(first, 3),
+        missingWeatherDates: [lastDayOfMonth(first, 1), lastDayOfMonth(first, 2)],
+        event: { kind: 'overspend-month', monthIndexes: [1], how: 'seasonal-adjust', factor: step(i, 1.45, 1.8) },
+      };
+    }),
+    // Two months over, back to back: one alert each, never one running into the next.
+    ...variations('overspend-back-to-back', (i) => {
+      const first = MONTH_STARTS[i % MONTH_STARTS.length]!;
+      return {
+        startDate: first,
+        days: daysOfMonths(first, 4),
+        event: { kind: 'overspend-month', monthIndexes: [1, 2], how: 'seasonal-adjust', factor: step(i, 1.45, 1.8) },
+      };
+    }),
+    // A leak that starts inside the watering window, mid-program, and flows day and night at a rate close to half a
+    // small zone's design flow: one leak, never a valve.
+    ...variations('leak-across-window', (i) => ({
+      event: {
+        kind: 'large-leak',
+        startDay: startDay(i),
+        days: 2 + (i % 4),
+        gpm: step(i, 2.6, 3.4),
+        startAt: { hour: SITE_PROFILES[i % SITE_PROFILES.length]!.cycleStartHour, minute: 35 },
+      },
+    })),
+    // A valve stuck open at its design flow for more than a day, through the next nights' programs.
+    ...variations('valve-over-a-day', (i) => ({
+      event: {
+        kind: 'stuck-valve',
+        startDay: startDay(i),
+        days: step(i, 1.5, 3),
+        zoneIndex: zoneOf(i),
+        shareOfDesign: 1,
+      },
+    })),
+    // Cycle and soak: two zones alternate short cycles in the same meter hours; one of them runs away.
+    // (The pair is the site's two longest-running zones, as cycle and soak is used on long runs.)
+    ...variations('cycle-soak-runaway', (i) => {
+      const pair = longestTwo(i);
+      const zoneIndex = pair[Math.floor(i / 2) % 2]!;
+      return {
+        cycleSoak: pair,
+        event:
+          i % 2 === 0
+            ? { kind: 'broken-lateral', startDay: startDay(i), nights: 5 + (i % 4), zoneIndex, factor: step(i, 1.8, 3) }
+            : { kind: 'long-run', startDay: startDay(i), nights: 2 + (i % 4), zoneIndex, factor: step(i, 2.5, 5) },
       };
     }),
     ...variations('rainy-week', (i) => ({ event: { kind: 'rainy-week', startDay: startDay(i), days: 7 } })),

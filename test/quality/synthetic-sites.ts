@@ -6,6 +6,7 @@
  */
 import { resolveLocalTime } from '../../shared/ingest/zoned-time';
 import { localHourOf, localMidnightUtc, HOUR_MS, DAY_MS } from '../../shared/watch/site-clock';
+import { budgetFactsOf } from '../../shared/watch/budget-facts';
 import type { FindingKind } from '../../shared/watch/finding';
 import type { MeterHour, MonthlyUse, SiteWatchInput, ZoneRun } from '../../shared/watch/watch-inputs';
 import { addDays, dayOfYearFromIso } from '../../shared/weather/day-of-year';
@@ -13,13 +14,20 @@ import { seededRandom, type Random } from './seeded-random';
 import type { SiteProfile, SyntheticZone } from './synthetic-site-profiles';
 
 export type InjectedEvent =
-  | { kind: 'small-leak' | 'large-leak'; startDay: number; days: number; gpm: number }
+  | {
+      kind: 'small-leak' | 'large-leak';
+      startDay: number;
+      days: number;
+      gpm: number;
+      /** Local start time (default 13:00): a leak that starts inside the watering window must not look like a valve. */
+      startAt?: { hour: number; minute: number };
+    }
   | { kind: 'stuck-valve'; startDay: number; days: number; zoneIndex: number; shareOfDesign: number }
   | { kind: 'long-run'; startDay: number; nights: number; zoneIndex: number; factor: number }
   | { kind: 'broken-lateral'; startDay: number; nights: number; zoneIndex: number; factor: number }
   | { kind: 'broken-meter'; startDay: number; days: number }
   | { kind: 'silent-meter'; startDay: number; days: number }
-  | { kind: 'overspend-month'; monthIndex: number; how: 'seasonal-adjust' | 'extra-start'; factor: number }
+  | { kind: 'overspend-month'; monthIndexes: number[]; how: 'seasonal-adjust' | 'extra-start'; factor: number }
   | { kind: 'rainy-week'; startDay: number; days: number };
 
 export interface Scenario {
@@ -32,6 +40,10 @@ export interface Scenario {
   event: InjectedEvent | null;
   /** Keep only monthly totals, as for a site whose meter is read once a month. */
   monthlyReadsOnly?: boolean;
+  /** Local dates with no weather at all (no normals either): the budget leaves them out. */
+  missingWeatherDates?: string[];
+  /** Two zones (indexes) that water in alternating cycles (cycle and soak), sharing the same meter hours. */
+  cycleSoak?: [number, number];
 }
 
 export interface GroundTruthEvent {
@@ -43,6 +55,8 @@ export interface GroundTruthEvent {
   alsoExplains: FindingKind[];
   /** The zone at fault, for events that have one. */
   zoneId?: string;
+  /** The water the event really wasted inside the data, where the generator knows it exactly. */
+  excessGal?: number;
 }
 
 export interface SyntheticSite {
@@ -50,6 +64,8 @@ export interface SyntheticSite {
   truth: GroundTruthEvent[];
   /** How many minutes the controller's log stamps are ahead of the meter's clock. */
   controllerClockAheadMinutes: number;
+  /** Local midnights of the data's days and the one after the last: the site-days the per-day score counts. */
+  dayBoundsUtc: number[];
 }
 
 interface Flow {
@@ -102,7 +118,25 @@ interface NightContext {
   runs: ZoneRun[];
   flows: Flow[];
   truthRuns: Array<{ startUtc: number; endUtc: number }>;
-  stuck: { fromUtc: number; toUtc: number } | null;
+  stuck: { fromUtc: number; toUtc: number; gpm: number } | null;
+  cycleSoak: [number, number] | undefined;
+}
+
+/** One night's program: zones one after another from the start hour, minutes scaled by the day's ETo. */
+const CYCLES = 3;
+
+/** The night's runs in order: one per zone, or for a cycle-and-soak pair their cycles alternating. */
+function programOrder(
+  profile: SiteProfile,
+  cycleSoak: [number, number] | undefined,
+): Array<{ zi: number; share: number }> {
+  const order: Array<{ zi: number; share: number }> = [];
+  profile.zones.forEach((_, zi) => {
+    if (!cycleSoak || !cycleSoak.includes(zi)) order.push({ zi, share: 1 });
+    else if (zi === cycleSoak[0])
+      for (let c = 0; c < CYCLES; c++) order.push({ zi, share: 1 / CYCLES }, { zi: cycleSoak[1], share: 1 / CYCLES });
+  });
+  return order;
 }
 
 /** One night's program: zones one after another from the start hour, minutes scaled by the day's ETo. */
@@ -115,8 +149,9 @@ function waterNight(
 ): number {
   const { rng, profile, event } = ctx;
   let t = startUtc;
-  profile.zones.forEach((zone, zi) => {
-    let minutes = Math.max(1, Math.round((zone.minutesAtReferenceEto * etoMm * runtimeFactor) / 5));
+  for (const { zi, share } of programOrder(profile, ctx.cycleSoak)) {
+    const zone = profile.zones[zi]!;
+    let minutes = Math.max(1, Math.round((zone.minutesAtReferenceEto * etoMm * runtimeFactor * share) / 5));
     let flowFactor = 1;
     const hit = (e: { startDay: number; nights: number; zoneIndex: number }) =>
       zi === e.zoneIndex && dayIndex >= e.startDay && dayIndex < e.startDay + e.nights;
@@ -135,11 +170,11 @@ function waterNight(
     if ((event?.kind === 'long-run' || event?.kind === 'broken-lateral') && hit(event))
       ctx.truthRuns.push({ startUtc: t, endUtc: end });
     if (event?.kind === 'stuck-valve' && zi === event.zoneIndex && dayIndex >= event.startDay && !ctx.stuck) {
-      ctx.stuck = { fromUtc: end, toUtc: end + event.days * DAY_MS };
-      ctx.flows.push({ fromUtc: end, toUtc: ctx.stuck.toUtc, gpm: zone.designGpm * event.shareOfDesign });
+      ctx.stuck = { fromUtc: end, toUtc: end + event.days * DAY_MS, gpm: zone.designGpm * event.shareOfDesign };
+      ctx.flows.push({ fromUtc: end, toUtc: ctx.stuck.toUtc, gpm: ctx.stuck.gpm });
     }
     t = end;
-  });
+  }
   return t;
 }
 
@@ -184,6 +219,7 @@ export function generateSite(scenario: Scenario): SyntheticSite {
     truthRuns: [],
     stuck: null,
     event,
+    cycleSoak: scenario.cycleSoak,
   };
   const truth: GroundTruthEvent[] = [];
   const months = monthsSpanned(scenario.startDate, scenario.days);
@@ -194,7 +230,8 @@ export function generateSite(scenario: Scenario): SyntheticSite {
     const raining = event?.kind === 'rainy-week' && d >= event.startDay && d < event.startDay + event.days;
     const etoMm =
       normalEtoMm(profile, date) * Math.min(1.4, Math.max(0.6, 1 + rng.normal(0, 0.1))) * (raining ? 0.3 : 1);
-    const inOverspend = event?.kind === 'overspend-month' && date.slice(0, 7) === months[event.monthIndex];
+    const inOverspend =
+      event?.kind === 'overspend-month' && event.monthIndexes.some((i) => date.slice(0, 7) === months[i]);
     const factor = inOverspend && event.how === 'seasonal-adjust' ? event.factor : 1;
     if (d % profile.wateringEveryDays === 0) {
       const start = localInstant(date, profile.cycleStartHour, 0, zone);
@@ -226,7 +263,8 @@ export function generateSite(scenario: Scenario): SyntheticSite {
   }
 
   if (event?.kind === 'small-leak' || event?.kind === 'large-leak') {
-    const s = dayStart(event.startDay) + 13 * HOUR_MS;
+    const at = event.startAt ?? { hour: 13, minute: 0 };
+    const s = localInstant(addDays(scenario.startDate, event.startDay), at.hour, at.minute, zone);
     const e = s + event.days * DAY_MS;
     ctx.flows.push({ fromUtc: s, toUtc: e, gpm: event.gpm });
     truth.push({
@@ -251,9 +289,11 @@ export function generateSite(scenario: Scenario): SyntheticSite {
         truth.push({
           label: `valve ${profile.zones[event.zoneIndex]!.zoneId} stuck open`,
           kind: 'runaway-zone',
+          zoneId: profile.zones[event.zoneIndex]!.zoneId,
           startUtc: ctx.stuck.fromUtc,
           endUtc: ctx.stuck.toUtc,
           alsoExplains: ['leak', 'overspend'],
+          excessGal: (ctx.stuck.gpm * (Math.min(toUtc, ctx.stuck.toUtc) - ctx.stuck.fromUtc)) / 60_000,
         });
       break;
     case 'long-run':
@@ -285,19 +325,20 @@ export function generateSite(scenario: Scenario): SyntheticSite {
       });
       break;
     }
-    case 'overspend-month': {
-      const month = months[event.monthIndex]!;
-      const s = localMidnightUtc(`${month}-01`, zone);
-      const e = Math.min(toUtc, localMidnightUtc(addDays(monthDates(month).pop()!, 1), zone));
-      truth.push({
-        label: `overspend ${event.how} ×${event.factor.toFixed(2)}`,
-        kind: 'overspend',
-        startUtc: s,
-        endUtc: e,
-        alsoExplains: [],
-      });
+    case 'overspend-month':
+      for (const index of event.monthIndexes) {
+        const month = months[index]!;
+        const s = localMidnightUtc(`${month}-01`, zone);
+        const e = Math.min(toUtc, localMidnightUtc(addDays(monthDates(month).pop()!, 1), zone));
+        truth.push({
+          label: `overspend ${month} ${event.how} ×${event.factor.toFixed(2)}`,
+          kind: 'overspend',
+          startUtc: s,
+          endUtc: e,
+          alsoExplains: [],
+        });
+      }
       break;
-    }
     case 'rainy-week':
       truth.push({
         label: `rainy week, ${event.days} d skipped`,
@@ -312,12 +353,16 @@ export function generateSite(scenario: Scenario): SyntheticSite {
   }
 
   const meterHours = hourly.filter((h): h is MeterHour => h !== null);
-  const budgetMonths = months.map((month) => ({
-    month,
-    gallons: monthDates(month).reduce((s, d) => s + dailyNormalUse(profile, d) * profile.budgetHeadroom, 0),
-  }));
-  const dailyBudgets = months.flatMap((m) =>
-    monthDates(m).map((date) => ({ date, gallons: dailyNormalUse(profile, date) * profile.budgetHeadroom })),
+  // The budget as the job builds it: day by day, a day without weather left out of its month.
+  const missing = new Set(scenario.missingWeatherDates ?? []);
+  const { monthlyBudgets: budgetMonths, dailyBudgets } = budgetFactsOf(
+    months.flatMap((m) =>
+      monthDates(m).map((date) => ({
+        date,
+        gallons: missing.has(date) ? null : dailyNormalUse(profile, date) * profile.budgetHeadroom,
+        estimated: false,
+      })),
+    ),
   );
   const input: SiteWatchInput = {
     site: {
@@ -360,5 +405,6 @@ export function generateSite(scenario: Scenario): SyntheticSite {
   } else {
     input.meterHours = meterHours;
   }
-  return { input, truth, controllerClockAheadMinutes: clockSkewMs / 60_000 };
+  const dayBoundsUtc = Array.from({ length: scenario.days + 1 }, (_, d) => dayStart(d));
+  return { input, truth, controllerClockAheadMinutes: clockSkewMs / 60_000, dayBoundsUtc };
 }
