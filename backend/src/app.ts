@@ -122,6 +122,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     budgets: budgets.service,
     rates: rates.service,
     alerts,
+    dailyWeather: weather.daily,
   });
   const session = createSessionMiddleware(config, pool);
 
@@ -189,6 +190,8 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     watch,
     async close() {
       clearInterval(pruneTimer);
+      // A background watch run (started from the API) finishes before the pool closes under it.
+      await watch.service.idle();
       await session.close();
       await pool.end();
     },

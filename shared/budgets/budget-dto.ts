@@ -50,7 +50,16 @@ export interface BudgetZoneMonthDto {
 
 export interface BudgetMonthDto {
   month: string;
+  /** Days the budget covers: the month's days less those with no weather at all. */
   days: number;
+  /** True when some days had no weather (no measurement, normal or estimate): the budget covers the others only. */
+  partial: boolean;
+  /** The days left out of a partial month. */
+  missingDates: string[];
+  /** Days whose weather was estimated (the station's own days around them, or the nearest station). */
+  estimatedDays: number;
+  /** The site's budget per covered day, following that day's ETo and effective rain; sums to `gallons`. */
+  daily: { date: string; gallons: number; estimated: boolean }[];
   etoMm: number;
   rainMm: number;
   filledDays: number;

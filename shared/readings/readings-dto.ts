@@ -43,7 +43,14 @@ export interface HourlyGridDto {
   maxGallons: number;
 }
 
-export const MONTHLY_FLAGS = ['over-budget', 'partial-data', 'no-data', 'no-budget', 'weather-filled'] as const;
+export const MONTHLY_FLAGS = [
+  'over-budget',
+  'partial-data',
+  'no-data',
+  'no-budget',
+  'weather-filled',
+  'partial-budget',
+] as const;
 export type MonthlyFlag = (typeof MONTHLY_FLAGS)[number];
 
 export interface MonthlyRow {

@@ -38,7 +38,22 @@ export interface WatchRunDto {
   alertsUpdated: number;
   alertsReopened: number;
   mailsQueued: number;
-  errors: { siteId: number; siteName: string; message: string }[];
+  /** The chosen sites, when the run covers only some. */
+  siteIds: number[] | null;
+  /** Progress: sites the run will look at, and how many it has been through. */
+  sitesTotal: number;
+  sitesDone: number;
+  errors: WatchRunNote[];
+  /** Checks a site did not get, or got on weaker data: "overspend not checked: …", an estimated month's budget. */
+  warnings: WatchRunNote[];
+}
+
+export interface WatchRunNote {
+  siteId: number;
+  siteName: string;
+  message: string;
+  /** A site not set up for the check yet (no hydrozones or weather station): listed, not mailed. */
+  setupOnly?: boolean;
 }
 
 /** The default watering window when a site has not set one: 21:00 to 06:59 local. */

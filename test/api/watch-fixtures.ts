@@ -41,26 +41,42 @@ export async function leakingSite(db: DataSource, siteId: number, hours = 48, en
   return meterId;
 }
 
-/** Runs the watch for the admin's organisation, waiting out a run another test file may be holding. */
-export async function runWatch(
-  admin: Client,
-  body: object = {},
-): Promise<{
+export interface RunResult {
+  id: number;
+  status: string;
   sitesChecked: number;
   sitesSkipped: number;
+  sitesTotal: number;
+  sitesDone: number;
   alertsRaised: number;
   alertsUpdated: number;
   alertsReopened: number;
   mailsQueued: number;
   errors: { siteId: number; message: string }[];
-}> {
+  warnings: { siteId: number; message: string }[];
+}
+
+/**
+ * Runs the watch for the admin's organisation (waiting out a run another test file may be holding), then follows
+ * the background run on its page until it has finished.
+ */
+export async function runWatch(admin: Client, body: object = {}): Promise<RunResult> {
   for (let i = 0; i < 100; i++) {
     const res = await admin.post('/api/watch/runs', body);
-    if (res.status === 201) return res.body;
+    if (res.status === 202) return waitForRun(admin, res.body.id);
     if (res.status !== 409) throw new Error(`run failed: ${res.status} ${JSON.stringify(res.body)}`);
     await new Promise((r) => setTimeout(r, 200));
   }
   throw new Error('the watch lease never came free');
+}
+
+export async function waitForRun(admin: Client, id: number): Promise<RunResult> {
+  for (let i = 0; i < 600; i++) {
+    const run = (await admin.get(`/api/watch/runs/${id}`).expect(200)).body as RunResult;
+    if (run.status !== 'running') return run;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`watch run ${id} never finished`);
 }
 
 export async function alertCount(app: TestApp, siteId: number): Promise<number> {

@@ -136,7 +136,7 @@ describe('the nightly watch run', () => {
     } finally {
       await other.release();
     }
-    await admin.post('/api/watch/runs', {}).expect(201);
+    await runWatch(admin);
   });
 
   it('when someone who is not an administrator asks for runs, then it is forbidden', async () => {

@@ -9,6 +9,7 @@ import { DashboardIndexes1796230000000 } from './migrations/1796230000000-dashbo
 import { Watch1796215000000 } from './migrations/1796215000000-watch';
 import { Reports1796220000000 } from './migrations/1796220000000-reports';
 import { MonthlyUse1796240000000 } from './migrations/1796240000000-monthly-use';
+import { WatchImperfectData1796250000000 } from './migrations/1796250000000-watch-imperfect-data';
 
 /** Every migration, in order (explicit imports, so bundled builds need no file globbing). Add new ones at the end. */
 export const MIGRATIONS: (new () => MigrationInterface)[] = [
@@ -22,4 +23,5 @@ export const MIGRATIONS: (new () => MigrationInterface)[] = [
   Watch1796215000000,
   DashboardIndexes1796230000000,
   MonthlyUse1796240000000,
+  WatchImperfectData1796250000000,
 ];

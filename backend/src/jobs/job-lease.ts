@@ -41,14 +41,26 @@ export class JobLease {
 
   /** Runs `work` only if the lease can be taken; renews it while the work runs. Null when another instance holds it. */
   async runExclusive<T>(ttlMs: number, work: () => Promise<T>): Promise<T | null> {
+    const started = await this.startExclusive(ttlMs, work);
+    return started ? started.done : null;
+  }
+
+  /**
+   * Takes the lease now and runs `work` in the background, renewing the lease until it settles; null when another
+   * instance holds it. For work a request starts and does not wait for.
+   */
+  async startExclusive<T>(ttlMs: number, work: () => Promise<T>): Promise<{ done: Promise<T> } | null> {
     if (!(await this.tryAcquire(ttlMs))) return null;
     const renew = setInterval(() => void this.tryAcquire(ttlMs).catch(() => undefined), Math.max(1_000, ttlMs / 3));
     renew.unref();
-    try {
-      return await work();
-    } finally {
-      clearInterval(renew);
-      await this.release();
-    }
+    const done = (async () => {
+      try {
+        return await work();
+      } finally {
+        clearInterval(renew);
+        await this.release();
+      }
+    })();
+    return { done };
   }
 }

@@ -6,6 +6,7 @@ import type { MailQueue } from '../mail/domain/mail-queue';
 import type { SitesService } from '../sites/domain/sites-service';
 import { alertsRouter, notificationsRouter } from './api/alerts-router';
 import { AlertFiguresRepository } from './data/alert-figures-repository';
+import { AlertMailRepository } from './data/alert-mail-repository';
 import { AlertsRepository } from './data/alerts-repository';
 import { AlertNotifier } from './domain/alert-notifier';
 import { AlertsService } from './domain/alerts-service';
@@ -30,8 +31,9 @@ export function createAlerts(deps: {
 }): Alerts {
   const { db, config, sites, mailQueue, audit } = deps;
   const repository = new AlertsRepository(db);
-  const service = new AlertsService(db, repository, sites, audit, new AlertFiguresRepository(db));
-  const notifier = new AlertNotifier(db, mailQueue, config.http.publicUrl);
+  const mail = new AlertMailRepository(db);
+  const service = new AlertsService(db, repository, sites, audit, new AlertFiguresRepository(db), mail);
+  const notifier = new AlertNotifier(db, mail, mailQueue, config.http.publicUrl);
   const router = Router();
   router.use('/alerts', alertsRouter(service));
   router.use('/me/notifications', notificationsRouter(service));

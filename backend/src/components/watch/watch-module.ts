@@ -7,10 +7,12 @@ import type { AuditRepository } from '../audit/data/audit-repository';
 import type { BudgetsService } from '../budgets/domain/budgets-service';
 import type { RateSchedulesService } from '../rates/domain/rate-schedules-service';
 import type { SitesService } from '../sites/domain/sites-service';
+import type { DailyWeatherService } from '../weather/domain/daily-weather-service';
 import { watchRouter, watchSettingsRouter } from './api/watch-router';
 import { WatchDataRepository } from './data/watch-data-repository';
 import { WatchRunsRepository } from './data/watch-runs-repository';
 import { SiteWatchInputLoader } from './domain/site-watch-input';
+import { StationHealth } from './domain/station-health';
 import { WatchService } from './domain/watch-service';
 import { WatchSettingsService } from './domain/watch-settings-service';
 
@@ -33,20 +35,22 @@ export function createWatch(deps: {
   rates: RateSchedulesService;
   alerts: Alerts;
   audit: AuditRepository;
+  dailyWeather: DailyWeatherService;
 }): Watch {
-  const { db, config, sites, budgets, rates, alerts, audit } = deps;
+  const { db, config, sites, budgets, rates, alerts, audit, dailyWeather } = deps;
   const data = new WatchDataRepository(db);
   const runs = new WatchRunsRepository(db);
-  const service = new WatchService(
+  const service = new WatchService({
     db,
     data,
-    new SiteWatchInputLoader(data, budgets, rates),
-    alerts.repository,
+    inputs: new SiteWatchInputLoader(data, budgets, rates),
+    alerts: alerts.repository,
     runs,
-    alerts.notifier,
-    new JobLease(db, WATCH_LEASE_NAME),
-    config.watch.localHour,
-  );
+    notifier: alerts.notifier,
+    stations: new StationHealth(dailyWeather),
+    lease: new JobLease(db, WATCH_LEASE_NAME),
+    localHour: config.watch.localHour,
+  });
   const router = Router();
   router.use('/watch', watchRouter(service, runs));
   router.use('/sites/:id/watch-settings', watchSettingsRouter(new WatchSettingsService(db, data, sites, audit)));

@@ -5,7 +5,8 @@ import { Column, Entity, PrimaryGeneratedColumn } from 'typeorm';
 export class AlertEntity {
   @PrimaryGeneratedColumn({ type: 'int', unsigned: true }) id!: number;
   @Column({ type: 'int', unsigned: true, name: 'site_id' }) siteId!: number;
-  @Column({ type: 'enum', enum: ['leak', 'runaway-zone', 'overspend', 'silent-meter'], name: 'kind' }) kind!: string;
+  @Column({ type: 'enum', enum: ['leak', 'runaway-zone', 'overspend', 'silent-meter', 'weather'], name: 'kind' })
+  kind!: string;
   @Column({ type: 'varchar', length: 40, name: 'sub_kind' }) subKind!: string;
   @Column({ type: 'int', unsigned: true, name: 'zone_id', nullable: true }) zoneId!: number | null;
   @Column({ type: 'varchar', length: 200, name: 'finding_key' }) findingKey!: string;

@@ -2,6 +2,15 @@
 import { KIND_LABELS, SEVERITY_LABELS, SUB_KIND_LABELS } from '@shared/alerts/alert-dto';
 import type { FindingKind, Severity } from '@shared/watch/finding';
 
+/** A run's note about a site whose checks were skipped or weakened. */
+export interface MailWarning {
+  siteId: number;
+  siteName: string;
+  message: string;
+  /** A site not set up for the check yet (no hydrozones or station): shown on the run page, not mailed. */
+  setupOnly?: boolean;
+}
+
 export interface MailAlert {
   id: number;
   siteName: string;
@@ -46,21 +55,29 @@ function headline(a: MailAlert): string {
 const CAUTION =
   'Before digging or working on valves, follow local codes and call a licensed professional where the work needs one.';
 
-export function digestMail(
-  to: string,
-  name: string,
-  alerts: MailAlert[],
-  baseUrl: string,
-): { to: string; subject: string; text: string; html: string } {
-  const subject = `Rillmark nightly watch: ${alerts.length} new alert${alerts.length === 1 ? '' : 's'}`;
+export function digestMail(d: {
+  to: string;
+  name: string;
+  alerts: MailAlert[];
+  warnings: MailWarning[];
+  baseUrl: string;
+}): { to: string; subject: string; text: string; html: string } {
+  const { to, name, alerts, warnings, baseUrl } = d;
+  const subject =
+    alerts.length > 0
+      ? `Rillmark nightly watch: ${alerts.length} new alert${alerts.length === 1 ? '' : 's'}`
+      : 'Rillmark nightly watch: checks limited by missing data';
   const lines = alerts.map(
     (a) =>
       `- ${headline(a)} [${SEVERITY_LABELS[a.severity]}]\n  since ${localDate(a.periodStartUtc, a.timeZone)}; ` +
       `${lossText(a)}\n  ${a.explanation}\n  ${baseUrl}/alerts/${a.id}`,
   );
+  const found = alerts.length > 0 ? `Last night's watch found:\n\n${lines.join('\n\n')}\n\n` : '';
+  const noted = warnings.map((w) => `- ${w.siteName}: ${w.message}`).join('\n');
   const text =
-    `Hello ${name},\n\nLast night's watch found:\n\n${lines.join('\n\n')}\n\n${CAUTION}\n\nChange ` +
-    `what you receive: ${baseUrl}/alerts/notifications\n`;
+    `Hello ${name},\n\n${found}` +
+    (warnings.length ? `What the watch could not check fully:\n${noted}\n\n` : '') +
+    `${CAUTION}\n\nChange what you receive: ${baseUrl}/alerts/notifications\n`;
   const items = alerts
     .map(
       (a) =>
@@ -69,8 +86,12 @@ export function digestMail(
         `<p>${esc(a.explanation)}</p><p><a href="${esc(`${baseUrl}/alerts/${a.id}`)}">Open the alert</a></p></li>`,
     )
     .join('');
+  const warningItems = warnings.map((w) => `<li>${esc(w.siteName)}: ${esc(w.message)}</li>`).join('');
   const html =
-    `<p>Hello ${esc(name)},</p><p>Last night's watch found:</p><ul>${items}</ul><p><em>${esc(CAUTION)}</em></p>` +
+    `<p>Hello ${esc(name)},</p>` +
+    (alerts.length ? `<p>Last night's watch found:</p><ul>${items}</ul>` : '') +
+    (warnings.length ? `<p>What the watch could not check fully:</p><ul>${warningItems}</ul>` : '') +
+    `<p><em>${esc(CAUTION)}</em></p>` +
     `<p><a href="${esc(`${baseUrl}/alerts/notifications`)}">Change what you receive</a></p>`;
   return { to, subject, text, html };
 }

@@ -1,94 +1,67 @@
 import type { DataSource } from 'typeorm';
-import type { FindingKind, Severity } from '@shared/watch/finding';
 import type { MailQueue } from '../../mail/domain/mail-queue';
-import { digestMail, singleAlertMail, type MailAlert } from './alert-digest';
+import type { AlertMailRepository, MailAlertRow, RecipientRow } from '../data/alert-mail-repository';
+import { digestMail, singleAlertMail, type MailAlert, type MailWarning } from './alert-digest';
 
-interface RecipientRow {
-  user_id: number;
-  email: string;
-  display_name: string;
-  site_id: number;
-  frequency: 'each' | 'daily' | 'none';
-  site_ids: string | null;
+export interface NotifyRequest {
+  alerts: { alertId: number; reopened: boolean }[];
+  /** The run's night (YYYY-MM-DD): one digest per user and night. */
+  night: string;
+  /** The run's per-site warnings (checks skipped or weakened); the digests carry those of each user's sites. */
+  warnings: MailWarning[];
 }
 
+interface Reader {
+  userId: number;
+  email: string;
+  name: string;
+  frequency: RecipientRow['frequency'];
+  sites: Set<number>;
+  /** Sites of the user's own organisation where they may fix station data (admin, manager, contractor). */
+  canFix: Set<number>;
+}
+
+/** Weather-station alerts go to the people who can upload or fetch the missing days, not to readers of the site. */
+const FIXERS = new Set(['admin', 'manager', 'contractor']);
+
 /**
- * After a run: one digest per user and night for the new and reopened alerts of the sites they follow, or one
- * message per alert for users who chose "each". The dedupe keys make a rerun of the same night queue nothing.
+ * After a run: one digest per user and night for the new and reopened alerts (and the run's warnings) of the sites
+ * they follow, or one message per alert for users who chose "each". The dedupe keys make a rerun of the same night
+ * queue nothing.
  */
 export class AlertNotifier {
   constructor(
     private readonly db: DataSource,
+    private readonly repo: AlertMailRepository,
     private readonly mailQueue: MailQueue,
     private readonly baseUrl: string,
   ) {}
 
-  /** `night` names the run's night (YYYY-MM-DD); returns how many messages were queued. */
-  async notify(alerts: { alertId: number; reopened: boolean }[], night: string): Promise<number> {
-    if (alerts.length === 0) return 0;
-    const reopened = new Map(alerts.map((a) => [a.alertId, a.reopened]));
-    const rows: (Omit<MailAlert, 'reopened'> & { site_id: number })[] = (await this.db.query(
-      `SELECT a.id, a.site_id, s.name AS siteName, s.time_zone AS timeZone, a.kind, a.sub_kind AS
-        subKind, a.severity, a.period_start_utc AS periodStartUtc,
-        a.water_lost_gal AS waterLostGal, a.money_lost AS moneyLost, a.currency, a.explanation
-       FROM alert a JOIN site s ON s.id = a.site_id WHERE a.id IN (?) ORDER BY FIELD(a.severity,
-        'act-now', 'act-soon', 'watch'), a.id`,
-      [[...reopened.keys()]],
-    )) as never;
-    const mailAlerts = rows.map((r) => ({
+  /** Returns how many messages were queued. */
+  async notify(request: NotifyRequest): Promise<number> {
+    const mailed = request.warnings.filter((w) => !w.setupOnly);
+    if (request.alerts.length === 0 && mailed.length === 0) return 0;
+    const reopened = new Map(request.alerts.map((a) => [a.alertId, a.reopened]));
+    const alerts = (await this.repo.alerts([...reopened.keys()])).map((r) => ({
       ...r,
-      kind: r.kind as FindingKind,
-      severity: r.severity as Severity,
       reopened: reopened.get(r.id) ?? false,
     }));
-    const siteIds = [...new Set(rows.map((r) => r.site_id))];
-    // Everyone active in the owning organisation or an organisation the site is shared with.
-    const recipients: RecipientRow[] = await this.db.query(
-      `SELECT DISTINCT u.id AS user_id, u.email, u.display_name, x.site_id, COALESCE(n.frequency,
-        'daily') AS frequency, n.site_ids
-       FROM (SELECT id AS site_id, organisation_id FROM site WHERE id IN (?) UNION SELECT site_id,
-        organisation_id FROM site_share WHERE site_id IN (?)) x
-       JOIN membership m ON m.organisation_id = x.organisation_id JOIN \`user\` u ON u.id =
-        m.user_id AND u.status = 'active'
-       LEFT JOIN user_notification n ON n.user_id = u.id ORDER BY u.id`,
-      [siteIds, siteIds],
-    );
-    const perUser = new Map<
-      number,
-      { email: string; name: string; frequency: RecipientRow['frequency']; sites: Set<number> }
-    >();
-    for (const r of recipients) {
-      if (r.frequency === 'none') continue;
-      const followed = r.site_ids ? (JSON.parse(r.site_ids) as number[]) : null;
-      if (followed && !followed.includes(r.site_id)) continue;
-      const entry = perUser.get(r.user_id) ?? {
-        email: r.email,
-        name: r.display_name,
-        frequency: r.frequency,
-        sites: new Set<number>(),
-      };
-      entry.sites.add(r.site_id);
-      perUser.set(r.user_id, entry);
-    }
+    const siteIds = [...new Set([...alerts.map((a) => a.siteId), ...mailed.map((w) => w.siteId)])];
+    const readers = readersOf(await this.repo.recipients(siteIds));
     let queued = 0;
     await this.db.transaction(async (em) => {
-      for (const [userId, u] of perUser) {
-        const mine = mailAlerts.filter((a) => u.sites.has((a as unknown as { site_id: number }).site_id));
-        if (mine.length === 0) continue;
+      for (const u of readers) {
+        const mine = alerts.filter((a) => u.sites.has(a.siteId) && (a.kind !== 'weather' || u.canFix.has(a.siteId)));
+        const warnings = mailed.filter((w) => u.sites.has(w.siteId));
         if (u.frequency === 'daily') {
-          if (
-            await this.mailQueue.enqueue(
-              em,
-              digestMail(u.email, u.name, mine, this.baseUrl),
-              `watch-digest:${userId}:${night}`,
-            )
-          )
-            queued++;
-        } else {
-          for (const a of mine) {
-            const key = `watch-alert:${userId}:${a.id}:${a.reopened ? `reopened-${night}` : 'opened'}`;
-            if (await this.mailQueue.enqueue(em, singleAlertMail(u.email, u.name, a, this.baseUrl), key)) queued++;
-          }
+          if (mine.length === 0 && warnings.length === 0) continue;
+          const mail = digestMail({ to: u.email, name: u.name, alerts: mine, warnings, baseUrl: this.baseUrl });
+          if (await this.mailQueue.enqueue(em, mail, `watch-digest:${u.userId}:${request.night}`)) queued++;
+          continue;
+        }
+        for (const a of mine) {
+          const key = `watch-alert:${u.userId}:${a.id}:${a.reopened ? `reopened-${request.night}` : 'opened'}`;
+          if (await this.mailQueue.enqueue(em, singleAlertMail(u.email, u.name, a, this.baseUrl), key)) queued++;
         }
       }
     });
@@ -96,3 +69,26 @@ export class AlertNotifier {
     return queued;
   }
 }
+
+/** Recipients per user, keeping the sites each follows (all they can see unless they chose some). */
+function readersOf(rows: readonly RecipientRow[]): Reader[] {
+  const perUser = new Map<number, Reader>();
+  for (const r of rows) {
+    if (r.frequency === 'none') continue;
+    if (r.siteIds && !r.siteIds.includes(r.siteId)) continue;
+    const entry = perUser.get(r.userId) ?? {
+      userId: r.userId,
+      email: r.email,
+      name: r.displayName,
+      frequency: r.frequency,
+      sites: new Set<number>(),
+      canFix: new Set<number>(),
+    };
+    entry.sites.add(r.siteId);
+    if (r.owner && FIXERS.has(r.role)) entry.canFix.add(r.siteId);
+    perUser.set(r.userId, entry);
+  }
+  return [...perUser.values()];
+}
+
+export type { MailAlert, MailAlertRow };

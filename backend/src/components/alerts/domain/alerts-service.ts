@@ -12,6 +12,7 @@ import type { Principal } from '../../../platform/auth/principal';
 import type { AuditRepository } from '../../audit/data/audit-repository';
 import type { SitesService } from '../../sites/domain/sites-service';
 import type { AlertFiguresRepository } from '../data/alert-figures-repository';
+import type { AlertMailRepository } from '../data/alert-mail-repository';
 import type { AlertsRepository } from '../data/alerts-repository';
 
 /**
@@ -25,6 +26,7 @@ export class AlertsService {
     private readonly sites: SitesService,
     private readonly audit: AuditRepository,
     private readonly figures: AlertFiguresRepository,
+    private readonly mail: AlertMailRepository,
   ) {}
 
   /** Unresolved alerts per site over every site the organisation sees; the caller keeps the ones in scope. */
@@ -104,14 +106,8 @@ export class AlertsService {
     return this.get(principal, id);
   }
 
-  async notificationPreference(principal: Principal): Promise<NotificationPreferenceDto> {
-    const [row] = (await this.db.query('SELECT frequency, site_ids FROM user_notification WHERE user_id = ?', [
-      principal.userId,
-    ])) as { frequency: NotificationPreferenceDto['frequency']; site_ids: string | null }[];
-    return {
-      frequency: row?.frequency ?? 'daily',
-      siteIds: row?.site_ids ? (JSON.parse(row.site_ids) as number[]) : null,
-    };
+  notificationPreference(principal: Principal): Promise<NotificationPreferenceDto> {
+    return this.mail.preference(principal.userId);
   }
 
   async setNotificationPreference(
@@ -119,12 +115,7 @@ export class AlertsService {
     pref: NotificationPreferenceDto,
   ): Promise<NotificationPreferenceDto> {
     if (pref.siteIds) for (const siteId of pref.siteIds) await this.sites.requireLevel(principal, siteId, 'read');
-    const siteIds = pref.siteIds ? JSON.stringify([...new Set(pref.siteIds)]) : null;
-    await this.db.query(
-      `INSERT INTO user_notification (user_id, frequency, site_ids) VALUES (?, ?, ?)
-       ON DUPLICATE KEY UPDATE frequency = VALUES(frequency), site_ids = VALUES(site_ids)`,
-      [principal.userId, pref.frequency, siteIds],
-    );
+    await this.mail.savePreference(principal.userId, pref);
     return this.notificationPreference(principal);
   }
 }

@@ -29,6 +29,20 @@ export class BudgetCache {
     return this.repo.staleBudgetSites(siteIds, months, new Date().toISOString().slice(0, 7));
   }
 
+  /**
+   * The engine's budget per day (following each day's ETo and effective rain) for these months, by date; empty when
+   * the site cannot be budgeted. Not cached: the site pages ask for one site's few months.
+   */
+  async daily(principal: Principal, siteId: number, fromMonth: string, toMonth: string): Promise<Map<string, number>> {
+    try {
+      const budget = await this.budgets.budget(principal, siteId, fromMonth, toMonth, 'none');
+      return new Map(budget.months.flatMap((m) => m.daily.map((d) => [d.date, d.gallons] as const)));
+    } catch (error) {
+      if (error instanceof AppError && error.code !== 'not_found' && error.code !== 'forbidden') return new Map();
+      throw error;
+    }
+  }
+
   async ensure(principal: Principal, siteIds: number[], months: string[]): Promise<void> {
     const currentMonth = new Date().toISOString().slice(0, 7);
     const stale = await this.repo.staleBudgetSites(siteIds, months, currentMonth);
@@ -44,16 +58,17 @@ export class BudgetCache {
     let rows: BudgetMonthRow[];
     try {
       const budget = await this.budgets.budget(principal, siteId, fromMonth, toMonth, 'none');
+      // A partial month keeps its budget for the days it covers, and says so; a month with no weather has none.
       rows = budget.months.map((m) => ({
         siteId,
         month: m.month,
-        gallons: m.gallons,
-        cost: m.cost?.total ?? null,
+        gallons: m.days > 0 ? m.gallons : null,
+        cost: m.days > 0 ? (m.cost?.total ?? null) : null,
         currency: m.cost?.currency ?? null,
-        etoMm: m.etoMm,
-        rainMm: m.rainMm,
+        etoMm: m.days > 0 ? m.etoMm : null,
+        rainMm: m.days > 0 ? m.rainMm : null,
         filledDays: m.filledDays,
-        problem: null,
+        problem: monthNote(m),
       }));
     } catch (error) {
       if (!(error instanceof AppError)) throw error;
@@ -73,4 +88,12 @@ export class BudgetCache {
     }
     await this.repo.saveBudgetMonths(rows);
   }
+}
+
+/** Why a month's budget is short or absent, in words; null for a whole month. */
+export function monthNote(m: { month: string; days: number; partial: boolean; missingDates: string[] }): string | null {
+  if (m.days === 0) return `No weather for any day of ${m.month}: no budget.`;
+  if (!m.partial) return null;
+  const total = m.days + m.missingDates.length;
+  return `Partial: the budget covers ${m.days} of ${total} days (no weather for ${m.missingDates.join(', ')}).`;
 }

@@ -18,6 +18,7 @@ export interface BudgetDay {
   etoMm: number;
   rainMm: number;
   filled: boolean;
+  estimated?: boolean;
   method: DailyWeatherMethod;
 }
 
@@ -36,53 +37,91 @@ export function rainMethodOf(kind: RainCreditKind, value: number | undefined): E
   }
 }
 
+/** One entry per month from `fromMonth` to `toMonth`; a month with days missing covers the others and says so. */
 export function budgetMonths(
   zones: Hydrozone[],
-  days: BudgetDay[],
+  weather: { days: BudgetDay[]; missingDates: string[]; fromMonth: string; toMonth: string },
   rain: EffectiveRainMethod,
 ): Omit<BudgetMonthDto, 'cost' | 'indoorGallons'>[] {
   const byMonth = new Map<string, BudgetDay[]>();
-  for (const day of days) {
-    const key = day.date.slice(0, 7);
-    byMonth.set(key, [...(byMonth.get(key) ?? []), day]);
-  }
+  for (let m = weather.fromMonth; m <= weather.toMonth; m = nextMonth(m)) byMonth.set(m, []);
+  for (const day of weather.days) byMonth.get(day.date.slice(0, 7))?.push(day);
   return [...byMonth.entries()].map(([month, monthDays]) => {
-    const site = siteBudgetForPeriod(zones, monthDays, rain);
-    const etoMm = monthDays.reduce((s, d) => s + d.etoMm, 0);
-    const rainMm = monthDays.reduce((s, d) => s + d.rainMm, 0);
-    const zoneRows: BudgetZoneMonthDto[] = site.zones.map((z, i) => {
-      const zone = zones[i]!;
-      const pf = effectivePlantFactor(zone);
-      const ie = effectiveIrrigationEfficiency(zone);
-      return {
-        zoneId: Number(zone.id),
-        zoneName: zone.name,
-        areaFt2: zone.areaFt2,
-        plantFactor: pf,
-        irrigationEfficiency: ie.efficiency,
-        etoMm: z.etoMm,
-        rainMm: z.rainMm,
-        effectiveRainMm: z.effectiveRainMm,
-        grossGallons: z.grossGallons,
-        rainCreditGallons: z.rainCreditGallons,
-        gallons: z.gallons,
-        litres: z.litres,
-        steps: monthSteps(zone, pf, ie, z, rain, monthDays.length),
-      };
-    });
-    const methods = [...new Set(monthDays.map((d) => (d.filled ? 'normal-filled' : d.method)))] as DailyWeatherMethod[];
+    const missingDates = weather.missingDates.filter((d) => d.startsWith(month));
+    if (monthDays.length === 0) return emptyMonth(month, missingDates);
+    return { ...coveredMonth(zones, month, monthDays, rain), partial: missingDates.length > 0, missingDates };
+  });
+}
+
+function nextMonth(month: string): string {
+  const [y, m] = month.split('-').map(Number) as [number, number];
+  return new Date(Date.UTC(y, m, 1)).toISOString().slice(0, 7);
+}
+
+function emptyMonth(month: string, missingDates: string[]): Omit<BudgetMonthDto, 'cost' | 'indoorGallons'> {
+  return {
+    month,
+    days: 0,
+    partial: true,
+    missingDates,
+    estimatedDays: 0,
+    daily: [],
+    etoMm: 0,
+    rainMm: 0,
+    filledDays: 0,
+    methods: [],
+    gallons: 0,
+    litres: 0,
+    zones: [],
+  };
+}
+
+function coveredMonth(
+  zones: Hydrozone[],
+  month: string,
+  monthDays: BudgetDay[],
+  rain: EffectiveRainMethod,
+): Omit<BudgetMonthDto, 'cost' | 'indoorGallons' | 'partial' | 'missingDates'> {
+  const site = siteBudgetForPeriod(zones, monthDays, rain);
+  const etoMm = monthDays.reduce((s, d) => s + d.etoMm, 0);
+  const rainMm = monthDays.reduce((s, d) => s + d.rainMm, 0);
+  const zoneRows: BudgetZoneMonthDto[] = site.zones.map((z, i) => {
+    const zone = zones[i]!;
+    const pf = effectivePlantFactor(zone);
+    const ie = effectiveIrrigationEfficiency(zone);
     return {
-      month,
-      days: monthDays.length,
-      etoMm,
-      rainMm,
-      filledDays: monthDays.filter((d) => d.filled).length,
-      methods,
-      gallons: site.gallons,
-      litres: site.litres,
-      zones: zoneRows,
+      zoneId: Number(zone.id),
+      zoneName: zone.name,
+      areaFt2: zone.areaFt2,
+      plantFactor: pf,
+      irrigationEfficiency: ie.efficiency,
+      etoMm: z.etoMm,
+      rainMm: z.rainMm,
+      effectiveRainMm: z.effectiveRainMm,
+      grossGallons: z.grossGallons,
+      rainCreditGallons: z.rainCreditGallons,
+      gallons: z.gallons,
+      litres: z.litres,
+      steps: monthSteps(zone, pf, ie, z, rain, monthDays.length),
     };
   });
+  const methods = [...new Set(monthDays.map((d) => (d.filled ? 'normal-filled' : d.method)))] as DailyWeatherMethod[];
+  const estimated = new Set(monthDays.filter((d) => d.estimated).map((d) => d.date));
+  const perDay = new Map<string, number>();
+  for (const z of site.zones) for (const d of z.daily) perDay.set(d.date, (perDay.get(d.date) ?? 0) + d.gallons);
+  return {
+    month,
+    days: monthDays.length,
+    estimatedDays: estimated.size,
+    daily: [...perDay].map(([date, gallons]) => ({ date, gallons, estimated: estimated.has(date) })),
+    etoMm,
+    rainMm,
+    filledDays: monthDays.filter((d) => d.filled).length,
+    methods,
+    gallons: site.gallons,
+    litres: site.litres,
+    zones: zoneRows,
+  };
 }
 
 function monthSteps(

@@ -59,9 +59,10 @@ export class BudgetsService {
     if (monthCount > BUDGET_MAX_MONTHS) throw AppError.invalid('to', `at most ${BUDGET_MAX_MONTHS} months at a time`);
     const { zones, station } = await this.inputs(principal, siteId);
     const rain = rainMethodOf(rainKind, rainValue);
-    const { days } = await this.weather.forBudget(station, `${fromMonth}-01`, lastDayOf(toMonth));
+    const weather = await this.weather.forBudget(station, `${fromMonth}-01`, lastDayOf(toMonth));
     const schedules = await this.rates.allOfSite(siteId);
-    const months = budgetMonths(zones.map(engineZone), days, rain).map((m) => {
+    const inputs = { days: weather.days, missingDates: weather.missingDates, fromMonth, toMonth };
+    const months = budgetMonths(zones.map(engineZone), inputs, rain).map((m) => {
       const schedule = scheduleInForce(schedules, `${m.month}-01`);
       // A mixed meter's bill covers the indoor allotment too (occupants × gal/person/day × days).
       const indoorGallons = indoor
@@ -125,7 +126,11 @@ export class BudgetsService {
         'Default irrigation efficiencies: MWELO App. B note c (0.81 drip, ' +
           '0.75 overhead spray); others as noted on each hydrozone.',
         "Missing days are filled from the station's monthly normals (total " +
-          '÷ days in the month) and counted as filled days.',
+          '÷ days in the month) and counted as filled days; without normals they are estimated from the ' +
+          "station's own days within a week (at least three) or the nearest station of the organisation " +
+          '(within 50 km) on the same date, and counted as estimated; a day with none of these is left out ' +
+          'and its month is marked partial, with the budget for the days it covers.',
+        ...(weather.neighbourName ? [`Neighbouring station used for missed days: ${weather.neighbourName}.`] : []),
       ],
     };
   }
@@ -139,7 +144,7 @@ export class BudgetsService {
   ): Promise<ComplianceDto> {
     const site = await this.sites.requireLevel(principal, siteId, 'read');
     const { zones, station } = await this.inputs(principal, siteId);
-    const { days } = await this.weather.forBudget(station, `${year}-01-01`, `${year}-12-31`);
+    const { days } = await this.weather.forWholePeriod(station, `${year}-01-01`, `${year}-12-31`);
     const type: MweloProjectType = projectType ?? (site.kind === 'hoa-common-area' ? 'residential' : 'non-residential');
     const etoIn = days.reduce((s, d) => s + d.etoMm, 0) / 25.4;
     const rainIn = days.reduce((s, d) => s + d.rainMm, 0) / 25.4;

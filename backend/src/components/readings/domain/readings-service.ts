@@ -48,6 +48,7 @@ export class ReadingsService {
     await this.budgetCache.ensure(principal, [siteId], months);
     const budgets = await this.budgetCache.months([siteId], months[0]!, months[months.length - 1]!);
     const use = new Map((await this.dailyUse.daily(siteId, from, to)).map((d) => [d.localDate, d]));
+    const engineDays = await this.budgetCache.daily(principal, siteId, months[0]!, months[months.length - 1]!);
     // ETo for the whole months, so each day's share of its month's budget is known even at the range's edges.
     const weather = await this.repo.weather(siteId, `${months[0]}-01`, lastDayOfMonth(months[months.length - 1]!));
     const days: OverviewDay[] = [];
@@ -57,7 +58,7 @@ export class ReadingsService {
       days.push({
         date: d,
         useGallons: use.get(d)?.gallons ?? null,
-        budgetGallons: dailyBudget(d, budgets.find((b) => b.month === month)?.gallons ?? null, weather),
+        budgetGallons: dailyBudget(d, budgets.find((b) => b.month === month)?.gallons ?? null, engineDays, weather),
         etoMm: w?.etoMm ?? null,
         rainMm: w?.rainMm ?? null,
         coveredMinutes: use.get(d)?.coveredMinutes ?? 0,
@@ -130,6 +131,8 @@ export class ReadingsService {
       else if (u.coveredMinutes < daysInMonth(month) * 1440 * COMPLETE_SHARE) flags.push('partial-data');
       if (budgetGallons === null) flags.push('no-budget');
       if ((b?.filledDays ?? 0) > 0) flags.push('weather-filled');
+      // The cache keeps a partial month's budget for its covered days, with the note in `problem`.
+      if (budgetGallons !== null && b?.problem) flags.push('partial-budget');
       return {
         month,
         useGallons,
@@ -184,20 +187,30 @@ export class ReadingsService {
   }
 }
 
-/** The month's budget spread over its days in proportion to each day's ETo (evenly when ETo is missing). */
+/**
+ * The month's budget on one day: in proportion to the engine's own daily budget (each day's ETo and effective rain),
+ * so the days of a month sum to the month's budget; by ETo alone when the engine had nothing for the month, and
+ * evenly when ETo is missing too. A day a partial month's budget does not cover gets none.
+ */
 function dailyBudget(
   date: string,
   monthBudget: number | null,
+  engineDays: Map<string, number>,
   weather: Map<string, { etoMm: number | null }>,
 ): number | null {
   if (monthBudget === null) return null;
   const month = date.slice(0, 7);
-  const n = daysInMonth(month);
-  let total = 0;
-  for (let i = 1; i <= n; i++) {
-    const eto = weather.get(`${month}-${String(i).padStart(2, '0')}`)?.etoMm;
-    if (eto === null || eto === undefined) return monthBudget / n;
-    total += eto;
+  const dates = Array.from({ length: daysInMonth(month) }, (_, i) => `${month}-${String(i + 1).padStart(2, '0')}`);
+  const shape = (d: string) => engineDays.get(d);
+  if (dates.some((d) => shape(d) !== undefined)) {
+    const total = dates.reduce((s, d) => s + (shape(d) ?? 0), 0);
+    if (shape(date) === undefined) return 0;
+    return total > 0
+      ? (monthBudget * shape(date)!) / total
+      : monthBudget / dates.filter((d) => shape(d) !== undefined).length;
   }
-  return total > 0 ? (monthBudget * (weather.get(date)!.etoMm ?? 0)) / total : monthBudget / n;
+  const eto = dates.map((d) => weather.get(d)?.etoMm);
+  if (eto.some((e) => e === null || e === undefined)) return monthBudget / dates.length;
+  const total = eto.reduce((s: number, e) => s + e!, 0);
+  return total > 0 ? (monthBudget * (weather.get(date)!.etoMm ?? 0)) / total : monthBudget / dates.length;
 }

@@ -138,7 +138,7 @@ export class SavingsReportService {
     from: string,
     to: string,
   ): Promise<SavingsMonthDto[]> {
-    const { days } = await this.weather.forBudget(station, `${from}-01`, lastDayOf(to));
+    const { days } = await this.weather.forWholePeriod(station, `${from}-01`, lastDayOf(to));
     const use = new Map((await this.dailyUse.monthly([siteId], `${from}-01`, lastDayOf(to))).map((m) => [m.month, m]));
     const byMonth = new Map<string, SavingsMonthDto>();
     for (const d of days) {

@@ -9,9 +9,17 @@ import type { WatchService } from '../domain/watch-service';
 import type { WatchSettingsService } from '../domain/watch-settings-service';
 
 const MAX_RECHECK_DAYS = 400;
+const MAX_SITES = 5000;
+const siteId = z.number().int().positive();
 const runBody = z
-  .strictObject({ from: z.iso.datetime({ offset: true }).optional(), to: z.iso.datetime({ offset: true }).optional() })
-  .refine((b) => !b.to || b.from, { message: 'a re-check needs "from" as well as "to"', path: ['from'] });
+  .strictObject({
+    from: z.iso.datetime({ offset: true }).optional(),
+    to: z.iso.datetime({ offset: true }).optional(),
+    siteId: siteId.optional(),
+    siteIds: z.array(siteId).min(1).max(MAX_SITES).optional(),
+  })
+  .refine((b) => !b.to || b.from, { message: 'a re-check needs "from" as well as "to"', path: ['from'] })
+  .refine((b) => !(b.siteId && b.siteIds), { message: 'give "siteId" or "siteIds", not both', path: ['siteIds'] });
 const listQuery = z.object({
   page: z.coerce.number().int().min(0).default(0),
   pageSize: z.coerce.number().int().min(1).max(100).default(20),
@@ -45,6 +53,22 @@ export function watchRouter(watch: WatchService, runs: WatchRunsRepository): Rou
     });
   });
 
+  router.get('/runs/:id', async (req, res) => {
+    const principal = principalOf(req);
+    requireAdmin(principal.role);
+    const run = await runs.getWithOwner(validate(idParam, req.params).id);
+    if (!run || (run.organisationId !== null && run.organisationId !== principal.organisationId))
+      throw AppError.notFound('Watch run');
+    const own = new Set(await runs.ownSiteIds(principal.organisationId));
+    const { organisationId: _o, ...dto } = run;
+    res.json({
+      ...dto,
+      errors: dto.errors.filter((e) => own.has(e.siteId)),
+      warnings: dto.warnings.filter((w) => own.has(w.siteId)),
+    });
+  });
+
+  // Starts a run (all the organisation's sites, a list, or one) in the background: 202 with the run to follow.
   router.post('/runs', async (req, res) => {
     const principal = principalOf(req);
     requireAdmin(principal.role);
@@ -56,15 +80,25 @@ export function watchRouter(watch: WatchService, runs: WatchRunsRepository): Rou
       if (to.getTime() - from.getTime() > MAX_RECHECK_DAYS * 86_400_000)
         throw AppError.invalid('from', `a re-check covers at most ${MAX_RECHECK_DAYS} days`);
     }
-    const run = await watch.run({
+    const siteIds = body.siteIds ?? (body.siteId ? [body.siteId] : undefined);
+    if (siteIds) {
+      const own = new Set(await runs.ownSiteIds(principal.organisationId));
+      const foreign = siteIds.find((id) => !own.has(id));
+      if (foreign !== undefined) throw AppError.notFound(`Site ${foreign}`);
+    }
+    const started = await watch.start({
       trigger: from ? 'recheck' : 'manual',
       organisationId: principal.organisationId,
       requestedBy: principal.userId,
+      ...(siteIds ? { siteIds: [...new Set(siteIds)] } : {}),
       fromUtc: from,
       toUtc: to,
     });
-    if (!run) throw new AppError('conflict', 'The watch is running already; try again when it has finished.');
-    res.status(201).json(run);
+    if (!started) throw new AppError('conflict', 'The watch is running already; try again when it has finished.');
+    res
+      .status(202)
+      .location(`/api/watch/runs/${started.runId}`)
+      .json(await runs.get(started.runId));
   });
 
   return router;

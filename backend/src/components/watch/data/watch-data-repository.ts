@@ -7,6 +7,7 @@ export interface WatchSiteRow {
   organisationId: number;
   name: string;
   timeZone: string;
+  weatherStationId: number | null;
 }
 
 export interface SiteSettingsRow {
@@ -26,12 +27,24 @@ export class WatchDataRepository {
   constructor(private readonly db: DataSource) {}
 
   async sites(organisationId: number | null): Promise<WatchSiteRow[]> {
-    const rows: { id: number; organisation_id: number; name: string; time_zone: string }[] = await this.db.query(
-      `SELECT id, organisation_id, name, time_zone FROM site
+    const rows: {
+      id: number;
+      organisation_id: number;
+      name: string;
+      time_zone: string;
+      weather_station_id: number | null;
+    }[] = await this.db.query(
+      `SELECT id, organisation_id, name, time_zone, weather_station_id FROM site
         ${organisationId === null ? '' : 'WHERE organisation_id = ?'} ORDER BY id`,
       organisationId === null ? [] : [organisationId],
     );
-    return rows.map((r) => ({ siteId: r.id, organisationId: r.organisation_id, name: r.name, timeZone: r.time_zone }));
+    return rows.map((r) => ({
+      siteId: r.id,
+      organisationId: r.organisation_id,
+      name: r.name,
+      timeZone: r.time_zone,
+      weatherStationId: r.weather_station_id,
+    }));
   }
 
   async settingsOf(siteIds: number[]): Promise<Map<number, SiteSettingsRow>> {
@@ -156,20 +169,6 @@ export class WatchDataRepository {
       cause: r.cause,
       ...(r.measured_gallons === null ? {} : { measuredGallons: Number(r.measured_gallons) }),
     }));
-  }
-
-  /** Cached monthly budgets (filled by the budget engine for the portfolio), when present. */
-  async cachedMonthlyBudgets(
-    siteId: number,
-    fromMonth: string,
-    toMonth: string,
-  ): Promise<{ month: string; gallons: number }[]> {
-    const rows: { month: string; gallons: number }[] = await this.db.query(
-      `SELECT month, gallons FROM site_monthly_budget WHERE site_id = ? AND month BETWEEN ? AND ?
-        AND gallons IS NOT NULL ORDER BY month`,
-      [siteId, fromMonth, toMonth],
-    );
-    return rows.map((r) => ({ month: r.month, gallons: Number(r.gallons) }));
   }
 
   async saveState(siteId: number, lastDataUtc: Date | null, asOfUtc: Date, lastNight: string | null): Promise<void> {

@@ -20,6 +20,12 @@ export class WatchRunEntity {
   @Column({ type: 'int', unsigned: true, name: 'alerts_updated' }) alertsUpdated!: number;
   @Column({ type: 'int', unsigned: true, name: 'alerts_reopened' }) alertsReopened!: number;
   @Column({ type: 'int', unsigned: true, name: 'mails_queued' }) mailsQueued!: number;
+  /** JSON array of site ids when the run covers chosen sites only. */
+  @Column({ type: 'text', name: 'site_ids', nullable: true }) siteIds!: string | null;
+  @Column({ type: 'int', unsigned: true, name: 'sites_total', default: 0 }) sitesTotal!: number;
+  @Column({ type: 'int', unsigned: true, name: 'sites_done', default: 0 }) sitesDone!: number;
+  /** JSON array of { siteId, siteName, message }: checks skipped or weakened, not failures. */
+  @Column({ type: 'mediumtext', name: 'warnings', nullable: true }) warnings!: string | null;
   /** JSON array of { siteId, message }. */
   @Column({ type: 'mediumtext', name: 'errors', nullable: true }) errors!: string | null;
 }

@@ -17,6 +17,10 @@ interface RunRow {
   alerts_reopened: number;
   mails_queued: number;
   errors: string | null;
+  warnings: string | null;
+  site_ids: string | null;
+  sites_total: number;
+  sites_done: number;
   organisation_id: number | null;
 }
 
@@ -30,22 +34,50 @@ export class WatchRunsRepository {
   constructor(private readonly db: DataSource) {}
 
   async start(
-    r: { trigger: WatchRunDto['trigger']; organisationId: number | null; requestedBy: number | null; fromUtc?: Date },
+    r: {
+      trigger: WatchRunDto['trigger'];
+      organisationId: number | null;
+      requestedBy: number | null;
+      fromUtc?: Date;
+      siteIds?: number[];
+    },
     asOf: Date,
   ): Promise<number> {
     const result: { insertId: number } = await this.db.query(
       `INSERT INTO watch_run (organisation_id, requested_by, \`trigger\`, status, range_from_utc,
-        range_to_utc, started_at) VALUES (?, ?, ?, 'running', ?, ?, ?)`,
-      [r.organisationId, r.requestedBy, r.trigger, r.fromUtc ?? null, asOf, new Date()],
+        range_to_utc, started_at, site_ids) VALUES (?, ?, ?, 'running', ?, ?, ?, ?)`,
+      [
+        r.organisationId,
+        r.requestedBy,
+        r.trigger,
+        r.fromUtc ?? null,
+        asOf,
+        new Date(),
+        r.siteIds ? JSON.stringify(r.siteIds) : null,
+      ],
     );
     return result.insertId;
   }
 
-  async finish(id: number, status: 'done' | 'failed', c: RunCounts, errors: WatchRunDto['errors']): Promise<void> {
+  async progress(id: number, sitesTotal: number, sitesDone: number): Promise<void> {
+    await this.db.query('UPDATE watch_run SET sites_total = ?, sites_done = ? WHERE id = ?', [
+      sitesTotal,
+      sitesDone,
+      id,
+    ]);
+  }
+
+  async finish(
+    id: number,
+    status: 'done' | 'failed',
+    c: RunCounts,
+    notes: { errors: WatchRunDto['errors']; warnings: WatchRunDto['warnings'] },
+  ): Promise<void> {
     await this.db.query(
       `UPDATE watch_run SET status = ?, finished_at = ?, sites_checked = ?, sites_skipped = ?,
         findings = ?, alerts_raised = ?, alerts_updated = ?,
-        alerts_reopened = ?, mails_queued = ?, errors = ? WHERE id = ?`,
+        alerts_reopened = ?, mails_queued = ?, errors = ?, warnings = ?,
+        sites_done = sites_total WHERE id = ?`,
       [
         status,
         new Date(),
@@ -56,7 +88,8 @@ export class WatchRunsRepository {
         c.alertsUpdated,
         c.alertsReopened,
         c.mailsQueued,
-        JSON.stringify(errors),
+        JSON.stringify(notes.errors),
+        JSON.stringify(notes.warnings),
         id,
       ],
     );
@@ -75,6 +108,12 @@ export class WatchRunsRepository {
   }
 
   /** The organisation's own runs and the scheduled runs over every site, newest first. */
+  /** One run, with the organisation that asked for it (null for the scheduled run over every site). */
+  async getWithOwner(id: number): Promise<(WatchRunDto & { organisationId: number | null }) | null> {
+    const [row] = (await this.db.query('SELECT * FROM watch_run WHERE id = ?', [id])) as RunRow[];
+    return row ? { ...toDto(row), organisationId: row.organisation_id } : null;
+  }
+
   async list(
     organisationId: number,
     page: number,
@@ -108,6 +147,10 @@ function toDto(r: RunRow): WatchRunDto {
     alertsUpdated: r.alerts_updated,
     alertsReopened: r.alerts_reopened,
     mailsQueued: r.mails_queued,
+    siteIds: r.site_ids ? (JSON.parse(r.site_ids) as number[]) : null,
+    sitesTotal: r.sites_total,
+    sitesDone: r.sites_done,
     errors: r.errors ? (JSON.parse(r.errors) as WatchRunDto['errors']) : [],
+    warnings: r.warnings ? (JSON.parse(r.warnings) as WatchRunDto['warnings']) : [],
   };
 }

@@ -16,38 +16,52 @@ describe('planSiteCheck', () => {
   it(
     'when a site has data newer than its last check, then it is read ' + 'from the look-back before the first new hour',
     () => {
-      const plan = planSiteCheck('manual', undefined, LA, state(25), new Date(asOf.getTime() - H), asOf, 4);
+      const plan = planSiteCheck({
+        trigger: 'manual',
+        timeZone: LA,
+        state: state(25),
+        latest: new Date(asOf.getTime() - H),
+        asOf: asOf,
+        localHour: 4,
+      });
       expect(plan).toEqual({ fromUtc: new Date(asOf.getTime() - 25 * H - LOOK_BACK_MS), night: null });
     },
   );
 
   it('when nothing new arrived and the silence is not news, then the site is skipped', () => {
-    expect(planSiteCheck('manual', undefined, LA, state(2), new Date(asOf.getTime() - 2 * H), asOf, 4)).toBeNull();
+    expect(
+      planSiteCheck({
+        trigger: 'manual',
+        timeZone: LA,
+        state: state(2),
+        latest: new Date(asOf.getTime() - 2 * H),
+        asOf: asOf,
+        localHour: 4,
+      }),
+    ).toBeNull();
   });
 
   it('when a meter has just been silent for longer than the silent-meter threshold, then it is checked once', () => {
     const latest = new Date(asOf.getTime() - 50 * H);
     expect(
-      planSiteCheck(
-        'manual',
-        undefined,
-        LA,
-        { ...state(50), lastCheckedAsOfUtc: new Date(asOf.getTime() - 24 * H) },
-        latest,
-        asOf,
-        4,
-      ),
+      planSiteCheck({
+        trigger: 'manual',
+        timeZone: LA,
+        state: { ...state(50), lastCheckedAsOfUtc: new Date(asOf.getTime() - 24 * H) },
+        latest: latest,
+        asOf: asOf,
+        localHour: 4,
+      }),
     ).not.toBeNull();
     expect(
-      planSiteCheck(
-        'manual',
-        undefined,
-        LA,
-        { ...state(50), lastCheckedAsOfUtc: new Date(asOf.getTime() - H) },
-        latest,
-        asOf,
-        4,
-      ),
+      planSiteCheck({
+        trigger: 'manual',
+        timeZone: LA,
+        state: { ...state(50), lastCheckedAsOfUtc: new Date(asOf.getTime() - H) },
+        latest: latest,
+        asOf: asOf,
+        localHour: 4,
+      }),
     ).toBeNull();
   });
 
@@ -55,19 +69,63 @@ describe('planSiteCheck', () => {
     'when the schedule ticks, then only sites whose local clock passed ' + '04:00 and whose night is unchecked are due',
     () => {
       const latest = new Date(asOf.getTime() - H);
-      expect(planSiteCheck('scheduled', undefined, LA, state(25), latest, asOf, 4)?.night).toBe('2026-07-15');
-      expect(planSiteCheck('scheduled', undefined, LA, state(25, '2026-07-15'), latest, asOf, 4)).toBeNull();
-      expect(planSiteCheck('scheduled', undefined, 'Australia/Sydney', state(25), latest, asOf, 4)?.night).toBe(
-        '2026-07-15',
-      );
+      expect(
+        planSiteCheck({
+          trigger: 'scheduled',
+          timeZone: LA,
+          state: state(25),
+          latest: latest,
+          asOf: asOf,
+          localHour: 4,
+        })?.night,
+      ).toBe('2026-07-15');
+      expect(
+        planSiteCheck({
+          trigger: 'scheduled',
+          timeZone: LA,
+          state: state(25, '2026-07-15'),
+          latest: latest,
+          asOf: asOf,
+          localHour: 4,
+        }),
+      ).toBeNull();
+      expect(
+        planSiteCheck({
+          trigger: 'scheduled',
+          timeZone: 'Australia/Sydney',
+          state: state(25),
+          latest: latest,
+          asOf: asOf,
+          localHour: 4,
+        })?.night,
+      ).toBe('2026-07-15');
       // 01:30 there
-      expect(planSiteCheck('scheduled', undefined, 'Pacific/Honolulu', state(25), latest, asOf, 4)).toBeNull();
+      expect(
+        planSiteCheck({
+          trigger: 'scheduled',
+          timeZone: 'Pacific/Honolulu',
+          state: state(25),
+          latest: latest,
+          asOf: asOf,
+          localHour: 4,
+        }),
+      ).toBeNull();
     },
   );
 
   it('when a range is re-checked, then it is read whatever was checked before', () => {
     const from = new Date(Date.UTC(2026, 0, 1));
-    expect(planSiteCheck('recheck', from, LA, state(1), null, asOf, 4)).toEqual({
+    expect(
+      planSiteCheck({
+        trigger: 'recheck',
+        rangeFrom: from,
+        timeZone: LA,
+        state: state(1),
+        latest: null,
+        asOf: asOf,
+        localHour: 4,
+      }),
+    ).toEqual({
       fromUtc: new Date(from.getTime() - LOOK_BACK_MS),
       night: null,
     });

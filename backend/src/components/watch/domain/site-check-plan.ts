@@ -9,16 +9,22 @@ import { LOOK_BACK_MS } from './site-watch-input';
  * starts the longest look-back before the first new data. A scheduled run also waits until the site's local clock
  * has passed the night hour, once per local date (`night` is that date, to be remembered).
  */
-export function planSiteCheck(
-  trigger: 'scheduled' | 'manual' | 'recheck',
-  rangeFrom: Date | undefined,
-  timeZone: string,
-  state: SiteStateRow | undefined,
-  latest: Date | null,
-  asOf: Date,
-  localHour: number,
-  overrides?: Record<string, number>,
-): { fromUtc: Date; night: string | null } | null {
+export interface SiteCheckQuestion {
+  trigger: 'scheduled' | 'manual' | 'recheck';
+  /** A re-check's range start. */
+  rangeFrom?: Date;
+  timeZone: string;
+  state: SiteStateRow | undefined;
+  /** The site's newest reading or runtime start. */
+  latest: Date | null;
+  asOf: Date;
+  /** Local hour after which a scheduled night check is due. */
+  localHour: number;
+  overrides?: Record<string, number>;
+}
+
+export function planSiteCheck(q: SiteCheckQuestion): { fromUtc: Date; night: string | null } | null {
+  const { trigger, rangeFrom, timeZone, state, latest, asOf, localHour, overrides } = q;
   if (trigger === 'recheck') return { fromUtc: new Date((rangeFrom ?? asOf).getTime() - LOOK_BACK_MS), night: null };
   let night: string | null = null;
   if (trigger === 'scheduled') {

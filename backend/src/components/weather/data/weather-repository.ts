@@ -186,6 +186,49 @@ export class WeatherRepository {
     return counts;
   }
 
+  /**
+   * The nearest other station of the same organisation within `maxKm` (equirectangular distance, plenty at this
+   * range), to stand in for days a station missed; null when there is none.
+   */
+  async nearestStation(stationId: number, maxKm: number): Promise<{ id: number; name: string; km: number } | null> {
+    const rows: { id: number; name: string; km: number }[] = await this.db.query(
+      `SELECT o.id, o.name, 6371 * SQRT(POW(RADIANS(o.latitude - s.latitude), 2)
+          + POW(RADIANS(o.longitude - s.longitude) * COS(RADIANS((o.latitude + s.latitude) / 2)), 2)) AS km
+        FROM weather_station s JOIN weather_station o ON o.organisation_id = s.organisation_id AND o.id <> s.id
+        WHERE s.id = ? HAVING km <= ? ORDER BY km, o.id LIMIT 1`,
+      [stationId, maxKm],
+    );
+    return rows[0] ? { id: rows[0].id, name: rows[0].name, km: Number(rows[0].km) } : null;
+  }
+
+  /** Per station: its name and organisation, the dates with both values stored in [from, to], and its first date. */
+  async coverage(
+    stationIds: number[],
+    from: string,
+    to: string,
+  ): Promise<{ id: number; name: string; organisationId: number; firstDate: string | null; dates: string[] }[]> {
+    if (stationIds.length === 0) return [];
+    const stations: { id: number; name: string; organisation_id: number; first_date: string | null }[] =
+      await this.db.query(
+        `SELECT ws.id, ws.name, ws.organisation_id,
+           (SELECT DATE_FORMAT(MIN(d.date), '%Y-%m-%d') FROM daily_weather d WHERE d.station_id = ws.id) AS first_date
+         FROM weather_station ws WHERE ws.id IN (?) ORDER BY ws.id`,
+        [stationIds],
+      );
+    const days: { station_id: number; date: string }[] = await this.db.query(
+      `SELECT station_id, DATE_FORMAT(date, '%Y-%m-%d') AS date FROM daily_weather
+        WHERE station_id IN (?) AND date BETWEEN ? AND ? AND eto_mm IS NOT NULL AND rain_mm IS NOT NULL`,
+      [stationIds, from, to],
+    );
+    return stations.map((st) => ({
+      id: st.id,
+      name: st.name,
+      organisationId: st.organisation_id,
+      firstDate: st.first_date,
+      dates: days.filter((d) => d.station_id === st.id).map((d) => d.date),
+    }));
+  }
+
   async normals(stationId: number): Promise<MonthlyNormalDto[]> {
     const rows = await this.db
       .getRepository(MonthlyWeatherNormalEntity)

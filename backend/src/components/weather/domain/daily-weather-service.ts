@@ -3,6 +3,8 @@ import type { DataSource } from 'typeorm';
 import { computeDailyEto } from '@shared/weather/daily-eto';
 import { findGaps, interpretWeatherRows, type ImportedDay, type RowIssue } from '@shared/weather/daily-weather-rows';
 import { validateEto } from '@shared/weather/eto-bounds';
+import { addDays } from '@shared/weather/day-of-year';
+import { weatherByDay, type WeatherDay } from '@shared/weather/weather-by-day';
 import { fillWeatherGaps, type FilledWeatherDay } from '@shared/weather/weather-gap-filling';
 import { WeatherInputError } from '@shared/weather/weather-input-error';
 import {
@@ -20,11 +22,24 @@ import type { DayToStore, StationRecord, WeatherRepository } from '../data/weath
 import type { WeatherFeedClient } from '../data/weather-feed-client';
 import { stationSite, type WeatherStationsService } from './weather-stations-service';
 
-/** Filled days of a station for a budget, with how each stored day's ETo was obtained. */
+/** A station's days for a budget, with how each was obtained; days with no weather at all are listed apart. */
 export interface StationWeather {
   station: StationRecord;
-  days: (FilledWeatherDay & { method: DailyWeatherMethod })[];
+  days: (WeatherDay & { method: DailyWeatherMethod; filledFields: FilledWeatherDay['filledFields'] })[];
+  missingDates: string[];
+  /** The station that stood in for missed days, when one did. */
+  neighbourName: string | null;
 }
+
+export interface StationGaps {
+  stationId: number;
+  stationName: string;
+  organisationId: number;
+  gaps: { from: string; to: string; days: number; late: boolean }[];
+}
+
+/** How far a neighbouring station may be to stand in for a missed day (common practice, no source). */
+const NEIGHBOUR_MAX_KM = 50;
 
 /**
  * Daily weather: CSV uploads, fetches from the feed, and the gap-filled series budgets and charts read.
@@ -164,31 +179,74 @@ export class DailyWeatherService {
   }
 
   /**
-   * The gap-filled weather a site's budget uses. Throws a clear error naming the months when a day is missing
-   * and no normal exists for its month, rather than budgeting on a partial month.
+   * The weather a site's budget uses, day by day (see weather-by-day.ts): measured, else the normals, else estimated
+   * from the station's days around it or the nearest station of the organisation (within 50 km; common practice, no
+   * source), else left out and listed in `missingDates`. Never throws for a gap.
    */
   async forBudget(station: StationRecord, from: string, to: string): Promise<StationWeather> {
-    const stored = await this.weather.days(station.id, from, to);
-    const normals = await this.weather.normals(station.id);
-    let filled;
-    try {
-      filled = fillWeatherGaps(stored, from, to, normals);
-    } catch (error) {
-      throw new AppError(
-        'validation_failed',
-        `Weather for station "${station.name}" is incomplete: ${(error as Error).message}. ` +
-          "Upload or fetch the missing days, or enter the station's monthly normals.",
-        [{ field: 'weather', message: (error as Error).message }],
-      );
+    const [stored, normals] = await Promise.all([
+      this.weather.days(station.id, addDays(from, -7), addDays(to, 7)),
+      this.weather.normals(station.id),
+    ]);
+    let result = weatherByDay({ records: stored, from, to, normals });
+    let neighbourName: string | null = null;
+    if (result.missingDates.length > 0) {
+      const near = await this.weather.nearestStation(station.id, NEIGHBOUR_MAX_KM);
+      if (near) {
+        const neighbour = await this.weather.days(near.id, result.missingDates[0]!, result.missingDates.at(-1)!);
+        result = weatherByDay({ records: stored, from, to, normals, neighbour });
+        neighbourName = near.name;
+      }
     }
     const method = new Map(stored.map((d) => [d.date, d.method]));
     return {
       station,
-      days: filled.days.map((d) => ({
+      neighbourName,
+      missingDates: result.missingDates,
+      days: result.days.map((d) => ({
         ...d,
-        method: d.filledFields.includes('eto') ? 'normal-filled' : (method.get(d.date) ?? 'normal-filled'),
+        filledFields: [],
+        method: d.source === 'station' ? (method.get(d.date) ?? 'measured') : 'normal-filled',
       })),
     };
+  }
+
+  /**
+   * Runs of days each station is missing in [from, to], for the nightly watch's weather-health check; a run that
+   * reaches `to` is the station being late. Days before a station's first day are not gaps.
+   */
+  async gaps(stationIds: number[], from: string, to: string): Promise<StationGaps[]> {
+    const coverage = await this.weather.coverage(stationIds, from, to);
+    return coverage
+      .filter((c) => c.firstDate !== null && c.firstDate <= to)
+      .map((c) => ({
+        stationId: c.id,
+        stationName: c.name,
+        organisationId: c.organisationId,
+        gaps: gapsWithin(c.firstDate! > from ? c.firstDate! : from, to, c.dates).map((g) => ({
+          from: g.from,
+          to: g.to,
+          days: g.days,
+          late: g.to === to,
+        })),
+      }))
+      .filter((c) => c.gaps.length > 0);
+  }
+
+  /** The same, for uses that need every day (annual compliance, savings): a left-out day is a clear error. */
+  async forWholePeriod(station: StationRecord, from: string, to: string): Promise<StationWeather> {
+    const weather = await this.forBudget(station, from, to);
+    if (weather.missingDates.length > 0) {
+      const first = weather.missingDates[0]!;
+      const message = `Weather for ${first} is missing and there is no normal for month ${Number(first.slice(5, 7))}`;
+      throw new AppError(
+        'validation_failed',
+        `Weather for station "${station.name}" is incomplete: ${message} (${weather.missingDates.length} day(s)). ` +
+          "Upload or fetch the missing days, or enter the station's monthly normals.",
+        [{ field: 'weather', message }],
+      );
+    }
+    return weather;
   }
 
   private async store(

@@ -9,6 +9,7 @@ const FLAG_LABELS: Record<MonthlyFlag, string> = {
   'no-data': 'No data',
   'no-budget': 'No budget',
   'weather-filled': 'Weather from normals',
+  'partial-budget': 'Budget covers part of the month',
 };
 
 /** The site's months: use, budget, variance, percent, ETo, rain, cost and flags. Display only. */
