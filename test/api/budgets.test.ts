@@ -168,11 +168,14 @@ describe('site budget', () => {
   });
 
   it(
-    'when a month has missing days and no normals, then 400 says ' +
-      'the weather is incomplete instead of a short budget',
+    'when a month has missing days and no normals, then days near measured ones are estimated, the rest left ' +
+      'out (the month partial with the budget for the days it covers), until a nearby station can stand in',
     async () => {
-      const other = (await createSite(app.db, world.org.id)).id;
-      await manager
+      // An organisation of its own, so no other station of it is near.
+      const own = await createWorld(app.db);
+      const ownManager = await signedIn(app, own.users.manager.email);
+      const other = (await createSite(app.db, own.org.id)).id;
+      await ownManager
         .post(`/api/sites/${other}/hydrozones`, {
           name: 'Bed',
           area: 500,
@@ -181,15 +184,40 @@ describe('site budget', () => {
           irrigationMethod: 'drip',
         })
         .expect(201);
-      const stationId = await stationForSite(manager, other);
-      await manager
+      const stationId = await stationForSite(ownManager, other);
+      await ownManager
         .postText(
           `/api/weather-stations/${stationId}/daily?format=eto-rain`,
           etoRainCsv('2025-06-01', 20, () => [5, 0]),
         )
         .expect(200);
-      const res = await manager.get(`/api/sites/${other}/budget?from=2025-06&to=2025-06`).expect(400);
-      expect(res.body.error.message).toMatch(/2025-06-21.*no normal for month 6/);
+      const res = await ownManager.get(`/api/sites/${other}/budget?from=2025-06&to=2025-06`).expect(200);
+      const [june] = res.body.months;
+      // June 21–25 have at least three measured days within a week: estimated. June 26–30 have not: left out.
+      expect(june).toMatchObject({ month: '2025-06', days: 25, partial: true, estimatedDays: 5 });
+      expect(june.missingDates).toEqual(['2025-06-26', '2025-06-27', '2025-06-28', '2025-06-29', '2025-06-30']);
+      // 25 days × 5 mm × 0.3 × 500 ft² × 144/231 gal/(in·ft²) ÷ 0.81 ÷ 25.4 mm/in (MWELO App. B form)
+      expect(june.gallons).toBeCloseTo((25 * 5 * 0.3 * 500 * (144 / 231)) / 0.81 / 25.4, 6);
+      const daily = june.daily as { gallons: number; estimated: boolean }[];
+      expect(daily.reduce((s, d) => s + d.gallons, 0)).toBeCloseTo(june.gallons, 6);
+      expect(daily.filter((d) => d.estimated)).toHaveLength(5);
+      // Annual compliance still needs every day of the year: it says the weather is incomplete.
+      const compliance = await ownManager.get(`/api/sites/${other}/compliance?year=2025`).expect(400);
+      expect(compliance.body.error.message).toMatch(/incomplete/);
+
+      // A second station of the organisation 5 km away has the last days: they stand in, flagged estimated.
+      const near = await ownManager
+        .post('/api/weather-stations', { name: 'Ridge gauge', latitude: 36.465, longitude: -119.87, elevationM: 110 })
+        .expect(201);
+      await ownManager
+        .postText(
+          `/api/weather-stations/${near.body.id}/daily?format=eto-rain`,
+          etoRainCsv('2025-06-26', 5, () => [6, 0]),
+        )
+        .expect(200);
+      const filled = (await ownManager.get(`/api/sites/${other}/budget?from=2025-06&to=2025-06`).expect(200)).body;
+      expect(filled.months[0]).toMatchObject({ days: 30, partial: false, estimatedDays: 10, missingDates: [] });
+      expect(filled.sources.join(' ')).toContain('Ridge gauge');
     },
   );
 
