@@ -56,6 +56,8 @@ describe('alerts pages', () => {
         await page.getByRole('link', { name: 'Watch runs' }).click();
         await page.getByRole('button', { name: 'Run now' }).click();
         await page.getByRole('cell', { name: 'manual' }).first().waitFor();
+        // The run goes on in the background; the page follows it until it is done.
+        await page.getByRole('row').nth(1).filter({ hasText: 'done' }).waitFor({ timeout: 60_000 });
         await screenshot(page, 'alerts-runs');
         await page.goto(`${server.url}/alerts`);
         const row = page.getByRole('row').filter({ hasText: siteName }).filter({ hasText: 'Flow that never stops' });

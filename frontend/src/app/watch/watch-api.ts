@@ -22,7 +22,12 @@ export class WatchApi {
     return this.http.get<Page<WatchRunDto>>('/api/watch/runs', { params: queryParams({ page, pageSize }) });
   }
 
-  runNow(range?: { from: string; to: string }): Observable<WatchRunDto> {
-    return this.http.post<WatchRunDto>('/api/watch/runs', range ?? {});
+  /** Starts a run in the background (202): the run to follow, with its progress. */
+  runNow(body: { from?: string; to?: string; siteIds?: number[] } = {}): Observable<WatchRunDto> {
+    return this.http.post<WatchRunDto>('/api/watch/runs', body);
+  }
+
+  run(id: number): Observable<WatchRunDto> {
+    return this.http.get<WatchRunDto>(`/api/watch/runs/${id}`);
   }
 }

@@ -1,11 +1,13 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
+import { SitesApi } from '../../sites/sites-api';
 import { describeApiError } from '../../core/http/api-error';
 import { WatchApi } from '../watch-api';
 
@@ -13,14 +15,32 @@ import { WatchApi } from '../watch-api';
 @Component({
   selector: 'rm-watch-runs',
   host: { class: 'rm-page' },
-  imports: [DatePipe, MatTableModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule],
+  imports: [
+    DatePipe,
+    MatTableModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+  ],
   template: `
     <h1>Watch runs</h1>
     <p class="intro">
       The watch checks each site every night after 04:00 site time, reading only sites with new data. Run it now, or
-      re-check a range after late uploads. Times below are in your browser's zone.
+      re-check a range after late uploads (its nights are replayed in order, so each alert keeps the night it would
+      first have been seen). Leave the sites empty for all of them. Runs go on in the background; this page follows
+      them. Times below are in your browser's zone.
     </p>
     <div class="controls">
+      <mat-form-field class="sites"
+        ><mat-label>Sites</mat-label
+        ><mat-select multiple [value]="chosen()" (selectionChange)="chosen.set($event.value)">
+          @for (s of sites(); track s.id) {
+            <mat-option [value]="s.id">{{ s.name }}</mat-option>
+          }
+        </mat-select></mat-form-field
+      >
       <button mat-flat-button type="button" [disabled]="busy()" (click)="run()">Run now</button>
       <mat-form-field
         ><mat-label>Re-check from</mat-label
@@ -51,7 +71,17 @@ import { WatchApi } from '../watch-api';
       >
       <ng-container matColumnDef="status"
         ><th mat-header-cell *matHeaderCellDef>Status</th>
-        <td mat-cell *matCellDef="let r">{{ r.status }}</td></ng-container
+        <td mat-cell *matCellDef="let r">
+          {{ r.status }}
+          @if (r.status === 'running') {
+            <mat-progress-bar
+              mode="determinate"
+              [value]="r.sitesTotal ? (100 * r.sitesDone) / r.sitesTotal : 0"
+              [attr.aria-label]="'Sites done: ' + r.sitesDone + ' of ' + r.sitesTotal"
+            />
+            <span class="progress">{{ r.sitesDone }} of {{ r.sitesTotal }} sites</span>
+          }
+        </td></ng-container
       >
       <ng-container matColumnDef="seconds"
         ><th mat-header-cell *matHeaderCellDef>Took</th>
@@ -81,6 +111,16 @@ import { WatchApi } from '../watch-api';
           }
         </td></ng-container
       >
+      <ng-container matColumnDef="warnings"
+        ><th mat-header-cell *matHeaderCellDef>Checked on weaker data</th>
+        <td mat-cell *matCellDef="let r">
+          @for (w of r.warnings; track $index) {
+            <div [class.setup]="w.setupOnly">{{ w.siteName }}: {{ w.message }}</div>
+          } @empty {
+            none
+          }
+        </td></ng-container
+      >
       <tr mat-header-row *matHeaderRowDef="columns"></tr>
       <tr mat-row *matRowDef="let row; columns: columns"></tr>
       <tr class="mat-row" *matNoDataRow>
@@ -104,14 +144,38 @@ import { WatchApi } from '../watch-api';
     .error {
       color: #a3261b;
     }
+    .sites {
+      min-width: 240px;
+    }
+    .progress,
+    .setup {
+      color: #5f6368;
+      font-size: 0.85em;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class WatchRuns {
   private readonly api = inject(WatchApi);
-  protected readonly columns = ['started', 'trigger', 'status', 'seconds', 'sites', 'alerts', 'mails', 'errors'];
+  private readonly sitesApi = inject(SitesApi);
+  protected readonly columns = [
+    'started',
+    'trigger',
+    'status',
+    'seconds',
+    'sites',
+    'alerts',
+    'mails',
+    'errors',
+    'warnings',
+  ];
   protected readonly runs = rxResource({ stream: () => this.api.runs(0, 50) });
   protected readonly rows = computed(() => (this.runs.hasValue() ? this.runs.value().items : []));
+  private readonly siteList = rxResource({
+    stream: () => this.sitesApi.list({ page: 0, pageSize: 100, sort: 'name', dir: 'asc', q: '', tag: '', kind: '' }),
+  });
+  protected readonly sites = computed(() => (this.siteList.hasValue() ? this.siteList.value().items : []));
+  protected readonly chosen = signal<number[]>([]);
   protected readonly busy = signal(false);
   protected readonly from = signal('');
   protected readonly to = signal('');
@@ -122,6 +186,16 @@ export class WatchRuns {
       (this.runs.error() ? describeApiError(this.runs.error(), 'The runs could not be loaded.').message : null),
   );
 
+  constructor() {
+    // While a run is going, follow its progress.
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    effect(() => {
+      clearTimeout(timer);
+      if (this.rows().some((r) => r.status === 'running')) timer = setTimeout(() => this.runs.reload(), 2000);
+    });
+    inject(DestroyRef).onDestroy(() => clearTimeout(timer));
+  }
+
   protected seconds(r: { startedAt: string; finishedAt: string | null }): string {
     return r.finishedAt ? `${((Date.parse(r.finishedAt) - Date.parse(r.startedAt)) / 1000).toFixed(1)} s` : 'running';
   }
@@ -130,7 +204,10 @@ export class WatchRuns {
     this.busy.set(true);
     this.actionError.set(null);
     // Dates are taken as UTC midnights; the watch adds each detector's look-back before "from" by itself.
-    const body = range ? { from: `${this.from()}T00:00:00Z`, to: `${this.to()}T23:59:59Z` } : undefined;
+    const body = {
+      ...(range ? { from: `${this.from()}T00:00:00Z`, to: `${this.to()}T23:59:59Z` } : {}),
+      ...(this.chosen().length ? { siteIds: this.chosen() } : {}),
+    };
     this.api.runNow(body).subscribe({
       next: () => (this.busy.set(false), this.runs.reload()),
       error: (err: unknown) => (
