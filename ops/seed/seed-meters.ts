@@ -61,13 +61,13 @@ const PLACEMENTS: Array<{
         window: [22, 23, 0, 1],
         broken: { from: '2026-11-26', to: '2026-11-28' },
       },
-      // A valve that stuck open after the program ended, one night in November.
+      // A valve that stuck open as the program ended, one night in November, at about a station's design flow.
       {
         meterRef: 'HOA-NORTH-02',
         wateringGph: 240,
         baseGph: 2,
         window: [22, 23, 0, 1],
-        extra: [{ date: '2026-11-21', hours: [2, 3, 4, 5], gph: 420 }],
+        extra: [{ date: '2026-11-21', hours: [2, 3, 4, 5], gph: 560 }],
         broken: { from: '2026-11-26', to: '2026-11-28' },
       },
     ],

@@ -38,7 +38,7 @@ export function stationGapFinding(facts: StationGapFacts): Finding {
     detectedAtUtc: end,
     ongoing: gap.late,
     severity: gap.late || gap.days >= 3 ? 'act-soon' : 'watch',
-    evidence: { stationId: station.id, missingDays: gap.days, sitesUsing: facts.sitesUsing.length },
+    evidence: { missingDays: gap.days, sitesUsingStation: facts.sitesUsing.length },
     series: [],
     waterLostGal: null,
     moneyLost: null,

@@ -41,6 +41,10 @@ function budget(unitSystem: 'us' | 'metric'): SiteBudgetDto {
       {
         month: '2025-06',
         days: 30,
+        partial: false,
+        missingDates: [],
+        estimatedDays: 0,
+        daily: [],
         etoMm: 152.4,
         rainMm: 0,
         filledDays: 0,
@@ -54,6 +58,10 @@ function budget(unitSystem: 'us' | 'metric'): SiteBudgetDto {
       {
         month: '2025-07',
         days: 31,
+        partial: false,
+        missingDates: [],
+        estimatedDays: 0,
+        daily: [],
         etoMm: 152.4,
         rainMm: 25.4,
         filledDays: 2,
