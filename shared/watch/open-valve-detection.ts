@@ -68,8 +68,8 @@ function runsEndingBefore(timeline: readonly TimelineHour[], runs: readonly Zone
 
 /**
  * The run whose end best explains the extra: its zone's design flow matches the rate within the tolerance, and in
- * the hours between its end and the first quiet hour the metered excess is what the rate gives for the minutes
- * after that end (no extra before it).
+ * the hours around its end the metered excess is no more than the rate gives for the minutes after that end (no
+ * extra before it).
  */
 function bestSuspect(
   timeline: readonly TimelineHour[],
@@ -91,9 +91,11 @@ function bestSuspect(
       if (h.gallons === null) continue;
       const minutesAfter = Math.max(0, Math.min(60, (h.startUtc + HOUR_MS - endUtc) / 60_000));
       const predicted = (rateGph * minutesAfter) / 60;
-      const gap = Math.abs(excessOf(h, baseGph) - predicted);
-      misfit += gap;
-      if (gap > tolerance * rateGph + ctx.thresholds.overVolumeHourTolerance * h.expectedGal + ROUNDING_GAL)
+      const over = excessOf(h, baseGph) - predicted;
+      misfit += Math.abs(over);
+      // Extra water before the run's end means the flow did not start there. Less than the design flows predict
+      // says only that the records are high, which is common.
+      if (over > tolerance * rateGph + ctx.thresholds.overVolumeHourTolerance * h.expectedGal + ROUNDING_GAL)
         fits = false;
     }
     if (fits && (!best || misfit < best.misfit)) best = { s: { zone, run, endUtc }, misfit };
