@@ -54,10 +54,23 @@ describe('alerts pages', () => {
         await page.getByRole('link', { name: 'Alerts' }).click();
         await page.getByRole('heading', { name: 'Alerts', level: 1 }).waitFor();
         await page.getByRole('link', { name: 'Watch runs' }).click();
+        const started = page.waitForResponse(
+          (r) => r.url().endsWith('/api/watch/runs') && r.request().method() === 'POST',
+        );
         await page.getByRole('button', { name: 'Run now' }).click();
-        await page.getByRole('cell', { name: 'manual' }).first().waitFor();
-        // The run goes on in the background; the page follows it until it is done.
-        await page.getByRole('row').nth(1).filter({ hasText: 'done' }).waitFor({ timeout: 60_000 });
+        const runId = ((await (await started).json()) as { id: number }).id;
+        // The run goes on in the background; the page follows it, and so does the test, until it is done.
+        await expect
+          .poll(
+            async () =>
+              ((await (await page.request.get(`${server.url}/api/watch/runs/${runId}`)).json()) as { status: string })
+                .status,
+            {
+              timeout: 60_000,
+            },
+          )
+          .toBe('done');
+        await page.getByRole('row').filter({ hasText: 'running' }).first().waitFor({ state: 'detached' });
         await screenshot(page, 'alerts-runs');
         await page.goto(`${server.url}/alerts`);
         const row = page.getByRole('row').filter({ hasText: siteName }).filter({ hasText: 'Flow that never stops' });

@@ -9,6 +9,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { SitesApi } from '../../sites/sites-api';
 import { describeApiError } from '../../core/http/api-error';
+import type { WatchRunDto, WatchRunNote } from '@shared/watch/watch-dto';
 import { WatchApi } from '../watch-api';
 
 /** Administrators: the watch's run history, "run now", and a re-check of a date range. */
@@ -114,9 +115,13 @@ import { WatchApi } from '../watch-api';
       <ng-container matColumnDef="warnings"
         ><th mat-header-cell *matHeaderCellDef>Checked on weaker data</th>
         <td mat-cell *matCellDef="let r">
-          @for (w of r.warnings; track $index) {
-            <div [class.setup]="w.setupOnly">{{ w.siteName }}: {{ w.message }}</div>
-          } @empty {
+          @for (w of dataWarnings(r); track $index) {
+            <div>{{ w.siteName }}: {{ w.message }}</div>
+          }
+          @if (setupSites(r); as names) {
+            <div class="setup">Not set up for the overspend check (no hydrozones or weather station): {{ names }}</div>
+          }
+          @if (r.warnings.length === 0) {
             none
           }
         </td></ng-container
@@ -194,6 +199,17 @@ export class WatchRuns {
       if (this.rows().some((r) => r.status === 'running')) timer = setTimeout(() => this.runs.reload(), 2000);
     });
     inject(DestroyRef).onDestroy(() => clearTimeout(timer));
+  }
+
+  /** Warnings about data (estimated or partial budgets, checks skipped), one line each. */
+  protected dataWarnings(r: WatchRunDto): WatchRunNote[] {
+    return r.warnings.filter((w) => !w.setupOnly);
+  }
+
+  /** Sites simply not set up for overspend yet, as one line of names. */
+  protected setupSites(r: WatchRunDto): string {
+    const names = r.warnings.filter((w) => w.setupOnly).map((w) => w.siteName);
+    return names.length > 8 ? `${names.slice(0, 8).join(', ')} and ${names.length - 8} more` : names.join(', ');
   }
 
   protected seconds(r: { startedAt: string; finishedAt: string | null }): string {
