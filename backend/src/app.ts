@@ -12,6 +12,8 @@ import { createApiKeys } from './components/api-keys/api-keys-module';
 import { createAudit } from './components/audit/audit-module';
 import { createAuth } from './components/auth/auth-module';
 import { createBudgets } from './components/budgets/budgets-module';
+import { createEtaf } from './components/etaf/etaf-module';
+import { createFieldAudits } from './components/field-audits/field-audits-module';
 import { createHealth } from './components/health/health-module';
 import { createHydrozones } from './components/hydrozones/hydrozones-module';
 import { createMail } from './components/mail/mail-module';
@@ -19,6 +21,7 @@ import type { MailQueue } from './components/mail/domain/mail-queue';
 import { createMeters } from './components/meters/meters-module';
 import { createOrganisations } from './components/organisations/organisations-module';
 import { createOutbox } from './components/outbox/outbox-module';
+import { createPlanner } from './components/planner/planner-module';
 import { createPortfolio } from './components/portfolio/portfolio-module';
 import { createRates } from './components/rates/rates-module';
 import { createReadings } from './components/readings/readings-module';
@@ -35,6 +38,7 @@ import { MariaDbRateLimitStore } from './platform/auth/mariadb-rate-limit-store'
 import { createSessionMiddleware } from './platform/auth/session';
 import { errorHandler, notFoundHandler } from './platform/error-handler';
 import type { Mailer } from './platform/mail/mailer';
+import { LocalFileStore } from './platform/storage/local-file-store';
 
 export const VERSION = '0.1.0';
 
@@ -124,6 +128,22 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     alerts,
     dailyWeather: weather.daily,
   });
+  // Field work: irrigation audits (photos in the upload store), what-if plans, achieved ETAF.
+  const etaf = createEtaf({ db, sites: sites.service, budgetCache: budgets.cache, audit: auditLog });
+  const fieldAudits = createFieldAudits({
+    ...siteAccess,
+    hydrozones: hydrozones.service,
+    budgets: budgets.service,
+    store: new LocalFileStore(config.uploads.dir),
+  });
+  const planner = createPlanner({
+    ...siteAccess,
+    hydrozones: hydrozones.service,
+    budgets: budgets.service,
+    rates: rates.service,
+    etaf: etaf.service,
+    savings: savings.projects,
+  });
   const session = createSessionMiddleware(config, pool);
 
   const app = express();
@@ -170,6 +190,9 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     audit,
     savings,
     reports,
+    etaf,
+    fieldAudits,
+    planner,
     meters,
     uploads,
     apiKeys,

@@ -112,9 +112,11 @@ export interface ZoneTestResults {
   warnings: string[];
 }
 
-export interface ZoneTestDto extends Required<Omit<ZoneTestInput, 'throatDiameter' | 'throatUnit'>> {
+export interface ZoneTestDto extends Required<Omit<ZoneTestInput, 'throatDiameter' | 'throatUnit' | 'hydrozoneId'>> {
   id: number;
   auditId: number;
+  /** Null once the hydrozone has been deleted; its name and area were copied at test time. */
+  hydrozoneId: number | null;
   throatDiameter: number | null;
   throatUnit: ThroatUnit | null;
   hydrozoneName: string;

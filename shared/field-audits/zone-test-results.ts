@@ -12,7 +12,10 @@ import {
 import type { ZoneTestInput, ZoneTestResults } from './field-audit-dto';
 
 /** Everything a catch-can test says about one zone; throws RangeError when the catches can't be evaluated. */
-export function zoneTestResults(test: ZoneTestInput, hydrozoneAreaFt2: number): ZoneTestResults {
+export function zoneTestResults(
+  test: Pick<ZoneTestInput, 'catches' | 'catchUnit' | 'throatDiameter' | 'throatUnit' | 'runMinutes' | 'headType'>,
+  hydrozoneAreaFt2: number,
+): ZoneTestResults {
   const throat =
     test.throatDiameter != null ? { diameter: test.throatDiameter, unit: test.throatUnit ?? 'in' } : undefined;
   const depths = catchDepthsIn(test.catches, test.catchUnit, throat);

@@ -1,6 +1,6 @@
 /** What-if plans as the API sends and takes them. Volumes in gallons per year, areas in ft². */
 import type { IrrigationMethod } from '../budgets/hydrozone';
-import type { MweloProjectType } from '../budgets/mwelo-allowance';
+import type { EtafBasis } from '../etaf/etaf-dto';
 
 export const PLAN_STATUSES = ['draft', 'carried-out'] as const;
 export type PlanStatus = (typeof PLAN_STATUSES)[number];
@@ -80,7 +80,7 @@ export interface PlanComparisonDto {
   weather: { year: number; stationName: string; etoIn: number; rainIn: number; filledDays: number };
   allowedEtaf: number;
   allowedEtafSource: string;
-  projectType: MweloProjectType;
+  allowedBasis: EtafBasis;
   before: PlanScenarioDto;
   after: PlanScenarioDto;
   savedGal: number;

@@ -36,6 +36,12 @@ import { UploadReplacementEntity } from '../components/uploads/data/upload-repla
 import { UploadEntity } from '../components/uploads/data/upload.entity';
 import { SavingsProjectEntity } from '../components/savings/data/savings-project.entity';
 import { ComplianceNoticeEntity } from '../components/reports/data/compliance-notice.entity';
+import { FieldAuditEntity } from '../components/field-audits/data/field-audit.entity';
+import { FieldAuditFaultEntity } from '../components/field-audits/data/field-audit-fault.entity';
+import { FieldAuditPhotoEntity } from '../components/field-audits/data/field-audit-photo.entity';
+import { FieldAuditZoneTestEntity } from '../components/field-audits/data/field-audit-zone-test.entity';
+import { WhatIfPlanEntity } from '../components/planner/data/what-if-plan.entity';
+import { SiteEtafSettingEntity } from '../components/etaf/data/site-etaf-setting.entity';
 /** Every entity, listed once (explicit imports, so bundled builds need no file globbing). */
 export const ENTITIES = [
   OrganisationEntity,
@@ -78,4 +84,11 @@ export const ENTITIES = [
   WatchRunEntity,
   WatchSiteStateEntity,
   SiteWatchSettingsEntity,
+  // Field work (irrigation audits, what-if plans, allowed ETAF per site)
+  FieldAuditEntity,
+  FieldAuditZoneTestEntity,
+  FieldAuditFaultEntity,
+  FieldAuditPhotoEntity,
+  WhatIfPlanEntity,
+  SiteEtafSettingEntity,
 ];
