@@ -45,9 +45,7 @@ export class PlansRepository {
   }
 
   async insert(em: EntityManager, siteId: number, createdBy: number, input: PlanInput): Promise<number> {
-    const result = await em
-      .getRepository(WhatIfPlanEntity)
-      .insert({ notes: '', siteId, createdBy, ...columns(input) });
+    const result = await em.getRepository(WhatIfPlanEntity).insert({ notes: '', siteId, createdBy, ...columns(input) });
     return Number(result.identifiers[0]!['id']);
   }
 
