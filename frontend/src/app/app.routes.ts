@@ -36,6 +36,7 @@ export const routes: Routes = [
       { path: 'alerts', loadChildren: () => import('./alerts/alerts.routes').then((m) => m.alertsRoutes) },
       { path: 'weather-stations', loadChildren: () => import('./weather/weather.routes').then((m) => m.weatherRoutes) },
       { path: 'reports', loadChildren: () => import('./reports/reports.routes').then((m) => m.reportsRoutes) },
+      { path: 'etaf', loadChildren: () => import('./etaf/etaf.routes').then((m) => m.etafRoutes) },
       { path: 'settings', loadChildren: () => import('./settings/settings.routes').then((m) => m.settingsRoutes) },
       {
         path: 'admin/users',

@@ -58,6 +58,11 @@ export const sitesRoutes: Routes = [
         loadComponent: () => import('../budgets/site-budget/site-budget').then((m) => m.SiteBudget),
       },
       {
+        path: 'audits',
+        loadChildren: () => import('../field-audits/field-audits.routes').then((m) => m.fieldAuditsRoutes),
+      },
+      { path: 'planner', loadChildren: () => import('../planner/planner.routes').then((m) => m.plannerRoutes) },
+      {
         path: 'rates',
         title: 'Water rates · Rillmark',
         loadComponent: () => import('../rates/rate-schedule-list/rate-schedule-list').then((m) => m.RateScheduleList),

@@ -65,6 +65,7 @@ export class Shell {
     if (this.auth.user()?.organisation.role !== 'auditor')
       links.push({ path: '/uploads', label: 'Uploads', icon: 'upload_file' });
     links.push({ path: '/reports', label: 'Reports', icon: 'insights' });
+    links.push({ path: '/etaf', label: 'Achieved ETAF', icon: 'water_drop' });
     links.push({ path: '/alerts', label: 'Alerts', icon: 'notifications_active' });
     if (can.manageUsers) links.push({ path: '/admin/users', label: 'Users', icon: 'group' });
     if (can.viewOutbox) links.push({ path: '/admin/outbox', label: 'Outbox', icon: 'outgoing_mail' });

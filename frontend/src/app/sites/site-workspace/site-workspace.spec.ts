@@ -139,6 +139,8 @@ describe('SiteWorkspace', () => {
       ['Uploads', '/sites/7/uploads'],
       ['Water budget', '/sites/7/budget'],
       ['Rates', '/sites/7/rates'],
+      ['Audits', '/sites/7/audits'],
+      ['Planner', '/sites/7/planner'],
       ['Details', '/sites/7'],
     ]);
     expect(await (await nav.host()).getAttribute('aria-label')).toBe('Site pages');

@@ -9,6 +9,7 @@ import { SITE_KIND_LABELS } from '@shared/sites/site';
 import { formatVolume } from '@shared/units/format-quantity';
 import { map } from 'rxjs';
 import { AlertsApi } from '../../alerts/alerts-api';
+import { AuthStore } from '../../core/auth/auth-store';
 import { describeApiError } from '../../core/http/api-error';
 import { dataAge } from '../../portfolio/sites-table/data-age';
 import { ReadingsApi } from '../../readings/readings-api';
@@ -30,6 +31,8 @@ export const SITE_TABS: readonly Tab[] = [
   { path: 'uploads', label: 'Uploads' },
   { path: 'budget', label: 'Water budget' },
   { path: 'rates', label: 'Rates' },
+  { path: 'audits', label: 'Audits' },
+  { path: 'planner', label: 'Planner' },
   { path: '', label: 'Details' },
 ];
 
@@ -60,7 +63,11 @@ export class SiteWorkspace {
   /** Route parameter. */
   readonly id = input.required<string>();
   protected readonly siteId = computed(() => Number(this.id()));
-  protected readonly tabs = SITE_TABS;
+  private readonly auth = inject(AuthStore);
+  /** What-if plans are not shown to auditors (the server refuses them too). */
+  protected readonly tabs = computed(() =>
+    SITE_TABS.filter((t) => t.path !== 'planner' || this.auth.user()?.organisation.role !== 'auditor'),
+  );
   protected readonly kindLabels = SITE_KIND_LABELS;
 
   protected readonly site = rxResource({
