@@ -7,6 +7,7 @@ import { seedDemo } from './seed-demo';
 import { seedMeters } from './seed-meters';
 import { seedSavings } from './seed-savings';
 import { seedAlerts } from './seed-alerts';
+import { seedFieldWork } from './seed-field-work';
 
 /** `npm run seed`: writes the demo scenario into the configured database (idempotent). */
 const db = createDataSource(loadConfig().db);
@@ -26,6 +27,8 @@ logger.info(
 );
 const savings = await seedSavings(db);
 logger.info(`demo savings seeded: ${savings.readings} daily readings, ${savings.projects} new savings projects`);
+const fieldWork = await seedFieldWork(db, loadConfig());
+logger.info(`demo field work seeded: ${fieldWork.audits} new audits, ${fieldWork.plans} new what-if plans`);
 // Last: the watch reads everything seeded above.
 const watched = await seedAlerts(db, loadConfig());
 logger.info(

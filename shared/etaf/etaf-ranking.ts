@@ -44,7 +44,8 @@ export function etafRows(figures: readonly EtafSiteFigures[]): EtafRowDto[] {
 
 function toRow(f: EtafSiteFigures): EtafRowDto {
   const la = f.landscapeAreaFt2;
-  const etaf = f.etoIn !== null ? achievedEtaf(f.useGal, f.etoIn, la) : null;
+  // No metered day at all is no figure, not an ETAF of zero.
+  const etaf = f.etoIn !== null && f.meteredDays > 0 ? achievedEtaf(f.useGal, f.etoIn, la) : null;
   const allowance = allowanceEtaf(f.allowedEtaf, la, f.specialLandscapeAreaFt2);
   const complete = f.periodDays > 0 && f.meteredDays >= COMPLETE_SHARE * f.periodDays;
   return {
@@ -76,6 +77,7 @@ function toRow(f: EtafSiteFigures): EtafRowDto {
 function problemOf(f: EtafSiteFigures, complete: boolean): string | null {
   if (!(f.landscapeAreaFt2 > 0)) return 'No hydrozones: the landscape area is unknown.';
   if (f.etoIn === null || !(f.etoIn > 0)) return f.problem ?? 'No ETo for the period (link a weather station).';
+  if (f.meteredDays === 0) return 'No metered use in the period.';
   if (!complete) return `Only ${f.meteredDays} of ${f.periodDays} days metered (needs 90 %).`;
   return null;
 }

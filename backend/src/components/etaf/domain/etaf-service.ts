@@ -65,7 +65,7 @@ export class EtafService {
       siteId: site.id,
       ...d,
       isDefault: true,
-      source: `From the kind of site: ${ETAF_BASIS_LABELS[d.basis]} (MWELO 2015 § 492.4)`,
+      source: `From the kind of site: ${d.basis}, MWELO 2015 § 492.4`,
       updatedAt: null,
     };
   }

@@ -16,23 +16,25 @@ import type { EtafBin } from '@shared/etaf/etaf-dto';
         }
       </div>
       <figcaption>{{ caption() }}</figcaption>
-      <table class="rm-visually-hidden">
-        <caption>
-          {{
-            caption()
-          }}
-        </caption>
-        <tr>
-          <th scope="col">Achieved ETAF</th>
-          <th scope="col">Sites</th>
-        </tr>
-        @for (b of bins(); track b.from) {
+      <div class="rm-visually-hidden">
+        <table>
+          <caption>
+            {{
+              caption()
+            }}
+          </caption>
           <tr>
-            <td>{{ b.to === null ? b.from + ' and over' : b.from.toFixed(1) + '–' + b.to.toFixed(1) }}</td>
-            <td>{{ b.count }}</td>
+            <th scope="col">Achieved ETAF</th>
+            <th scope="col">Sites</th>
           </tr>
-        }
-      </table>
+          @for (b of bins(); track b.from) {
+            <tr>
+              <td>{{ b.to === null ? b.from + ' and over' : b.from.toFixed(1) + '–' + b.to.toFixed(1) }}</td>
+              <td>{{ b.count }}</td>
+            </tr>
+          }
+        </table>
+      </div>
     </figure>
   `,
   styles: `

@@ -11,6 +11,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { ETAF_SORTS, type EtafSort } from '@shared/etaf/etaf-dto';
+import { addMonths } from '@shared/portfolio/period';
 import { SITE_KIND_LABELS, SITE_KINDS, type SiteKind } from '@shared/sites/site';
 import { describeApiError } from '../../core/http/api-error';
 import { EtafApi } from '../etaf-api';
@@ -80,6 +81,14 @@ export class EtafPage {
   protected setFilter(apply: () => void): void {
     apply();
     this.page.set(0);
+  }
+
+  protected lastMonths(n: number): void {
+    const { to } = lastTwelveMonths();
+    this.setFilter(() => {
+      this.to.set(to);
+      this.from.set(addMonths(to, -(n - 1)));
+    });
   }
 
   protected turn(e: PageEvent): void {

@@ -109,6 +109,14 @@ export class CatchCanForm implements OnInit {
     }
   });
 
+  /** A new zone brings its own head type when it is one catch cans can measure. */
+  protected pickZone(id: number): void {
+    this.hydrozoneId.set(id);
+    const method = this.zones().find((z) => z.id === id)?.irrigationMethod;
+    if (method && (AUDITED_HEAD_TYPES as readonly string[]).includes(method))
+      this.headType.set(method as AuditedHeadType);
+  }
+
   protected setCanCount(value: number): void {
     const n = Math.max(4, Math.min(this.maxCans, Math.round(Number(value) || 0)));
     this.catches.update((cs) => (n > cs.length ? [...cs, ...Array(n - cs.length).fill(null)] : cs.slice(0, n)));

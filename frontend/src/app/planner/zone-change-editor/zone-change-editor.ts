@@ -25,7 +25,9 @@ import { IRRIGATION_METHOD_LABELS } from '../../hydrozones/hydrozone-labels';
       </p>
       @if (editable()) {
         <div class="quick">
-          <button mat-stroked-button type="button" (click)="patch({ irrigationMethod: 'drip' })">To drip</button>
+          @if (!z.irrigationMethod.includes('drip')) {
+            <button mat-stroked-button type="button" (click)="patch({ irrigationMethod: 'drip' })">To drip</button>
+          }
           <button mat-stroked-button type="button" (click)="patch({ plantFactor: lowWater })">
             Low-water plants (PF {{ lowWater }})
           </button>
