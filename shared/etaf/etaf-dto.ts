@@ -83,9 +83,14 @@ export const ETAF_SORTS = ['rank', 'achievedEtaf', 'galPerFt2', 'percentOfAllowa
 export type EtafSort = (typeof ETAF_SORTS)[number];
 
 export const ETAF_METHOD = [
-  'Achieved ETAF = metered use (gal) ÷ (ETo (in) × landscape area (ft²) × 0.62): the ETAF the site actually watered at, in the units of California MWELO Appendix B.',
-  "ETo is the sum of the site's station's daily ETo over the period (gaps filled from its monthly normals), as on its budget page; rain is not subtracted.",
-  'Allowed ETAF: a setting per site; by default MWELO 2015 § 492.4: 0.55 residential, 0.45 non-residential. With special landscape areas (ETAF 1.0) the allowance works out to ETAF + (1 − ETAF) × SLA ÷ LA, which is the figure a site is held to here.',
+  'Achieved ETAF = metered use (gal) ÷ (ETo (in) × landscape area (ft²) × 0.62): the ETAF the site actually ' +
+    'watered at, in the units of California MWELO Appendix B.',
+  "ETo is the sum of the site's station's daily ETo over the period (gaps filled from its monthly normals), as " +
+    'on its budget page; rain is not subtracted.',
+  'Allowed ETAF: a setting per site; by default MWELO 2015 § 492.4: 0.55 residential, 0.45 non-residential. ' +
+    'With special landscape areas (ETAF 1.0) the allowance works out to ETAF + (1 − ETAF) × SLA ÷ LA, which is ' +
+    'the figure a site is held to here.',
   'Sites with less than 90 % of the period metered are shown but neither ranked nor counted in the distribution.',
-  "Comparable sites: the same kind of site whose ETo over the period is within ±10 % of this site's (a Rillmark rule, no published source).",
+  "Comparable sites: the same kind of site whose ETo over the period is within ±10 % of this site's (a Rillmark " +
+    'rule, no published source).',
 ];

@@ -90,14 +90,16 @@ function scheduleCautions(input: AuditScheduleInput, covered: boolean): string[]
   const cautions: string[] = [];
   if (!covered)
     cautions.push(
-      'The budget does not cover what the driest quarter needs: raise uniformity (level and align heads, match nozzles, fix pressure) before adding minutes.',
+      'The budget does not cover what the driest quarter needs: raise uniformity (level and align heads, match ' +
+        'nozzles, fix pressure) before adding minutes.',
     );
   if (input.soilIntakeInPerHour == null)
     cautions.push('No soil intake rate entered: watch for runoff and split the run into cycles if water puddles.');
   if ((input.slopePercent ?? 0) > 12)
     cautions.push('Steep slope: short cycles with a soak of an hour or more between them (common practice).');
   cautions.push(
-    'Pressure work, backflow preventers and controller wiring follow local code; have licensed professionals install and test them.',
+    'Pressure work, backflow preventers and controller wiring follow local code; have licensed professionals ' +
+      'install and test them.',
   );
   return cautions;
 }

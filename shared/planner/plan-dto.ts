@@ -125,8 +125,11 @@ export const PLAN_SORTS = ['updatedAt', 'title', 'status'] as const;
 export type PlanSort = (typeof PLAN_SORTS)[number];
 
 export const PLAN_CAUTIONS = [
-  'Converting spray to drip: fit a pressure regulator and filter at the valve (drip usually wants about 25–30 psi; common practice, no source) and keep the zone backflow preventer in place.',
+  'Converting spray to drip: fit a pressure regulator and filter at the valve (drip usually wants about 25–30 ' +
+    'psi; common practice, no source) and keep the zone backflow preventer in place.',
   'Removing turf: locate and cap laterals at the valve side; a capped line left under pressure can burst.',
-  'Controllers and rain sensors are wired to mains-powered equipment: switch off power and have a licensed electrician or irrigation professional connect them.',
-  'Watering-day restrictions and local landscape ordinances apply to the new plants as well; check with the water agency.',
+  'Controllers and rain sensors are wired to mains-powered equipment: switch off power and have a licensed ' +
+    'electrician or irrigation professional connect them.',
+  'Watering-day restrictions and local landscape ordinances apply to the new plants as well; check with the ' +
+    'water agency.',
 ];

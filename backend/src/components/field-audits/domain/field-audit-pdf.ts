@@ -11,9 +11,15 @@ export async function fieldAuditPdf(a: FieldAuditDto, photos: PhotoBytes): Promi
   const doc = newPdf(`Irrigation audit — ${a.siteName}`);
   doc.font('bold').fontSize(18).text('Irrigation audit report');
   paragraph(doc, `${a.siteName} · ${a.title}`);
+  const by = a.createdByName ? `${a.organisationName} (${a.createdByName})` : a.organisationName;
+  const pressure = a.staticPressurePsi === null ? 'not recorded' : `${a.staticPressurePsi} psi`;
   muted(
     doc,
-    `Audited ${a.auditedOn} by ${a.organisationName}${a.createdByName ? ` (${a.createdByName})` : ''}. Status: ${a.status}. Static pressure at the point of connection: ${a.staticPressurePsi === null ? 'not recorded' : `${a.staticPressurePsi} psi`}. Run times for ${a.scheduleMonth}, ${a.daysPerWeek} watering days a week.`,
+    [
+      `Audited ${a.auditedOn} by ${by}. Status: ${a.status}.`,
+      `Static pressure at the point of connection: ${pressure}.`,
+      `Run times for ${a.scheduleMonth}, ${a.daysPerWeek} watering days a week.`,
+    ].join(' '),
   );
   if (a.notes) paragraph(doc, a.notes);
   zoneResults(doc, a);

@@ -19,11 +19,16 @@ import type { ZoneTestRecord, ZoneTestsRepository } from '../data/zone-tests-rep
 import type { AuditAccess } from './field-audit-access';
 
 export const FIELD_AUDIT_METHOD = [
-  'Catches in mL are turned into depths by the can opening (1 in³ = 16.387064 mL); the measured precipitation rate is the mean depth ÷ run minutes × 60.',
-  'DU_lq = mean of the lowest quarter of catches ÷ mean of all catches (Keller & Bliesner, Sprinkler and Trickle Irrigation); the lowest quarter is n ÷ 4 cans, rounded.',
-  'Scheduling multiplier SM = 1 ÷ (0.4 + 0.6 × DU_lq) (Irrigation Association auditor practice, from memory); the audited efficiency written to a hydrozone is 1 ÷ SM.',
-  "Run times: the plants' weekly need (ETo × plant factor for the schedule month) ÷ measured rate × 60 × SM, capped by what the zone's water budget allows (budget depth ÷ measured rate × 60).",
-  'Cycle-and-soak: one cycle applies no more than the soil takes in an hour (60 × intake ÷ rate), with the intake reduced on slopes (factors from memory). Common practice, no source.',
+  'Catches in mL are turned into depths by the can opening (1 in³ = 16.387064 mL); the measured precipitation ' +
+    'rate is the mean depth ÷ run minutes × 60.',
+  'DU_lq = mean of the lowest quarter of catches ÷ mean of all catches (Keller & Bliesner, Sprinkler and ' +
+    'Trickle Irrigation); the lowest quarter is n ÷ 4 cans, rounded.',
+  'Scheduling multiplier SM = 1 ÷ (0.4 + 0.6 × DU_lq) (Irrigation Association auditor practice, from memory); ' +
+    'the audited efficiency written to a hydrozone is 1 ÷ SM.',
+  "Run times: the plants' weekly need (ETo × plant factor for the schedule month) ÷ measured rate × 60 × SM, " +
+    "capped by what the zone's water budget allows (budget depth ÷ measured rate × 60).",
+  'Cycle-and-soak: one cycle applies no more than the soil takes in an hour (60 × intake ÷ rate), with the ' +
+    'intake reduced on slopes (factors from memory). Common practice, no source.',
 ];
 
 /** Puts an audit together for the page and the PDF: its tests with results and run times, its faults and photos. */

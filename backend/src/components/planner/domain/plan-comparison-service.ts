@@ -10,10 +10,13 @@ import type { PlanZones } from './plan-zones-source';
 import type { PlansService } from './plans-service';
 
 export const PLAN_METHOD = [
-  'Estimated use is MWELO Appendix B ETWU: (ETo − Eppt) × 0.62 × Σ (plant factor ÷ irrigation efficiency × area), special landscape areas at ETAF 1.0.',
+  'Estimated use is MWELO Appendix B ETWU: (ETo − Eppt) × 0.62 × Σ (plant factor ÷ irrigation efficiency × ' +
+    'area), special landscape areas at ETAF 1.0.',
   "The allowance is MWELO's MAWA: ETo × 0.62 × [ETAF × LA + (1 − ETAF) × SLA], with the site's allowed ETAF.",
-  'A changed irrigation method takes its default efficiency (MWELO App. B note c: 0.75 overhead spray, 0.81 drip) unless another is entered.',
-  'Money is priced month by month at the rate schedule in force today (tiers apply per billing month); use is spread over the months by ETo.',
+  'A changed irrigation method takes its default efficiency (MWELO App. B note c: 0.75 overhead spray, 0.81 ' +
+    'drip) unless another is entered.',
+  'Money is priced month by month at the rate schedule in force today (tiers apply per billing month); use is ' +
+    'spread over the months by ETo.',
   'Simple payback = cost of the work ÷ money saved per year; no interest, inflation or maintenance.',
 ];
 
@@ -91,11 +94,13 @@ function assumptions(
   const out = [`Weather: ${plan.weatherYear} at ${station}; the same year on both sides.`];
   if (plan.rainSensor)
     out.push(
-      "Rain sensor: a quarter of the year's rain is counted as effective precipitation (MWELO's Eppt); a Rillmark modelling choice, not an ordinance rule.",
+      "Rain sensor: a quarter of the year's rain is counted as effective precipitation (MWELO's Eppt); a " +
+        'Rillmark modelling choice, not an ordinance rule.',
     );
   if (plan.smartControllerReductionPercent)
     out.push(
-      `Smart controller: estimated use cut by ${plan.smartControllerReductionPercent} %, as entered — your assumption, not a published figure.`,
+      `Smart controller: estimated use cut by ${plan.smartControllerReductionPercent} %, as entered — ` +
+        'your assumption, not a published figure.',
     );
   out.push(
     schedule

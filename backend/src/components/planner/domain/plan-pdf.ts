@@ -13,7 +13,8 @@ export async function planPdf(plan: PlanDto, c: PlanComparisonDto): Promise<Buff
   if (plan.notes) muted(doc, plan.notes);
   muted(
     doc,
-    `Weather year ${c.weather.year} (${c.weather.stationName}): ETo ${c.weather.etoIn.toFixed(1)} in, rain ${c.weather.rainIn.toFixed(1)} in. Allowed ETAF ${c.allowedEtaf} — ${c.allowedEtafSource}.`,
+    `Weather year ${c.weather.year} (${c.weather.stationName}): ETo ${c.weather.etoIn.toFixed(1)} in, ` +
+      `rain ${c.weather.rainIn.toFixed(1)} in. Allowed ETAF ${c.allowedEtaf} — ${c.allowedEtafSource}.`,
   );
 
   heading(doc, 'Summary per year', 12);
@@ -36,9 +37,16 @@ export async function planPdf(plan: PlanDto, c: PlanComparisonDto): Promise<Buff
     [150, 120, 120, 122],
     ['left', 'right', 'right', 'right'],
   );
+  const share = c.savedPercent === null ? '' : ` (${c.savedPercent.toFixed(1)} %)`;
+  const payback = c.paybackYears === null ? 'not worked out' : `${c.paybackYears.toFixed(1)} years`;
   paragraph(
     doc,
-    `Water saved: ${fmt.gal(c.savedGal)} a year${c.savedPercent === null ? '' : ` (${c.savedPercent.toFixed(1)} %)`}. Money saved: ${money(c.savedMoney)} a year. Cost of the work: ${fmt.money(c.costOfWork, plan.currency)}. Simple payback: ${c.paybackYears === null ? 'not worked out' : `${c.paybackYears.toFixed(1)} years`}.`,
+    [
+      `Water saved: ${fmt.gal(c.savedGal)} a year${share}.`,
+      `Money saved: ${money(c.savedMoney)} a year.`,
+      `Cost of the work: ${fmt.money(c.costOfWork, plan.currency)}.`,
+      `Simple payback: ${payback}.`,
+    ].join(' '),
   );
   barChart(
     doc,

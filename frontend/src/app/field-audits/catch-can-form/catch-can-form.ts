@@ -101,7 +101,11 @@ export class CatchCanForm implements OnInit {
         this.zoneArea() || 1,
       );
       return {
-        text: `Rate ${r.prInPerHour.toFixed(2)} in/h · DU_lq ${Math.round(100 * r.du)} % (${r.rating}) · multiplier ${r.schedulingMultiplier.toFixed(2)}`,
+        text: [
+          `Rate ${r.prInPerHour.toFixed(2)} in/h`,
+          `DU_lq ${Math.round(100 * r.du)} % (${r.rating})`,
+          `multiplier ${r.schedulingMultiplier.toFixed(2)}`,
+        ].join(' · '),
         warnings: r.warnings,
       };
     } catch (err) {
