@@ -198,7 +198,7 @@ export type FieldAuditSort = (typeof FIELD_AUDIT_SORTS)[number];
 /** Shown with every audit: things the person at the site must not skip. */
 export const FIELD_AUDIT_CAUTIONS = [
   'Test only with the backflow preventer in place and working; never remove or bypass it to raise pressure.',
-  'Static pressure above about 80 psi can burst fittings and mists spray heads: have a licensed plumber fit or ' +
+  'Static pressure above about 80 psi can burst fittings and makes spray heads mist: have a licensed plumber fit or ' +
     'adjust a pressure regulator (common practice, no source).',
   'Controller and valve wiring: switch the controller off before opening a valve box; low-voltage wiring still ' +
     'shares boxes with mains power on some sites.',

@@ -64,7 +64,8 @@ export async function planPdf(plan: PlanDto, c: PlanComparisonDto): Promise<Buff
     ['Hydrozone', 'Change', 'ETAF today', 'ETAF after', 'Use today', 'Use after'],
     c.zones.map((z) => [
       z.name,
-      z.changes.join('; ') || 'unchanged',
+      // The embedded Latin subset has no arrow.
+      z.changes.join('; ').replaceAll('→', 'to') || 'unchanged',
       etaf(z.before.etaf),
       z.after.areaFt2 > 0 ? etaf(z.after.etaf) : '—',
       fmt.gal(z.before.etwuGal),
