@@ -1,5 +1,5 @@
 import { addMonths } from '../portfolio/period';
-import type { SavingsChangeKind, SavingsProjectInput } from '../reports/savings-project-dto';
+import type { SavingsChangeKind, SavingsProjectInput } from '../savings/savings-project-dto';
 import type { CarryOutInput, PlanInput } from './plan-dto';
 
 /**

@@ -90,19 +90,22 @@ describe('achieved ETAF', () => {
     expect(standing.peers.count).toBe(3);
   });
 
-  it('when another organisation asks, then it sees only what is shared with it and cannot read or write the rest', async () => {
-    const auditor = await signedIn(app, utility.users.auditor.email);
-    const theirs = (await auditor.get('/api/etaf?from=2025-01&to=2025-12').expect(200)).body;
-    expect(theirs.items.map((r: { siteId: number }) => r.siteId)).toEqual([sites[0]!.id]);
-    await auditor.put(`/api/sites/${sites[0]!.id}/etaf-setting`, { allowedEtaf: 0.3, basis: 'local' }).expect(403);
-    const outsider = await signedIn(app, stranger.users.manager.email);
-    const none = (await outsider.get('/api/etaf?from=2025-01&to=2025-12').expect(200)).body;
-    expect(none.items.some((r: { siteId: number }) => sites.some((s) => s.id === r.siteId))).toBe(false);
-    await outsider.get(`/api/sites/${sites[1]!.id}/etaf`).expect(404);
-    await outsider.get(`/api/sites/${sites[1]!.id}/etaf-setting`).expect(404);
-    await outsider.put(`/api/sites/${sites[1]!.id}/etaf-setting`, { allowedEtaf: 1, basis: 'local' }).expect(404);
-    expect((await manager.get(`/api/sites/${sites[1]!.id}/etaf-setting`).expect(200)).body.isDefault).toBe(true);
-  });
+  it(
+    'when another organisation asks, ' + 'then it sees only what is shared with it and cannot read or write the rest',
+    async () => {
+      const auditor = await signedIn(app, utility.users.auditor.email);
+      const theirs = (await auditor.get('/api/etaf?from=2025-01&to=2025-12').expect(200)).body;
+      expect(theirs.items.map((r: { siteId: number }) => r.siteId)).toEqual([sites[0]!.id]);
+      await auditor.put(`/api/sites/${sites[0]!.id}/etaf-setting`, { allowedEtaf: 0.3, basis: 'local' }).expect(403);
+      const outsider = await signedIn(app, stranger.users.manager.email);
+      const none = (await outsider.get('/api/etaf?from=2025-01&to=2025-12').expect(200)).body;
+      expect(none.items.some((r: { siteId: number }) => sites.some((s) => s.id === r.siteId))).toBe(false);
+      await outsider.get(`/api/sites/${sites[1]!.id}/etaf`).expect(404);
+      await outsider.get(`/api/sites/${sites[1]!.id}/etaf-setting`).expect(404);
+      await outsider.put(`/api/sites/${sites[1]!.id}/etaf-setting`, { allowedEtaf: 1, basis: 'local' }).expect(404);
+      expect((await manager.get(`/api/sites/${sites[1]!.id}/etaf-setting`).expect(200)).body.isDefault).toBe(true);
+    },
+  );
 
   it('when the period is too long or backwards, then it says so', async () => {
     await manager.get('/api/etaf?from=2023-01&to=2025-12').expect(400);

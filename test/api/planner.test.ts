@@ -56,41 +56,47 @@ const planBody = () => ({
 });
 
 describe('what-if planner', () => {
-  it('when a manager plans spray to drip, then ETWU, savings, money and payback follow MWELO and the site rate', async () => {
-    const plan = (await manager.post(`/api/sites/${siteId}/plans`, planBody()).expect(201)).body;
-    const c = (await manager.get(`/api/plans/${plan.id}/comparison`).expect(200)).body;
-    const eto = c.weather.etoIn;
-    // Non-residential office park: allowed ETAF 0.45.
-    expect(c.allowedEtaf).toBe(0.45);
-    expect(c.before.etwuGal).toBeCloseTo(eto * 0.62 * ((0.8 / 0.75) * 12_000 + (0.3 / 0.81) * 6_000), 3);
-    expect(c.after.etwuGal).toBeCloseTo(eto * 0.62 * ((0.2 / 0.81) * 12_000 + (0.3 / 0.81) * 6_000), 3);
-    expect(c.after.mawaGal).toBeCloseTo(c.before.mawaGal, 6);
-    expect(Math.abs(c.savedMoney - (c.savedGal / 1000) * 6)).toBeLessThan(0.13);
-    expect(c.paybackYears).toBeCloseTo(30_000 / c.savedMoney, 9);
-    const text = await pdfText(manager, `/api/plans/${plan.id}/comparison.pdf`);
-    expect(text).toContain('What-if plan: before and after');
-    expect(text).toContain('Simple payback');
-    expect(text).toContain('Entry turf');
-  });
+  it(
+    'when a manager plans spray to drip, ' + 'then ETWU, savings, money and payback follow MWELO and the site rate',
+    async () => {
+      const plan = (await manager.post(`/api/sites/${siteId}/plans`, planBody()).expect(201)).body;
+      const c = (await manager.get(`/api/plans/${plan.id}/comparison`).expect(200)).body;
+      const eto = c.weather.etoIn;
+      // Non-residential office park: allowed ETAF 0.45.
+      expect(c.allowedEtaf).toBe(0.45);
+      expect(c.before.etwuGal).toBeCloseTo(eto * 0.62 * ((0.8 / 0.75) * 12_000 + (0.3 / 0.81) * 6_000), 3);
+      expect(c.after.etwuGal).toBeCloseTo(eto * 0.62 * ((0.2 / 0.81) * 12_000 + (0.3 / 0.81) * 6_000), 3);
+      expect(c.after.mawaGal).toBeCloseTo(c.before.mawaGal, 6);
+      expect(Math.abs(c.savedMoney - (c.savedGal / 1000) * 6)).toBeLessThan(0.13);
+      expect(c.paybackYears).toBeCloseTo(30_000 / c.savedMoney, 9);
+      const text = await pdfText(manager, `/api/plans/${plan.id}/comparison.pdf`);
+      expect(text).toContain('What-if plan: before and after');
+      expect(text).toContain('Simple payback');
+      expect(text).toContain('Entry turf');
+    },
+  );
 
-  it('when the plan is carried out, then a savings project exists with its baseline chosen and the plan is closed', async () => {
-    const plan = (await manager.post(`/api/sites/${siteId}/plans`, planBody()).expect(201)).body;
-    const done = (await manager.post(`/api/plans/${plan.id}/carry-out`, { installedOn: '2026-03-10' }).expect(201))
-      .body;
-    expect(done.plan).toMatchObject({ status: 'carried-out', carriedOutOn: '2026-03-10', canEdit: false });
-    const project = (await manager.get(`/api/savings-projects/${done.project.id}`).expect(200)).body;
-    expect(project).toMatchObject({
-      siteId,
-      changeKind: 'spray-to-drip',
-      baselineFrom: '2025-03',
-      baselineTo: '2026-02',
-      reportingFrom: '2026-04',
-      reportingTo: '2027-03',
-    });
-    expect(project.changeDescription).toContain('Entry turf: spray → drip');
-    await manager.post(`/api/plans/${plan.id}/carry-out`, { installedOn: '2026-03-10' }).expect(409);
-    await manager.patch(`/api/plans/${plan.id}`, { costOfWork: 1 }).expect(409);
-  });
+  it(
+    'when the plan is carried out, ' + 'then a savings project exists with its baseline chosen and the plan is closed',
+    async () => {
+      const plan = (await manager.post(`/api/sites/${siteId}/plans`, planBody()).expect(201)).body;
+      const done = (await manager.post(`/api/plans/${plan.id}/carry-out`, { installedOn: '2026-03-10' }).expect(201))
+        .body;
+      expect(done.plan).toMatchObject({ status: 'carried-out', carriedOutOn: '2026-03-10', canEdit: false });
+      const project = (await manager.get(`/api/savings-projects/${done.project.id}`).expect(200)).body;
+      expect(project).toMatchObject({
+        siteId,
+        changeKind: 'spray-to-drip',
+        baselineFrom: '2025-03',
+        baselineTo: '2026-02',
+        reportingFrom: '2026-04',
+        reportingTo: '2027-03',
+      });
+      expect(project.changeDescription).toContain('Entry turf: spray → drip');
+      await manager.post(`/api/plans/${plan.id}/carry-out`, { installedOn: '2026-03-10' }).expect(409);
+      await manager.patch(`/api/plans/${plan.id}`, { costOfWork: 1 }).expect(409);
+    },
+  );
 
   it('when others ask, then auditors are refused, read-only contractors only read, and strangers get 404', async () => {
     const plan = (await manager.post(`/api/sites/${siteId}/plans`, planBody()).expect(201)).body;

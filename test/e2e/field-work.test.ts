@@ -4,13 +4,13 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { startServer, type RunningServer } from '../../backend/src/server';
 import { demoPhotoPng } from '../../ops/seed/demo-photo';
-import { DEMO_PASSWORD, DEMO_USERS } from '../../ops/seed/demo-scenario';
+import { DEMO_USERS } from '../../ops/seed/demo-scenario';
 import { seedBudgets } from '../../ops/seed/seed-budgets';
 import { seedDemo } from '../../ops/seed/seed-demo';
 import { seedFieldWork } from '../../ops/seed/seed-field-work';
 import { seedSavings } from '../../ops/seed/seed-savings';
 import { suffix } from '../support/test-app';
-import { DESKTOP, openBrowser, PHONE, screenshot } from '../support/browser';
+import { DESKTOP, openBrowser, PHONE, screenshot, signIn } from '../support/browser';
 import { e2eDatabase } from '../support/e2e-database';
 
 /**
@@ -38,13 +38,8 @@ afterAll(async () => server?.stop());
 const GREENBELT = () => siteIds['Willowmere HOA — South Greenbelt']!;
 const COMMONS = () => siteIds['Willowmere HOA — North Commons']!;
 
-async function signIn(page: Page, organisation: string, role: string): Promise<void> {
-  const user = DEMO_USERS.find((u) => u.organisation === organisation && u.role === role)!;
-  await page.goto(`${server.url}/`);
-  await page.getByLabel('E-mail address').fill(user.email);
-  await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Portfolio', level: 1 }).waitFor();
+function emailOf(organisation: string, role: string): string {
+  return DEMO_USERS.find((u) => u.organisation === organisation && u.role === role)!.email;
 }
 
 /**
@@ -95,123 +90,134 @@ async function toPhone(page: Page): Promise<void> {
 }
 
 describe('field work in the browser', () => {
-  it('when a contractor audits on a phone, then the catch-can figures, faults and a photo show, and nothing scrolls sideways', async () => {
-    const browser = await openBrowser(PHONE);
-    const { page } = browser;
-    try {
-      await signIn(page, 'thistlewood', 'contractor');
-      await page.goto(`${server.url}/sites/${GREENBELT()}/audits`);
-      await page.getByRole('link', { name: 'Winter audit before the path retrofit' }).click();
-      const seeded = page.getByRole('article', { name: 'Zone test: Greenbelt path spray' });
-      await seeded.waitFor();
-      expect(await seeded.innerText()).toContain('48 % (poor)');
-      expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
-      await shot(page, 'field-audit-demo-phone');
+  it(
+    'when a contractor audits on a phone, ' +
+      'then the catch-can figures, faults and a photo show, and nothing scrolls sideways',
+    async () => {
+      const browser = await openBrowser(PHONE);
+      const { page } = browser;
+      try {
+        await signIn(page, { baseUrl: server.url, email: emailOf('thistlewood', 'contractor') });
+        await page.goto(`${server.url}/sites/${GREENBELT()}/audits`);
+        await page.getByRole('link', { name: 'Winter audit before the path retrofit' }).click();
+        const seeded = page.getByRole('article', { name: 'Zone test: Greenbelt path spray' });
+        await seeded.waitFor();
+        expect(await seeded.innerText()).toContain('48 % (poor)');
+        expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
+        await shot(page, 'field-audit-demo-phone');
 
-      await page.getByRole('link', { name: 'All audits' }).click();
-      await page.getByRole('button', { name: 'New audit' }).click();
-      const title = `Phone audit ${suffix()}`;
-      await page.getByLabel('Title').fill(title);
-      await page.getByRole('button', { name: 'Start audit' }).click();
-      await page.getByRole('heading', { name: title, level: 2 }).waitFor();
-      await page.getByRole('button', { name: 'Add zone test' }).click();
-      await page.getByRole('combobox', { name: 'Hydrozone' }).click();
-      await page.getByRole('option', { name: 'Slope groundcover' }).click();
-      await page.getByLabel('Can throat diameter').fill('3');
-      await page.getByLabel('Number of cans').fill('8');
-      const catches = [9, 10, 8, 11, 9, 6, 9, 10];
-      for (const [i, c] of catches.entries()) await page.getByLabel(`Can ${i + 1}`, { exact: true }).fill(String(c));
-      await expect.poll(() => page.getByRole('status').first().innerText()).toContain('DU_lq 78 %');
-      expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
-      await shot(page, 'field-audit-catch-cans-phone');
-      await page.getByRole('button', { name: 'Save test' }).click();
-      await page.getByRole('article', { name: 'Zone test: Slope groundcover' }).waitFor();
+        await page.getByRole('link', { name: 'All audits' }).click();
+        await page.getByRole('button', { name: 'New audit' }).click();
+        const title = `Phone audit ${suffix()}`;
+        await page.getByLabel('Title').fill(title);
+        await page.getByRole('button', { name: 'Start audit' }).click();
+        await page.getByRole('heading', { name: title, level: 2 }).waitFor();
+        await page.getByRole('button', { name: 'Add zone test' }).click();
+        await page.getByRole('combobox', { name: 'Hydrozone' }).click();
+        await page.getByRole('option', { name: 'Slope groundcover' }).click();
+        await page.getByLabel('Can throat diameter').fill('3');
+        await page.getByLabel('Number of cans').fill('8');
+        const catches = [9, 10, 8, 11, 9, 6, 9, 10];
+        for (const [i, c] of catches.entries()) await page.getByLabel(`Can ${i + 1}`, { exact: true }).fill(String(c));
+        await expect.poll(() => page.getByRole('status').first().innerText()).toContain('DU_lq 78 %');
+        expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
+        await shot(page, 'field-audit-catch-cans-phone');
+        await page.getByRole('button', { name: 'Save test' }).click();
+        await page.getByRole('article', { name: 'Zone test: Slope groundcover' }).waitFor();
 
-      await page.getByRole('button', { name: 'Add fault' }).click();
-      await page.getByLabel('Where').fill('Head 3 by the steps');
-      await page.getByRole('button', { name: 'Save fault' }).click();
-      await page
-        .getByLabel('Add a photo of Tilted head, Head 3 by the steps')
-        .setInputFiles({ name: 'head-3.png', mimeType: 'image/png', buffer: demoPhotoPng(9) });
-      await page.getByRole('img', { name: 'Photo of Tilted head, Head 3 by the steps' }).waitFor();
-      expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
-      await shot(page, 'field-audit-new-phone');
-      await page.setViewportSize(DESKTOP);
-      await shot(page, 'field-audit-new-desktop');
-    } finally {
-      await browser.close();
-    }
-  });
+        await page.getByRole('button', { name: 'Add fault' }).click();
+        await page.getByLabel('Where').fill('Head 3 by the steps');
+        await page.getByRole('button', { name: 'Save fault' }).click();
+        await page
+          .getByLabel('Add a photo of Tilted head, Head 3 by the steps')
+          .setInputFiles({ name: 'head-3.png', mimeType: 'image/png', buffer: demoPhotoPng(9) });
+        await page.getByRole('img', { name: 'Photo of Tilted head, Head 3 by the steps' }).waitFor();
+        expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
+        await shot(page, 'field-audit-new-phone');
+        await page.setViewportSize(DESKTOP);
+        await shot(page, 'field-audit-new-desktop');
+      } finally {
+        await browser.close();
+      }
+    },
+  );
 
-  it('when a manager plans turf to drip, then the comparison updates, and carrying it out makes a savings project', async () => {
-    const browser = await openBrowser(DESKTOP);
-    const { page } = browser;
-    try {
-      await signIn(page, 'cobalt', 'manager');
-      await page.goto(`${server.url}/sites/${COMMONS()}/planner`);
-      await page.getByRole('link', { name: 'Turf bowl: half to low-water meadow' }).waitFor();
-      await page.getByRole('button', { name: 'New plan' }).click();
-      const title = `Drip the turf bowl ${suffix()}`;
-      await page.getByLabel('Title').fill(title);
-      await page.getByLabel('Cost of the work (USD)').fill('25000');
-      await page.getByRole('button', { name: 'Create plan' }).click();
-      await page.getByRole('heading', { name: title, level: 2 }).waitFor();
-      await page.getByRole('table', { name: 'Today and with the plan' }).waitFor();
-      const turf = page.getByRole('group', { name: 'Turf bowl (rotors)' });
-      await turf.getByRole('button', { name: 'To drip' }).click();
-      await turf.getByLabel('Plant factor').fill('0.3');
-      await page.getByRole('button', { name: 'Save and compare' }).click();
-      const saved = page.getByRole('group', { name: 'What the plan saves' });
-      await expect
-        .poll(async () => Number((await saved.innerText()).match(/([\d,]+) gal/)![1]!.replace(/,/g, '')))
-        .toBeGreaterThan(100_000);
-      expect(await saved.innerText()).toMatch(/\d+\.\d years/);
-      await shot(page, 'planner-desktop');
-      await toPhone(page);
-      expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
-      await shot(page, 'planner-phone');
+  it(
+    'when a manager plans turf to drip, ' + 'then the comparison updates, and carrying it out makes a savings project',
+    async () => {
+      const browser = await openBrowser(DESKTOP);
+      const { page } = browser;
+      try {
+        await signIn(page, { baseUrl: server.url, email: emailOf('cobalt', 'manager') });
+        await page.goto(`${server.url}/sites/${COMMONS()}/planner`);
+        await page.getByRole('link', { name: 'Turf bowl: half to low-water meadow' }).waitFor();
+        await page.getByRole('button', { name: 'New plan' }).click();
+        const title = `Drip the turf bowl ${suffix()}`;
+        await page.getByLabel('Title').fill(title);
+        await page.getByLabel('Cost of the work (USD)').fill('25000');
+        await page.getByRole('button', { name: 'Create plan' }).click();
+        await page.getByRole('heading', { name: title, level: 2 }).waitFor();
+        await page.getByRole('table', { name: 'Today and with the plan' }).waitFor();
+        const turf = page.getByRole('group', { name: 'Turf bowl (rotors)' });
+        await turf.getByRole('button', { name: 'To drip' }).click();
+        await turf.getByLabel('Plant factor').fill('0.3');
+        await page.getByRole('button', { name: 'Save and compare' }).click();
+        const saved = page.getByRole('group', { name: 'What the plan saves' });
+        await expect
+          .poll(async () => Number((await saved.innerText()).match(/([\d,]+) gal/)![1]!.replace(/,/g, '')))
+          .toBeGreaterThan(100_000);
+        expect(await saved.innerText()).toMatch(/\d+\.\d years/);
+        await shot(page, 'planner-desktop');
+        await toPhone(page);
+        expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
+        await shot(page, 'planner-phone');
 
-      await page.getByRole('button', { name: 'Mark as carried out' }).click();
-      await page.getByRole('dialog').getByRole('button', { name: 'Create savings project' }).click();
-      await page.getByRole('link', { name: 'Open its savings report' }).click();
-      // The project exists with its plan's title; the months after the work have no readings yet.
-      await page.waitForURL(/\/reports\/savings\/\d+$/);
-      await page
-        .getByRole('alert')
-        .or(page.getByRole('heading', { name: title, level: 1 }))
-        .first()
-        .waitFor();
-      await shot(page, 'planner-carried-out-report');
-    } finally {
-      await browser.close();
-    }
-  });
+        await page.getByRole('button', { name: 'Mark as carried out' }).click();
+        await page.getByRole('dialog').getByRole('button', { name: 'Create savings project' }).click();
+        await page.getByRole('link', { name: 'Open its savings report' }).click();
+        // The project exists with its plan's title; the months after the work have no readings yet.
+        await page.waitForURL(/\/reports\/savings\/\d+$/);
+        await page
+          .getByRole('alert')
+          .or(page.getByRole('heading', { name: title, level: 1 }))
+          .first()
+          .waitFor();
+        await shot(page, 'planner-carried-out-report');
+      } finally {
+        await browser.close();
+      }
+    },
+  );
 
-  it('when an auditor opens the ETAF index, then sites are ranked with their distribution and a site shows its peers, at both widths', async () => {
-    const browser = await openBrowser(PHONE);
-    const { page } = browser;
-    try {
-      await signIn(page, 'verdella', 'auditor');
-      await page.goto(`${server.url}/etaf`);
-      await page.getByRole('heading', { name: 'Achieved ETAF', level: 1 }).waitFor();
-      const ranking = page.getByRole('table', { name: 'Sites by achieved ETAF' });
-      await ranking.getByRole('link', { name: 'Willowmere HOA — South Greenbelt' }).waitFor();
-      await shot(page, 'etaf-ranking-phone');
-      expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
-      await page.setViewportSize(DESKTOP);
-      await shot(page, 'etaf-ranking-desktop');
-      await ranking.getByRole('link', { name: 'Willowmere HOA — South Greenbelt' }).click();
-      await page.getByRole('heading', { name: 'Among comparable sites' }).waitFor();
-      expect(await page.getByRole('listitem').filter({ hasText: 'Achieved ETAF' }).innerText()).toMatch(/\d\.\d\d/);
-      await toPhone(page);
-      await shot(page, 'etaf-site-phone');
-      expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
-      // Auditors see audits but not the planner.
-      await page.goto(`${server.url}/sites/${GREENBELT()}/audits`);
-      await page.getByRole('heading', { name: 'Field audits', level: 2 }).waitFor();
-      expect(await page.getByRole('navigation', { name: 'Site pages' }).getByText('Planner').count()).toBe(0);
-    } finally {
-      await browser.close();
-    }
-  });
+  it(
+    'when an auditor opens the ETAF index, ' +
+      'then sites are ranked with their distribution and a site shows its peers, at both widths',
+    async () => {
+      const browser = await openBrowser(PHONE);
+      const { page } = browser;
+      try {
+        await signIn(page, { baseUrl: server.url, email: emailOf('verdella', 'auditor') });
+        await page.goto(`${server.url}/etaf`);
+        await page.getByRole('heading', { name: 'Achieved ETAF', level: 1 }).waitFor();
+        const ranking = page.getByRole('table', { name: 'Sites by achieved ETAF' });
+        await ranking.getByRole('link', { name: 'Willowmere HOA — South Greenbelt' }).waitFor();
+        await shot(page, 'etaf-ranking-phone');
+        expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
+        await page.setViewportSize(DESKTOP);
+        await shot(page, 'etaf-ranking-desktop');
+        await ranking.getByRole('link', { name: 'Willowmere HOA — South Greenbelt' }).click();
+        await page.getByRole('heading', { name: 'Among comparable sites' }).waitFor();
+        expect(await page.getByRole('listitem').filter({ hasText: 'Achieved ETAF' }).innerText()).toMatch(/\d\.\d\d/);
+        await toPhone(page);
+        await shot(page, 'etaf-site-phone');
+        expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
+        // Auditors see audits but not the planner.
+        await page.goto(`${server.url}/sites/${GREENBELT()}/audits`);
+        await page.getByRole('heading', { name: 'Field audits', level: 2 }).waitFor();
+        expect(await page.getByRole('navigation', { name: 'Site pages' }).getByText('Planner').count()).toBe(0);
+      } finally {
+        await browser.close();
+      }
+    },
+  );
 });

@@ -4,6 +4,7 @@
  *   the DU() reference example, and the "Landscape Sprinkler Systems" vignette (2022-03-22), a rotor audit.
  *   DU_lq is defined there after Keller & Bliesner (2000), Sprinkler and Trickle Irrigation.
  * - The scheduling multiplier is Irrigation Association auditor practice, from memory.
+ * All listed in docs/references.md §4.
  */
 import { describe, expect, it } from 'vitest';
 import {

@@ -1,7 +1,8 @@
 /**
  * The what-if planner and the achieved-ETAF index against California MWELO. The numeric example is the 2009 MWELO
  * Appendix B Fresno example (ETo 51.1 in, LA 50,000 ft², IE 0.71, ETAF 0.7), reproduced in the City of Colton
- * ordinance O-008-14, pp.12–13; the changed-zone figures are derived from the same App. B formula.
+ * ordinance O-008-14, pp.12–13 (docs/references.md §3); the changed-zone figures are derived from the same App. B
+ * formula.
  */
 import { describe, expect, it } from 'vitest';
 import { achievedEtaf } from '../../shared/etaf/achieved-etaf';

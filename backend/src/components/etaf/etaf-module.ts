@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import type { AuditRepository } from '../audit/data/audit-repository';
-import type { BudgetCache } from '../portfolio/domain/budget-cache';
+import type { BudgetCache } from '../budgets/domain/budget-cache';
 import type { SitesService } from '../sites/domain/sites-service';
 import { etafRouter, siteEtafRouter } from './api/etaf-router';
 import { EtafRepository } from './data/etaf-repository';
@@ -13,10 +13,10 @@ export function createEtaf(d: {
   sites: SitesService;
   budgetCache: BudgetCache;
   audit: AuditRepository;
-}): { etaf: EtafService; router: Router } {
-  const etaf = new EtafService(d.db, new EtafRepository(d.db), d.sites, d.budgetCache, d.audit);
+}): { service: EtafService; router: Router } {
+  const service = new EtafService(d.db, new EtafRepository(d.db), d.sites, d.budgetCache, d.audit);
   const router = Router();
-  router.use('/etaf', etafRouter(etaf));
-  router.use('/sites/:id', siteEtafRouter(etaf));
-  return { etaf, router };
+  router.use('/etaf', etafRouter(service));
+  router.use('/sites/:id', siteEtafRouter(service));
+  return { service, router };
 }

@@ -25,7 +25,8 @@ export class FieldAudits1796300000000 implements MigrationInterface {
       PRIMARY KEY (\`id\`),
       INDEX \`IDX_field_audit_site\` (\`site_id\`, \`audited_on\`),
       CONSTRAINT \`FK_field_audit_site\` FOREIGN KEY (\`site_id\`) REFERENCES \`site\`(\`id\`) ON DELETE CASCADE,
-      CONSTRAINT \`FK_field_audit_org\` FOREIGN KEY (\`organisation_id\`) REFERENCES \`organisation\`(\`id\`) ON DELETE CASCADE,
+      CONSTRAINT \`FK_field_audit_org\` FOREIGN KEY (\`organisation_id\`)
+        REFERENCES \`organisation\`(\`id\`) ON DELETE CASCADE,
       CONSTRAINT \`FK_field_audit_user\` FOREIGN KEY (\`created_by\`) REFERENCES \`user\`(\`id\`) ON DELETE SET NULL
     ) ENGINE=InnoDB`);
     await q.query(`CREATE TABLE \`field_audit_zone_test\` (
@@ -49,8 +50,10 @@ export class FieldAudits1796300000000 implements MigrationInterface {
       \`updated_at\` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3) ON UPDATE CURRENT_TIMESTAMP(3),
       PRIMARY KEY (\`id\`),
       INDEX \`IDX_field_audit_zone_test_audit\` (\`audit_id\`),
-      CONSTRAINT \`FK_field_audit_zone_test_audit\` FOREIGN KEY (\`audit_id\`) REFERENCES \`field_audit\`(\`id\`) ON DELETE CASCADE,
-      CONSTRAINT \`FK_field_audit_zone_test_zone\` FOREIGN KEY (\`hydrozone_id\`) REFERENCES \`hydrozone\`(\`id\`) ON DELETE SET NULL
+      CONSTRAINT \`FK_field_audit_zone_test_audit\` FOREIGN KEY (\`audit_id\`)
+        REFERENCES \`field_audit\`(\`id\`) ON DELETE CASCADE,
+      CONSTRAINT \`FK_field_audit_zone_test_zone\` FOREIGN KEY (\`hydrozone_id\`)
+        REFERENCES \`hydrozone\`(\`id\`) ON DELETE SET NULL
     ) ENGINE=InnoDB`);
     await q.query(`CREATE TABLE \`field_audit_fault\` (
       \`id\` int UNSIGNED NOT NULL AUTO_INCREMENT,
@@ -64,8 +67,10 @@ export class FieldAudits1796300000000 implements MigrationInterface {
       \`updated_at\` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3) ON UPDATE CURRENT_TIMESTAMP(3),
       PRIMARY KEY (\`id\`),
       INDEX \`IDX_field_audit_fault_audit\` (\`audit_id\`),
-      CONSTRAINT \`FK_field_audit_fault_audit\` FOREIGN KEY (\`audit_id\`) REFERENCES \`field_audit\`(\`id\`) ON DELETE CASCADE,
-      CONSTRAINT \`FK_field_audit_fault_test\` FOREIGN KEY (\`zone_test_id\`) REFERENCES \`field_audit_zone_test\`(\`id\`) ON DELETE SET NULL
+      CONSTRAINT \`FK_field_audit_fault_audit\` FOREIGN KEY (\`audit_id\`)
+        REFERENCES \`field_audit\`(\`id\`) ON DELETE CASCADE,
+      CONSTRAINT \`FK_field_audit_fault_test\` FOREIGN KEY (\`zone_test_id\`)
+        REFERENCES \`field_audit_zone_test\`(\`id\`) ON DELETE SET NULL
     ) ENGINE=InnoDB`);
     await q.query(`CREATE TABLE \`field_audit_photo\` (
       \`id\` int UNSIGNED NOT NULL AUTO_INCREMENT,
@@ -77,8 +82,10 @@ export class FieldAudits1796300000000 implements MigrationInterface {
       \`created_at\` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
       PRIMARY KEY (\`id\`),
       INDEX \`IDX_field_audit_photo_fault\` (\`fault_id\`),
-      CONSTRAINT \`FK_field_audit_photo_fault\` FOREIGN KEY (\`fault_id\`) REFERENCES \`field_audit_fault\`(\`id\`) ON DELETE CASCADE,
-      CONSTRAINT \`FK_field_audit_photo_user\` FOREIGN KEY (\`created_by\`) REFERENCES \`user\`(\`id\`) ON DELETE SET NULL
+      CONSTRAINT \`FK_field_audit_photo_fault\` FOREIGN KEY (\`fault_id\`)
+        REFERENCES \`field_audit_fault\`(\`id\`) ON DELETE CASCADE,
+      CONSTRAINT \`FK_field_audit_photo_user\` FOREIGN KEY (\`created_by\`)
+        REFERENCES \`user\`(\`id\`) ON DELETE SET NULL
     ) ENGINE=InnoDB`);
   }
 

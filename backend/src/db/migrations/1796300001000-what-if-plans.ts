@@ -25,7 +25,8 @@ export class WhatIfPlans1796300001000 implements MigrationInterface {
       PRIMARY KEY (\`id\`),
       INDEX \`IDX_what_if_plan_site\` (\`site_id\`),
       CONSTRAINT \`FK_what_if_plan_site\` FOREIGN KEY (\`site_id\`) REFERENCES \`site\`(\`id\`) ON DELETE CASCADE,
-      CONSTRAINT \`FK_what_if_plan_project\` FOREIGN KEY (\`savings_project_id\`) REFERENCES \`savings_project\`(\`id\`) ON DELETE SET NULL,
+      CONSTRAINT \`FK_what_if_plan_project\` FOREIGN KEY (\`savings_project_id\`)
+        REFERENCES \`savings_project\`(\`id\`) ON DELETE SET NULL,
       CONSTRAINT \`FK_what_if_plan_user\` FOREIGN KEY (\`created_by\`) REFERENCES \`user\`(\`id\`) ON DELETE SET NULL
     ) ENGINE=InnoDB`);
   }

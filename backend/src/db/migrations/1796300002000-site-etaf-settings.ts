@@ -13,7 +13,8 @@ export class SiteEtafSettings1796300002000 implements MigrationInterface {
       \`updated_at\` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3) ON UPDATE CURRENT_TIMESTAMP(3),
       PRIMARY KEY (\`site_id\`),
       CONSTRAINT \`FK_site_etaf_setting_site\` FOREIGN KEY (\`site_id\`) REFERENCES \`site\`(\`id\`) ON DELETE CASCADE,
-      CONSTRAINT \`FK_site_etaf_setting_user\` FOREIGN KEY (\`updated_by\`) REFERENCES \`user\`(\`id\`) ON DELETE SET NULL
+      CONSTRAINT \`FK_site_etaf_setting_user\` FOREIGN KEY (\`updated_by\`)
+        REFERENCES \`user\`(\`id\`) ON DELETE SET NULL
     ) ENGINE=InnoDB`);
   }
 

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Page } from '@shared/api/page';
 import type { CarryOutInput, PlanComparisonDto, PlanDto, PlanInput } from '@shared/planner/plan-dto';
-import type { SavingsProjectDto } from '@shared/reports/savings-project-dto';
+import type { SavingsProjectDto } from '@shared/savings/savings-project-dto';
 import { Observable } from 'rxjs';
 import { queryParams } from '../core/http/query-params';
 

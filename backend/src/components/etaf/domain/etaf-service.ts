@@ -15,7 +15,7 @@ import { addMonths, daysInMonth, monthsBetween } from '@shared/portfolio/period'
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
 import type { AuditRepository } from '../../audit/data/audit-repository';
-import type { BudgetCache } from '../../portfolio/domain/budget-cache';
+import type { BudgetCache } from '../../budgets/domain/budget-cache';
 import type { SiteRecord } from '../../sites/data/sites-repository';
 import type { SitesService } from '../../sites/domain/sites-service';
 import type { EtafFilter, EtafRepository, EtafSiteRow } from '../data/etaf-repository';

@@ -12,7 +12,7 @@ import {
 import { AppError } from '../../../platform/app-error';
 import { principalOf } from '../../../platform/auth/guards';
 import { idParam, pageQuerySchema, validate } from '../../../platform/validation';
-import { sendFile } from '../../savings/api/savings-router';
+import { sendFile } from '../../../platform/send-file';
 import type { FaultsService } from '../domain/faults-service';
 import type { FieldAuditReport } from '../domain/field-audit-report';
 import type { FieldAuditsService } from '../domain/field-audits-service';

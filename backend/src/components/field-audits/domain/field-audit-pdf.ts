@@ -1,5 +1,5 @@
 import { FAULT_LABELS, HEAD_TYPE_LABELS, type FieldAuditDto } from '@shared/field-audits/field-audit-dto';
-import { fmt, heading, muted, newPdf, paragraph, render, table, type Pdf } from '../../reports/domain/pdf-kit';
+import { fmt, heading, muted, newPdf, paragraph, render, table, type Pdf } from '../../../platform/pdf-kit';
 
 /** Photo bytes by photo id, JPEG or PNG only (what pdfkit can embed). */
 export type PhotoBytes = Map<number, Buffer>;

@@ -4,7 +4,7 @@ import { IRRIGATION_METHODS } from '@shared/budgets/hydrozone';
 import { PLAN_LIMITS as L, PLAN_SORTS } from '@shared/planner/plan-dto';
 import { principalOf } from '../../../platform/auth/guards';
 import { idParam, pageQuerySchema, validate } from '../../../platform/validation';
-import { sendFile } from '../../savings/api/savings-router';
+import { sendFile } from '../../../platform/send-file';
 import type { PlanCarryOut } from '../domain/plan-carry-out';
 import type { PlanComparisonService } from '../domain/plan-comparison-service';
 import { planPdf } from '../domain/plan-pdf';

@@ -1,7 +1,7 @@
 import type { DataSource } from 'typeorm';
 import type { CarryOutInput, PlanDto } from '@shared/planner/plan-dto';
 import { savingsProjectFor } from '@shared/planner/carry-out';
-import type { SavingsProjectDto } from '@shared/reports/savings-project-dto';
+import type { SavingsProjectDto } from '@shared/savings/savings-project-dto';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
 import type { AuditRepository } from '../../audit/data/audit-repository';

@@ -1,5 +1,5 @@
 import type { PlanComparisonDto, PlanDto } from '@shared/planner/plan-dto';
-import { barChart, fmt, heading, muted, newPdf, paragraph, render, table } from '../../reports/domain/pdf-kit';
+import { barChart, fmt, heading, muted, newPdf, paragraph, render, table } from '../../../platform/pdf-kit';
 
 const area = (v: number) => `${Math.round(v).toLocaleString('en-US')} ft²`;
 const etaf = (v: number | null) => (v === null ? '—' : v.toFixed(2));
