@@ -49,8 +49,10 @@ export default defineConfig({
           environment: 'node',
           include: ['test/e2e/**/*.test.ts'],
           globalSetup: ['test/support/global-setup.ts'],
-          testTimeout: 60_000,
+          // Generous limits: these tests assert outcomes, never speed, and the 2-core machine may be busy.
+          testTimeout: 180_000,
           hookTimeout: 120_000,
+          expect: { poll: { timeout: 15_000 } },
           fileParallelism: false,
         },
       },
