@@ -56,6 +56,8 @@ export async function receiveUpload<T>(
     });
     let active: Readable | null = null;
     parser.on('file', (name, file, info) => {
+      // Owned here from the first moment: an error (client gone, parser failure) may come before `handle` reads it.
+      file.on('error', () => undefined);
       if (name !== 'file' || work) {
         file.resume();
         return;
@@ -70,6 +72,7 @@ export async function receiveUpload<T>(
       const err = Object.assign(new Error('aborted'), { code: 'ECONNRESET' });
       req.unpipe(parser);
       (active as Readable | null)?.destroy(err);
+      parser.destroy();
       if (work) work.then(resolve, reject);
       else reject(AppError.invalid('file', 'the upload was interrupted before the file arrived'));
     });
@@ -85,6 +88,8 @@ export async function receiveUpload<T>(
     });
     parser.on('error', (err: Error) => {
       req.unpipe(parser);
+      // The file part will get no more bytes and no end: fail it, so whoever reads it stops.
+      (active as Readable | null)?.destroy(err);
       drain(req, 4 * maxBytes).finally(() => {
         if (work) work.then(resolve, reject);
         else reject(AppError.invalid('file', `the multipart body could not be read (${err.message})`));

@@ -16,6 +16,34 @@ interface RawConnection {
   stream: NodeJS.WritableStream & { writableLength: number };
 }
 
+/**
+ * Waits for 'drain'; fails on 'error' or on 'close' (a MariaDB killed mid-load closes its socket, sometimes without
+ * an error event, and a plain `once(socket, 'drain')` would then wait forever).
+ */
+function drained(stream: NodeJS.WritableStream): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const settle = (err?: Error) => {
+      stream.off('drain', onDrain);
+      stream.off('error', onError);
+      stream.off('close', onClose);
+      if (err) reject(err);
+      else resolve();
+    };
+    const onDrain = () => settle();
+    const onError = (err: Error) => settle(err);
+    const onClose = () =>
+      settle(
+        Object.assign(new Error('the connection to MariaDB closed during the load'), {
+          code: 'PROTOCOL_CONNECTION_LOST',
+          fatal: true,
+        }),
+      );
+    stream.on('drain', onDrain);
+    stream.on('error', onError);
+    stream.on('close', onClose);
+  });
+}
+
 export interface ConflictRow {
   rowNo: number;
   key: Record<string, unknown>;
@@ -90,9 +118,12 @@ export class IngestWriter {
         `${STAGE} CHARACTER SET utf8mb4 FIELDS TERMINATED BY '\\t' ESCAPED ` +
         `BY '\\\\' LINES TERMINATED BY '\\n' (${names})`;
     }
-    this.load = this.rawQuery(`LOAD DATA LOCAL INFILE 'rillmark-upload' IGNORE INTO TABLE ${into}`, [], this.stream);
+    const stream = this.stream;
+    // The writer owns this stream: its errors come back through `flush`/`finish` (or the load's own rejection).
+    stream.on('error', () => undefined);
+    this.load = this.rawQuery(`LOAD DATA LOCAL INFILE 'rillmark-upload' IGNORE INTO TABLE ${into}`, [], stream);
     // Surface a failed load at once instead of when the stream ends.
-    this.load.catch((err) => this.stream?.destroy(err as Error));
+    this.load.catch((err) => stream.destroy(err as Error));
   }
 
   /** One tab-separated line per record: the stage columns in order, then the file row; `\N` is NULL. */
@@ -111,10 +142,11 @@ export class IngestWriter {
     const stream = this.stream!;
     const text = this.chunk;
     this.chunk = '';
-    if (!stream.write(text)) await once(stream, 'drain');
+    if (stream.destroyed) throw stream.errored ?? new Error('the load into MariaDB was stopped');
+    if (!stream.write(text)) await drained(stream);
     // mysql2 copies the stream into the socket without waiting; wait here so memory stays bounded.
     const socket = this.raw.stream;
-    while (socket.writableLength > SOCKET_HIGH) await once(socket, 'drain');
+    while (socket.writableLength > SOCKET_HIGH) await drained(socket);
   }
 
   /** Ends the stream and waits for the load; returns how many rows it stored (in the stage, or directly). */

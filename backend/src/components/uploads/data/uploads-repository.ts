@@ -77,6 +77,15 @@ export class UploadsRepository {
     await this.db.getRepository(UploadEntity).delete({ id });
   }
 
+  /** True when an upload other than `exceptId` refers to this kept file (so a failed upload must not remove it). */
+  async storageKeyInUse(storageKey: string, exceptId: number): Promise<boolean> {
+    const [row] = await this.db.query('SELECT 1 AS hit FROM upload WHERE storage_key = ? AND id <> ? LIMIT 1', [
+      storageKey,
+      exceptId,
+    ]);
+    return row !== undefined;
+  }
+
   /** The done upload of the same bytes to the same site, if any (what makes a re-upload a no-op). */
   async findDoneBySha(siteId: number, sha256: string, exceptId: number): Promise<number | null> {
     const [row] = await this.db.query(

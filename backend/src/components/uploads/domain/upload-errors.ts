@@ -1,5 +1,6 @@
 import type { RejectionDto } from '@shared/uploads/upload';
 import { AppError } from '../../../platform/app-error';
+import { isDatabaseUnavailable } from '../../../platform/db-errors';
 import { FileProblem } from './csv-rows';
 import { MappingProblem } from './stage-upload';
 
@@ -53,11 +54,22 @@ export function toUploadError(err: unknown, fileName: string, maxBytes: number):
         .map((r) => ({ field: `row ${r.row}${r.column ? `, column ${r.column}` : ''}`, message: r.message })),
     );
   }
-  const code = (err as { code?: string }).code;
-  if (code === 'ECONNRESET' || (err as Error).message === 'aborted')
+  if (isClientGone(err))
     return new AppError(
       'validation_failed',
       `"${fileName}": the upload was interrupted before the whole file arrived; nothing was stored.`,
     );
+  if (isDatabaseUnavailable(err))
+    return new AppError(
+      'database_unavailable',
+      `"${fileName}": the database stopped answering while this upload was being stored. An upload is stored whole or not at all; send the same file again in a minute (a file that was stored already is recognised and nothing changes).`,
+    );
   return null;
+}
+
+/** The request body ended early: the client went away or the connection dropped (not MariaDB's socket). */
+function isClientGone(err: unknown): boolean {
+  const e = err as { code?: string; message?: string; fatal?: boolean };
+  if (e.fatal) return false;
+  return e.message === 'aborted' || e.code === 'ECONNRESET' || e.code === 'ERR_STREAM_PREMATURE_CLOSE';
 }

@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import type { DailyUseRepository } from '../../readings/data/daily-use-repository';
-import { Transform, type Readable } from 'node:stream';
+import { finished, Transform, type Readable } from 'node:stream';
 import type { DataSource } from 'typeorm';
 import type { Page } from '@shared/api/page';
 import type { ColumnMapping, UploadKind } from '@shared/ingest/upload-kind';
@@ -14,7 +14,7 @@ import type { MetersService } from '../../meters/domain/meters-service';
 import type { SitesService } from '../../sites/domain/sites-service';
 import { INTERVAL_TARGET } from '../data/ingest-targets';
 import type { MergeOutcome } from '../data/ingest-writer';
-import type { UploadRecord, UploadsRepository } from '../data/uploads-repository';
+import type { FinishedUpload, UploadRecord, UploadsRepository } from '../data/uploads-repository';
 import { conflictRejections } from './conflict-messages';
 import { openCsvRows } from './csv-rows';
 import { ingestRefsFrom } from './ingest-refs-from';
@@ -22,6 +22,24 @@ import { OVERLAP_MAX_MINUTES, withdrawLengthOverlaps } from './interval-overlaps
 import { deriveRegisterVolumes } from './register-volumes';
 import { IMPORT_ISOLATION, stageUpload, type Staged } from './stage-upload';
 import { RowsRefused, TooLarge, toUploadError } from './upload-errors';
+
+/** A failed upload whose outcome could not be written (MariaDB down) is retried this often, this many times. */
+const MARK_FAILED_RETRY_MS = 5_000;
+const MARK_FAILED_ATTEMPTS = 60;
+
+/**
+ * Pipes the upload into the tap. A source that fails or closes before its end (the client went away, even before
+ * this was called) fails the tap with that error, so the parser reading the tap stops instead of waiting forever.
+ * The tap's own errors reach the parser through its read side; the listener here only keeps them from being
+ * unhandled once nobody reads.
+ */
+function feedTap(file: Readable, tap: Transform): void {
+  tap.on('error', () => undefined);
+  finished(file, (err) => {
+    if (err) tap.destroy(err);
+  });
+  file.pipe(tap);
+}
 
 export interface IngestRequest {
   fileName: string;
@@ -78,16 +96,14 @@ export class UploadsService {
         size += chunk.length;
         if (size > maxBytes) return done(new TooLarge());
         hash.update(chunk);
-        if (pending.stream.write(chunk)) done(null, chunk);
-        else pending.stream.once('drain', () => done(null, chunk));
+        pending.write(chunk).then(() => done(null, chunk), done);
       },
     });
-    request.file.once('error', (err) => tap.destroy(err));
-    request.file.pipe(tap);
+    feedTap(request.file, tap);
 
     const qr = this.db.createQueryRunner();
     let staged: Staged | undefined;
-    let kept = false;
+    let keptKey: string | null = null;
     try {
       await qr.connect();
       const started = Date.now();
@@ -118,7 +134,7 @@ export class UploadsService {
       }
       if (rowErrors === 'refuse-file' && staged.rejected > 0) throw new RowsRefused(staged.rejected, staged.rejections);
       const storageKey = await pending.keep(sha256);
-      kept = true;
+      keptKey = storageKey;
       if (staged.direct && staged.staged < staged.writer.linesSent) {
         // Some lines met stored readings (or repeat within the file): undo the fast load and read the kept copy
         // again through the stage, which tells duplicates from conflicts row by row.
@@ -204,11 +220,12 @@ export class UploadsService {
       return { outcome: 'imported', upload: await this.dto((await this.repo.get(uploadId))!) };
     } catch (err) {
       if (qr.isTransactionActive) await qr.rollbackTransaction().catch(() => undefined);
-      if (!kept) await pending.discard();
+      if (keptKey) await this.removeKeptCopy(keptKey, uploadId);
+      else await pending.discard();
       const problem = toUploadError(err, fileName, maxBytes);
       if (!problem) logger.error('upload failed', { uploadId, error: (err as Error).stack ?? String(err) });
       const summary = problem?.message ?? 'The server could not finish this upload; nothing was stored.';
-      await this.repo.finish(this.db, uploadId, {
+      await this.markFailed(uploadId, {
         status: 'failed',
         kind: staged?.kind ?? null,
         sizeBytes: size,
@@ -223,15 +240,44 @@ export class UploadsService {
         replaced: 0,
         rejected: staged?.rejected ?? 0,
       });
-      if (err instanceof RowsRefused) await this.repo.insertRejections(this.db, uploadId, err.rejections);
+      if (err instanceof RowsRefused)
+        await this.repo.insertRejections(this.db, uploadId, err.rejections).catch(() => undefined);
       throw problem ?? err;
     } finally {
       // Whatever happened, let the rest of the request body flow so the multipart parser can finish.
       request.file.unpipe(tap);
       request.file.resume();
+      tap.destroy();
+      if (!keptKey) await pending.discard();
       await staged?.writer.drop();
       await qr.release();
       this.progress.delete(uploadId);
+    }
+  }
+
+  /**
+   * Records a failed upload. When MariaDB is what failed, the row is written once it answers again (retried in
+   * the background), so the upload does not stay "processing".
+   */
+  private async markFailed(uploadId: number, outcome: FinishedUpload, attempt = 1): Promise<void> {
+    try {
+      await this.repo.finish(this.db, uploadId, outcome);
+    } catch (err) {
+      if (attempt >= MARK_FAILED_ATTEMPTS) {
+        logger.error('could not record a failed upload', { uploadId, error: (err as Error).message });
+        return;
+      }
+      if (attempt === 1) logger.warn('failed upload not recorded yet; retrying', { uploadId, error: String(err) });
+      setTimeout(() => void this.markFailed(uploadId, outcome, attempt + 1), MARK_FAILED_RETRY_MS).unref();
+    }
+  }
+
+  /** A failed upload removes the original it had already filed, unless another upload refers to the same bytes. */
+  private async removeKeptCopy(storageKey: string, uploadId: number): Promise<void> {
+    try {
+      if (!(await this.repo.storageKeyInUse(storageKey, uploadId))) await this.store.remove(storageKey);
+    } catch (err) {
+      logger.warn('kept copy of a failed upload not removed', { uploadId, storageKey, error: String(err) });
     }
   }
 
