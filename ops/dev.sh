@@ -5,6 +5,8 @@
 set -euo pipefail
 . "$(dirname "$0")/lib/env.sh"
 cd "$RILLMARK_ROOT"
+# Development: the outbox (admins see their organisation's mail from the fake SMTP server) is on unless .env says otherwise.
+export RILLMARK_DEV_OUTBOX="${RILLMARK_DEV_OUTBOX:-true}"
 ensure_node_modules
 bash ops/db/start.sh
 bash ops/mail/start.sh

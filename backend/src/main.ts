@@ -1,14 +1,20 @@
 import { loadConfig } from './config';
 import { logger, setLogLevel } from './platform/logger';
+import { ConfigurationProblem, EXIT, installProcessGuards } from './platform/process-guards';
 import { startServer } from './server';
 
-/** Entry point: `npm run serve:api` in development, `node dist/server/main.js` in production. */
+/**
+ * Entry point: `npm run serve:api` in development, `node dist/server/main.js` in production, always under a
+ * supervisor (`npm start` runs ops/supervise; production uses the systemd unit in ops/systemd). The exit code
+ * tells the supervisor whether a restart can help (see EXIT).
+ */
+installProcessGuards();
 let config;
 try {
   config = loadConfig();
 } catch (err) {
   logger.error((err as Error).message);
-  process.exit(1);
+  process.exit(EXIT.config);
 }
 setLogLevel(config.logLevel);
 
@@ -26,5 +32,5 @@ try {
   process.on('SIGTERM', () => shutdown('SIGTERM'));
 } catch (err) {
   logger.error((err as Error).message);
-  process.exit(1);
+  process.exit(err instanceof ConfigurationProblem ? EXIT.config : EXIT.databaseUnreachable);
 }
