@@ -22,6 +22,10 @@ export function createDataSource(db: Config['db']): DataSource {
     charset: 'utf8mb4_unicode_ci',
     poolSize: db.poolSize,
     extra: { connectTimeout: 5_000 },
+    // Every statement has a deadline (mysql2's query timeout); one that passes it fails with PROTOCOL_SEQUENCE_TIMEOUT
+    // (a 503), and is also logged as slow.
+    enableQueryTimeout: true,
+    maxQueryExecutionTime: db.queryTimeoutMs,
     logging: ['error'],
   });
 }

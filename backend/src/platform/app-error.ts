@@ -17,6 +17,8 @@ const STATUS: Record<ApiErrorCode, number> = {
 /** The one error type the domain throws; the central handler turns it into the API's JSON error shape. */
 export class AppError extends Error {
   readonly status: number;
+  /** Sent as Retry-After (429, 503). */
+  retryAfterSeconds?: number;
 
   constructor(
     readonly code: ApiErrorCode,
@@ -34,6 +36,12 @@ export class AppError extends Error {
 
   static forbidden(message = 'Your role does not allow this.'): AppError {
     return new AppError('forbidden', message);
+  }
+
+  static rateLimited(message: string, retryAfterSeconds: number): AppError {
+    const err = new AppError('rate_limited', message);
+    err.retryAfterSeconds = retryAfterSeconds;
+    return err;
   }
 
   static invalid(field: string, message: string): AppError {

@@ -27,6 +27,7 @@ export function createSessionMiddleware(
     pool as never,
   );
   throttleTouch(store);
+  withQueryTimeout(store, pool, config.db.queryTimeoutMs);
   const middleware = session({
     name: SESSION_COOKIE,
     secret: config.session.secret,
@@ -69,4 +70,9 @@ export function throttleTouch(store: {
     last.set(sid, now);
     return touch(sid, session, cb);
   };
+}
+
+/** The session store's queries get the same deadline as every other statement (it would wait forever otherwise). */
+function withQueryTimeout(store: { query: (sql: string, params?: unknown) => unknown }, pool: Pool, ms: number): void {
+  store.query = (sql, params) => pool.query({ sql, timeout: ms }, params as never[]);
 }

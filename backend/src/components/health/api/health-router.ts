@@ -1,23 +1,26 @@
-import { Router } from 'express';
-import type { DataSource } from 'typeorm';
+import { Router, type Request, type Response } from 'express';
+import type { DatabaseWatch } from '../../../db/database-watch';
 
-/** GET /api/health: the app is up, and whether MariaDB answers (503 when it does not). */
-export function healthRouter(db: DataSource, version: string): Router {
+/**
+ * Health for load balancers and supervisors:
+ * - GET /api/health/live: the process answers HTTP (never touches MariaDB; a failing liveness check means restart).
+ * - GET /api/health/ready (and /api/health): whether this instance can serve, i.e. MariaDB answers a `SELECT 1`.
+ *   Always answers within about two seconds: 200 with the database `up`, or 503 with it `down` (take the instance
+ *   out of rotation, don't restart it).
+ */
+export function healthRouter(watch: DatabaseWatch, version: string): Router {
   const router = Router();
-  router.get('/', async (_req, res) => {
-    const started = performance.now();
-    let database: { status: 'up' | 'down'; latencyMs?: number; error?: string };
-    try {
-      if (!db.isInitialized) throw new Error('not connected yet');
-      await db.query('SELECT 1');
-      database = { status: 'up', latencyMs: Math.round((performance.now() - started) * 10) / 10 };
-    } catch (err) {
-      database = { status: 'down', error: (err as Error).message };
-    }
+  router.get('/live', (_req, res) => {
+    res.json({ status: 'ok', version, time: new Date().toISOString() });
+  });
+  const ready = async (_req: Request, res: Response) => {
+    const database = await watch.ping();
     const ok = database.status === 'up';
     res
       .status(ok ? 200 : 503)
       .json({ status: ok ? 'ok' : 'degraded', version, time: new Date().toISOString(), database });
-  });
+  };
+  router.get('/ready', ready);
+  router.get('/', ready);
   return router;
 }
