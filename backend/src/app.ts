@@ -34,7 +34,8 @@ import { createWatch, type Watch } from './components/watch/watch-module';
 import { createWeather } from './components/weather/weather-module';
 import { createCsrf } from './platform/auth/csrf';
 import { requireSignedIn } from './platform/auth/guards';
-import { MariaDbRateLimitStore } from './platform/auth/mariadb-rate-limit-store';
+import { DatabaseWatch } from './db/database-watch';
+import { databaseGate } from './platform/database-gate';
 import { createSessionMiddleware } from './platform/auth/session';
 import { errorHandler, notFoundHandler } from './platform/error-handler';
 import type { Mailer } from './platform/mail/mailer';
@@ -60,7 +61,7 @@ export interface App {
 
 /** The composition root: each component's module over one DataSource, then the HTTP pipeline. */
 export function createApp({ config, db, mailer }: AppDeps): App {
-  // A small mysql2 pool for the session and rate-limit stores (TypeORM keeps its own pool).
+  // A small mysql2 pool for the session store (TypeORM keeps its own pool).
   const pool: Pool = createPool({
     host: config.db.host,
     port: config.db.port,
@@ -71,18 +72,17 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     timezone: 'Z',
   });
 
+  // Knows within about two seconds when MariaDB stops answering (readiness, and 503s instead of waiting).
+  const databaseWatch = new DatabaseWatch(config.db);
+  databaseWatch.start();
   const csrf = createCsrf(config);
-  const rateLimitStore = new MariaDbRateLimitStore(pool, 'sign-in');
-  // Expired sign-in counters are dropped now and then so the table stays small.
-  const pruneTimer = setInterval(() => void rateLimitStore.prune().catch(() => undefined), 15 * 60_000);
-  pruneTimer.unref();
 
   // Each component wires its own repositories, services and routes; here they meet, in dependency order.
   const audit = createAudit({ db });
   const { repository: auditLog } = audit;
   const mail = createMail({ db, mailer });
   const users = createUsers({ db, audit: auditLog, mailQueue: mail.queue, config });
-  const auth = createAuth({ db, users: users.repository, audit: auditLog, csrf, rateLimitStore, config });
+  const auth = createAuth({ db, users: users.repository, audit: auditLog, csrf, config });
   const organisations = createOrganisations({ db, audit: auditLog });
   const sites = createSites({ db, audit: auditLog });
   const siteAccess = { db, sites: sites.service, audit: auditLog };
@@ -170,12 +170,15 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
   api.use(cookieParser());
-  api.use(createHealth({ db, version: VERSION }).router);
+  api.use(createHealth({ watch: databaseWatch, version: VERSION }).router);
+  api.use(databaseGate(databaseWatch));
   api.use(session.middleware);
   api.use(auth.passport.session());
+  // An API key is checked before CSRF: only a request a valid key authenticated skips the CSRF check (and a key
+  // reaches the machine routes only, never the auth routes).
+  api.use(apiKeys.authenticate);
   api.use(csrf.protect, csrf.toAppError);
   api.use(auth.router);
-  api.use(apiKeys.authenticate);
   api.use(requireSignedIn);
   for (const component of [
     sites,
@@ -215,6 +218,8 @@ export function createApp({ config, db, mailer }: AppDeps): App {
       clearInterval(pruneTimer);
       // A background watch run (started from the API) finishes before the pool closes under it.
       await watch.service.idle();
+      auth.close();
+      await databaseWatch.stop();
       await session.close();
       await pool.end();
     },

@@ -28,7 +28,7 @@ export interface TestApp {
   stop(): Promise<void>;
 }
 
-export async function createTestApp(overrides: Record<string, string> = {}): Promise<TestApp> {
+export async function createTestApp(overrides: Record<string, string | undefined> = {}): Promise<TestApp> {
   const config = testConfig(overrides);
   const server = await startServer(config);
   const db = createDataSource(config.db);

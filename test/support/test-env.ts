@@ -1,7 +1,7 @@
 import { loadConfig, type Config } from '../../backend/src/config';
 
 /** The API and e2e tests use their own database next to the development one, on the same MariaDB. */
-export function testConfig(overrides: Record<string, string> = {}): Config {
+export function testConfig(overrides: Record<string, string | undefined> = {}): Config {
   const base = loadConfig({ ...process.env, NODE_ENV: 'test' });
   return loadConfig({
     ...process.env,
@@ -11,6 +11,8 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
     RILLMARK_LOG_LEVEL: 'warn',
     RILLMARK_SIGNIN_MAX_ATTEMPTS: '5',
     RILLMARK_JOBS_ENABLED: 'false',
+    // Development features the tests exercise are switched on explicitly, as `npm start` does.
+    RILLMARK_DEV_OUTBOX: 'true',
     ...overrides,
   });
 }

@@ -13,6 +13,7 @@ import { WatchImperfectData1796250000000 } from './migrations/1796250000000-watc
 import { FieldAudits1796300000000 } from './migrations/1796300000000-field-audits';
 import { WhatIfPlans1796300001000 } from './migrations/1796300001000-what-if-plans';
 import { SiteEtafSettings1796300002000 } from './migrations/1796300002000-site-etaf-settings';
+import { Hardening1796320000000 } from './migrations/1796320000000-hardening';
 
 /** Every migration, in order (explicit imports, so bundled builds need no file globbing). Add new ones at the end. */
 export const MIGRATIONS: (new () => MigrationInterface)[] = [
@@ -30,4 +31,5 @@ export const MIGRATIONS: (new () => MigrationInterface)[] = [
   FieldAudits1796300000000,
   WhatIfPlans1796300001000,
   SiteEtafSettings1796300002000,
+  Hardening1796320000000,
 ];

@@ -1,13 +1,13 @@
 import { Router } from 'express';
-import type { DataSource } from 'typeorm';
+import type { DatabaseWatch } from '../../db/database-watch';
 import { healthRouter } from './api/health-router';
 
 export interface Health {
-  /** /health (answers before the session is read) */
+  /** /health, /health/live, /health/ready (answer before the session is read) */
   router: Router;
 }
 
-/** Wires the health check. */
-export function createHealth(deps: { db: DataSource; version: string }): Health {
-  return { router: Router().use('/health', healthRouter(deps.db, deps.version)) };
+/** Wires the health checks over the database watch. */
+export function createHealth(deps: { watch: DatabaseWatch; version: string }): Health {
+  return { router: Router().use('/health', healthRouter(deps.watch, deps.version)) };
 }

@@ -10,7 +10,9 @@ export const CSRF_HEADER = 'x-xsrf-token';
 /**
  * Signed double-submit CSRF protection (csrf-csrf): the token is an HMAC over the session id, sent back
  * by the browser both as a cookie and as the X-XSRF-TOKEN header on every state-changing request.
- * Requests carrying an API key (machine uploads) have no browser cookies to abuse and skip the check.
+ * Only a request that a valid API key has already authenticated (`req.apiKey`, set by apiKeyAuth, which runs
+ * first) skips the check: it is authorised by the key, not by cookies a browser could be tricked into sending.
+ * A mere `Authorization: Bearer …` header proves nothing and skips nothing.
  */
 export function createCsrf(config: Config) {
   const { doubleCsrfProtection, generateCsrfToken } = doubleCsrf({
@@ -19,8 +21,7 @@ export function createCsrf(config: Config) {
     cookieName: CSRF_COOKIE,
     cookieOptions: { httpOnly: false, sameSite: 'strict', secure: config.session.secureCookies, path: '/' },
     getCsrfTokenFromRequest: (req) => req.get(CSRF_HEADER),
-    skipCsrfProtection: (req) =>
-      typeof req.get('authorization') === 'string' && req.get('authorization')!.startsWith('Bearer '),
+    skipCsrfProtection: (req) => req.apiKey !== undefined,
   });
 
   /** Issues a token bound to this session; marks the session so it is saved and its id stays stable. */

@@ -1,5 +1,4 @@
-import { Router, type Request, type Response } from 'express';
-import { ipKeyGenerator, rateLimit, type Store } from 'express-rate-limit';
+import { Router, type Request, type RequestHandler, type Response } from 'express';
 import type { createPassport } from '../../../platform/auth/passport';
 import { z } from 'zod';
 import { PASSWORD_MIN_LENGTH } from '@shared/users/user';
@@ -9,6 +8,7 @@ import { principalOf, requireSignedIn } from '../../../platform/auth/guards';
 import type { Principal } from '../../../platform/auth/principal';
 import { validate } from '../../../platform/validation';
 import type { AuthService } from '../domain/auth-service';
+import type { SignInThrottle } from '../domain/sign-in-throttle';
 
 const signInBody = z.strictObject({
   email: z.string().trim().toLowerCase().email('must be an e-mail address').max(254),
@@ -24,49 +24,38 @@ interface Deps {
   auth: AuthService;
   passport: ReturnType<typeof createPassport>;
   csrf: { issue: (req: Request, res: Response) => string };
-  rateLimitStore: Store;
+  throttle: SignInThrottle;
   config: Config;
 }
 
-/** /api/auth: CSRF token, sign-in and out, the current user, and one-time links. */
-export function authRouter({ auth, passport, csrf, rateLimitStore, config }: Deps): Router {
-  const router = Router();
+/** Sign-in and account links are for people: a request carrying an API key is refused before anything else. */
+const noApiKeys: RequestHandler = (req, _res, next) => {
+  if (req.get('authorization') !== undefined)
+    throw AppError.forbidden('The sign-in routes do not take an Authorization header; API keys only send uploads.');
+  next();
+};
 
-  // Counted per client address and e-mail; successful sign-ins don't count.
-  const signInLimiter = rateLimit({
-    windowMs: config.signIn.windowMs,
-    limit: config.signIn.maxAttempts,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    skipSuccessfulRequests: true,
-    store: rateLimitStore,
-    keyGenerator: (req) =>
-      `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '')
-        .trim()
-        .toLowerCase()}`,
-    handler: (_req, _res, next, options) => {
-      const minutes = Math.ceil(options.windowMs / 60_000);
-      next(
-        new AppError(
-          'rate_limited',
-          `Too many sign-in attempts. Wait ${minutes} minutes and try again, ` +
-            'or ask your administrator to reset your password.',
-        ),
-      );
-    },
-  });
+/** /api/auth: CSRF token, sign-in and out, the current user, and one-time links. */
+export function authRouter({ auth, passport, csrf, throttle }: Deps): Router {
+  const router = Router();
+  router.use(noApiKeys);
 
   router.get('/csrf', (req, res) => {
     res.json({ token: csrf.issue(req, res) });
   });
 
-  router.post('/sign-in', signInLimiter, async (req, res) => {
+  router.post('/sign-in', async (req, res) => {
     req.body = validate(signInBody, req.body, 'Sign-in');
-    const principal = await new Promise<Principal | false>((resolve, reject) => {
-      passport.authenticate('local', { session: false }, (err: unknown, user: Principal | false) =>
-        err ? reject(err) : resolve(user),
-      )(req, res, () => undefined);
-    });
+    // Only wrong passwords count; see SignInThrottle for the per-address and per-account limits.
+    const principal = await throttle.attempt(
+      { email: req.body.email, address: req.ip ?? '' },
+      () =>
+        new Promise<Principal | null>((resolve, reject) => {
+          passport.authenticate('local', { session: false }, (err: unknown, user: Principal | false) =>
+            err ? reject(err) : resolve(user || null),
+          )(req, res, () => undefined);
+        }),
+    );
     if (!principal) throw new AppError('unauthenticated', 'That e-mail and password do not match an active account.');
     await logIn(req, principal);
     csrf.issue(req, res);
