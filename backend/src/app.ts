@@ -80,7 +80,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   // Each component wires its own repositories, services and routes; here they meet, in dependency order.
   const audit = createAudit({ db });
   const { repository: auditLog } = audit;
-  const mail = createMail({ db, mailer });
+  const mail = createMail({ db, mailer, config });
   const users = createUsers({ db, audit: auditLog, mailQueue: mail.queue, config });
   const auth = createAuth({ db, users: users.repository, audit: auditLog, csrf, config });
   const organisations = createOrganisations({ db, audit: auditLog });

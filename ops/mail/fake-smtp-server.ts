@@ -5,6 +5,9 @@
  *
  *   GET    /messages   newest first
  *   DELETE /messages   forget everything
+ *
+ * Recipients at `@rejects.invalid` are refused with a permanent 550, so tests can see what a real server's
+ * "no such mailbox" does to the queue.
  */
 import { appendFileSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:http';
@@ -37,6 +40,13 @@ export async function startFakeSmtp(options: FakeSmtpOptions) {
     disabledCommands: ['STARTTLS'],
     banner: 'Rillmark fake SMTP (development only)',
     logger: false,
+    onRcptTo(address, _session, callback) {
+      if (address.address.toLowerCase().endsWith('@rejects.invalid')) {
+        const refused = Object.assign(new Error('No such mailbox here'), { responseCode: 550 });
+        return callback(refused);
+      }
+      callback();
+    },
     onData(stream, _session, callback) {
       simpleParser(stream)
         .then((mail) => {
@@ -49,6 +59,10 @@ export async function startFakeSmtp(options: FakeSmtpOptions) {
             date: (mail.date ?? new Date()).toISOString(),
             text: mail.text ?? '',
             html: typeof mail.html === 'string' ? mail.html : null,
+            organisationIds: String(mail.headers.get('x-rillmark-organisations') ?? '')
+              .split(',')
+              .filter((id) => /^\d+$/.test(id.trim()))
+              .map(Number),
           };
           messages.push(message);
           appendFileSync(options.file, JSON.stringify(message) + '\n');

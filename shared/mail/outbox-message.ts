@@ -7,4 +7,6 @@ export interface OutboxMessage {
   date: string;
   text: string;
   html: string | null;
+  /** Organisations the message was sent for (from its X-Rillmark-Organisations header); empty when untagged. */
+  organisationIds: number[];
 }

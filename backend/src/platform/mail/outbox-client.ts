@@ -16,5 +16,6 @@ export async function fetchOutbox(mail: Config['mail']): Promise<OutboxMessage[]
   }
   if (!response.ok) throw new AppError('internal_error', `The fake SMTP server answered ${response.status}.`);
   const body = (await response.json()) as { messages: OutboxMessage[] };
-  return body.messages;
+  // Messages stored by an older fake server carry no organisations: they belong to nobody.
+  return body.messages.map((m) => ({ ...m, organisationIds: m.organisationIds ?? [] }));
 }

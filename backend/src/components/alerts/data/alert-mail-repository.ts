@@ -28,6 +28,8 @@ export interface RecipientRow {
   role: Role;
   /** True when the user belongs to the site's owning organisation (not a share). */
   owner: boolean;
+  /** The organisations through which the user sees the site (owner, or ones it is shared with). */
+  organisationIds: number[];
   frequency: NotificationFrequency;
   siteIds: number[] | null;
 }
@@ -60,10 +62,12 @@ export class AlertMailRepository {
       site_id: number;
       role: Role;
       owner: number | string;
+      organisation_ids: string;
       frequency: NotificationFrequency;
       site_ids: string | null;
     }[] = await this.db.query(
       `SELECT u.id AS user_id, u.email, u.display_name, x.site_id, m.role, MAX(x.owner) AS owner,
+        GROUP_CONCAT(DISTINCT x.organisation_id) AS organisation_ids,
         COALESCE(n.frequency, 'daily') AS frequency, n.site_ids
        FROM (SELECT id AS site_id, organisation_id, 1 AS owner FROM site WHERE id IN (?) UNION SELECT site_id,
         organisation_id, 0 AS owner FROM site_share WHERE site_id IN (?)) x
@@ -80,6 +84,7 @@ export class AlertMailRepository {
       siteId: r.site_id,
       role: r.role,
       owner: Number(r.owner) === 1,
+      organisationIds: r.organisation_ids.split(',').map(Number),
       frequency: r.frequency,
       siteIds: r.site_ids ? (JSON.parse(r.site_ids) as number[]) : null,
     }));

@@ -19,6 +19,8 @@ interface Reader {
   sites: Set<number>;
   /** Sites of the user's own organisation where they may fix station data (admin, manager, contractor). */
   canFix: Set<number>;
+  /** The organisations through which the user sees these sites (the outbox shows mail per organisation). */
+  orgs: Set<number>;
 }
 
 /** Weather-station alerts go to the people who can upload or fetch the missing days, not to readers of the site. */
@@ -55,13 +57,15 @@ export class AlertNotifier {
         const warnings = mailed.filter((w) => u.sites.has(w.siteId));
         if (u.frequency === 'daily') {
           if (mine.length === 0 && warnings.length === 0) continue;
-          const mail = digestMail({ to: u.email, name: u.name, alerts: mine, warnings, baseUrl: this.baseUrl });
+          const digest = digestMail({ to: u.email, name: u.name, alerts: mine, warnings, baseUrl: this.baseUrl });
+          const mail = { ...digest, organisationIds: [...u.orgs] };
           if (await this.mailQueue.enqueue(em, mail, `watch-digest:${u.userId}:${request.night}`)) queued++;
           continue;
         }
         for (const a of mine) {
           const key = `watch-alert:${u.userId}:${a.id}:${a.reopened ? `reopened-${request.night}` : 'opened'}`;
-          if (await this.mailQueue.enqueue(em, singleAlertMail(u.email, u.name, a, this.baseUrl), key)) queued++;
+          const mail = { ...singleAlertMail(u.email, u.name, a, this.baseUrl), organisationIds: [...u.orgs] };
+          if (await this.mailQueue.enqueue(em, mail, key)) queued++;
         }
       }
     });
@@ -83,8 +87,10 @@ function readersOf(rows: readonly RecipientRow[]): Reader[] {
       frequency: r.frequency,
       sites: new Set<number>(),
       canFix: new Set<number>(),
+      orgs: new Set<number>(),
     };
     entry.sites.add(r.siteId);
+    for (const id of r.organisationIds) entry.orgs.add(id);
     if (r.owner && FIXERS.has(r.role)) entry.canFix.add(r.siteId);
     perUser.set(r.userId, entry);
   }

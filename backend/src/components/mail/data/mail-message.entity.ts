@@ -30,6 +30,10 @@ export class MailMessageEntity {
   @Column({ type: 'longtext', nullable: true, name: 'body_html' })
   html!: string | null;
 
+  /** Organisations the message was sent for, comma-separated (the development outbox filters on them). */
+  @Column({ type: 'varchar', length: 255, nullable: true, name: 'organisation_ids' })
+  organisationIds!: string | null;
+
   @Column({ type: 'enum', enum: ['queued', 'sending', 'sent', 'failed'], default: 'queued' })
   status!: MailStatus;
 

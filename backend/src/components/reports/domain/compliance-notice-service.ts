@@ -82,7 +82,12 @@ export class ComplianceNoticeService {
           sender: principal,
           publicUrl: this.publicUrl,
         });
-        await this.mailQueue.enqueue(em, mail, `compliance-notice:${siteId}:${month}:${r.userId}`);
+        // Sent by the auditor's organisation to the owning organisation's people: both see it in their outbox.
+        await this.mailQueue.enqueue(
+          em,
+          { ...mail, organisationIds: [principal.organisationId, site.organisationId] },
+          `compliance-notice:${siteId}:${month}:${r.userId}`,
+        );
       }
       // Logged under the owning organisation, so it shows in the site's own history.
       await this.audit.record(em, {

@@ -69,7 +69,11 @@ export class UsersService {
         existingAccount: !!existing && existing.status !== 'invited',
         publicUrl: this.config.http.publicUrl,
       });
-      await this.mailQueue.enqueue(em, mail, `invite:${principal.organisationId}:${hash}`);
+      await this.mailQueue.enqueue(
+        em,
+        { ...mail, organisationIds: [principal.organisationId] },
+        `invite:${principal.organisationId}:${hash}`,
+      );
       return id;
     });
     this.mailQueue.kick();
@@ -133,7 +137,7 @@ export class UsersService {
         link,
         publicUrl: this.config.http.publicUrl,
       });
-      await this.mailQueue.enqueue(em, mail, `reset:${hash}`);
+      await this.mailQueue.enqueue(em, { ...mail, organisationIds: [principal.organisationId] }, `reset:${hash}`);
     });
     this.mailQueue.kick();
   }
