@@ -25,11 +25,16 @@ else
   fi
   log "starting MariaDB on $RILLMARK_DB_HOST:$RILLMARK_DB_PORT"
   # --no-defaults: the Debian config points the socket at /run/mysqld and belongs to the system service.
+  # Durability: the redo log is written and flushed at every commit (innodb_flush_log_at_trx_commit=1), so a committed
+  # upload survives an operating-system crash or power loss (with 2, the last second of commits could vanish);
+  # sync_binlog=1 does the same for the binary log wherever one is switched on (replication, point-in-time recovery).
   nohup mariadbd --no-defaults --user=root --datadir="$DATA" \
     --bind-address="$RILLMARK_DB_HOST" --port="$RILLMARK_DB_PORT" --socket="$SOCK" --pid-file="$PIDF" \
     --log-error="$LOGF" --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
-    --default-time-zone=+00:00 --local-infile=1 --max-connections=300 --innodb-buffer-pool-size=512M \
-    --innodb-flush-log-at-trx-commit=2 --transaction-isolation=READ-COMMITTED --skip-name-resolve >/dev/null 2>&1 &
+    --default-time-zone=+00:00 --local-infile=1 --max-connections=300 \
+    --innodb-buffer-pool-size="${RILLMARK_DB_BUFFER_POOL:-512M}" \
+    --innodb-flush-log-at-trx-commit=1 --sync-binlog=1 \
+    --transaction-isolation=READ-COMMITTED --skip-name-resolve >/dev/null 2>&1 &
   for _ in $(seq 1 120); do
     admin ping >/dev/null 2>&1 && break
     sleep 0.25
@@ -43,6 +48,8 @@ fi
 # Set here too, for a server that was already running (it applies to new connections).
 mariadb --no-defaults --protocol=socket --socket="$SOCK" -uroot <<SQL
 SET GLOBAL tx_isolation = 'READ-COMMITTED';
+SET GLOBAL innodb_flush_log_at_trx_commit = 1;
+SET GLOBAL sync_binlog = 1;
 CREATE DATABASE IF NOT EXISTS \`$RILLMARK_DB_NAME\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 CREATE DATABASE IF NOT EXISTS \`${RILLMARK_DB_NAME}_test\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
 CREATE USER IF NOT EXISTS '$RILLMARK_DB_USER'@'127.0.0.1' IDENTIFIED BY '$RILLMARK_DB_PASSWORD';
