@@ -2,6 +2,7 @@ import type { DataSource } from 'typeorm';
 import { etoRainCsv, normals, stationForSite } from './budget-fixtures';
 import type { Client } from './test-app';
 import { refreshMonths } from '../../backend/src/components/readings/data/daily-use-repository';
+import { PDFParse } from 'pdf-parse';
 
 /** Invented daily ETo (mm) by calendar month: ~2.5 in January rising to ~6 in July. */
 export const etoPerDay = (month: number): number =>
@@ -67,9 +68,6 @@ export async function insertMonthlyUse(
   await refreshMonths(db, siteId, month, month);
 }
 
-// pdf-parse ships no types; the module path is a variable so TypeScript does not look for them.
-const PDF_PARSE = 'pdf-parse/lib/pdf-parse.js';
-
 /** Downloads a PDF and returns its text with whitespace collapsed. */
 export async function pdfText(client: Client, path: string): Promise<string> {
   const collect = (res: NodeJS.ReadableStream, done: (err: Error | null, body: Buffer) => void) => {
@@ -83,6 +81,10 @@ export async function pdfText(client: Client, path: string): Promise<string> {
     .parse(collect as never)
     .expect(200)
     .expect('content-type', 'application/pdf');
-  const pdfParse = (await import(PDF_PARSE)).default as (data: Buffer) => Promise<{ text: string }>;
-  return (await pdfParse(res.body as Buffer)).text.replace(/\s+/g, ' ');
+  const parser = new PDFParse({ data: new Uint8Array(res.body as Buffer) });
+  try {
+    return (await parser.getText()).text.replace(/\s+/g, ' ');
+  } finally {
+    await parser.destroy();
+  }
 }
