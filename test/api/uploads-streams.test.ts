@@ -1,8 +1,8 @@
-import { readdirSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import { request as httpRequest } from 'node:http';
 import { resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { equipSite, siteReadings, uploadFile } from '../support/ingest-fixtures';
+import { equipSite, SAMPLES, siteReadings, uploadFile } from '../support/ingest-fixtures';
 import {
   createSite,
   createTestApp,
@@ -131,6 +131,20 @@ describe('an upload the parser refuses early never takes the server down (findin
     expect(answers.map((r) => r.status)).toEqual([400, 400, 400, 400, 400, 400]);
     await healthy();
     expect(scratchFiles()).toEqual([]);
+  });
+});
+
+describe('a file whose quoting breaks before MariaDB has asked for the rows', () => {
+  it('when a quote opens and never closes, then the answer is a prompt 400 naming the line, nothing is stored and the connection is free', async () => {
+    const siteId = await equippedSite();
+    const sample = readFileSync(resolve(SAMPLES, 'meters/interval-long-hourly.csv'), 'utf8');
+    const broken = sample.split('\n').slice(0, 30).join('\n') + '\nHOA-NORTH-01,2026-10-30 00:00,"1.5\n';
+    // Before: the load into MariaDB waited a minute for a stream that had already failed, then answered 500.
+    const res = await uploadFile(manager, siteId, Buffer.from(broken), {}, 'quote.csv');
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/^"quote\.csv" is not well-formed CSV: Quote Not Closed.* line 31/);
+    expect(await siteReadings(app.db, siteId)).toEqual([]);
+    await uploadFile(manager, siteId, 'meters/interval-long-hourly.csv').expect(201);
   });
 });
 

@@ -7,6 +7,14 @@ import { limitMessage } from '../domain/upload-errors';
 /** Multipart overhead allowed on top of the file-size limit before a Content-Length is refused outright. */
 const OVERHEAD = 256 * 1024;
 
+/** The file's name as sent, without control characters and short enough to store (upload.file_name holds 255). */
+function fileNameOf(sent: string | undefined): string {
+  // eslint-disable-next-line no-control-regex
+  const name = (sent ?? '').replace(/[\u0000-\u001f\u007f]/g, '').trim();
+  if (!name) return 'upload.csv';
+  return name.length <= 200 ? name : `${name.slice(0, 150)}…${name.slice(-40)}`;
+}
+
 /** Reads and throws away what is left of a request (up to `cap` bytes), so the client can read our answer. */
 function drain(req: Request, cap: number): Promise<void> {
   return new Promise((resolve) => {
@@ -63,7 +71,7 @@ export async function receiveUpload<T>(
         return;
       }
       active = file;
-      work = Promise.resolve().then(() => handle(fields, file, info.filename || 'upload.csv'));
+      work = Promise.resolve().then(() => handle(fields, file, fileNameOf(info.filename)));
       work.catch(() => file.resume());
     });
     // A client that goes away mid-file leaves the parser waiting for an end that never comes: fail the file instead.

@@ -1,5 +1,5 @@
 import { once } from 'node:events';
-import { PassThrough } from 'node:stream';
+import { PassThrough, Readable } from 'node:stream';
 import type { QueryRunner } from 'typeorm';
 import type { IngestTarget } from './ingest-targets';
 
@@ -69,6 +69,9 @@ export interface MergeOutcome {
 export class IngestWriter {
   private stream: PassThrough | null = null;
   private load: Promise<unknown> | null = null;
+  /** MariaDB has asked for the file (mysql2 called the stream factory). */
+  private requested = false;
+  private aborted: Error | null = null;
   private chunk = '';
   private direct = false;
   linesSent = 0;
@@ -82,12 +85,31 @@ export class IngestWriter {
     return (this.qr as unknown as { databaseConnection: RawConnection }).databaseConnection;
   }
 
-  private rawQuery<T>(sql: string, values: unknown[] = [], infile?: PassThrough): Promise<T> {
+  private rawQuery<T>(sql: string, values: unknown[] = [], infile?: () => NodeJS.ReadableStream): Promise<T> {
     return new Promise((resolve, reject) => {
-      this.raw.query({ sql, values, ...(infile ? { infileStreamFactory: () => infile } : {}) }, (err, result) =>
+      this.raw.query({ sql, values, ...(infile ? { infileStreamFactory: infile } : {}) }, (err, result) =>
         err ? reject(err) : resolve(result as T),
       );
     });
+  }
+
+  /**
+   * The stream MariaDB reads the lines from, handed over when it asks for the file. An upload that failed before
+   * MariaDB asked gets a stream that fails as soon as it is read: a stream destroyed before mysql2 listens to it
+   * never says so, and MariaDB then waited for the file until its own read timeout (a minute) while holding the
+   * connection and the transaction.
+   */
+  private infile(stream: PassThrough): () => NodeJS.ReadableStream {
+    return () => {
+      this.requested = true;
+      const failure = this.aborted;
+      if (!failure) return stream;
+      return new Readable({
+        read() {
+          this.destroy(failure);
+        },
+      });
+    };
   }
 
   /**
@@ -121,7 +143,13 @@ export class IngestWriter {
     const stream = this.stream;
     // The writer owns this stream: its errors come back through `flush`/`finish` (or the load's own rejection).
     stream.on('error', () => undefined);
-    this.load = this.rawQuery(`LOAD DATA LOCAL INFILE 'rillmark-upload' IGNORE INTO TABLE ${into}`, [], stream);
+    this.requested = false;
+    this.aborted = null;
+    this.load = this.rawQuery(
+      `LOAD DATA LOCAL INFILE 'rillmark-upload' IGNORE INTO TABLE ${into}`,
+      [],
+      this.infile(stream),
+    );
     // Surface a failed load at once instead of when the stream ends.
     this.load.catch((err) => stream.destroy(err as Error));
   }
@@ -160,7 +188,9 @@ export class IngestWriter {
   }
 
   abort(err: Error): void {
-    this.stream?.destroy(err);
+    this.aborted ??= err;
+    // Before MariaDB asked for the file, the factory hands it a failing stream instead (see infile).
+    if (this.requested) this.stream?.destroy(err);
   }
 
   async drop(): Promise<void> {

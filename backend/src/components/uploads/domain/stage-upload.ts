@@ -6,6 +6,7 @@ import type { ColumnMapping, UploadKind } from '@shared/ingest/upload-kind';
 import type { RejectionDto } from '@shared/uploads/upload';
 import { INTERVAL_TARGET, REGISTER_TARGET, RUNTIME_TARGET, type IngestTarget } from '../data/ingest-targets';
 import { IngestWriter } from '../data/ingest-writer';
+import { clipText } from '../../../platform/clip-text';
 import { FileProblem, type CsvRows } from './csv-rows';
 import type { IngestRefs } from './ingest-refs';
 import { IntervalSpans } from './interval-spans';
@@ -114,7 +115,7 @@ export async function stageUpload(qr: QueryRunner, csv: CsvRows, options: StageO
   const reject = (e: RowError) => {
     staged.rejected++;
     if (staged.rejections.length < MAX_STORED_REJECTIONS)
-      staged.rejections.push({ row: e.row, column: e.column, kind: 'rejected', message: e.message });
+      staged.rejections.push({ row: e.row, column: e.column, kind: 'rejected', message: clipText(e.message, 500) });
   };
   let row = 1;
   // Synchronous per row (a promise per row costs more than the row); the writer is flushed between rows.
@@ -175,7 +176,7 @@ function decideMapping(head: string[][], csv: CsvRows, options: StageOptions): C
     mappingOverrides: options.overrides,
     sampleSize: HEAD_ROWS,
   });
-  if (result.fileProblems.length) throw new FileProblem(result.fileProblems.join(' '));
+  if (result.fileProblems.length) throw new FileProblem(clipText(result.fileProblems.join(' '), 2_000));
   const mapping = result.mapping!;
   if (options.kind && !options.mapping && mapping.kind !== options.kind) {
     throw new FileProblem(

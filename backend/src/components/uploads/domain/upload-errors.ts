@@ -1,5 +1,6 @@
 import type { RejectionDto } from '@shared/uploads/upload';
 import { AppError } from '../../../platform/app-error';
+import { clipText } from '../../../platform/clip-text';
 import { isDatabaseUnavailable } from '../../../platform/db-errors';
 import { FileProblem } from './csv-rows';
 import { MappingProblem } from './stage-upload';
@@ -37,11 +38,16 @@ export function toUploadError(err: unknown, fileName: string, maxBytes: number):
     return new AppError('payload_too_large', limitMessage(fileName, maxBytes), [
       { field: 'file', message: 'is over the size limit' },
     ]);
+  // A hostile header can make these messages huge (they quote cells): the answer and the stored summary stay short.
   if (err instanceof MappingProblem)
-    return new AppError('validation_failed', `"${fileName}": ${err.message}`, err.details);
+    return new AppError(
+      'validation_failed',
+      `"${fileName}": ${clipText(err.message, 2_000)}`,
+      err.details.map((d) => ({ ...d, message: clipText(d.message, 500) })),
+    );
   if (err instanceof FileProblem)
-    return new AppError('validation_failed', `"${fileName}": ${err.message}`, [
-      { field: 'file', message: err.message },
+    return new AppError('validation_failed', `"${fileName}": ${clipText(err.message, 2_000)}`, [
+      { field: 'file', message: clipText(err.message, 500) },
     ]);
   if (err instanceof RowsRefused) {
     return new AppError(
@@ -54,6 +60,13 @@ export function toUploadError(err: unknown, fileName: string, maxBytes: number):
         .map((r) => ({ field: `row ${r.row}${r.column ? `, column ${r.column}` : ''}`, message: r.message })),
     );
   }
+  const csv = csvSyntaxError(err);
+  if (csv)
+    return new AppError(
+      'validation_failed',
+      `"${fileName}" is not well-formed CSV: ${csv}. Nothing was stored; fix the quoting (a cell that starts with " must end with ") and send the file again.`,
+      [{ field: 'file', message: csv }],
+    );
   if (isClientGone(err))
     return new AppError(
       'validation_failed',
@@ -72,4 +85,11 @@ function isClientGone(err: unknown): boolean {
   const e = err as { code?: string; message?: string; fatal?: boolean };
   if (e.fatal) return false;
   return e.message === 'aborted' || e.code === 'ECONNRESET' || e.code === 'ERR_STREAM_PREMATURE_CLOSE';
+}
+
+/** csv-parse's own errors (CsvError, codes CSV_…): the file's quoting is broken. Its message names the line. */
+function csvSyntaxError(err: unknown): string | null {
+  const e = err as { code?: unknown; message?: unknown };
+  if (typeof e.code !== 'string' || !e.code.startsWith('CSV_') || typeof e.message !== 'string') return null;
+  return clipText(e.message, 300);
 }

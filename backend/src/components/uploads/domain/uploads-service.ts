@@ -7,6 +7,7 @@ import type { ColumnMapping, UploadKind } from '@shared/ingest/upload-kind';
 import type { RejectionDto, RowErrorPolicy, UploadDto, UploadResult } from '@shared/uploads/upload';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
+import { clipText } from '../../../platform/clip-text';
 import { logger } from '../../../platform/logger';
 import type { FileStore } from '../../../platform/storage/file-store';
 import type { AuditRepository } from '../../audit/data/audit-repository';
@@ -224,7 +225,10 @@ export class UploadsService {
       else await pending.discard();
       const problem = toUploadError(err, fileName, maxBytes);
       if (!problem) logger.error('upload failed', { uploadId, error: (err as Error).stack ?? String(err) });
-      const summary = problem?.message ?? 'The server could not finish this upload; nothing was stored.';
+      const summary = clipText(
+        problem?.message ?? 'The server could not finish this upload; nothing was stored.',
+        2_000,
+      );
       await this.markFailed(uploadId, {
         status: 'failed',
         kind: staged?.kind ?? null,
