@@ -45,6 +45,20 @@ export default defineConfig({
       {
         resolve: { alias },
         test: {
+          // Servers in their own processes under hostile uploads and faults (MariaDB killed or paused, SMTP down).
+          name: 'resilience',
+          environment: 'node',
+          include: ['test/resilience/**/*.test.ts'],
+          globalSetup: ['test/support/global-setup.ts'],
+          testTimeout: 600_000,
+          hookTimeout: 180_000,
+          pool: 'forks',
+          maxWorkers: 2,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
           name: 'e2e',
           environment: 'node',
           include: ['test/e2e/**/*.test.ts'],
