@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # The one command that runs every test: installs what is missing (npm packages, Debian's mariadb-server
 # and chromium), starts MariaDB, the fake SMTP server and the fake weather feed if they are not running, runs the
-# formatter and linter checks, type checks, unit and reference checks, API tests against MariaDB, Angular component
+# formatter and linter checks, type checks, unit and reference checks, API tests against MariaDB, the hostile-upload
+# suite and the fault tests (their own MariaDB and fake SMTP server on this worktree's test ports), Angular component
 # tests, the production build with its bundle budget, and end-to-end tests in Chromium; then stops what it started.
 set -uo pipefail
 . "$(dirname "$0")/lib/env.sh"
@@ -49,6 +50,7 @@ stage "type check (backend, shared, tests)" npx tsc -p backend/tsconfig.json --n
 stage "type check (frontend)" npx tsc -p frontend/tsconfig.app.json --noEmit
 stage "unit and reference checks" npx vitest run --project unit
 stage "API tests (MariaDB)" npx vitest run --project api
+stage "hostile uploads and faults (servers in their own processes)" npx vitest run --project resilience
 stage "Angular component tests" npx ng test --watch=false
 stage "production build and bundle budget" bash ops/build.sh
 stage "no external font or CDN host in the build" bash ops/check-no-external-hosts.sh

@@ -1,11 +1,16 @@
 # Sourced by the ops scripts: project root, .env, and defaults (the same defaults as backend/src/config.ts).
 RILLMARK_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 export RILLMARK_ROOT
+# Variables already set in the environment win over .env (as in vitest.config.ts): a test can start a second
+# MariaDB on another port and directory with the same scripts.
 if [ -f "$RILLMARK_ROOT/.env" ]; then
-  set -a
-  # shellcheck disable=SC1091
-  . "$RILLMARK_ROOT/.env"
-  set +a
+  while IFS= read -r line || [ -n "$line" ]; do
+    case "$line" in '' | '#'*) continue ;; esac
+    name="${line%%=*}"
+    case "$name" in *[!A-Za-z0-9_]*) continue ;; esac
+    [ -n "${!name+x}" ] && continue
+    eval "export $line"
+  done <"$RILLMARK_ROOT/.env"
 fi
 export RILLMARK_DB_HOST="${RILLMARK_DB_HOST:-127.0.0.1}"
 export RILLMARK_DB_PORT="${RILLMARK_DB_PORT:-3317}"

@@ -1,6 +1,6 @@
 import 'reflect-metadata';
 import { DataSource } from 'typeorm';
-import { loadConfig, type Config } from '../config';
+import type { Config } from '../config';
 import { ENTITIES } from './entities';
 import { MIGRATIONS } from './migrations';
 
@@ -29,6 +29,3 @@ export function createDataSource(db: Config['db']): DataSource {
     logging: ['error'],
   });
 }
-
-/** For the TypeORM CLI (`npm run migration:generate -- backend/src/db/migrations/<Name>`). */
-export const cliDataSource = createDataSource(loadConfig().db);

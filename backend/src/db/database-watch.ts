@@ -38,7 +38,7 @@ export class DatabaseWatch {
 
   start(): void {
     const tick = async () => {
-      this.record(await this.ping());
+      await this.check();
       if (this.timer) this.timer = setTimeout(() => void tick(), WATCH_INTERVAL_MS).unref();
     };
     this.timer = setTimeout(() => void tick(), WATCH_INTERVAL_MS).unref();
@@ -56,8 +56,15 @@ export class DatabaseWatch {
     return () => this.listeners.delete(listener);
   }
 
+  /** A ping whose outcome also updates what the watch knows (the readiness check uses it). */
+  async check(): Promise<PingResult> {
+    const result = await this.ping();
+    this.record(result);
+    return result;
+  }
+
   /** One `SELECT 1` with a deadline: answers within PING_TIMEOUT_MS whatever MariaDB does. */
-  async ping(): Promise<PingResult> {
+  private async ping(): Promise<PingResult> {
     const started = performance.now();
     let deadline: NodeJS.Timeout | undefined;
     const timeout = new Promise<never>((_, reject) => {

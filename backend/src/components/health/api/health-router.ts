@@ -14,7 +14,7 @@ export function healthRouter(watch: DatabaseWatch, version: string): Router {
     res.json({ status: 'ok', version, time: new Date().toISOString() });
   });
   const ready = async (_req: Request, res: Response) => {
-    const database = await watch.ping();
+    const database = await watch.check();
     const ok = database.status === 'up';
     res
       .status(ok ? 200 : 503)
