@@ -40,7 +40,8 @@ const schema = z.object({
   RILLMARK_SIGNIN_MAX_DELAY_SECONDS: z.coerce.number().int().min(1).max(3_600).default(60),
   RILLMARK_SMTP_HOST: z.string().default('127.0.0.1'),
   RILLMARK_SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2526),
-  // none: plain SMTP (the local fake, or a relay on loopback); starttls: upgrade required; implicit: TLS from the start (465).
+  // none: plain SMTP (the local fake, or a relay on loopback); starttls: upgrade required;
+  // implicit: TLS from the start (port 465).
   RILLMARK_SMTP_TLS: z.enum(['none', 'starttls', 'implicit']).default('none'),
   RILLMARK_SMTP_USER: z.string().optional(),
   RILLMARK_SMTP_PASSWORD: z.string().optional(),
@@ -181,7 +182,8 @@ function unsafeSettings(e: Env): string[] {
     problems.push('RILLMARK_DEV_OUTBOX: the development outbox is refused with NODE_ENV=production; set it to false');
   if (e.RILLMARK_SMTP_TLS === 'none' && !isLoopback(e.RILLMARK_SMTP_HOST))
     problems.push(
-      `RILLMARK_SMTP_TLS: mail to ${e.RILLMARK_SMTP_HOST} would go unencrypted; set starttls or implicit (plain SMTP only to a relay on loopback)`,
+      `RILLMARK_SMTP_TLS: mail to ${e.RILLMARK_SMTP_HOST} would go unencrypted; set starttls or implicit ` +
+        '(plain SMTP only to a relay on loopback)',
     );
   if (e.RILLMARK_SMTP_USER && e.RILLMARK_SMTP_TLS === 'none' && !isLoopback(e.RILLMARK_SMTP_HOST))
     problems.push('RILLMARK_SMTP_PASSWORD: would be sent in clear; set RILLMARK_SMTP_TLS to starttls or implicit');

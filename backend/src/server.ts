@@ -33,7 +33,8 @@ async function warnUnlessDurable(db: DataSource): Promise<void> {
   );
   if (row && String(row.flush) !== '1')
     logger.warn(
-      `MariaDB runs innodb_flush_log_at_trx_commit = ${row.flush}: committed uploads can be lost if the machine crashes; set it to 1 (see README, Reliability and security)`,
+      `MariaDB runs innodb_flush_log_at_trx_commit = ${row.flush}: committed uploads can be lost if the machine ` +
+        'crashes; set it to 1 (see README, Reliability and security)',
     );
   if (row && String(row.binlog) === '1' && String(row.sync) !== '1')
     logger.warn(

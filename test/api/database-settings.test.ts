@@ -12,13 +12,16 @@ beforeAll(async () => {
 afterAll(async () => app?.stop());
 
 describe('MariaDB durability (finding 7)', () => {
-  it('when a transaction commits, then MariaDB has flushed its log to disk (innodb_flush_log_at_trx_commit = 1)', async () => {
-    const [row] = await app.db.query(
-      'SELECT @@GLOBAL.innodb_flush_log_at_trx_commit AS flush, @@GLOBAL.sync_binlog AS syncBinlog',
-    );
-    expect(Number(row.flush)).toBe(1);
-    expect(Number(row.syncBinlog)).toBe(1);
-  });
+  it(
+    'when a transaction commits, ' + 'then MariaDB has flushed its log to disk (innodb_flush_log_at_trx_commit = 1)',
+    async () => {
+      const [row] = await app.db.query(
+        'SELECT @@GLOBAL.innodb_flush_log_at_trx_commit AS flush, @@GLOBAL.sync_binlog AS syncBinlog',
+      );
+      expect(Number(row.flush)).toBe(1);
+      expect(Number(row.syncBinlog)).toBe(1);
+    },
+  );
 });
 
 describe('database credentials', () => {
@@ -37,11 +40,14 @@ describe('database credentials', () => {
 });
 
 describe('health', () => {
-  it('when the process runs, then liveness answers without asking MariaDB, and readiness says the database is up', async () => {
-    const live = await fetch(`${app.server.url}/api/health/live`);
-    expect(live.status).toBe(200);
-    const ready = await fetch(`${app.server.url}/api/health/ready`);
-    expect(ready.status).toBe(200);
-    expect(await ready.json()).toMatchObject({ status: 'ok', database: { status: 'up' } });
-  });
+  it(
+    'when the process runs, ' + 'then liveness answers without asking MariaDB, and readiness says the database is up',
+    async () => {
+      const live = await fetch(`${app.server.url}/api/health/live`);
+      expect(live.status).toBe(200);
+      const ready = await fetch(`${app.server.url}/api/health/ready`);
+      expect(ready.status).toBe(200);
+      expect(await ready.json()).toMatchObject({ status: 'ok', database: { status: 'up' } });
+    },
+  );
 });

@@ -98,52 +98,59 @@ describe('mail queue', () => {
     }
   });
 
-  it('when SMTP refuses the recipient for good (550), then the message fails at once and is never retried', async () => {
-    const subject = `Refused ${suffix()}`;
-    const mailer = createSmtpMailer(testConfig().mail);
-    const queue = new MailQueue(app.db, mailer);
-    try {
-      await app.db.transaction((em) =>
-        queue.enqueue(em, { to: 'nobody@rejects.invalid', subject, text: 'x' }, `550:${subject}`),
-      );
-      await queue.deliverDue();
-      const row = await app.db.getRepository(MailMessageEntity).findOneByOrFail({ dedupeKey: `550:${subject}` });
-      expect(row).toMatchObject({ status: 'failed', attempts: 1 });
-      expect(row.lastError).toMatch(/550/);
-    } finally {
-      mailer.close();
-    }
-  });
+  it(
+    'when SMTP refuses the recipient for good (550), ' + 'then the message fails at once and is never retried',
+    async () => {
+      const subject = `Refused ${suffix()}`;
+      const mailer = createSmtpMailer(testConfig().mail);
+      const queue = new MailQueue(app.db, mailer);
+      try {
+        await app.db.transaction((em) =>
+          queue.enqueue(em, { to: 'nobody@rejects.invalid', subject, text: 'x' }, `550:${subject}`),
+        );
+        await queue.deliverDue();
+        const row = await app.db.getRepository(MailMessageEntity).findOneByOrFail({ dedupeKey: `550:${subject}` });
+        expect(row).toMatchObject({ status: 'failed', attempts: 1 });
+        expect(row.lastError).toMatch(/550/);
+      } finally {
+        mailer.close();
+      }
+    },
+  );
 
-  it('when one message takes longer to send than its claim lasts, then the claim is renewed and no other instance sends it again', async () => {
-    const subject = `Slow ${suffix()}`;
-    const mailer = createSmtpMailer(testConfig().mail);
-    // SMTP taking 1.5 s for this message, against a 0.6 s claim: without renewal the claim lapses mid-send.
-    const slow = {
-      send: async (m: Parameters<typeof mailer.send>[0]) => {
-        if (m.subject === subject) await new Promise((r) => setTimeout(r, 1_500));
-        await mailer.send(m);
-      },
-      close: () => undefined,
-    };
-    const instanceA = new MailQueue(app.db, slow, { claimMs: 600 });
-    const instanceB = new MailQueue(app.db, mailer, { claimMs: 600 });
-    try {
-      await app.db.transaction((em) =>
-        instanceA.enqueue(em, { to: 'slow@test.example', subject, text: 'x' }, `slow:${subject}`),
-      );
-      const passA = instanceA.deliverDue();
-      await new Promise((r) => setTimeout(r, 1_000));
-      await instanceB.deliverDue();
-      await passA;
-      expect(await received(subject)).toBe(1);
-      expect(
-        await app.db.getRepository(MailMessageEntity).findOneByOrFail({ dedupeKey: `slow:${subject}` }),
-      ).toMatchObject({ status: 'sent', attempts: 1 });
-    } finally {
-      mailer.close();
-    }
-  });
+  it(
+    'when one message takes longer to send than its claim lasts, ' +
+      'then the claim is renewed and no other instance sends it again',
+    async () => {
+      const subject = `Slow ${suffix()}`;
+      const mailer = createSmtpMailer(testConfig().mail);
+      // SMTP taking 1.5 s for this message, against a 0.6 s claim: without renewal the claim lapses mid-send.
+      const slow = {
+        send: async (m: Parameters<typeof mailer.send>[0]) => {
+          if (m.subject === subject) await new Promise((r) => setTimeout(r, 1_500));
+          await mailer.send(m);
+        },
+        close: () => undefined,
+      };
+      const instanceA = new MailQueue(app.db, slow, { claimMs: 600 });
+      const instanceB = new MailQueue(app.db, mailer, { claimMs: 600 });
+      try {
+        await app.db.transaction((em) =>
+          instanceA.enqueue(em, { to: 'slow@test.example', subject, text: 'x' }, `slow:${subject}`),
+        );
+        const passA = instanceA.deliverDue();
+        await new Promise((r) => setTimeout(r, 1_000));
+        await instanceB.deliverDue();
+        await passA;
+        expect(await received(subject)).toBe(1);
+        expect(
+          await app.db.getRepository(MailMessageEntity).findOneByOrFail({ dedupeKey: `slow:${subject}` }),
+        ).toMatchObject({ status: 'sent', attempts: 1 });
+      } finally {
+        mailer.close();
+      }
+    },
+  );
 
   it(
     'when an admin invites someone while SMTP is down, then the invitation ' +

@@ -33,12 +33,15 @@ async function signIn(on: TestApp, email: string, password: string, forwardedFor
 const wait = (seconds: number) => new Promise((r) => setTimeout(r, seconds * 1000 + 50));
 
 describe('only wrong passwords count (finding 3)', () => {
-  it('when 50 people sign in to one account at the same moment with the right password, then all 50 are signed in', async () => {
-    const user = await createUser(app.db, world.org.id, 'manager');
-    const answers = await Promise.all(Array.from({ length: 50 }, () => signIn(app, user.email, TEST_PASSWORD)));
-    expect(answers.map((r) => r.status)).toEqual(Array(50).fill(200));
-    expect((await signIn(app, user.email, TEST_PASSWORD)).status).toBe(200);
-  });
+  it(
+    'when 50 people sign in to one account at the same moment with the right password, ' + 'then all 50 are signed in',
+    async () => {
+      const user = await createUser(app.db, world.org.id, 'manager');
+      const answers = await Promise.all(Array.from({ length: 50 }, () => signIn(app, user.email, TEST_PASSWORD)));
+      expect(answers.map((r) => r.status)).toEqual(Array(50).fill(200));
+      expect((await signIn(app, user.email, TEST_PASSWORD)).status).toBe(200);
+    },
+  );
 
   it('when wrong passwords are refused with 429, then the refusals do not count and the wait stays short', async () => {
     const user = await createUser(app.db, world.org.id, 'auditor');
@@ -53,27 +56,35 @@ describe('only wrong passwords count (finding 3)', () => {
 });
 
 describe('the limit cannot be dodged by changing address (finding 4)', () => {
-  it('when X-Forwarded-For changes on every try and no proxy is configured, then the header is ignored and the count holds', async () => {
-    const user = await createUser(app.db, world.org.id, 'contractor');
-    for (let i = 0; i < 5; i++) expect((await signIn(app, user.email, 'wrong', `10.9.${i}.1`)).status).toBe(401);
-    const blocked = await signIn(app, user.email, TEST_PASSWORD, '10.9.99.1');
-    expect(blocked.status).toBe(429);
-    expect(blocked.body.error.code).toBe('rate_limited');
-  });
+  it(
+    'when X-Forwarded-For changes on every try and no proxy is configured, ' +
+      'then the header is ignored and the count holds',
+    async () => {
+      const user = await createUser(app.db, world.org.id, 'contractor');
+      for (let i = 0; i < 5; i++) expect((await signIn(app, user.email, 'wrong', `10.9.${i}.1`)).status).toBe(401);
+      const blocked = await signIn(app, user.email, TEST_PASSWORD, '10.9.99.1');
+      expect(blocked.status).toBe(429);
+      expect(blocked.body.error.code).toBe('rate_limited');
+    },
+  );
 
-  it('when wrong passwords come from many addresses through a trusted proxy, then the account cap is reached all the same, with a growing wait', async () => {
-    const user = await createUser(app.db, world.org.id, 'manager');
-    for (let i = 0; i < 5; i++) expect((await signIn(proxied, user.email, 'wrong', `192.0.2.${i}`)).status).toBe(401);
-    const capped = await signIn(proxied, user.email, TEST_PASSWORD, '192.0.2.77');
-    expect(capped.status).toBe(429);
-    expect(capped.body.error.message).toMatch(/Too many failed sign-ins for this account\. Wait 1 second/);
-    expect(capped.headers['retry-after']).toBe('1');
-    await wait(1);
-    expect((await signIn(proxied, user.email, 'wrong', '192.0.2.78')).status).toBe(401);
-    expect((await signIn(proxied, user.email, 'wrong', '192.0.2.79')).headers['retry-after']).toBe('2');
-    // Another account from the same addresses is not affected.
-    expect((await signIn(proxied, world.users.admin.email, TEST_PASSWORD, '192.0.2.1')).status).toBe(200);
-  });
+  it(
+    'when wrong passwords come from many addresses through a trusted proxy, ' +
+      'then the account cap is reached all the same, with a growing wait',
+    async () => {
+      const user = await createUser(app.db, world.org.id, 'manager');
+      for (let i = 0; i < 5; i++) expect((await signIn(proxied, user.email, 'wrong', `192.0.2.${i}`)).status).toBe(401);
+      const capped = await signIn(proxied, user.email, TEST_PASSWORD, '192.0.2.77');
+      expect(capped.status).toBe(429);
+      expect(capped.body.error.message).toMatch(/Too many failed sign-ins for this account\. Wait 1 second/);
+      expect(capped.headers['retry-after']).toBe('1');
+      await wait(1);
+      expect((await signIn(proxied, user.email, 'wrong', '192.0.2.78')).status).toBe(401);
+      expect((await signIn(proxied, user.email, 'wrong', '192.0.2.79')).headers['retry-after']).toBe('2');
+      // Another account from the same addresses is not affected.
+      expect((await signIn(proxied, world.users.admin.email, TEST_PASSWORD, '192.0.2.1')).status).toBe(200);
+    },
+  );
 
   it('when the configuration asks to trust every proxy hop, then the server refuses to start', async () => {
     await expect(createTestApp({ RILLMARK_TRUST_PROXY: 'true' })).rejects.toThrow(/RILLMARK_TRUST_PROXY/);

@@ -132,28 +132,32 @@ describe('password reset and account changes', () => {
 });
 
 describe('the development outbox and other organisations (finding 2)', () => {
-  it("when another organisation's administrator opens the outbox, then they never see this organisation's invitation or reset mail", async () => {
-    const stranger = await createWorld(app.db);
-    const strangerAdmin = await signedIn(app, stranger.users.admin.email);
-    const email = `secret-${suffix()}@test.example`;
-    await admin.post('/api/users/invitations', { email, displayName: 'Kept Private', role: 'manager' }).expect(201);
-    await admin.post(`/api/users/${world.users.auditor.id}/password-reset`).expect(202);
-    await mailTo(email);
-    // Mail goes out in the background: wait until both messages have reached the fake SMTP server.
-    const mine = (box: Mail[]) =>
-      box.some((m) => m.to.includes(email)) && box.some((m) => m.to.includes(world.users.auditor.email));
-    let ownBox: Mail[] = [];
-    for (let i = 0; i < 40 && !mine(ownBox); i++) {
-      if (i) await new Promise((r) => setTimeout(r, 100));
-      ownBox = (await admin.get('/api/dev/outbox').expect(200)).body.messages as Mail[];
-    }
-    expect(mine(ownBox)).toBe(true);
+  it(
+    "when another organisation's administrator opens the outbox, " +
+      "then they never see this organisation's invitation or reset mail",
+    async () => {
+      const stranger = await createWorld(app.db);
+      const strangerAdmin = await signedIn(app, stranger.users.admin.email);
+      const email = `secret-${suffix()}@test.example`;
+      await admin.post('/api/users/invitations', { email, displayName: 'Kept Private', role: 'manager' }).expect(201);
+      await admin.post(`/api/users/${world.users.auditor.id}/password-reset`).expect(202);
+      await mailTo(email);
+      // Mail goes out in the background: wait until both messages have reached the fake SMTP server.
+      const mine = (box: Mail[]) =>
+        box.some((m) => m.to.includes(email)) && box.some((m) => m.to.includes(world.users.auditor.email));
+      let ownBox: Mail[] = [];
+      for (let i = 0; i < 40 && !mine(ownBox); i++) {
+        if (i) await new Promise((r) => setTimeout(r, 100));
+        ownBox = (await admin.get('/api/dev/outbox').expect(200)).body.messages as Mail[];
+      }
+      expect(mine(ownBox)).toBe(true);
 
-    const theirBox = (await strangerAdmin.get('/api/dev/outbox').expect(200)).body.messages as Mail[];
-    expect(theirBox.filter((m) => m.to.includes(email) || m.to.includes(world.users.auditor.email))).toEqual([]);
-    // So the invitation cannot be taken over from the other organisation.
-    expect(JSON.stringify(theirBox)).not.toContain(linkToken(await mailTo(email)));
-  });
+      const theirBox = (await strangerAdmin.get('/api/dev/outbox').expect(200)).body.messages as Mail[];
+      expect(theirBox.filter((m) => m.to.includes(email) || m.to.includes(world.users.auditor.email))).toEqual([]);
+      // So the invitation cannot be taken over from the other organisation.
+      expect(JSON.stringify(theirBox)).not.toContain(linkToken(await mailTo(email)));
+    },
+  );
 
   it('when the outbox is not switched on explicitly, then it does not exist', async () => {
     const plain = await createTestApp({ RILLMARK_DEV_OUTBOX: undefined });

@@ -109,190 +109,208 @@ afterAll(async () => {
 });
 
 describe('MariaDB paused for 10 s (finding 5)', () => {
-  it('when MariaDB stops answering, then health says down within 2 s, requests get a clear 503 within seconds, and service comes back by itself', async () => {
-    const manager = await signedIn(world.users.manager.email);
-    const { cookie, csrf } = await cookieOf(manager);
-    const pid = faultDbPid();
-    process.kill(pid, 'SIGSTOP');
-    const resumed = sleep(10_000).then(() => process.kill(pid, 'SIGCONT'));
-    try {
-      // A read already on its way when MariaDB stops is answered 503 as soon as the stall is seen.
-      const early = fetch(`${server.url}/api/sites`, { headers: { cookie }, signal: AbortSignal.timeout(8_000) });
-      const ready = await fetch(`${server.url}/api/health/ready`, { signal: AbortSignal.timeout(2_500) });
-      expect(ready.status).toBe(503);
-      expect(await ready.json()).toMatchObject({ database: { status: 'down' } });
-      expect(await statusWithin(2_500, '/api/health')).toBe(503);
-      expect((await early).status).toBe(503);
-      expect(await statusWithin(5_000, '/api/health/live')).toBe(200);
+  it(
+    'when MariaDB stops answering, ' +
+      'then health says down within 2 s, requests get a clear 503 within seconds, and service comes back by itself',
+    async () => {
+      const manager = await signedIn(world.users.manager.email);
+      const { cookie, csrf } = await cookieOf(manager);
+      const pid = faultDbPid();
+      process.kill(pid, 'SIGSTOP');
+      const resumed = sleep(10_000).then(() => process.kill(pid, 'SIGCONT'));
+      try {
+        // A read already on its way when MariaDB stops is answered 503 as soon as the stall is seen.
+        const early = fetch(`${server.url}/api/sites`, { headers: { cookie }, signal: AbortSignal.timeout(8_000) });
+        const ready = await fetch(`${server.url}/api/health/ready`, { signal: AbortSignal.timeout(2_500) });
+        expect(ready.status).toBe(503);
+        expect(await ready.json()).toMatchObject({ database: { status: 'down' } });
+        expect(await statusWithin(2_500, '/api/health')).toBe(503);
+        expect((await early).status).toBe(503);
+        expect(await statusWithin(5_000, '/api/health/live')).toBe(200);
 
-      const listed = await fetch(`${server.url}/api/sites`, {
-        headers: { cookie },
-        signal: AbortSignal.timeout(5_000),
-      });
-      expect(listed.status).toBe(503);
-      expect(((await listed.json()) as { error: { code: string; message: string } }).error).toMatchObject({
-        code: 'database_unavailable',
-        message: expect.stringMatching(/database is not answering/),
-      });
-      const name = `Paused ${suffix()}`;
-      const created = await fetch(`${server.url}/api/sites`, {
-        method: 'POST',
-        headers: { cookie, 'x-xsrf-token': csrf, 'content-type': 'application/json' },
-        body: JSON.stringify({ name, kind: 'park', address: '1 Pause Way', timeZone: 'UTC' }),
-        signal: AbortSignal.timeout(5_000),
-      });
-      expect(created.status).toBe(503);
-      await resumed;
-      expect(await eventually(async () => (await statusWithin(5_000, '/api/health/ready')) === 200, 20_000)).toBe(true);
-      const after = await manager.get(`/api/sites?q=${encodeURIComponent(name)}`).expect(200);
-      expect(after.body.total).toBe(0);
-      expect(server.exit).toBeNull();
-    } finally {
-      await resumed.catch(() => process.kill(pid, 'SIGCONT'));
-    }
-  });
+        const listed = await fetch(`${server.url}/api/sites`, {
+          headers: { cookie },
+          signal: AbortSignal.timeout(5_000),
+        });
+        expect(listed.status).toBe(503);
+        expect(((await listed.json()) as { error: { code: string; message: string } }).error).toMatchObject({
+          code: 'database_unavailable',
+          message: expect.stringMatching(/database is not answering/),
+        });
+        const name = `Paused ${suffix()}`;
+        const created = await fetch(`${server.url}/api/sites`, {
+          method: 'POST',
+          headers: { cookie, 'x-xsrf-token': csrf, 'content-type': 'application/json' },
+          body: JSON.stringify({ name, kind: 'park', address: '1 Pause Way', timeZone: 'UTC' }),
+          signal: AbortSignal.timeout(5_000),
+        });
+        expect(created.status).toBe(503);
+        await resumed;
+        expect(await eventually(async () => (await statusWithin(5_000, '/api/health/ready')) === 200, 20_000)).toBe(
+          true,
+        );
+        const after = await manager.get(`/api/sites?q=${encodeURIComponent(name)}`).expect(200);
+        expect(after.body.total).toBe(0);
+        expect(server.exit).toBeNull();
+      } finally {
+        await resumed.catch(() => process.kill(pid, 'SIGCONT'));
+      }
+    },
+  );
 });
 
 describe('the SMTP server down', () => {
-  it('when SMTP is down while mail is sent, then the message waits queued and is delivered exactly once when SMTP is back', async () => {
-    const admin = await signedIn(world.users.admin.email);
-    await stopProcess(smtp);
-    const down = Date.now();
-    await admin.post(`/api/users/${world.users.auditor.id}/password-reset`).expect(202);
-    const queued = async () =>
-      (
-        await db.query(
-          "SELECT status, attempts FROM mail_message WHERE to_address = ? AND subject LIKE '%password%' ORDER BY id DESC LIMIT 1",
-          [world.users.auditor.email],
-        )
-      )[0] as { status: string; attempts: number } | undefined;
-    // Outage of 12 s (instead of a minute: the retry base is 2 s here), long enough for several failed attempts.
-    expect(await eventually(async () => ((await queued())?.attempts ?? 0) >= 2, 12_000)).toBe(true);
-    await sleep(Math.max(0, down + 12_000 - Date.now()));
-    expect((await queued())?.status).toBe('queued');
-    smtp = await startFakeSmtpProcess();
-    expect(await eventually(async () => (await mailsMatching(world.users.auditor.email)) >= 1, 40_000)).toBe(true);
-    await sleep(3_000);
-    expect(await mailsMatching(world.users.auditor.email)).toBe(1);
-    expect(await queued()).toMatchObject({ status: 'sent' });
-  });
+  it(
+    'when SMTP is down while mail is sent, ' +
+      'then the message waits queued and is delivered exactly once when SMTP is back',
+    async () => {
+      const admin = await signedIn(world.users.admin.email);
+      await stopProcess(smtp);
+      const down = Date.now();
+      await admin.post(`/api/users/${world.users.auditor.id}/password-reset`).expect(202);
+      const queued = async () =>
+        (
+          await db.query(
+            `SELECT status, attempts FROM mail_message WHERE to_address = ? AND subject LIKE '%password%'
+           ORDER BY id DESC LIMIT 1`,
+            [world.users.auditor.email],
+          )
+        )[0] as { status: string; attempts: number } | undefined;
+      // Outage of 12 s (instead of a minute: the retry base is 2 s here), long enough for several failed attempts.
+      expect(await eventually(async () => ((await queued())?.attempts ?? 0) >= 2, 12_000)).toBe(true);
+      await sleep(Math.max(0, down + 12_000 - Date.now()));
+      expect((await queued())?.status).toBe('queued');
+      smtp = await startFakeSmtpProcess();
+      expect(await eventually(async () => (await mailsMatching(world.users.auditor.email)) >= 1, 40_000)).toBe(true);
+      await sleep(3_000);
+      expect(await mailsMatching(world.users.auditor.email)).toBe(1);
+      expect(await queued()).toMatchObject({ status: 'sent' });
+    },
+  );
 });
 
 describe('MariaDB killed in the middle of an upload', () => {
-  it('when MariaDB dies mid-load and is started again, then the upload is stored whole or not at all, the user is told, and the server reconnects by itself', async () => {
-    const manager = await signedIn(world.users.manager.email);
-    const { cookie, csrf } = await cookieOf(manager);
-    const rows = 160_000;
-    let killed = false;
-    const pid = faultDbPid();
-    const clientRef = `kill-${suffix()}`;
-    async function* file(): AsyncGenerator<Buffer> {
-      yield Buffer.from('Meter #,Interval Start,Interval (min),Usage (Gal)\n');
-      const start = Date.UTC(2022, 0, 1);
-      let chunk = '';
-      for (let i = 0; i < rows; i++) {
-        const at = new Date(start + Math.floor(i / METERS.length) * 15 * 60_000).toISOString().slice(0, 16);
-        chunk += `${METERS[i % METERS.length]},${at.replace('T', ' ')},15,${(i % 97) / 10}\n`;
-        if (chunk.length > 64 * 1024) {
-          yield Buffer.from(chunk);
-          chunk = '';
-          // Once a third is on its way, MariaDB is killed while it loads the rows.
-          if (!killed && i > rows / 3) {
-            await sleep(300);
-            process.kill(pid, 'SIGKILL');
-            killed = true;
+  it(
+    'when MariaDB dies mid-load and is started again, ' +
+      'then the upload is stored whole or not at all, the user is told, and the server reconnects by itself',
+    async () => {
+      const manager = await signedIn(world.users.manager.email);
+      const { cookie, csrf } = await cookieOf(manager);
+      const rows = 160_000;
+      let killed = false;
+      const pid = faultDbPid();
+      const clientRef = `kill-${suffix()}`;
+      async function* file(): AsyncGenerator<Buffer> {
+        yield Buffer.from('Meter #,Interval Start,Interval (min),Usage (Gal)\n');
+        const start = Date.UTC(2022, 0, 1);
+        let chunk = '';
+        for (let i = 0; i < rows; i++) {
+          const at = new Date(start + Math.floor(i / METERS.length) * 15 * 60_000).toISOString().slice(0, 16);
+          chunk += `${METERS[i % METERS.length]},${at.replace('T', ' ')},15,${(i % 97) / 10}\n`;
+          if (chunk.length > 64 * 1024) {
+            yield Buffer.from(chunk);
+            chunk = '';
+            // Once a third is on its way, MariaDB is killed while it loads the rows.
+            if (!killed && i > rows / 3) {
+              await sleep(300);
+              process.kill(pid, 'SIGKILL');
+              killed = true;
+            }
           }
         }
+        yield Buffer.from(chunk);
       }
-      yield Buffer.from(chunk);
-    }
-    const answer = await sendMultipart({
-      url: `${server.url}/api/sites/${siteId}/uploads`,
-      headers: { cookie, 'x-xsrf-token': csrf },
-      fields: { clientRef },
-      fileName: 'killed.csv',
-      file: file(),
-    });
-    expect(killed).toBe(true);
-    expect(answer.status).toBe(503);
-    expect(JSON.parse(answer.body).error.message).toMatch(
-      /^"killed\.csv": the database stopped answering .* stored whole or not at all; send the same file again/,
-    );
-    expect(server.exit).toBeNull();
+      const answer = await sendMultipart({
+        url: `${server.url}/api/sites/${siteId}/uploads`,
+        headers: { cookie, 'x-xsrf-token': csrf },
+        fields: { clientRef },
+        fileName: 'killed.csv',
+        file: file(),
+      });
+      expect(killed).toBe(true);
+      expect(answer.status).toBe(503);
+      expect(JSON.parse(answer.body).error.message).toMatch(
+        /^"killed\.csv": the database stopped answering .* stored whole or not at all; send the same file again/,
+      );
+      expect(server.exit).toBeNull();
 
-    await startFaultDb();
-    expect(await eventually(async () => (await statusWithin(3_000, '/api/health/ready')) === 200, 30_000)).toBe(true);
-    // Whole or absent, and the failure is recorded once MariaDB is back (the server retries writing it).
-    const outcome = async () => {
-      const [upload] = await db.query('SELECT id, status FROM upload WHERE client_ref = ?', [clientRef]);
-      if (!upload) return { status: 'absent', stored: 0 };
-      const [{ n }] = await db.query('SELECT COUNT(*) AS n FROM meter_reading WHERE upload_id = ?', [upload.id]);
-      return { status: String(upload.status), stored: Number(n) };
-    };
-    expect(await eventually(async () => (await outcome()).status !== 'processing', 20_000)).toBe(true);
-    const { status, stored } = await outcome();
-    expect([0, rows]).toContain(stored);
-    expect(status === 'done').toBe(stored === rows);
+      await startFaultDb();
+      expect(await eventually(async () => (await statusWithin(3_000, '/api/health/ready')) === 200, 30_000)).toBe(true);
+      // Whole or absent, and the failure is recorded once MariaDB is back (the server retries writing it).
+      const outcome = async () => {
+        const [upload] = await db.query('SELECT id, status FROM upload WHERE client_ref = ?', [clientRef]);
+        if (!upload) return { status: 'absent', stored: 0 };
+        const [{ n }] = await db.query('SELECT COUNT(*) AS n FROM meter_reading WHERE upload_id = ?', [upload.id]);
+        return { status: String(upload.status), stored: Number(n) };
+      };
+      expect(await eventually(async () => (await outcome()).status !== 'processing', 20_000)).toBe(true);
+      const { status, stored } = await outcome();
+      expect([0, rows]).toContain(stored);
+      expect(status === 'done').toBe(stored === rows);
 
-    // The server serves normally again: the same file goes in whole.
-    const again = await sendMultipart({
-      url: `${server.url}/api/sites/${siteId}/uploads`,
-      headers: { cookie, 'x-xsrf-token': csrf },
-      fields: { clientRef: `${clientRef}-again` },
-      fileName: 'killed.csv',
-      file: (async function* () {
-        killed = true;
-        yield* file();
-      })(),
-    });
-    expect([200, 201]).toContain(again.status);
-    expect(server.exit).toBeNull();
-  });
+      // The server serves normally again: the same file goes in whole.
+      const again = await sendMultipart({
+        url: `${server.url}/api/sites/${siteId}/uploads`,
+        headers: { cookie, 'x-xsrf-token': csrf },
+        fields: { clientRef: `${clientRef}-again` },
+        fileName: 'killed.csv',
+        file: (async function* () {
+          killed = true;
+          yield* file();
+        })(),
+      });
+      expect([200, 201]).toContain(again.status);
+      expect(server.exit).toBeNull();
+    },
+  );
 });
 
 describe('the app server dies under its supervisor', () => {
-  it('when the server is killed, then the supervisor says why and starts it again, and MariaDB keeps running', async () => {
-    const child = spawn(
-      process.execPath,
-      [
-        '--import',
-        'tsx',
-        'ops/supervise/supervise.ts',
-        '--',
+  it(
+    'when the server is killed, ' + 'then the supervisor says why and starts it again, and MariaDB keeps running',
+    async () => {
+      const child = spawn(
         process.execPath,
-        '--import',
-        'tsx',
-        'backend/src/main.ts',
-      ],
-      {
-        cwd: ROOT,
-        env: {
-          ...process.env,
-          ...serverEnv,
-          RILLMARK_JOBS_ENABLED: 'false',
-          RILLMARK_PORT: '0',
-          TSX_TSCONFIG_PATH: resolve(ROOT, 'backend/tsconfig.json'),
+        [
+          '--import',
+          'tsx',
+          'ops/supervise/supervise.ts',
+          '--',
+          process.execPath,
+          '--import',
+          'tsx',
+          'backend/src/main.ts',
+        ],
+        {
+          cwd: ROOT,
+          env: {
+            ...process.env,
+            ...serverEnv,
+            RILLMARK_JOBS_ENABLED: 'false',
+            RILLMARK_PORT: '0',
+            TSX_TSCONFIG_PATH: resolve(ROOT, 'backend/tsconfig.json'),
+          },
+          stdio: ['ignore', 'pipe', 'pipe'],
         },
-        stdio: ['ignore', 'pipe', 'pipe'],
-      },
-    );
-    const lines: string[] = [];
-    createInterface({ input: child.stdout! }).on('line', (l) => lines.push(l));
-    createInterface({ input: child.stderr! }).on('line', (l) => lines.push(l));
-    const urls = () => lines.map((l) => /listening on (http:\/\/\S+)/.exec(l)?.[1]).filter(Boolean) as string[];
-    try {
-      expect(await eventually(async () => urls().length === 1, 30_000)).toBe(true);
-      const first = Number(/started the server \(pid (\d+)\)/.exec(lines.join('\n'))?.[1]);
-      process.kill(first, 'SIGKILL');
-      expect(await eventually(async () => urls().length === 2, 30_000)).toBe(true);
-      expect(lines.join('\n')).toMatch(/SUPERVISOR the server stopped \(killed \(SIGKILL.*\); restart 1 in 1 s/);
-      const res = await fetch(`${urls()[1]}/api/health/ready`);
-      expect(res.status).toBe(200);
-      expect(() => process.kill(faultDbPid(), 0)).not.toThrow();
-    } finally {
-      await stopProcess(child);
-    }
-  });
+      );
+      const lines: string[] = [];
+      createInterface({ input: child.stdout! }).on('line', (l) => lines.push(l));
+      createInterface({ input: child.stderr! }).on('line', (l) => lines.push(l));
+      const urls = () => lines.map((l) => /listening on (http:\/\/\S+)/.exec(l)?.[1]).filter(Boolean) as string[];
+      try {
+        expect(await eventually(async () => urls().length === 1, 30_000)).toBe(true);
+        const first = Number(/started the server \(pid (\d+)\)/.exec(lines.join('\n'))?.[1]);
+        process.kill(first, 'SIGKILL');
+        expect(await eventually(async () => urls().length === 2, 30_000)).toBe(true);
+        expect(lines.join('\n')).toMatch(/SUPERVISOR the server stopped \(killed \(SIGKILL.*\); restart 1 in 1 s/);
+        const res = await fetch(`${urls()[1]}/api/health/ready`);
+        expect(res.status).toBe(200);
+        expect(() => process.kill(faultDbPid(), 0)).not.toThrow();
+      } finally {
+        await stopProcess(child);
+      }
+    },
+  );
 
   it('when the server refuses its configuration, then the supervisor does not restart it', async () => {
     const child = spawn(

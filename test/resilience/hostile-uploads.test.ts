@@ -130,97 +130,116 @@ afterAll(async () => {
 });
 
 describe('hostile uploads', () => {
-  it('when ≥ 500 hostile files arrive (some cut off mid-body), then nothing crashes and exactly the valid rows are stored', async () => {
-    // RILLMARK_HOSTILE_LIMIT sends only the first n files (when working on the suite itself).
-    const only = process.env['RILLMARK_HOSTILE_KIND'];
-    const cases = hostileCases()
-      .filter((c) => !only || c.kind.startsWith(only))
-      .slice(0, Number(process.env['RILLMARK_HOSTILE_LIMIT'] ?? Infinity));
-    const failures: string[] = [];
-    const timings: string[] = [];
-    let crashes = 0;
-    let wrongRows = 0;
-    let peak = 0;
-    const sampler = setInterval(() => (peak = Math.max(peak, server.rssMb())), 50);
-    // Warm up the upload path (a refused header-only file stores nothing), then measure growth from there.
-    const headerOnly = () => [Buffer.from('Meter #,Interval Start,Interval (min),Usage (Gal),Note\n')];
-    for (let i = 0; i < 3; i++)
-      await send({ id: `warm-up-${i}`, kind: 'warm-up', site: 0, fileName: 'w.csv', bytes: headerOnly, expected: [] });
-    const baseline = server.rssMb();
-    peak = baseline;
-    try {
-      for (const c of cases) {
-        const started = Date.now();
-        const answer = await send(c);
-        const what = `${c.id} (${c.kind}, ${c.fileName.slice(0, 40)})`;
-        if (server.exit) {
-          crashes++;
-          failures.push(
-            `${what}: the server exited (${server.exit.code ?? server.exit.signal})\n${server.tail.slice(-15).join('\n')}`,
-          );
-          server = await startServerProcess(env);
-          await signIn();
-          continue;
+  it(
+    'when ≥ 500 hostile files arrive (some cut off mid-body), ' +
+      'then nothing crashes and exactly the valid rows are stored',
+    async () => {
+      // RILLMARK_HOSTILE_LIMIT sends only the first n files (when working on the suite itself).
+      const only = process.env['RILLMARK_HOSTILE_KIND'];
+      const cases = hostileCases()
+        .filter((c) => !only || c.kind.startsWith(only))
+        .slice(0, Number(process.env['RILLMARK_HOSTILE_LIMIT'] ?? Infinity));
+      const failures: string[] = [];
+      const timings: string[] = [];
+      let crashes = 0;
+      let wrongRows = 0;
+      let peak = 0;
+      const sampler = setInterval(() => (peak = Math.max(peak, server.rssMb())), 50);
+      // Warm up the upload path (a refused header-only file stores nothing), then measure growth from there.
+      const headerOnly = () => [Buffer.from('Meter #,Interval Start,Interval (min),Usage (Gal),Note\n')];
+      for (let i = 0; i < 3; i++)
+        await send({
+          id: `warm-up-${i}`,
+          kind: 'warm-up',
+          site: 0,
+          fileName: 'w.csv',
+          bytes: headerOnly,
+          expected: [],
+        });
+      const baseline = server.rssMb();
+      peak = baseline;
+      try {
+        for (const c of cases) {
+          const started = Date.now();
+          const answer = await send(c);
+          const what = `${c.id} (${c.kind}, ${c.fileName.slice(0, 40)})`;
+          if (server.exit) {
+            crashes++;
+            failures.push(
+              `${what}: the server exited (${server.exit.code ?? server.exit.signal})\n` +
+                server.tail.slice(-15).join('\n'),
+            );
+            server = await startServerProcess(env);
+            await signIn();
+            continue;
+          }
+          if (!answer.aborted) {
+            const clear = [200, 201, 400, 413].includes(answer.status) && answer.body.startsWith('{');
+            if (!clear)
+              failures.push(`${what}: answered ${answer.status} ${answer.error ?? answer.body.slice(0, 300)}`);
+          }
+          if (!(await healthy())) failures.push(`${what}: the health check did not answer 200 afterwards`);
+          const uploads = await settledUploads(c);
+          if (uploads.some((u) => u.status === 'processing')) failures.push(`${what}: still processing`);
+          const done = uploads.filter((u) => u.status === 'done').map((u) => u.id);
+          const stored = (await storedRows(uploads.map((u) => u.id))).sort();
+          const expected = c.expected.map((r) => key(r)).sort();
+          if (done.length > 1 || stored.length !== expected.length || stored.some((k, i) => k !== expected[i])) {
+            wrongRows++;
+            const missing = expected.filter((k) => !stored.includes(k)).slice(0, 3);
+            const extra = stored.filter((k) => !expected.includes(k)).slice(0, 3);
+            failures.push(
+              `${what}: stored ${stored.length} rows, expected ${expected.length} ` +
+                `(answer ${answer.status} ${answer.body.slice(0, 200)}); ` +
+                `missing ${missing.join('; ')}; extra ${extra.join('; ')}`,
+            );
+          }
+          // A request cut off before its upload row existed may still be finishing: give it a moment to clean up.
+          let left = scratchFiles();
+          for (let i = 0; i < 100 && left.length; i++) {
+            await new Promise((r) => setTimeout(r, 50));
+            left = scratchFiles();
+          }
+          if (left.length)
+            failures.push(
+              `${what}: scratch files left behind: ${left.join(', ')}\n${server.tail.slice(-8).join('\n')}`,
+            );
+          timings.push(`${Date.now() - started} ms ${what} → ${answer.aborted ? 'aborted' : answer.status}`);
         }
-        if (!answer.aborted) {
-          const clear = [200, 201, 400, 413].includes(answer.status) && answer.body.startsWith('{');
-          if (!clear) failures.push(`${what}: answered ${answer.status} ${answer.error ?? answer.body.slice(0, 300)}`);
-        }
-        if (!(await healthy())) failures.push(`${what}: the health check did not answer 200 afterwards`);
-        const uploads = await settledUploads(c);
-        if (uploads.some((u) => u.status === 'processing')) failures.push(`${what}: still processing`);
-        const done = uploads.filter((u) => u.status === 'done').map((u) => u.id);
-        const stored = (await storedRows(uploads.map((u) => u.id))).sort();
-        const expected = c.expected.map((r) => key(r)).sort();
-        if (done.length > 1 || stored.length !== expected.length || stored.some((k, i) => k !== expected[i])) {
-          wrongRows++;
-          const missing = expected.filter((k) => !stored.includes(k)).slice(0, 3);
-          const extra = stored.filter((k) => !expected.includes(k)).slice(0, 3);
-          failures.push(
-            `${what}: stored ${stored.length} rows, expected ${expected.length} (answer ${answer.status} ${answer.body.slice(0, 200)}); missing ${missing.join('; ')}; extra ${extra.join('; ')}`,
-          );
-        }
-        // A request cut off before its upload row existed may still be finishing: give it a moment to clean up.
-        let left = scratchFiles();
-        for (let i = 0; i < 100 && left.length; i++) {
-          await new Promise((r) => setTimeout(r, 50));
-          left = scratchFiles();
-        }
-        if (left.length)
-          failures.push(`${what}: scratch files left behind: ${left.join(', ')}\n${server.tail.slice(-8).join('\n')}`);
-        timings.push(`${Date.now() - started} ms ${what} → ${answer.aborted ? 'aborted' : answer.status}`);
+      } finally {
+        clearInterval(sampler);
       }
-    } finally {
-      clearInterval(sampler);
-    }
 
-    // A kept original belongs to a stored upload; refused, aborted and failed uploads left none behind.
-    const keys: Array<{ storage_key: string }> = await db.query(
-      'SELECT storage_key FROM upload WHERE site_id IN (?) AND status = ? AND storage_key IS NOT NULL',
-      [siteIds, 'done'],
-    );
-    const kept = readdirSync(uploadDir)
-      .filter((d) => d !== 'tmp' && statSync(join(uploadDir, d)).isDirectory())
-      .flatMap((d) => readdirSync(join(uploadDir, d)).map((f) => `${d}/${f}`));
-    const known = new Set(keys.map((k) => k.storage_key));
-    const orphans = kept.filter((k) => !known.has(k));
-    if (orphans.length) failures.push(`kept copies of uploads that stored nothing: ${orphans.slice(0, 5).join(', ')}`);
+      // A kept original belongs to a stored upload; refused, aborted and failed uploads left none behind.
+      const keys: Array<{ storage_key: string }> = await db.query(
+        'SELECT storage_key FROM upload WHERE site_id IN (?) AND status = ? AND storage_key IS NOT NULL',
+        [siteIds, 'done'],
+      );
+      const kept = readdirSync(uploadDir)
+        .filter((d) => d !== 'tmp' && statSync(join(uploadDir, d)).isDirectory())
+        .flatMap((d) => readdirSync(join(uploadDir, d)).map((f) => `${d}/${f}`));
+      const known = new Set(keys.map((k) => k.storage_key));
+      const orphans = kept.filter((k) => !known.has(k));
+      if (orphans.length)
+        failures.push(`kept copies of uploads that stored nothing: ${orphans.slice(0, 5).join(', ')}`);
 
-    const growth = Math.round(peak - baseline);
-    process.stdout.write(
-      `${cases.length} hostile uploads, ${crashes} crashes, ${wrongRows} wrong rows, peak RSS growth ${growth} MB\n`,
-    );
-    // Details for whoever reads a failure (and the slowest files), next to the other test output.
-    mkdirSync(resolve(ROOT, 'test-artifacts'), { recursive: true });
-    writeFileSync(
-      resolve(ROOT, 'test-artifacts/hostile-uploads.txt'),
-      [...failures, '', 'slowest:', ...timings.sort((a, b) => parseInt(b) - parseInt(a)).slice(0, 40)].join('\n'),
-    );
-    expect(failures).toEqual([]);
-    expect(cases.length).toBeGreaterThanOrEqual(500);
-    expect(crashes).toBe(0);
-    expect(wrongRows).toBe(0);
-    // Bounded: the biggest file is 51 MB and everything streams.
-    expect(growth).toBeLessThan(400);
-  }, 600_000);
+      const growth = Math.round(peak - baseline);
+      process.stdout.write(
+        `${cases.length} hostile uploads, ${crashes} crashes, ${wrongRows} wrong rows, peak RSS growth ${growth} MB\n`,
+      );
+      // Details for whoever reads a failure (and the slowest files), next to the other test output.
+      mkdirSync(resolve(ROOT, 'test-artifacts'), { recursive: true });
+      writeFileSync(
+        resolve(ROOT, 'test-artifacts/hostile-uploads.txt'),
+        [...failures, '', 'slowest:', ...timings.sort((a, b) => parseInt(b) - parseInt(a)).slice(0, 40)].join('\n'),
+      );
+      expect(failures).toEqual([]);
+      expect(cases.length).toBeGreaterThanOrEqual(500);
+      expect(crashes).toBe(0);
+      expect(wrongRows).toBe(0);
+      // Bounded: the biggest file is 51 MB and everything streams.
+      expect(growth).toBeLessThan(400);
+    },
+    600_000,
+  );
 });

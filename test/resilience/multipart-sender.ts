@@ -77,7 +77,8 @@ export function sendMultipart(upload: MultipartUpload): Promise<UploadAnswer> {
           head += `--${BOUNDARY}\r\nContent-Disposition: form-data; name="${name}"\r\n\r\n${value}\r\n`;
         }
         head +=
-          `--${BOUNDARY}\r\nContent-Disposition: form-data; name="file"; filename="${browserEscaped(upload.fileName)}"\r\n` +
+          `--${BOUNDARY}\r\nContent-Disposition: form-data; name="file"; ` +
+          `filename="${browserEscaped(upload.fileName)}"\r\n` +
           'Content-Type: text/csv\r\n\r\n';
         if (!(await write(Buffer.from(head)))) return;
         for await (const chunk of upload.file) if (!(await write(chunk))) return;
@@ -93,9 +94,7 @@ export function sendMultipart(upload: MultipartUpload): Promise<UploadAnswer> {
 
 /** As browsers write a file name into the part header: quotes and control characters percent-escaped. */
 function browserEscaped(name: string): string {
+  const hex = (c: string) => c.charCodeAt(0).toString(16).toUpperCase().padStart(2, '0');
   // eslint-disable-next-line no-control-regex
-  return name.replace(
-    /["\u0000-\u001f\u007f]/g,
-    (c) => `%${c.charCodeAt(0).toString(16).toUpperCase().padStart(2, '0')}`,
-  );
+  return name.replace(/["\u0000-\u001f\u007f]/g, (c) => `%${hex(c)}`);
 }

@@ -30,7 +30,9 @@ export async function connectWithRetry(
       const reason = (err as { code?: string; message?: string }).code ?? (err as Error).message;
       if (REFUSED.has(reason)) {
         throw new ConfigurationProblem(
-          `MariaDB at ${host}:${port} refused user or database "${database}" (${reason}: ${(err as Error).message}). Check RILLMARK_DB_USER, RILLMARK_DB_PASSWORD and RILLMARK_DB_NAME; not retrying.`,
+          `MariaDB at ${host}:${port} refused user or database "${database}" ` +
+            `(${reason}: ${(err as Error).message}). ` +
+            'Check RILLMARK_DB_USER, RILLMARK_DB_PASSWORD and RILLMARK_DB_NAME; not retrying.',
         );
       }
       if (attempt >= attempts) {

@@ -26,7 +26,8 @@ export function isDatabaseUnavailable(err: unknown): boolean {
   const inner = e?.driverError ?? e;
   if (!inner) return false;
   if (inner.code && UNAVAILABLE_CODES.has(inner.code)) return true;
-  // mysql2 marks errors that closed the connection as fatal ("Can't add new command when connection is in closed state").
+  // mysql2 marks errors that closed the connection as fatal ("Can't add new command when connection is in
+  // closed state").
   return inner.fatal === true && inner.code === undefined;
 }
 

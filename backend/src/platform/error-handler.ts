@@ -70,7 +70,8 @@ function toAppError(err: unknown): AppError {
   if (isDatabaseUnavailable(err))
     return new AppError(
       'database_unavailable',
-      'The database is not answering right now; try again in a minute. A change you sent may not have been saved: check before sending it again.',
+      'The database is not answering right now; try again in a minute. ' +
+        'A change you sent may not have been saved: check before sending it again.',
     );
   return new AppError('internal_error', 'Something went wrong on the server.');
 }

@@ -25,7 +25,9 @@ export class Hardening1796320000000 implements MigrationInterface {
   public async down(q: QueryRunner): Promise<void> {
     await q.query('ALTER TABLE `mail_message` DROP COLUMN `organisation_ids`');
     await q.query(
-      `CREATE TABLE \`rate_limit_hit\` (\`bucket\` varchar(255) NOT NULL, \`hits\` int UNSIGNED NOT NULL, \`reset_at\` datetime(3) NOT NULL, INDEX \`ix_rate_limit_reset\` (\`reset_at\`), PRIMARY KEY (\`bucket\`)) ENGINE=InnoDB`,
+      `CREATE TABLE \`rate_limit_hit\` (\`bucket\` varchar(255) NOT NULL, \`hits\` int UNSIGNED NOT NULL,
+        \`reset_at\` datetime(3) NOT NULL, INDEX \`ix_rate_limit_reset\` (\`reset_at\`), PRIMARY KEY (\`bucket\`))
+        ENGINE=InnoDB`,
     );
     await q.query('DROP TABLE `sign_in_failure`');
   }

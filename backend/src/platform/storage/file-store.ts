@@ -5,7 +5,7 @@ import type { Readable } from 'node:stream';
  * calls), so a caller can never leave an 'error' event without a listener.
  */
 export interface PendingFile {
-  /** Appends bytes; resolves when more may be written (back-pressure), rejects if the copy failed or was thrown away. */
+  /** Appends bytes; resolves when more may be written (back-pressure), rejects if the copy failed or was discarded. */
   write(chunk: Buffer): Promise<void>;
   /** Files the bytes under `sha256` and returns the storage key (the same content is kept once). */
   keep(sha256: string): Promise<string>;

@@ -18,7 +18,8 @@ export class SignInFailuresRepository {
   async read(buckets: string[], now: Date): Promise<Map<string, FailureCount>> {
     const rows: Array<{ bucket: string; failures: number; last_failure_at: Date; window_until: Date }> =
       await this.db.query(
-        'SELECT bucket, failures, last_failure_at, window_until FROM sign_in_failure WHERE bucket IN (?) AND window_until > ?',
+        `SELECT bucket, failures, last_failure_at, window_until FROM sign_in_failure
+         WHERE bucket IN (?) AND window_until > ?`,
         [buckets.map(clip), now],
       );
     return new Map(

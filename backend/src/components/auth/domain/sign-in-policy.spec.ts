@@ -18,11 +18,14 @@ describe('sign-in policy', () => {
     expect(refusal({ address: count(5, 60) }, policy, now)).toEqual({ scope: 'address', retryAfterSeconds: 840 });
   });
 
-  it('when an account has failed from many addresses, then each further try waits a doubling delay, at most 60 s', () => {
-    expect([5, 6, 7, 8, 11, 12, 40].map((n) => accountDelayMs(n, policy))).toEqual([
-      1_000, 2_000, 4_000, 8_000, 60_000, 60_000, 60_000,
-    ]);
-    expect(refusal({ account: count(7, 1) }, policy, now)).toEqual({ scope: 'account', retryAfterSeconds: 3 });
-    expect(refusal({ account: count(7, 5) }, policy, now)).toBeNull();
-  });
+  it(
+    'when an account has failed from many addresses, then each further try waits a doubling delay, ' + 'at most 60 s',
+    () => {
+      expect([5, 6, 7, 8, 11, 12, 40].map((n) => accountDelayMs(n, policy))).toEqual([
+        1_000, 2_000, 4_000, 8_000, 60_000, 60_000, 60_000,
+      ]);
+      expect(refusal({ account: count(7, 1) }, policy, now)).toEqual({ scope: 'account', retryAfterSeconds: 3 });
+      expect(refusal({ account: count(7, 5) }, policy, now)).toBeNull();
+    },
+  );
 });

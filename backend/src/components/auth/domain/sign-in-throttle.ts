@@ -50,8 +50,10 @@ export class SignInThrottle {
       const wait = refused.retryAfterSeconds;
       throw AppError.rateLimited(
         refused.scope === 'address'
-          ? `Too many failed sign-ins for this account from your address. Wait ${Math.ceil(wait / 60)} minute(s) and try again, or ask your administrator to reset your password.`
-          : `Too many failed sign-ins for this account. Wait ${wait} second(s) and try again; each further wrong password makes the wait longer (at most ${Math.round(this.policy.maxDelayMs / 1000)} s).`,
+          ? `Too many failed sign-ins for this account from your address. Wait ${Math.ceil(wait / 60)} minute(s) ` +
+              'and try again, or ask your administrator to reset your password.'
+          : `Too many failed sign-ins for this account. Wait ${wait} second(s) and try again; each further wrong ` +
+              `password makes the wait longer (at most ${Math.round(this.policy.maxDelayMs / 1000)} s).`,
         wait,
       );
     }

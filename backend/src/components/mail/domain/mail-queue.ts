@@ -54,7 +54,8 @@ export class MailQueue {
   /** Queues a message; a second message with the same dedupe key is ignored. Returns false for a duplicate. */
   async enqueue(em: EntityManager, mail: OutgoingMail, dedupeKey: string): Promise<boolean> {
     const result: { affectedRows: number } = await em.query(
-      `INSERT IGNORE INTO mail_message (dedupe_key, to_address, subject, body_text, body_html, organisation_ids, status, attempts, next_attempt_at)
+      `INSERT IGNORE INTO mail_message (dedupe_key, to_address, subject, body_text, body_html, organisation_ids,
+        status, attempts, next_attempt_at)
        VALUES (?, ?, ?, ?, ?, ?, 'queued', 0, ?)`,
       [
         dedupeKey,

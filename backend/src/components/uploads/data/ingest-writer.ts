@@ -1,4 +1,3 @@
-import { once } from 'node:events';
 import { PassThrough, Readable } from 'node:stream';
 import type { QueryRunner } from 'typeorm';
 import type { IngestTarget } from './ingest-targets';

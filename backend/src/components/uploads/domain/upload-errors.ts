@@ -64,7 +64,8 @@ export function toUploadError(err: unknown, fileName: string, maxBytes: number):
   if (csv)
     return new AppError(
       'validation_failed',
-      `"${fileName}" is not well-formed CSV: ${csv}. Nothing was stored; fix the quoting (a cell that starts with " must end with ") and send the file again.`,
+      `"${fileName}" is not well-formed CSV: ${csv}. Nothing was stored; fix the quoting ` +
+        '(a cell that starts with " must end with ") and send the file again.',
       [{ field: 'file', message: csv }],
     );
   if (isClientGone(err))
@@ -75,7 +76,9 @@ export function toUploadError(err: unknown, fileName: string, maxBytes: number):
   if (isDatabaseUnavailable(err))
     return new AppError(
       'database_unavailable',
-      `"${fileName}": the database stopped answering while this upload was being stored. An upload is stored whole or not at all; send the same file again in a minute (a file that was stored already is recognised and nothing changes).`,
+      `"${fileName}": the database stopped answering while this upload was being stored. An upload is stored ` +
+        'whole or not at all; send the same file again in a minute (a file that was stored already is recognised ' +
+        'and nothing changes).',
     );
   return null;
 }
