@@ -56,6 +56,22 @@ describe('only wrong passwords count (finding 3)', () => {
 });
 
 describe('the limit cannot be dodged by changing address (finding 4)', () => {
+  it('when 20 wrong passwords arrive at the same moment, then no more are checked than the limit allows', async () => {
+    const user = await createUser(app.db, world.org.id, 'auditor');
+    const answers = await Promise.all(
+      Array.from({ length: 20 }, (_, i) => signIn(proxied, user.email, `guess-${i}`, `198.18.0.${i}`)),
+    );
+    const checked = answers.filter((r) => r.status === 401).length;
+    expect(answers.filter((r) => r.status === 429)).toHaveLength(20 - checked);
+    // Five before the limit; at most one more once the first 1 s delay has passed while the rest queued.
+    expect(checked).toBeGreaterThanOrEqual(5);
+    expect(checked).toBeLessThanOrEqual(6);
+    const [row] = await app.db.query('SELECT failures FROM sign_in_failure WHERE bucket = ?', [
+      `account:${user.email}`,
+    ]);
+    expect(Number(row.failures)).toBe(checked);
+  });
+
   it(
     'when X-Forwarded-For changes on every try and no proxy is configured, ' +
       'then the header is ignored and the count holds',
