@@ -215,7 +215,6 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     mailQueue: mail.queue,
     watch,
     async close() {
-      clearInterval(pruneTimer);
       // A background watch run (started from the API) finishes before the pool closes under it.
       await watch.service.idle();
       auth.close();

@@ -88,9 +88,7 @@ async function seedAudit(
     if (!DEMO_FAULTS[i]!.photos) continue;
     const bytes = demoPhotoPng(i + 1);
     const pending = store.begin();
-    await new Promise<void>((resolve, reject) =>
-      pending.stream.end(bytes, (e?: Error | null) => (e ? reject(e) : resolve())),
-    );
+    await pending.write(bytes);
     keys[i] = await pending.keep(createHash('sha256').update(bytes).digest('hex'));
   }
   await db.transaction(async (em) => {

@@ -122,9 +122,7 @@ export class FaultsService {
   private async keep(bytes: Buffer): Promise<string> {
     const pending = this.store.begin();
     try {
-      await new Promise<void>((resolve, reject) =>
-        pending.stream.end(bytes, (error?: Error | null) => (error ? reject(error) : resolve())),
-      );
+      await pending.write(bytes);
       return await pending.keep(createHash('sha256').update(bytes).digest('hex'));
     } catch (error) {
       await pending.discard();
