@@ -5,6 +5,8 @@ import { logger } from '../platform/logger';
 /** How often MariaDB is pinged, and how long a ping may take before it counts as "not answering". */
 export const WATCH_INTERVAL_MS = 1_000;
 export const PING_TIMEOUT_MS = 1_500;
+/** Failed pings in a row before requests are turned away: one slow answer on a busy machine is not an outage. */
+export const FAILURES_BEFORE_DOWN = 2;
 
 export interface PingResult {
   status: 'up' | 'down';
@@ -14,14 +16,16 @@ export interface PingResult {
 
 /**
  * Pings MariaDB every second on a connection of its own (not the app's pools, which a stalled server fills with
- * waiting queries) and knows, within about two seconds, when it stops answering. Requests then get a 503 at
- * once (see databaseGate) instead of waiting on a paused or dead server, and the readiness check says `down`.
+ * waiting queries) and knows, within about three seconds (two failed pings in a row), when it stops answering.
+ * Requests then get a 503 at once (see databaseGate) instead of waiting on a paused or dead server; the readiness
+ * check says `down` as soon as its own ping fails.
  * A failed ping drops its connection; the next one connects afresh, so a restarted MariaDB is found by itself.
  */
 export class DatabaseWatch {
   private connection: Promise<Connection> | null = null;
   private timer: NodeJS.Timeout | null = null;
   private downSince: number | null = null;
+  private failuresInARow = 0;
   private lastError = '';
   private readonly listeners = new Set<() => void>();
 
@@ -67,8 +71,11 @@ export class DatabaseWatch {
   private async ping(): Promise<PingResult> {
     const started = performance.now();
     let deadline: NodeJS.Timeout | undefined;
+    // The deadline gives way to an answer already received: when the event loop was busy (a large file being
+    // parsed), the timer and MariaDB's answer are due at once, and timers run before network input is read.
     const timeout = new Promise<never>((_, reject) => {
-      deadline = setTimeout(() => reject(new Error(`no answer within ${PING_TIMEOUT_MS} ms`)), PING_TIMEOUT_MS);
+      const expire = () => reject(new Error(`no answer within ${PING_TIMEOUT_MS} ms`));
+      deadline = setTimeout(() => setImmediate(expire), PING_TIMEOUT_MS);
     });
     try {
       await Promise.race([this.selectOne(), timeout]);
@@ -85,7 +92,9 @@ export class DatabaseWatch {
     // Concurrent pings (readiness checks) share one connection attempt.
     this.connection ??= this.connect();
     const connection = await this.connection;
-    await connection.query({ sql: 'SELECT 1', timeout: PING_TIMEOUT_MS });
+    // No query timeout of mysql2's own: its timer would fire before a late-read answer too (the deadline in ping()
+    // covers a silent server, and a failed ping drops the connection).
+    await connection.query('SELECT 1');
   }
 
   private async connect(): Promise<Connection> {
@@ -114,11 +123,15 @@ export class DatabaseWatch {
   private record(result: PingResult): void {
     if (result.status === 'down') {
       this.lastError = result.error ?? 'no answer';
-      if (this.downSince !== null) return;
+      this.failuresInARow++;
+      if (this.downSince !== null || this.failuresInARow < FAILURES_BEFORE_DOWN) return;
       this.downSince = Date.now();
       logger.warn(`MariaDB is not answering (${this.lastError}); requests get 503 until it does`);
       for (const listener of this.listeners) listener();
-    } else if (this.downSince !== null) {
+      return;
+    }
+    this.failuresInARow = 0;
+    if (this.downSince !== null) {
       logger.info(`MariaDB answers again after ${Math.round((Date.now() - this.downSince) / 1000)} s`);
       this.downSince = null;
       this.lastError = '';
