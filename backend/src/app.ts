@@ -19,6 +19,7 @@ import { createHydrozones } from './components/hydrozones/hydrozones-module';
 import { createMail } from './components/mail/mail-module';
 import type { MailQueue } from './components/mail/domain/mail-queue';
 import { createMeters } from './components/meters/meters-module';
+import { createMonthClose } from './components/month-close/month-close-module';
 import { createOrganisations } from './components/organisations/organisations-module';
 import { createOutbox } from './components/outbox/outbox-module';
 import { createPlanner } from './components/planner/planner-module';
@@ -102,6 +103,13 @@ export function createApp({ config, db, mailer }: AppDeps): App {
   const useDeps = { db, budgetCache: budgets.cache, rates: rates.service, alerts: alerts.service };
   const readings = createReadings({ ...useDeps, sites: sites.service });
   const portfolio = createPortfolio({ ...useDeps, dailyUse: readings.dailyUse });
+  const monthClose = createMonthClose({
+    ...siteAccess,
+    config,
+    readings: readings.service,
+    alerts: alerts.service,
+    organisationSettings: organisations.settings,
+  });
   const meters = createMeters(siteAccess);
   const uploads = createUploads({ ...siteAccess, config, meters: meters.service, dailyUse: readings.dailyUse });
   const apiKeys = createApiKeys({ ...siteAccess, auth: auth.service });
@@ -111,6 +119,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     dailyWeather: weather.daily,
     dailyUse: readings.dailyUse,
     rates: rates.service,
+    organisationSettings: organisations.settings,
   });
   const reports = createReports({
     ...siteAccess,
@@ -196,6 +205,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     etaf,
     fieldAudits,
     planner,
+    monthClose,
     meters,
     uploads,
     apiKeys,

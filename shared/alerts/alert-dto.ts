@@ -8,27 +8,30 @@ export type AlertAction = (typeof ALERT_ACTIONS)[number];
 export const ALERT_SORTS = ['detected', 'lastSeen', 'severity', 'waterLost', 'site', 'period'] as const;
 export type AlertSort = (typeof ALERT_SORTS)[number];
 
-/** Rillmark's own names for the kinds and sub-kinds, as the UI and e-mail show them. */
+/**
+ * Rillmark's own short names for the kinds and sub-kinds, as the UI, e-mail and documents show them. Plain words
+ * chosen for this product (not the flow-sensor alarm names controller makers use); codes never reach the screen.
+ */
 export const KIND_LABELS: Record<FindingKind, string> = {
-  leak: 'Leak',
-  'runaway-zone': 'Runaway zone',
+  leak: 'Leak suspected',
+  'runaway-zone': 'Zone overrun',
   overspend: 'Over budget',
-  'silent-meter': 'Silent meter',
+  'silent-meter': 'Meter gone quiet',
   weather: 'Weather data',
 };
 export const SUB_KIND_LABELS: Record<string, string> = {
-  'continuous-flow': 'Flow that never stops',
-  'night-flow': 'High night flow',
+  'continuous-flow': 'Water never stops',
+  'night-flow': 'Water running at night',
   'month-far-over-budget': 'Month far over budget',
-  'over-volume': 'Zone uses too much',
-  'long-run': 'Zone runs too long',
-  'open-valve': 'Valve open with nothing scheduled',
+  'over-volume': 'Zone drew far more than planned',
+  'long-run': 'Zone ran far longer than usual',
+  'open-valve': 'Water after watering ended',
   'calendar-month': 'Month over budget',
   // Stored before months became one alert each (the projection now sits inside the month's alert).
   'month-to-date': 'Over budget so far this month',
   'projected-month-end': 'Heading over budget by month end',
-  'no-reads': 'No readings',
-  'zero-while-running': 'No flow while zones ran',
+  'no-reads': 'No readings coming in',
+  'zero-while-running': 'Meter still while zones ran',
   'station-gap': 'Weather station missing days',
 };
 export const SEVERITY_LABELS: Record<Severity, string> = {

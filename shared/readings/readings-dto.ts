@@ -1,4 +1,5 @@
 /** What a site's readings endpoints return (overview, hour-by-day grid, monthly table). Volumes are US gallons. */
+import type { MonthlyTotals } from './monthly-totals';
 
 export interface UseAgainstBudget {
   useGallons: number;
@@ -71,6 +72,8 @@ export interface SiteMonthlyDto {
   from: string;
   to: string;
   months: MonthlyRow[];
+  /** The totals row (see monthly-totals.ts): budget and variance over the months with readings and a budget. */
+  totals: MonthlyTotals;
 }
 
 export function percentOf(use: number, budget: number | null): number | null {

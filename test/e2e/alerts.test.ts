@@ -73,12 +73,12 @@ describe('alerts pages', () => {
         await page.getByRole('row').filter({ hasText: 'running' }).first().waitFor({ state: 'detached' });
         await screenshot(page, 'alerts-runs');
         await page.goto(`${server.url}/alerts`);
-        const row = page.getByRole('row').filter({ hasText: siteName }).filter({ hasText: 'Flow that never stops' });
+        const row = page.getByRole('row').filter({ hasText: siteName }).filter({ hasText: 'Water never stops' });
         await row.waitFor();
         expect(await row.textContent()).toMatch(/gal/);
         await screenshot(page, 'alerts-inbox');
         await row.getByRole('link').click();
-        await page.getByRole('heading', { name: 'Leak — Flow that never stops' }).waitFor();
+        await page.getByRole('heading', { name: 'Leak suspected — Water never stops' }).waitFor();
         await page.getByRole('img').first().waitFor();
         await page.waitForTimeout(1200);
         await screenshot(page, 'alerts-detail');
@@ -102,7 +102,7 @@ describe('alerts pages', () => {
       // The inbox opens on open alerts; the admin acknowledged this one, so look at every status.
       await page.getByLabel('Status').click();
       await page.getByRole('option', { name: 'Any status' }).click();
-      const row = page.getByRole('row').filter({ hasText: siteName }).filter({ hasText: 'Flow that never stops' });
+      const row = page.getByRole('row').filter({ hasText: siteName }).filter({ hasText: 'Water never stops' });
       await row.getByRole('link').click();
       await page.getByRole('heading', { name: 'Evidence' }).waitFor();
       expect(await page.getByRole('button', { name: 'Acknowledge' }).count()).toBe(0);

@@ -42,6 +42,8 @@ import { FieldAuditPhotoEntity } from '../components/field-audits/data/field-aud
 import { FieldAuditZoneTestEntity } from '../components/field-audits/data/field-audit-zone-test.entity';
 import { WhatIfPlanEntity } from '../components/planner/data/what-if-plan.entity';
 import { SiteEtafSettingEntity } from '../components/etaf/data/site-etaf-setting.entity';
+import { BoardPacketEntity } from '../components/month-close/data/board-packet.entity';
+import { SiteMonthReviewEntity } from '../components/month-close/data/site-month-review.entity';
 /** Every entity, listed once (explicit imports, so bundled builds need no file globbing). */
 export const ENTITIES = [
   OrganisationEntity,
@@ -77,6 +79,9 @@ export const ENTITIES = [
   // Reports (savings projects, compliance notices)
   SavingsProjectEntity,
   ComplianceNoticeEntity,
+  // Month close (review marks, board packets)
+  SiteMonthReviewEntity,
+  BoardPacketEntity,
   // Nightly watch (alerts, runs, settings, notification preferences)
   AlertEntity,
   AlertEventEntity,

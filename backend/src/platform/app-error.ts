@@ -48,3 +48,13 @@ export class AppError extends Error {
     return new AppError('validation_failed', `${field}: ${message}`, [{ field, message }]);
   }
 }
+
+/**
+ * The error in words for people rather than API clients: a single field error without its field code
+ * ("This site is not linked to a weather station…", not "weatherStation: This site…"), for exports and tables.
+ */
+export function plainReason(error: AppError): string {
+  const only = error.details?.length === 1 ? error.details[0]!.message : null;
+  if (!only) return error.message;
+  return only.charAt(0).toUpperCase() + only.slice(1);
+}

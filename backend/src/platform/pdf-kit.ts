@@ -94,10 +94,10 @@ export function barChart(
   labels: string[],
   series: { name: string; color: string; values: (number | null)[] }[],
   unit: string,
+  height = 170,
 ): void {
   const x0 = doc.page.margins.left + 50;
   const width = doc.page.width - doc.page.margins.right - x0;
-  const height = 170;
   if (doc.y + height + 50 > doc.page.height - doc.page.margins.bottom) doc.addPage();
   const top = doc.y + 5;
   const max = Math.max(1, ...series.flatMap((s) => s.values.map((v) => v ?? 0)));

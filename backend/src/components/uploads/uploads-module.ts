@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import type { Config } from '../../config';
-import { LocalFileStore } from '../../platform/storage/local-file-store';
+import { fileStoreFromConfig } from '../../platform/storage/file-store-from-config';
 import type { AuditRepository } from '../audit/data/audit-repository';
 import type { MetersService } from '../meters/domain/meters-service';
 import type { DailyUseRepository } from '../readings/data/daily-use-repository';
@@ -35,7 +35,7 @@ export function createUploads(deps: {
     sites,
     meters,
     audit,
-    new LocalFileStore(config.uploads.dir),
+    fileStoreFromConfig(config),
     { maxBytes: config.uploads.maxBytes },
     dailyUse,
   );

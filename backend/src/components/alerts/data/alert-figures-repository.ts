@@ -25,6 +25,26 @@ export class AlertFiguresRepository {
     return map;
   }
 
+  /** Per site: alerts whose period touches the local calendar month, and how many of them are not resolved. */
+  async monthCounts(
+    siteIds: number[],
+    month: string,
+    nextMonth: string,
+  ): Promise<Map<number, { inMonth: number; open: number }>> {
+    const map = new Map<number, { inMonth: number; open: number }>();
+    if (!siteIds.length || !(await this.alerts())) return map;
+    const rows: { siteId: number; n: number | string; open: number | string }[] = await this.db.query(
+      `SELECT a.site_id AS siteId, COUNT(*) AS n, SUM(a.status <> 'resolved') AS open
+       FROM alert a JOIN site s ON s.id = a.site_id
+       WHERE a.site_id IN (?) AND a.period_start_utc < CONVERT_TZ(?, s.time_zone, '+00:00')
+         AND a.period_end_utc > CONVERT_TZ(?, s.time_zone, '+00:00')
+       GROUP BY a.site_id`,
+      [siteIds, `${nextMonth}-01 00:00:00`, `${month}-01 00:00:00`],
+    );
+    for (const r of rows) map.set(Number(r.siteId), { inMonth: Number(r.n), open: Number(r.open) });
+    return map;
+  }
+
   async alertMarkers(
     siteId: number,
     timeZone: string,

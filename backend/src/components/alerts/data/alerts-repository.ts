@@ -191,6 +191,18 @@ export class AlertsRepository {
     return { items: rows.map(toSummary), total: Number(n) };
   }
 
+  /** One site's alerts whose period touches a local calendar month (the caller has checked access to the site). */
+  async inMonth(siteId: number, month: string, nextMonth: string): Promise<AlertSummaryDto[]> {
+    const rows: AlertRow[] = await this.db.query(
+      `SELECT ${SUMMARY_COLUMNS} FROM alert a JOIN site s ON s.id = a.site_id LEFT JOIN zone z ON z.id = a.zone_id
+       WHERE a.site_id = ? AND a.period_start_utc < CONVERT_TZ(?, s.time_zone, '+00:00')
+         AND a.period_end_utc > CONVERT_TZ(?, s.time_zone, '+00:00')
+       ORDER BY a.period_start_utc, a.id LIMIT 200`,
+      [siteId, `${nextMonth}-01 00:00:00`, `${month}-01 00:00:00`],
+    );
+    return rows.map(toSummary);
+  }
+
   async findVisible(
     viewerOrgId: number,
     id: number,

@@ -1,12 +1,16 @@
 import type { DataSource } from 'typeorm';
 import type { Page } from '@shared/api/page';
+import { KIND_LABELS } from '@shared/alerts/alert-dto';
+import type { FindingKind } from '@shared/watch/finding';
 import type {
   AlertDetailDto,
+  AlertEventDto,
   AlertListFilter,
   AlertSummaryDto,
   NotificationPreferenceDto,
 } from '@shared/alerts/alert-dto';
 import { atLeast, siteLevel } from '@shared/auth/roles';
+import { addMonths } from '@shared/portfolio/period';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
 import type { AuditRepository } from '../../audit/data/audit-repository';
@@ -35,13 +39,29 @@ export class AlertsService {
   }
 
   /** One site's alerts by local start day, as chart markers (the caller has checked access to the site). */
-  markers(
+  async markers(
     siteId: number,
     timeZone: string,
     from: string,
     to: string,
   ): Promise<{ id: number; date: string; title: string; status: string }[]> {
-    return this.figures.alertMarkers(siteId, timeZone, from, to);
+    // The stored kind is a code; markers carry the kind's name as people read it.
+    const markers = await this.figures.alertMarkers(siteId, timeZone, from, to);
+    return markers.map((m) => ({ ...m, title: KIND_LABELS[m.title as FindingKind] ?? m.title }));
+  }
+
+  /** Per site, alerts touching a local month and how many are still open (the caller has checked the sites). */
+  monthCounts(siteIds: number[], month: string): Promise<Map<number, { inMonth: number; open: number }>> {
+    return this.figures.monthCounts(siteIds, month, addMonths(month, 1));
+  }
+
+  /**
+   * One site's alerts of a local month with what people did about them (acknowledged, resolved, notes), for the
+   * board packet; the caller has checked access to the site.
+   */
+  async monthAlerts(siteId: number, month: string): Promise<(AlertSummaryDto & { events: AlertEventDto[] })[]> {
+    const alerts = await this.alerts.inMonth(siteId, month, addMonths(month, 1));
+    return Promise.all(alerts.map(async (a) => ({ ...a, events: await this.alerts.events(a.id) })));
   }
 
   /** Whether the alert table is there to read. */

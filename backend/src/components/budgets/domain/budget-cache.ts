@@ -1,4 +1,4 @@
-import { AppError } from '../../../platform/app-error';
+import { AppError, plainReason } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
 import { logger } from '../../../platform/logger';
 import type { BudgetsService } from './budgets-service';
@@ -83,7 +83,7 @@ export class BudgetCache {
         etoMm: null,
         rainMm: null,
         filledDays: 0,
-        problem: error.message,
+        problem: plainReason(error),
       }));
     }
     await this.repo.saveBudgetMonths(rows);

@@ -1,5 +1,6 @@
 import { toCsv, type CsvColumn } from '@shared/csv/csv-writer';
 import { dayCount, daysInMonth, lastDayOfMonth, monthsBetween } from '@shared/portfolio/period';
+import { monthlyTotals } from '@shared/readings/monthly-totals';
 import {
   percentOf,
   type HourlyGridDto,
@@ -13,12 +14,17 @@ import { costOfVolume } from '@shared/rates/water-cost';
 import { addDays } from '@shared/weather/day-of-year';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
-import type { DailyUseRepository } from '../data/daily-use-repository';
+import type { DailyUseRepository, MonthlyUse } from '../data/daily-use-repository';
 import { scheduleInForce, type RateSchedulesService } from '../../rates/domain/rate-schedules-service';
 import type { SitesService } from '../../sites/domain/sites-service';
 import type { AlertsService } from '../../alerts/domain/alerts-service';
 import type { ReadingsRepository } from '../data/readings-repository';
 import type { BudgetCache } from '../../budgets/domain/budget-cache';
+import type { RateScheduleDto } from '@shared/rates/rate-schedule-dto';
+
+/** One site's month for the month close: the monthly table's row, its metered days and why a budget is missing. */
+export type SiteMonth = MonthlyRow & { meteredDays: number; budgetProblem: string | null };
+type BudgetMonthRow = Awaited<ReturnType<BudgetCache['months']>>[number];
 
 const MAX_OVERVIEW_DAYS = 400;
 const MAX_MONTHS = 25;
@@ -119,41 +125,41 @@ export class ReadingsService {
     const budgets = await this.budgetCache.months([siteId], fromMonth, toMonth);
     const use = await this.dailyUse.monthly([siteId], `${fromMonth}-01`, lastDayOfMonth(toMonth));
     const schedules = await this.rates.allOfSite(siteId);
-    const rows = months.map((month): MonthlyRow => {
-      const b = budgets.find((r) => r.month === month);
-      const u = use.find((r) => r.month === month);
-      const useGallons = u?.gallons ?? 0;
-      const budgetGallons = b?.gallons ?? null;
-      const schedule = scheduleInForce(schedules, `${month}-01`);
-      const flags: MonthlyFlag[] = [];
-      if (budgetGallons !== null && useGallons > budgetGallons) flags.push('over-budget');
-      if (!u) flags.push('no-data');
-      else if (u.coveredMinutes < daysInMonth(month) * 1440 * COMPLETE_SHARE) flags.push('partial-data');
-      if (budgetGallons === null) flags.push('no-budget');
-      if ((b?.filledDays ?? 0) > 0) flags.push('weather-filled');
-      // The cache keeps a partial month's budget for its covered days, with the note in `problem`.
-      if (budgetGallons !== null && b?.problem) flags.push('partial-budget');
-      return {
+    const rows = months.map((month) =>
+      monthRow(
         month,
-        useGallons,
-        budgetGallons,
-        // A month without readings is unknown, not "0 % used": no variance or percent for it.
-        varianceGallons: budgetGallons === null || !u ? null : useGallons - budgetGallons,
-        percentOfBudget: u ? percentOf(useGallons, budgetGallons) : null,
-        etoMm: b?.etoMm ?? null,
-        rainMm: b?.rainMm ?? null,
-        // The bill for the metered use, with the budget for budget-based tiers.
-        cost: schedule && u ? costOfVolume(schedule, useGallons, budgetGallons ?? undefined).total : null,
-        currency: schedule?.currency ?? null,
-        flags,
-      };
-    });
+        budgets.find((r) => r.month === month),
+        use.find((r) => r.month === month),
+        scheduleInForce(schedules, `${month}-01`),
+      ),
+    );
     return {
       site: { id: site.id, name: site.name, timeZone: site.timeZone },
       from: fromMonth,
       to: toMonth,
       months: rows,
+      totals: monthlyTotals(rows),
     };
+  }
+
+  /**
+   * One month of several sites at once, for the month close (the caller has checked each site): the monthly
+   * table's row per site plus its metered days and the reason a budget is missing.
+   */
+  async monthOfSites(principal: Principal, siteIds: number[], month: string): Promise<Map<number, SiteMonth>> {
+    const out = new Map<number, SiteMonth>();
+    if (!siteIds.length) return out;
+    await this.budgetCache.ensure(principal, siteIds, [month]);
+    const budgets = await this.budgetCache.months(siteIds, month, month);
+    const use = await this.dailyUse.monthly(siteIds, `${month}-01`, lastDayOfMonth(month));
+    const schedules = await this.rates.allOfSites(siteIds);
+    for (const siteId of siteIds) {
+      const b = budgets.find((r) => r.siteId === siteId);
+      const u = use.find((r) => r.siteId === siteId);
+      const row = monthRow(month, b, u, scheduleInForce(schedules.get(siteId) ?? [], `${month}-01`));
+      out.set(siteId, { ...row, meteredDays: u?.days ?? 0, budgetProblem: b?.problem ?? null });
+    }
+    return out;
   }
 
   async monthlyCsv(
@@ -183,8 +189,45 @@ export class ReadingsService {
         .replace(/[^A-Za-z0-9-]+/g, '-')
         .replace(/^-|-$/g, '')
         .slice(0, 60) || 'site';
-    return { fileName: `${safeName}-monthly-${fromMonth}-to-${toMonth}.csv`, csv: toCsv(columns, table.months) };
+    const totalsRow: MonthlyRow = { ...table.totals, month: `Total ${fromMonth} to ${toMonth}`, flags: [] };
+    return {
+      fileName: `${safeName}-monthly-${fromMonth}-to-${toMonth}.csv`,
+      csv: toCsv(columns, [...table.months, totalsRow]),
+    };
   }
+}
+
+/** A site's month as the monthly table shows it, with the rate schedule in force that month. */
+function monthRow(
+  month: string,
+  b: BudgetMonthRow | undefined,
+  u: MonthlyUse | undefined,
+  schedule: RateScheduleDto | null,
+): MonthlyRow {
+  const useGallons = u?.gallons ?? 0;
+  const budgetGallons = b?.gallons ?? null;
+  const flags: MonthlyFlag[] = [];
+  if (budgetGallons !== null && useGallons > budgetGallons) flags.push('over-budget');
+  if (!u) flags.push('no-data');
+  else if (u.coveredMinutes < daysInMonth(month) * 1440 * COMPLETE_SHARE) flags.push('partial-data');
+  if (budgetGallons === null) flags.push('no-budget');
+  if ((b?.filledDays ?? 0) > 0) flags.push('weather-filled');
+  // The cache keeps a partial month's budget for its covered days, with the note in `problem`.
+  if (budgetGallons !== null && b?.problem) flags.push('partial-budget');
+  return {
+    month,
+    useGallons,
+    budgetGallons,
+    // A month without readings is unknown, not "0 % used": no variance or percent for it.
+    varianceGallons: budgetGallons === null || !u ? null : useGallons - budgetGallons,
+    percentOfBudget: u ? percentOf(useGallons, budgetGallons) : null,
+    etoMm: b?.etoMm ?? null,
+    rainMm: b?.rainMm ?? null,
+    // The bill for the metered use, with the budget for budget-based tiers.
+    cost: schedule && u ? costOfVolume(schedule, useGallons, budgetGallons ?? undefined).total : null,
+    currency: schedule?.currency ?? null,
+    flags,
+  };
 }
 
 /**
