@@ -19,6 +19,12 @@ const SPRAY_GAL_PER_MM = 273;
 /** After the retrofit the greenbelt runs on drip with a lower plant factor: about 29 % less per mm of ETo. */
 const DRIP_GAL_PER_MM = 195;
 const BASE_GAL_PER_DAY = 40;
+const RETROFITS = [
+  'Greenbelt path, zones 3–7: 212 spray heads capped; inline drip (0.6 gph emitters, 12 in spacing) under mulch',
+  'Pressure-regulating filter assembly (30 psi) at each converted valve',
+  'Flush caps at the end of every drip lateral',
+  'Controller programs for zones 3–7 rewritten for drip run times',
+];
 
 /**
  * The demo retrofit: a year of baseline and a season after on South Greenbelt, as invented daily meter readings
@@ -115,6 +121,13 @@ export async function seedSavings(db: DataSource): Promise<{ readings: number; p
     });
     projects = 1;
   }
+  // The demo project is installed (baseline locked) and carries its retrofit list and cost; older demo databases
+  // that have the project without them are brought forward once.
+  await db.query(
+    `UPDATE savings_project SET status = 'installed', locked_at = ?, locked_by = ?, retrofits = ?,
+      installed_cost = ?, cost_currency = 'USD' WHERE site_id = ? AND title = ? AND retrofits IS NULL`,
+    [new Date(`${INSTALLED_ON}T17:00:00Z`), author?.id ?? null, JSON.stringify(RETROFITS), 18_400, site.id, title],
+  );
   return { readings, projects };
 }
 

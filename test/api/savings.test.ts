@@ -74,8 +74,11 @@ describe('savings projects', () => {
         createdBy: owner.users.manager.id,
       });
 
+      // A contractor may not change (or delete) a project the owner's manager wrote; the manager may.
       const contractor = await signedIn(app, owner.users.contractor.email);
-      await contractor.patch(`/api/savings-projects/${created.body.id}`, { title: 'Slope drip retrofit' }).expect(200);
+      await contractor.patch(`/api/savings-projects/${created.body.id}`, { title: 'Contractor rename' }).expect(403);
+      await contractor.delete(`/api/savings-projects/${created.body.id}`).expect(403);
+      await manager.patch(`/api/savings-projects/${created.body.id}`, { title: 'Slope drip retrofit' }).expect(200);
       const auditor = await signedIn(app, owner.users.auditor.email);
       expect(
         (await auditor.get(`/api/sites/${site.id}/savings-projects`).expect(200)).body.map(

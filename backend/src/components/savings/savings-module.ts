@@ -10,10 +10,13 @@ import { savingsProjectsRouter, siteSavingsProjectsRouter } from './api/savings-
 import { SavingsProjectsRepository } from './data/savings-projects-repository';
 import { SavingsProjectsService } from './domain/savings-projects-service';
 import { SavingsReportService } from './domain/savings-report-service';
+import { SavingsBookService } from './domain/savings-book-service';
+import { SavingsHandoutService } from './domain/savings-handout-service';
+import type { OrganisationSettingsService } from '../organisations/domain/organisation-settings-service';
 
 export interface Savings {
   projects: SavingsProjectsService;
-  /** /sites/:id/savings-projects and /savings-projects (with each project's report, CSV and PDF) */
+  /** /sites/:id/savings-projects and /savings-projects (the book; each project's report, CSV, PDF and handout) */
   router: Router;
 }
 
@@ -25,6 +28,7 @@ export function createSavings(deps: {
   dailyWeather: DailyWeatherService;
   dailyUse: DailyUseRepository;
   rates: RateSchedulesService;
+  organisationSettings: OrganisationSettingsService;
   audit: AuditRepository;
 }): Savings {
   const { db, sites, audit } = deps;
@@ -38,6 +42,8 @@ export function createSavings(deps: {
   );
   const router = Router();
   router.use('/sites/:id/savings-projects', siteSavingsProjectsRouter(projects));
-  router.use('/savings-projects', savingsProjectsRouter(projects, reports));
+  const book = new SavingsBookService(sites, projects, reports);
+  const handouts = new SavingsHandoutService(reports, deps.organisationSettings);
+  router.use('/savings-projects', savingsProjectsRouter({ projects, reports, book, handouts }));
   return { projects, router };
 }

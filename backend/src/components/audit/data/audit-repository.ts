@@ -36,6 +36,35 @@ export class AuditRepository {
     });
   }
 
+  /** Everything recorded about one record, newest first, whichever organisation it was logged under. */
+  async trail(
+    entity: string,
+    entityId: string | number,
+    page: { page: number; pageSize: number },
+  ): Promise<Page<AuditTrailEntry>> {
+    const [{ n }]: { n: number | string }[] = await this.db.query(
+      'SELECT COUNT(*) AS n FROM audit_entry WHERE entity = ? AND entity_id = ?',
+      [entity, String(entityId)],
+    );
+    const rows: { at: Date; userName: string | null; action: string; changes: string | null }[] = await this.db.query(
+      `SELECT a.at, u.display_name AS userName, a.action, a.changes FROM audit_entry a
+       LEFT JOIN \`user\` u ON u.id = a.user_id WHERE a.entity = ? AND a.entity_id = ?
+       ORDER BY a.id DESC LIMIT ? OFFSET ?`,
+      [entity, String(entityId), page.pageSize, page.page * page.pageSize],
+    );
+    return {
+      items: rows.map((r) => ({
+        at: new Date(r.at).toISOString(),
+        userName: r.userName,
+        action: r.action,
+        changes: r.changes ? JSON.parse(r.changes) : null,
+      })),
+      total: Number(n),
+      page: page.page,
+      pageSize: page.pageSize,
+    };
+  }
+
   async list(
     organisationId: number,
     filter: { entity?: string; entityId?: string; page: number; pageSize: number },
@@ -66,6 +95,14 @@ export class AuditRepository {
       pageSize: filter.pageSize,
     };
   }
+}
+
+/** One entry of a record's trail, with the author's name. */
+export interface AuditTrailEntry {
+  at: string;
+  userName: string | null;
+  action: string;
+  changes: unknown;
 }
 
 /** `{ field: [before, after] }` for the fields whose values differ. */

@@ -1,12 +1,19 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { BASELINE_MODEL_FORMS } from '@shared/savings/baseline-model';
-import { SAVINGS_CHANGE_KINDS } from '@shared/savings/savings-project-dto';
+import {
+  SAVINGS_BOOK_SORTS,
+  SAVINGS_CHANGE_KINDS,
+  SAVINGS_LIMITS,
+  SAVINGS_PROJECT_STATUSES,
+} from '@shared/savings/savings-project-dto';
 import { principalOf } from '../../../platform/auth/guards';
-import { idParam, validate } from '../../../platform/validation';
+import { idParam, pageQuerySchema, validate } from '../../../platform/validation';
+import type { SavingsBookService } from '../domain/savings-book-service';
 import type { SavingsProjectsService } from '../domain/savings-projects-service';
 import type { SavingsReportService } from '../domain/savings-report-service';
 import { savingsCsv, savingsPdf } from '../domain/savings-exports';
+import type { SavingsHandoutService } from '../domain/savings-handout-service';
 import { sendFile } from '../../../platform/send-file';
 
 const month = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, 'must be a month YYYY-MM');
@@ -21,8 +28,28 @@ const fields = {
   reportingTo: month,
   modelForm: z.enum(BASELINE_MODEL_FORMS, { message: `must be one of ${BASELINE_MODEL_FORMS.join(', ')}` }),
 };
-const createBody = z.strictObject(fields);
-const patchBody = z.strictObject(fields).partial();
+const optionalFields = {
+  changeDescription: fields.changeDescription,
+  retrofits: z
+    .array(z.string().trim().min(1, 'is empty').max(SAVINGS_LIMITS.retrofitMax, 'is too long'))
+    .max(SAVINGS_LIMITS.retrofitsMax, `at most ${SAVINGS_LIMITS.retrofitsMax} lines`)
+    .optional(),
+  installedCost: z.number().min(0, 'must be zero or more').max(SAVINGS_LIMITS.costMax).nullable().optional(),
+  costCurrency: z
+    .string()
+    .regex(/^[A-Z]{3}$/, 'must be a three-letter currency code')
+    .nullable()
+    .optional(),
+};
+const createBody = z.strictObject({ ...fields, ...optionalFields });
+const patchBody = z
+  .strictObject({ ...fields, ...optionalFields, reason: z.string().trim().max(500).optional() })
+  .partial();
+const bookQuery = pageQuerySchema(SAVINGS_BOOK_SORTS, 'installedOn').extend({
+  scope: z.enum(['mine', 'all']).optional(),
+  status: z.enum(SAVINGS_PROJECT_STATUSES).optional(),
+});
+const historyQuery = pageQuerySchema(['at'], 'at');
 const reportQuery = z.object({ format: z.enum(['json', 'csv']).default('json') });
 
 /** /api/sites/:id/savings-projects */
@@ -40,9 +67,21 @@ export function siteSavingsProjectsRouter(projects: SavingsProjectsService): Rou
   return router;
 }
 
-/** /api/savings-projects/:id, its report (JSON or CSV) and report.pdf */
-export function savingsProjectsRouter(projects: SavingsProjectsService, reports: SavingsReportService): Router {
+/**
+ * /api/savings-projects (the savings book), /:id with its lifecycle (installed, archive, restore) and history, its
+ * report (JSON or CSV), report.pdf and the client handout.pdf
+ */
+export function savingsProjectsRouter(services: {
+  projects: SavingsProjectsService;
+  reports: SavingsReportService;
+  book: SavingsBookService;
+  handouts: SavingsHandoutService;
+}): Router {
+  const { projects, reports, book, handouts } = services;
   const router = Router();
+  router.get('/', async (req, res) => {
+    res.json(await book.book(principalOf(req), validate(bookQuery, req.query, 'Query')));
+  });
   router.get('/:id', async (req, res) => {
     res.json(await projects.get(principalOf(req), validate(idParam, req.params).id));
   });
@@ -53,6 +92,24 @@ export function savingsProjectsRouter(projects: SavingsProjectsService, reports:
   router.delete('/:id', async (req, res) => {
     await projects.remove(principalOf(req), validate(idParam, req.params).id);
     res.status(204).end();
+  });
+  router.post('/:id/installed', async (req, res) => {
+    res.json(await projects.markInstalled(principalOf(req), validate(idParam, req.params).id));
+  });
+  router.post('/:id/archive', async (req, res) => {
+    res.json(await projects.setArchived(principalOf(req), validate(idParam, req.params).id, true));
+  });
+  router.post('/:id/restore', async (req, res) => {
+    res.json(await projects.setArchived(principalOf(req), validate(idParam, req.params).id, false));
+  });
+  router.get('/:id/history', async (req, res) => {
+    const { id } = validate(idParam, req.params);
+    res.json(await projects.history(principalOf(req), id, validate(historyQuery, req.query, 'Query')));
+  });
+  router.get('/:id/handout.pdf', async (req, res) => {
+    const { id } = validate(idParam, req.params);
+    const { pdf, fileName } = await handouts.handout(principalOf(req), id);
+    sendFile(res, pdf, 'application/pdf', fileName);
   });
   router.get('/:id/report', async (req, res) => {
     const { id } = validate(idParam, req.params);

@@ -120,11 +120,12 @@ export async function savingsPdf(r: SavingsReportDto): Promise<Buffer> {
       c.value === null ? '—' : `${c.value.toFixed(c.id === 'nmbe' ? 4 : 1)} %`,
       c.limit,
       c.passed ? 'pass' : 'fail',
-      `${c.source}${c.fromMemory ? ' (thresholds from memory)' : ''}`,
+      c.source,
     ]),
     [150, 70, 70, 45, 177],
     ['left', 'right', 'right', 'left', 'left'],
   );
+  muted(doc, `Criteria applied: ${r.verdict.criteria.version}.`);
   for (const w of r.warnings) muted(doc, `Note: ${w}`);
 
   heading(doc, 'Months', 12);

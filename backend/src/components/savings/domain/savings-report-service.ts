@@ -1,5 +1,7 @@
 import { calculateSavings } from '@shared/savings/savings-calculation';
-import { fitBaselineModel, type MeteredPeriod } from '@shared/savings/baseline-model';
+import { fitBaselineModel, type BaselineModelForm, type MeteredPeriod } from '@shared/savings/baseline-model';
+import { ACCEPTANCE_CRITERIA } from '@shared/savings/acceptance-criteria';
+import { annualSavings, simplePaybackYears } from '@shared/savings/simple-payback';
 import { judgeSavings } from '@shared/savings/savings-verdict';
 import type { SavingsMonthDto, SavingsReportDto } from '@shared/savings/savings-project-dto';
 import { costOfVolume } from '@shared/rates/water-cost';
@@ -36,7 +38,7 @@ export class SavingsReportService {
 
   async report(principal: Principal, id: number): Promise<SavingsReportDto> {
     const { project, site } = await this.projects.load(principal, id);
-    const dto = toDto(project, site);
+    const dto = toDto(project, site, principal);
     const station = await this.stations.stationOfSite(principal, site.id);
     if (!station)
       throw AppError.invalid(
@@ -110,24 +112,30 @@ export class SavingsReportService {
         savedMoney: savings.savedMoney,
         currency: priced ? [...currencies][0]! : null,
         uncertainty: savings.uncertainty,
+        reportingDays: savings.reportingDays,
+        annualMoney: annualSavings(savings.savedMoney, savings.reportingDays),
+        paybackYears: simplePaybackYears({
+          installedCost: dto.installedCost,
+          savedMoney: savings.savedMoney,
+          reportingDays: savings.reportingDays,
+        }),
       },
       verdict: {
         canClaimSavings: verdict.canClaimSavings,
         baselineModelAcceptable: verdict.baselineModelAcceptable,
         route: verdict.route,
-        checks: verdict.checks,
+        checks: verdict.checks.map(({ fromMemory: _provenance, ...check }) => check),
         reasons: verdict.reasons,
         summary: verdict.summary,
+        criteria: { ...ACCEPTANCE_CRITERIA },
       },
       warnings: [...warnings, ...verdict.warnings],
-      method: methodSentences(
-        dto.baselineFrom,
-        dto.baselineTo,
-        dto.reportingFrom,
-        dto.reportingTo,
-        EQUATIONS[model.form]!,
-        station.name,
-      ),
+      method: methodSentences({
+        baseline: [dto.baselineFrom, dto.baselineTo],
+        reporting: [dto.reportingFrom, dto.reportingTo],
+        form: model.form,
+        stationName: station.name,
+      }),
     };
   }
 
@@ -163,25 +171,38 @@ export class SavingsReportService {
   }
 }
 
-/** The method in words a board member can follow; printed on the report and the PDF. */
-export function methodSentences(
-  baselineFrom: string,
-  baselineTo: string,
-  reportingFrom: string,
-  reportingTo: string,
-  equation: string,
-  stationName: string,
-): string[] {
+/**
+ * The method in words a board member can follow; printed on the report, the PDF and the handout. It names only the
+ * weather the fitted model uses (ETo, and rain only for the forms that include it) and whether it fits whole months
+ * or the daily average of each month.
+ */
+export function methodSentences(m: {
+  baseline: [string, string];
+  reporting: [string, string];
+  form: BaselineModelForm;
+  stationName: string;
+}): string[] {
+  const rain = m.form.includes('rain');
+  const weather = rain ? 'reference evapotranspiration (ETo) and rain' : 'reference evapotranspiration (ETo) alone';
+  const perDay = m.form.endsWith('per-day');
+  const use = perDay ? "each month's average daily metered use" : "the site's monthly metered use";
+  const span = ([a, b]: [string, string]) => `${monthName(a)} to ${monthName(b)}`;
   return [
-    "We fitted a straight-line model of the site's monthly metered " +
-      `water use against the weather at station "${stationName}" over ` +
-      `the baseline months ${baselineFrom} to ${baselineTo}, by least ` +
-      `squares: ${equation}.`,
-    `We then fed the reporting months' (${reportingFrom} to ${reportingTo}) ` +
-      'ETo and rain into that model to predict what the site would ' +
-      'have used without the change; savings are that prediction minus the metered use.',
-    'The fit is judged with ASHRAE Guideline 14 statistics (R², CV(RMSE), ' +
-      'NMBE) and its acceptance thresholds; savings are claimed only ' +
-      'when the model meets them.',
+    `We fitted a straight line relating ${use} to ${weather} at weather station "${m.stationName}" over ` +
+      `the baseline months ${span(m.baseline)}, by least squares` +
+      (perDay ? ', each month weighted by its number of days.' : '.') +
+      (rain ? '' : ' Rain is not part of this model.'),
+    `We then fed the reporting months' (${span(m.reporting)}) ETo` +
+      (rain ? ' and rain' : '') +
+      ' into that line to predict what the site would have used without the change; savings are that ' +
+      'prediction minus the metered use.',
+    `The fit is judged with ${ACCEPTANCE_CRITERIA.standard} statistics (R², CV(RMSE), NMBE) and its acceptance ` +
+      'thresholds; savings are claimed only when the model meets them.',
   ];
+}
+
+function monthName(month: string): string {
+  return new Intl.DateTimeFormat('en-US', { month: 'long', year: 'numeric', timeZone: 'UTC' }).format(
+    new Date(`${month}-01T00:00:00Z`),
+  );
 }

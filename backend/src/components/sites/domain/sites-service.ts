@@ -35,6 +35,18 @@ export class SitesService {
     return this.toDto(principal, record, shares);
   }
 
+  /** Every site the organisation owns or is shared, as records with the relation (for other components' rules). */
+  async visibleRecords(principal: Principal, filter: { q?: string; tag?: string } = {}): Promise<SiteRecord[]> {
+    const { rows } = await this.sites.list(principal.organisationId, {
+      page: 0,
+      pageSize: 100_000,
+      sort: 'name',
+      dir: 'asc',
+      ...filter,
+    });
+    return rows;
+  }
+
   tags(principal: Principal): Promise<string[]> {
     return this.sites.tags(principal.organisationId);
   }
