@@ -127,6 +127,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     budgets: budgets.service,
     dailyUse: readings.dailyUse,
     mailQueue: mail.queue,
+    alerts: alerts.service,
     publicUrl: config.http.publicUrl,
   });
   const watch = createWatch({

@@ -44,7 +44,10 @@ export interface SiteDto {
   organisationName: string;
   /** What the signed-in user may do on this site. */
   access: SiteLevel;
+  /** Sites the owner shares with. Empty for a viewer through a share, who sees `sharedWithYou` instead. */
   shares: SiteShareDto[];
+  /** For a site another organisation (`organisationName`) shared with yours: what it grants and since when. */
+  sharedWithYou: { access: ShareAccess; since: string | null } | null;
   createdAt: string;
   updatedAt: string;
 }

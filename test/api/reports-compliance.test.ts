@@ -7,11 +7,13 @@ import {
   createWorld,
   shareSite,
   signedIn,
+  suffix,
   type Client,
   type TestApp,
   type World,
 } from '../support/test-app';
 import { insertMonthlyUse, pdfText, weatherForSite } from '../support/report-fixtures';
+import { alertInMonth, budgetedSite } from '../support/month-fixtures';
 
 let app: TestApp;
 let owner: World;
@@ -72,10 +74,20 @@ describe('compliance ranking', () => {
         .gallons;
       expected.push({ siteId: s.id, percent: (100 * USE_JUNE[i]!) / budget });
     }
-    expected.sort((a, b) => b.percent - a.percent);
-    expect(mine.map((row: { siteId: number }) => row.siteId)).toEqual(expected.map((e) => e.siteId));
+    // The worklist: over budget first (most over on top), then the half-metered site, then the rest by percent.
+    const over = expected.filter((e) => e.percent > 100).sort((a, b) => b.percent - a.percent);
+    const gappyId = sites[2]!.id;
+    const rest = expected.filter((e) => e.percent <= 100 && e.siteId !== gappyId).sort((a, b) => b.percent - a.percent);
+    const gappyExpected = expected.filter((e) => e.percent <= 100 && e.siteId === gappyId);
+    const order = [...over, ...gappyExpected, ...rest];
+    expect(mine.map((row: { siteId: number }) => row.siteId)).toEqual(order.map((e) => e.siteId));
+    expect(mine.map((row: { group: string }) => row.group)).toEqual([
+      ...over.map(() => 'over-budget'),
+      ...gappyExpected.map(() => 'incomplete-data'),
+      ...rest.map(() => 'within-budget'),
+    ]);
     mine.forEach((row: { percentOfBudget: number }, i: number) =>
-      expect(row.percentOfBudget).toBeCloseTo(expected[i]!.percent, 3),
+      expect(row.percentOfBudget).toBeCloseTo(order[i]!.percent, 3),
     );
     const gappy = mine.find((row: { siteId: number }) => row.siteId === sites[2]!.id);
     expect(gappy.completeness).toBeCloseTo(0.5, 6);
@@ -119,7 +131,7 @@ describe('compliance ranking', () => {
     expect(csv.text).not.toMatch(/(^|,)=HYPERLINK/m);
     const text = await pdfText(auditor, '/api/reports/compliance.pdf?year=2025&month=2025-06');
     expect(text).toContain('Birch Commons');
-    expect(text).toContain('Sites are ranked by percent of budget');
+    expect(text).toContain('Sites needing a look come first');
   });
 
   it('when an auditor sends a notice twice, then the manager gets one e-mail and the site logs it once', async () => {
@@ -155,5 +167,97 @@ describe('compliance ranking', () => {
     expect(ranked.items[0].noticeSentAt).not.toBeNull();
     const contractor = await signedIn(app, owner.users.contractor.email);
     await contractor.post(`/api/reports/compliance/${sites[0]!.id}/notice`, {}).expect(403);
+  });
+});
+
+describe("auditor's worklist", () => {
+  it(
+    'when a shared site has no readings, another has open alerts and a third no weather station, then each is in ' +
+      'its own group, none ranked as compliant or as 0 %, and exports carry labels, not codes',
+    async () => {
+      const other = await createWorld(app.db);
+      const otherManager = await signedIn(app, other.users.manager.email);
+      const quiet = await budgetedSite(app.db, otherManager, other.org.id, {
+        name: `Quiet Acres ${suffix()}`,
+        month: '2025-06',
+        useGallons: null,
+      });
+      const alerted = await budgetedSite(app.db, otherManager, other.org.id, {
+        name: `Ridge Lane ${suffix()}`,
+        month: '2025-06',
+        useGallons: 1_000,
+      });
+      await alertInMonth(app.db, alerted, '2025-06');
+      const unlinked = await createSite(app.db, other.org.id, { name: `Station-less Park ${suffix()}` });
+      await insertMonthlyUse(app.db, unlinked.id, '2025-06', 5_000);
+      for (const id of [quiet, alerted, unlinked.id]) await shareSite(app.db, id, utility.id, 'read');
+
+      const r = (await auditor.get(`/api/reports/compliance?year=2025&month=2025-06&owner=${other.org.id}`).expect(200))
+        .body;
+      expect(r.owners.map((o: { id: number }) => o.id)).toEqual(expect.arrayContaining([owner.org.id, other.org.id]));
+      expect(r.items.map((row: { siteId: number; group: string }) => [row.siteId, row.group])).toEqual([
+        [alerted, 'open-alerts'],
+        [quiet, 'no-data'],
+        [unlinked.id, 'no-budget'],
+      ]);
+      const quietRow = r.items.find((row: { siteId: number }) => row.siteId === quiet);
+      expect(quietRow.percentOfBudget).toBeNull();
+      expect(quietRow.budgetGal).toBeGreaterThan(0);
+      expect(r.items.find((row: { siteId: number }) => row.siteId === unlinked.id).problem).toMatch(
+        /^This site has no hydrozones yet/,
+      );
+      expect(r.groups.find((g: { group: string }) => g.group === 'no-data').count).toBe(1);
+
+      const csv = (
+        await auditor
+          .get(`/api/reports/compliance?year=2025&month=2025-06&owner=${other.org.id}&format=csv`)
+          .expect(200)
+      ).text;
+      expect(csv).toContain(',Park,');
+      expect(csv).not.toMatch(/,park,|hydrozones:|weatherStation:|no-data|open-alerts|no-budget/);
+      expect(csv).toContain('No data');
+      expect(csv).toContain('Open alerts');
+      expect(csv).toContain('This site has no hydrozones yet');
+    },
+  );
+
+  it('when the year is still running, the allowance is the MAWA prorated by ETo to date, labelled so', async () => {
+    const year = new Date().getUTCFullYear();
+    const r = (await manager.get(`/api/reports/compliance?year=${year}&pageSize=200`).expect(200)).body;
+    expect(r.basis).toMatch(/MAWA to date/);
+    expect(r.allowanceLabel).toMatch(/prorated by the share of its ETo to date/);
+    const row = r.items.find((x: { siteId: number }) => x.siteId === sites[0]!.id);
+    expect(row.fullBudgetGal).toBeCloseTo(row.annualMawaGal, 6);
+    if (row.allowanceShare !== null) {
+      // Not on the year's last day: part of the year's ETo is still to come.
+      expect(row.allowanceShare).toBeGreaterThan(0);
+      expect(row.allowanceShare).toBeLessThan(1);
+      expect(row.budgetGal).toBeCloseTo(row.annualMawaGal * row.allowanceShare, 3);
+      expect(row.annualAllowanceGal).toBeCloseTo(row.budgetGal, 6);
+    }
+    // A year that is over is compared with its whole MAWA.
+    const past = (await manager.get('/api/reports/compliance?year=2025&pageSize=200').expect(200)).body;
+    const pastRow = past.items.find((x: { siteId: number }) => x.siteId === sites[0]!.id);
+    expect(pastRow.allowanceShare).toBeNull();
+    expect(pastRow.budgetGal).toBeCloseTo(pastRow.annualMawaGal, 6);
+  });
+
+  it("when a notice was sent, then the site's notice history says when, by whom, from where, and what", async () => {
+    const site = sites[0]!;
+    await auditor
+      .post(`/api/reports/compliance/${site.id}/notice`, { month: '2025-05', message: 'May looked high.' })
+      .expect(201);
+    const history = (await auditor.get(`/api/reports/compliance/${site.id}/notices`).expect(200)).body;
+    expect(history.items[0]).toMatchObject({
+      month: '2025-05',
+      sentBy: 'Test auditor',
+      senderOrganisation: utility.name,
+      recipients: 2,
+      message: 'May looked high.',
+    });
+    expect((await manager.get(`/api/reports/compliance/${site.id}/notices`).expect(200)).body.total).toBe(1);
+    const contractor = await signedIn(app, owner.users.contractor.email);
+    await contractor.get(`/api/reports/compliance/${site.id}/notices`).expect(403);
+    await auditor.get(`/api/reports/compliance/${sites[3]!.id}/notices`).expect(404);
   });
 });

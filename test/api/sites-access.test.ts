@@ -187,7 +187,12 @@ describe('isolation between organisations', () => {
     const seenByFirm = await client('firm.contractor').get(`/api/sites/${siteA.id}`).expect(200);
     expect(seenByFirm.body.shares).toEqual([]);
     expect(seenByFirm.body.access).toBe('contribute');
+    // Instead it learns who shared the site with it, what the share grants and since when.
+    expect(seenByFirm.body.organisationName).toBe(owner.org.name);
+    expect(seenByFirm.body.sharedWithYou).toMatchObject({ access: 'contribute' });
+    expect(Date.parse(seenByFirm.body.sharedWithYou.since)).not.toBeNaN();
     const seenByOwner = await client('owner.admin').get(`/api/sites/${siteA.id}`).expect(200);
+    expect(seenByOwner.body.sharedWithYou).toBeNull();
     expect(seenByOwner.body.shares.map((s: { organisationId: number }) => s.organisationId).sort()).toEqual(
       [firm.org.id, utility.org.id].sort(),
     );

@@ -7,7 +7,7 @@ export async function budgetedSite(
   db: DataSource,
   manager: Client,
   organisationId: number,
-  opts: { name: string; month: string; useGallons: number; meteredDays?: number },
+  opts: { name: string; month: string; useGallons: number | null; meteredDays?: number },
 ): Promise<number> {
   const site = await createSite(db, organisationId, { name: opts.name });
   await weatherForSite(manager, site.id, `${opts.month}-01`, `${opts.month}-${daysIn(opts.month)}`);
@@ -29,7 +29,7 @@ export async function budgetedSite(
       effectiveFrom: '2020-01-01',
     })
     .expect(201);
-  await insertMonthlyUse(db, site.id, opts.month, opts.useGallons, opts.meteredDays);
+  if (opts.useGallons !== null) await insertMonthlyUse(db, site.id, opts.month, opts.useGallons, opts.meteredDays);
   return site.id;
 }
 

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import type { AuditRepository } from '../audit/data/audit-repository';
+import type { AlertsService } from '../alerts/domain/alerts-service';
 import type { BudgetsService } from '../budgets/domain/budgets-service';
 import type { MailQueue } from '../mail/domain/mail-queue';
 import type { DailyUseRepository } from '../readings/data/daily-use-repository';
@@ -13,7 +14,7 @@ import { ComplianceService } from './domain/compliance-service';
 
 export interface Reports {
   compliance: ComplianceService;
-  /** /reports/compliance (JSON, CSV, PDF) and its budget notices */
+  /** /reports/compliance (the worklist: JSON, CSV, PDF), its budget notices and each site's notice history */
   router: Router;
 }
 
@@ -26,11 +27,19 @@ export function createReports(deps: {
   dailyUse: DailyUseRepository;
   audit: AuditRepository;
   mailQueue: MailQueue;
+  alerts: AlertsService;
   publicUrl: string;
 }): Reports {
   const { db, sites, budgets, dailyUse } = deps;
   const noticesRepository = new ComplianceNoticesRepository(db);
-  const compliance = new ComplianceService(deps.sitesRepository, budgets, dailyUse, noticesRepository);
+  const compliance = new ComplianceService(
+    deps.sitesRepository,
+    sites,
+    budgets,
+    dailyUse,
+    noticesRepository,
+    deps.alerts,
+  );
   const notices = new ComplianceNoticeService(
     db,
     sites,

@@ -232,6 +232,28 @@ export class BudgetsService {
     };
   }
 
+  /**
+   * The share of a period's ETo that fell on or before `through` (the rest of the period from the station's normals):
+   * what prorates an allowance to date. With no rain credit a budget is proportional to ETo, so this is exact for
+   * MAWA without Eppt and for monthly budgets.
+   */
+  async etoShareToDate(
+    principal: Principal,
+    siteId: number,
+    period: { from: string; to: string; through: string },
+  ): Promise<{ share: number; etoToDateMm: number; etoPeriodMm: number }> {
+    const station = await this.stations.stationOfSite(principal, siteId);
+    if (!station)
+      throw AppError.invalid(
+        'weatherStation',
+        'This site is not linked to a weather station; link one to compute a budget.',
+      );
+    const { days } = await this.weather.forBudget(station, period.from, period.to);
+    const etoPeriodMm = days.reduce((s, d) => s + d.etoMm, 0);
+    const etoToDateMm = days.filter((d) => d.date <= period.through).reduce((s, d) => s + d.etoMm, 0);
+    return { share: etoPeriodMm > 0 ? etoToDateMm / etoPeriodMm : 0, etoToDateMm, etoPeriodMm };
+  }
+
   async advice(
     principal: Principal,
     siteId: number,

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { COMPLIANCE_SORTS } from '@shared/reports/compliance-report-dto';
 import { SITE_KINDS } from '@shared/sites/site';
 import { principalOf } from '../../../platform/auth/guards';
-import { validate } from '../../../platform/validation';
+import { pageQuerySchema, validate } from '../../../platform/validation';
 import { sendFile } from '../../../platform/send-file';
 import type { ComplianceService } from '../domain/compliance-service';
 import type { ComplianceNoticeService } from '../domain/compliance-notice-service';
@@ -15,12 +15,14 @@ const complianceQuery = z.object({
   month: month.optional(),
   kind: z.enum(SITE_KINDS, { message: `must be one of ${SITE_KINDS.join(', ')}` }).optional(),
   tag: z.string().trim().min(1).max(40).optional(),
+  owner: z.coerce.number().int().positive().optional(),
   page: z.coerce.number().int().min(0).default(0),
   pageSize: z.coerce.number().int().min(1).max(200).default(25),
   sort: z.enum(COMPLIANCE_SORTS).default('rank'),
   dir: z.enum(['asc', 'desc']).default('asc'),
   format: z.enum(['json', 'csv']).default('json'),
 });
+const historyQuery = pageQuerySchema(['sentAt'], 'sentAt');
 const noticeParams = z.object({ siteId: z.coerce.number().int().positive() });
 const noticeBody = z.strictObject({
   month: month.optional(),
@@ -43,6 +45,10 @@ export function reportsRouter(compliance: ComplianceService, notices: Compliance
     const { format: _format, ...q } = validate(complianceQuery, req.query, 'Query');
     const all = await compliance.ranking(principalOf(req), { ...q, page: 0, pageSize: 100_000 });
     sendFile(res, await compliancePdf(all), 'application/pdf', `compliance-${q.month ?? q.year}.pdf`);
+  });
+  router.get('/compliance/:siteId/notices', async (req, res) => {
+    const { siteId } = validate(noticeParams, req.params);
+    res.json(await compliance.noticeHistory(principalOf(req), siteId, validate(historyQuery, req.query, 'Query')));
   });
   router.post('/compliance/:siteId/notice', async (req, res) => {
     const { siteId } = validate(noticeParams, req.params);

@@ -1,4 +1,5 @@
 import type { DataSource, EntityManager } from 'typeorm';
+import type { NoticeHistoryDto } from '@shared/reports/compliance-report-dto';
 import { ComplianceNoticeEntity } from './compliance-notice.entity';
 
 export interface NoticeRecipient {
@@ -20,6 +21,45 @@ export class ComplianceNoticesRepository {
       [siteIds, month ?? `${year}-%`],
     );
     return new Map(rows.map((r) => [Number(r.siteId), new Date(r.sentAt)]));
+  }
+
+  /** A site's notices, newest first, with who sent them from which organisation. */
+  async history(
+    siteId: number,
+    page: { page: number; pageSize: number },
+  ): Promise<{ items: NoticeHistoryDto[]; total: number }> {
+    const [{ n }]: { n: number | string }[] = await this.db.query(
+      'SELECT COUNT(*) AS n FROM compliance_notice WHERE site_id = ?',
+      [siteId],
+    );
+    const rows: {
+      month: string;
+      sentAt: Date;
+      sentBy: string | null;
+      senderOrganisation: string | null;
+      recipients: number;
+      percentOfBudget: number | null;
+      message: string;
+    }[] = await this.db.query(
+      `SELECT n.month, n.sent_at AS sentAt, u.display_name AS sentBy, o.name AS senderOrganisation, n.recipients,
+        n.percent_of_budget AS percentOfBudget, n.message
+       FROM compliance_notice n LEFT JOIN \`user\` u ON u.id = n.sent_by
+       LEFT JOIN organisation o ON o.id = n.sender_organisation_id
+       WHERE n.site_id = ? ORDER BY n.sent_at DESC, n.id DESC LIMIT ? OFFSET ?`,
+      [siteId, page.pageSize, page.page * page.pageSize],
+    );
+    return {
+      items: rows.map((r) => ({
+        month: r.month,
+        sentAt: new Date(r.sentAt).toISOString(),
+        sentBy: r.sentBy ?? 'Former user',
+        senderOrganisation: r.senderOrganisation ?? '',
+        recipients: Number(r.recipients),
+        percentOfBudget: r.percentOfBudget === null ? null : Number(r.percentOfBudget),
+        message: r.message,
+      })),
+      total: Number(n),
+    };
   }
 
   find(siteId: number, month: string): Promise<ComplianceNoticeEntity | null> {

@@ -20,6 +20,8 @@ export interface SiteRecord {
   notes: string;
   tags: string[];
   relation: SiteRelation;
+  /** When the owner shared the site with the asking organisation (null for its own sites). */
+  sharedAt: Date | null;
   createdAt: Date;
   updatedAt: Date;
 }
@@ -180,6 +182,7 @@ function withColumns(qb: SelectQueryBuilder<SiteEntity>): SelectQueryBuilder<Sit
     's.created_at AS createdAt',
     's.updated_at AS updatedAt',
     'sh.access AS shareAccess',
+    'sh.created_at AS sharedAt',
     // The tags in the same round trip (this runs behind every site-scoped request, through requireLevel).
     '(SELECT JSON_ARRAYAGG(t.tag ORDER BY t.tag) FROM site_tag t WHERE t.site_id = s.id) AS tagsJson',
   ]);
@@ -199,6 +202,7 @@ function toRecord(r: Record<string, unknown>, viewer: number): SiteRecord {
     tags: jsonArray(r['tagsJson']),
     relation:
       organisationId === viewer ? { kind: 'owner' } : { kind: 'shared', access: r['shareAccess'] as ShareAccess },
+    sharedAt: organisationId === viewer || !r['sharedAt'] ? null : new Date(r['sharedAt'] as string),
     createdAt: new Date(r['createdAt'] as string),
     updatedAt: new Date(r['updatedAt'] as string),
   };

@@ -179,6 +179,8 @@ export class SitesService {
       organisationName: r.organisationName,
       access: siteLevel(principal.role, r.relation),
       shares,
+      sharedWithYou:
+        r.relation.kind === 'shared' ? { access: r.relation.access, since: r.sharedAt?.toISOString() ?? null } : null,
       createdAt: r.createdAt.toISOString(),
       updatedAt: r.updatedAt.toISOString(),
     };

@@ -27,6 +27,7 @@ const site = (access: SiteLevel): SiteDto => ({
   organisationName: 'Saltgrass Property Partners',
   access,
   shares: [],
+  sharedWithYou: null,
   createdAt: '2026-01-01T00:00:00Z',
   updatedAt: '2026-01-01T00:00:00Z',
 });

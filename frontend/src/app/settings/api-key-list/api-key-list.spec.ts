@@ -27,6 +27,7 @@ function site(id: number, name: string, access: SiteLevel): SiteDto {
     organisationName: 'Bluestem Grounds Co.',
     access,
     shares: [],
+    sharedWithYou: null,
     createdAt: '2026-01-01T00:00:00Z',
     updatedAt: '2026-01-01T00:00:00Z',
   };

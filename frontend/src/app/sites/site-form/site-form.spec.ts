@@ -27,6 +27,7 @@ function site(access: SiteLevel): SiteDto {
     shares: [
       { organisationId: 9, organisationName: 'Pinyon Water District', organisationKind: 'utility', access: 'read' },
     ],
+    sharedWithYou: null,
     createdAt: '2026-01-01T00:00:00Z',
     updatedAt: '2026-01-01T00:00:00Z',
   };

@@ -28,6 +28,7 @@ function site(id: number, name: string, extra: Partial<SiteDto> = {}): SiteDto {
     organisationName: 'Bluestem Grounds Co.',
     access: 'edit',
     shares: [],
+    sharedWithYou: null,
     createdAt: '2026-01-01T00:00:00Z',
     updatedAt: '2026-01-01T00:00:00Z',
     ...extra,

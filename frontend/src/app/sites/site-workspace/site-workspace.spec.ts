@@ -22,6 +22,7 @@ const SITE: SiteDto = {
   organisationName: 'Saltgrass Property Partners',
   access: 'edit',
   shares: [],
+  sharedWithYou: null,
   createdAt: '2026-01-01T00:00:00Z',
   updatedAt: '2026-01-01T00:00:00Z',
 };
