@@ -48,6 +48,9 @@ export interface MonthCloseDto extends Page<MonthCloseRowDto> {
     cost: number | null;
     currency: string | null;
     openAlerts: number;
+    /** Use against budget over the sites with readings and a budget (`comparedSites` of them). */
+    percentOfBudget: number | null;
+    comparedSites: number;
   };
   /** Whether the signed-in user may mark sites reviewed. */
   canReview: boolean;

@@ -34,7 +34,12 @@ export function totalsOf(rows: readonly MonthFigures[]): {
   cost: number | null;
   currency: string | null;
   openAlerts: number;
+  /** Use against budget over the sites that have both, and how many those are. */
+  percentOfBudget: number | null;
+  comparedSites: number;
 } {
+  const compared = rows.filter((r) => r.useGallons !== null && r.budgetGallons !== null && r.budgetGallons > 0);
+  const comparedBudget = compared.reduce((s, r) => s + r.budgetGallons!, 0);
   const currencies = new Set(rows.filter((r) => r.cost !== null).map((r) => r.currency));
   const allBudgeted = rows.length > 0 && rows.every((r) => r.budgetGallons !== null);
   const anyCost = rows.some((r) => r.cost !== null);
@@ -44,6 +49,8 @@ export function totalsOf(rows: readonly MonthFigures[]): {
     cost: anyCost && currencies.size === 1 ? Math.round(rows.reduce((s, r) => s + (r.cost ?? 0), 0) * 100) / 100 : null,
     currency: currencies.size === 1 ? ([...currencies][0] ?? null) : null,
     openAlerts: rows.reduce((s, r) => s + r.openAlerts, 0),
+    percentOfBudget: compared.length ? (100 * compared.reduce((s, r) => s + r.useGallons!, 0)) / comparedBudget : null,
+    comparedSites: compared.length,
   };
 }
 

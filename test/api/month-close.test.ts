@@ -80,7 +80,13 @@ describe('month close', () => {
       expect(s.percentOfBudget).toBeNull();
       // In plain words, without the API's field code in front.
       expect(s.budgetProblem).toMatch(/^This site has no hydrozones yet/);
-      expect(table.summary).toMatchObject({ sites: 2, reviewed: 0, budgetGallons: null, openAlerts: 1 });
+      expect(table.summary).toMatchObject({
+        sites: 2,
+        reviewed: 0,
+        budgetGallons: null,
+        openAlerts: 1,
+        comparedSites: 1,
+      });
     },
   );
 

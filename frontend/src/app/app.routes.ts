@@ -35,6 +35,10 @@ export const routes: Routes = [
       { path: 'uploads', loadChildren: () => import('./uploads/uploads.routes').then((m) => m.uploadsRoutes) },
       { path: 'alerts', loadChildren: () => import('./alerts/alerts.routes').then((m) => m.alertsRoutes) },
       { path: 'weather-stations', loadChildren: () => import('./weather/weather.routes').then((m) => m.weatherRoutes) },
+      {
+        path: 'month-close',
+        loadChildren: () => import('./month-close/month-close.routes').then((m) => m.monthCloseRoutes),
+      },
       { path: 'reports', loadChildren: () => import('./reports/reports.routes').then((m) => m.reportsRoutes) },
       { path: 'etaf', loadChildren: () => import('./etaf/etaf.routes').then((m) => m.etafRoutes) },
       { path: 'settings', loadChildren: () => import('./settings/settings.routes').then((m) => m.settingsRoutes) },

@@ -1,7 +1,6 @@
 import { KIND_LABELS, SUB_KIND_LABELS, type AlertEventDto, type AlertSummaryDto } from '@shared/alerts/alert-dto';
 import type { MonthCloseRowDto } from '@shared/month-close/month-close-dto';
 import { totalsOf } from '@shared/month-close/month-figures';
-import { percentOf } from '@shared/readings/readings-dto';
 import { barChart, heading, muted, newPdf, paragraph, render, table, type Pdf } from '../../../platform/pdf-kit';
 import type { ReportFormat } from '../../../platform/report-format';
 
@@ -60,8 +59,10 @@ function portfolioPage(doc: Pdf, c: PacketContent): void {
     `${rows.length} sites used ${f.volume(t.useGallons)}` +
       (t.budgetGallons === null
         ? ' (not every site has a water budget, so no total budget is given).'
-        : ` against a water budget of ${f.volume(t.budgetGallons)} ` +
-          `(${f.percent(percentOf(t.useGallons, t.budgetGallons))} of budget).`) +
+        : ` against a water budget of ${f.volume(t.budgetGallons)}.`) +
+      (t.percentOfBudget === null
+        ? ''
+        : ` The ${t.comparedSites} sites with readings used ${f.percent(t.percentOfBudget)} of their budget.`) +
       ` Water cost ${f.money(t.cost, t.currency)}. ${t.openAlerts} alerts still open; ` +
       `${reviewed} of ${rows.length} sites reviewed by management.`,
   );

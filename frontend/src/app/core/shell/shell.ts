@@ -64,6 +64,10 @@ export class Shell {
     // Auditors read only: the server refuses their uploads, so the menu doesn't offer them.
     if (this.auth.user()?.organisation.role !== 'auditor')
       links.push({ path: '/uploads', label: 'Uploads', icon: 'upload_file' });
+    const role = this.auth.user()?.organisation.role;
+    // Closing a month is the owning organisation's managers' work.
+    if (role === 'admin' || role === 'manager')
+      links.push({ path: '/month-close', label: 'Month close', icon: 'fact_check' });
     links.push({ path: '/reports', label: 'Reports', icon: 'insights' });
     links.push({ path: '/etaf', label: 'Achieved ETAF', icon: 'water_drop' });
     links.push({ path: '/alerts', label: 'Alerts', icon: 'notifications_active' });

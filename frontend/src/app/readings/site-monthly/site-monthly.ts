@@ -42,7 +42,7 @@ import { ReadingsApi } from '../readings-api';
             monthly.value().site.timeZone
           }}).
         </p>
-        <rm-monthly-table [months]="monthly.value().months" />
+        <rm-monthly-table [months]="monthly.value().months" [totals]="monthly.value().totals" />
       } @else {
         <div class="rm-state"><p>Loading the monthly table…</p></div>
       }
