@@ -183,10 +183,19 @@ describe("the contractor's savings book", () => {
             ...SAVINGS_PROJECT,
             title: 'Handout rain',
             modelForm: 'eto-rain',
+            changeDescription: 'Long description. '.repeat(100),
+            // The longest list allowed still fits the one page (the rest is on the project).
+            retrofits: Array.from(
+              { length: 20 },
+              (_, i) => `Zone ${i + 1}: ${'spray heads capped, drip laid '.repeat(6)}`,
+            ),
           })
           .expect(201)
       ).body;
-      const rainText = (await pdfOf(firmContractor, `/api/savings-projects/${rain.id}/handout.pdf`)).text;
+      const rainPdf = await pdfOf(firmContractor, `/api/savings-projects/${rain.id}/handout.pdf`);
+      expect(rainPdf.pages).toBe(1);
+      const rainText = rainPdf.text;
+      expect(rainText).toMatch(/and \d+ more items, listed on the project/);
       expect(rainText).toContain('reference evapotranspiration (ETo) and rain');
       expect(rainText).not.toContain('Rain is not part of this model.');
 

@@ -18,6 +18,11 @@ export const reportsRoutes: Routes = [
         loadComponent: () => import('./compliance-page/compliance-page').then((m) => m.CompliancePage),
       },
       {
+        path: 'savings',
+        title: 'Savings book · Rillmark',
+        loadComponent: () => import('../savings/savings-book/savings-book').then((m) => m.SavingsBook),
+      },
+      {
         path: 'sites/:siteId/savings',
         title: 'Savings projects · Rillmark',
         loadComponent: () => import('../savings/savings-projects/savings-projects').then((m) => m.SavingsProjects),

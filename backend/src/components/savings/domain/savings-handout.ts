@@ -3,6 +3,9 @@ import { SAVINGS_CHANGE_LABELS, type SavingsReportDto } from '@shared/savings/sa
 import { barChart, heading, muted, newPdf, paragraph, render, table, type Pdf } from '../../../platform/pdf-kit';
 import type { ReportFormat } from '../../../platform/report-format';
 
+/** The retrofit list ends above this line (points from the top), so the handout stays on one page. */
+const RETROFITS_END_Y = 240;
+
 /**
  * The one-page handout a contractor gives a client: what was done, the retrofit list, cost and simple payback, the
  * chart, the acceptance checks with the standard and the criteria version, and the method of the model actually
@@ -21,11 +24,14 @@ export async function savingsHandoutPdf(r: SavingsReportDto, f: ReportFormat, pr
   heading(doc, 'What was done', 11.5);
   paragraph(
     doc,
-    `${SAVINGS_CHANGE_LABELS[p.changeKind]}, installed ${f.date(p.installedOn)}.` +
-      (p.changeDescription ? ` ${p.changeDescription}` : ''),
+    fitted(
+      doc,
+      `${SAVINGS_CHANGE_LABELS[p.changeKind]}, installed ${f.date(p.installedOn)}.` +
+        (p.changeDescription ? ` ${p.changeDescription}` : ''),
+      RETROFITS_END_Y - 20,
+    ),
   );
-  if (p.retrofits.length) for (const line of p.retrofits) paragraph(doc, `• ${line}`);
-
+  retrofitList(doc, p.retrofits);
   results(doc, r, f);
   heading(doc, 'Expected use without the change, against metered use', 11.5);
   doc.moveDown(0.8);
@@ -42,12 +48,35 @@ export async function savingsHandoutPdf(r: SavingsReportDto, f: ReportFormat, pr
       { name: 'Metered', color: '#2f7d6d', values: s.periods.map((m) => f.volumeValue(m.actualGal)) },
     ],
     f.volumeUnit,
-    105,
+    80,
   );
   checks(doc, r);
   heading(doc, 'How the savings were measured', 11.5);
-  for (const sentence of r.method) muted(doc, sentence);
+  muted(doc, r.method.join(' '));
   return render(doc);
+}
+
+/** The text, shortened at a word with "…" until it ends above `maxY` (a long description keeps the one page). */
+function fitted(doc: Pdf, text: string, maxY: number): string {
+  const width = doc.page.width - doc.page.margins.left - doc.page.margins.right;
+  doc.font('body').fontSize(10);
+  let shown = text;
+  while (shown.length > 40 && doc.y + doc.heightOfString(shown, { width }) > maxY)
+    shown = `${shown.slice(0, Math.floor(shown.length * 0.9)).replace(/\s+\S*$/, '')}…`;
+  return shown;
+}
+
+/** As many retrofit lines as fit; the rest are counted, and listed on the project's page. */
+function retrofitList(doc: Pdf, lines: string[]): void {
+  const width = doc.page.width - doc.page.margins.left - doc.page.margins.right;
+  let shown = 0;
+  for (const line of lines) {
+    const height = doc.font('body').fontSize(10).heightOfString(`• ${line}`, { width });
+    if (doc.y + height > RETROFITS_END_Y) break;
+    paragraph(doc, `• ${line}`);
+    shown++;
+  }
+  if (shown < lines.length) muted(doc, `… and ${lines.length - shown} more items, listed on the project.`);
 }
 
 function results(doc: Pdf, r: SavingsReportDto, f: ReportFormat): void {

@@ -1,4 +1,13 @@
-import { ChangeDetectionStrategy, Component, inject, input, output, signal, type OnInit } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  input,
+  output,
+  signal,
+  type OnInit,
+} from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -45,7 +54,14 @@ const MODEL_LABELS: Record<BaselineModelForm, string> = {
       </mat-form-field>
       <mat-form-field appearance="outline">
         <mat-label>Installed on (site's local date)</mat-label>
-        <input matInput type="date" name="installedOn" required [(ngModel)]="draft.installedOn" />
+        <input
+          matInput
+          type="date"
+          name="installedOn"
+          required
+          [disabled]="lockedForMe()"
+          [(ngModel)]="draft.installedOn"
+        />
       </mat-form-field>
       <mat-form-field appearance="outline" class="wide">
         <mat-label>Description</mat-label>
@@ -57,10 +73,45 @@ const MODEL_LABELS: Record<BaselineModelForm, string> = {
           [(ngModel)]="draft.changeDescription"
         ></textarea>
       </mat-form-field>
+      <mat-form-field appearance="outline" class="wide">
+        <mat-label>Retrofit list (one item per line)</mat-label>
+        <textarea matInput name="retrofits" rows="3" [(ngModel)]="retrofitText"></textarea>
+        @if (fieldErrors()['retrofits']) {
+          <mat-hint class="err">{{ fieldErrors()['retrofits'] }}</mat-hint>
+        }
+      </mat-form-field>
+      <mat-form-field appearance="outline">
+        <mat-label>Installed cost (for the payback)</mat-label>
+        <input matInput type="number" min="0" step="0.01" name="installedCost" [(ngModel)]="draft.installedCost" />
+      </mat-form-field>
+      <mat-form-field appearance="outline">
+        <mat-label>Currency</mat-label>
+        <input matInput name="costCurrency" maxlength="3" [(ngModel)]="draft.costCurrency" />
+        @if (fieldErrors()['costCurrency']) {
+          <mat-hint class="err">{{ fieldErrors()['costCurrency'] }}</mat-hint>
+        }
+      </mat-form-field>
+      @if (locked()) {
+        <p class="wide lock" role="note">
+          The installation date, baseline months and model are locked since the project was marked installed.
+          @if (lockedForMe()) {
+            Only the site owner's managers can change them.
+          } @else {
+            Say why they change; the reason is kept in the project's history.
+          }
+        </p>
+      }
       @for (f of monthFields; track f.key) {
         <mat-form-field appearance="outline">
           <mat-label>{{ f.label }}</mat-label>
-          <input matInput type="month" [name]="f.key" required [(ngModel)]="draft[f.key]" />
+          <input
+            matInput
+            type="month"
+            [name]="f.key"
+            required
+            [disabled]="f.locks && lockedForMe()"
+            [(ngModel)]="draft[f.key]"
+          />
           @if (fieldErrors()[f.key]) {
             <mat-hint class="err">{{ fieldErrors()[f.key] }}</mat-hint>
           }
@@ -68,12 +119,21 @@ const MODEL_LABELS: Record<BaselineModelForm, string> = {
       }
       <mat-form-field appearance="outline" class="wide">
         <mat-label>Baseline model</mat-label>
-        <mat-select name="modelForm" [(ngModel)]="draft.modelForm">
+        <mat-select name="modelForm" [disabled]="lockedForMe()" [(ngModel)]="draft.modelForm">
           @for (m of forms; track m) {
             <mat-option [value]="m">{{ modelLabels[m] }}</mat-option>
           }
         </mat-select>
       </mat-form-field>
+      @if (locked() && !lockedForMe()) {
+        <mat-form-field appearance="outline" class="wide">
+          <mat-label>Reason for changing the locked baseline or model</mat-label>
+          <input matInput name="reason" maxlength="500" [(ngModel)]="reason" />
+          @if (fieldErrors()['reason']) {
+            <mat-hint class="err">{{ fieldErrors()['reason'] }}</mat-hint>
+          }
+        </mat-form-field>
+      }
       @if (error(); as message) {
         <p class="err wide" role="alert">{{ message }}</p>
       }
@@ -102,6 +162,10 @@ const MODEL_LABELS: Record<BaselineModelForm, string> = {
     .err {
       color: var(--mat-sys-error);
     }
+    .lock {
+      margin: 0 0 8px;
+      color: var(--mat-sys-on-surface-variant);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -117,11 +181,16 @@ export class SavingsProjectForm implements OnInit {
   protected readonly forms = BASELINE_MODEL_FORMS;
   protected readonly modelLabels = MODEL_LABELS;
   protected readonly monthFields = [
-    { key: 'baselineFrom', label: 'Baseline from (month)' },
-    { key: 'baselineTo', label: 'Baseline to (month)' },
-    { key: 'reportingFrom', label: 'Reporting from (month)' },
-    { key: 'reportingTo', label: 'Reporting to (month)' },
+    { key: 'baselineFrom', label: 'Baseline from (month)', locks: true },
+    { key: 'baselineTo', label: 'Baseline to (month)', locks: true },
+    { key: 'reportingFrom', label: 'Reporting from (month)', locks: false },
+    { key: 'reportingTo', label: 'Reporting to (month)', locks: false },
   ] as const;
+  /** Installed: the baseline is locked; only the owner's managers (changeBaseline) may still change it. */
+  protected readonly locked = computed(() => this.project()?.status === 'installed');
+  protected readonly lockedForMe = computed(() => this.locked() && !this.project()?.can.changeBaseline);
+  protected retrofitText = '';
+  protected reason = '';
   protected draft: SavingsProjectInput = {
     title: '',
     changeKind: 'spray-to-drip',
@@ -132,6 +201,8 @@ export class SavingsProjectForm implements OnInit {
     reportingFrom: '',
     reportingTo: '',
     modelForm: 'eto',
+    installedCost: null,
+    costCurrency: 'USD',
   };
   protected readonly saving = signal(false);
   protected readonly error = signal<string | null>(null);
@@ -150,7 +221,14 @@ export class SavingsProjectForm implements OnInit {
         reportingFrom: p.reportingFrom,
         reportingTo: p.reportingTo,
         modelForm: p.modelForm,
+        installedCost: p.installedCost,
+        costCurrency: p.costCurrency ?? 'USD',
       };
+    this.retrofitText = (p?.retrofits ?? []).join('\n');
+  }
+
+  private reasonIfAny(): { reason?: string } {
+    return this.locked() && this.reason.trim() ? { reason: this.reason.trim() } : {};
   }
 
   protected async save(): Promise<void> {
@@ -158,9 +236,20 @@ export class SavingsProjectForm implements OnInit {
     this.error.set(null);
     try {
       const p = this.project();
+      const input: SavingsProjectInput = {
+        ...this.draft,
+        retrofits: this.retrofitText
+          .split('\n')
+          .map((line) => line.trim())
+          .filter(Boolean),
+        installedCost: this.draft.installedCost === undefined ? null : this.draft.installedCost,
+        costCurrency: this.draft.costCurrency?.trim().toUpperCase() || null,
+      };
       this.saved.emit(
         await firstValueFrom(
-          p ? this.api.updateProject(p.id, this.draft) : this.api.createProject(this.siteId(), this.draft),
+          p
+            ? this.api.updateProject(p.id, { ...lockedOmitted(input, this.lockedForMe()), ...this.reasonIfAny() })
+            : this.api.createProject(this.siteId(), input),
         ),
       );
     } catch (err) {
@@ -171,4 +260,11 @@ export class SavingsProjectForm implements OnInit {
       this.saving.set(false);
     }
   }
+}
+
+/** A contractor's edit of an installed project leaves the locked fields out rather than sending them unchanged. */
+function lockedOmitted(input: SavingsProjectInput, locked: boolean): Partial<SavingsProjectInput> {
+  if (!locked) return input;
+  const { installedOn: _i, baselineFrom: _f, baselineTo: _t, modelForm: _m, ...rest } = input;
+  return rest;
 }

@@ -6,15 +6,22 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, RouterLink } from '@angular/router';
-import { SAVINGS_CHANGE_LABELS, type SavingsProjectDto } from '@shared/savings/savings-project-dto';
-import { firstValueFrom } from 'rxjs';
+import {
+  SAVINGS_CHANGE_LABELS,
+  SAVINGS_PROJECT_STATUS_LABELS,
+  type SavingsProjectDto,
+} from '@shared/savings/savings-project-dto';
+import { firstValueFrom, type Observable } from 'rxjs';
 import { describeApiError } from '../../core/http/api-error';
 import { confirm } from '../../shared/confirm-dialog/confirm-dialog';
 import { SitesApi } from '../../sites/sites-api';
 import { SavingsApi } from '../savings-api';
 import { SavingsProjectForm } from '../savings-project-form/savings-project-form';
 
-/** `/reports/sites/:siteId/savings`: a site's savings projects, with create, edit and delete for those who may. */
+/**
+ * `/reports/sites/:siteId/savings`: a site's savings projects. Creating needs contribute access; each project says
+ * what the user may do with it (edit, mark installed, archive, delete), as the server decides.
+ */
 @Component({
   selector: 'rm-savings-projects',
   imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SavingsProjectForm],
@@ -54,20 +61,45 @@ import { SavingsProjectForm } from '../savings-project-form/savings-project-form
             } @else {
               <h2>
                 <a [routerLink]="['/reports/savings', p.id]">{{ p.title }}</a>
+                <span class="chip" [class]="'chip status-' + p.status">{{ statusLabels[p.status] }}</span>
               </h2>
               <p>
                 {{ labels[p.changeKind] }}, installed {{ p.installedOn }}. Baseline {{ p.baselineFrom }} to
                 {{ p.baselineTo }}; reporting {{ p.reportingFrom }} to {{ p.reportingTo }}.
               </p>
+              <p class="sub">
+                Written by {{ p.createdByName ?? 'a former user'
+                }}{{ p.createdByOrganisation ? ' (' + p.createdByOrganisation + ')' : '' }}.
+                @if (p.status === 'installed') {
+                  Baseline and model locked since {{ p.lockedAt?.slice(0, 10) }}; changes need the site owner's manager.
+                }
+              </p>
               @if (p.changeDescription) {
                 <p class="sub">{{ p.changeDescription }}</p>
+              }
+              @if (p.retrofits.length) {
+                <ul class="retrofits" aria-label="Retrofit list">
+                  @for (line of p.retrofits; track $index) {
+                    <li>{{ line }}</li>
+                  }
+                </ul>
               }
               <div class="actions">
                 <a mat-stroked-button [routerLink]="['/reports/savings', p.id]"
                   ><mat-icon>insights</mat-icon> Savings report</a
                 >
-                @if (canWrite()) {
+                @if (p.can.edit) {
                   <button mat-button type="button" (click)="editing.set(p.id)">Edit</button>
+                }
+                @if (p.can.markInstalled) {
+                  <button mat-button type="button" (click)="markInstalled(p)">Mark installed</button>
+                }
+                @if (p.can.archive) {
+                  <button mat-button type="button" (click)="setArchived(p, p.status !== 'archived')">
+                    {{ p.status === 'archived' ? 'Restore' : 'Archive' }}
+                  </button>
+                }
+                @if (p.can.remove) {
                   <button mat-button type="button" (click)="remove(p)">Delete</button>
                 }
               </div>
@@ -89,7 +121,25 @@ import { SavingsProjectForm } from '../savings-project-form/savings-project-form
     }
     .actions {
       display: flex;
+      flex-wrap: wrap;
       gap: 8px;
+    }
+    .chip {
+      display: inline-block;
+      margin-left: 8px;
+      padding: 2px 10px;
+      border-radius: 12px;
+      font: var(--mat-sys-label-medium);
+      vertical-align: middle;
+      background: var(--mat-sys-surface-container-high);
+    }
+    .status-installed {
+      background: var(--mat-sys-primary-container);
+      color: var(--mat-sys-on-primary-container);
+    }
+    .retrofits {
+      margin: 4px 0 8px;
+      padding-left: 20px;
     }
     .sub {
       color: var(--mat-sys-on-surface-variant);
@@ -111,6 +161,7 @@ export class SavingsProjects {
   readonly siteId = input.required<number, string>({ transform: Number });
 
   protected readonly labels = SAVINGS_CHANGE_LABELS;
+  protected readonly statusLabels = SAVINGS_PROJECT_STATUS_LABELS;
   protected readonly editing = signal<number | 'new' | null>(null);
   protected readonly site = rxResource({
     params: () => this.siteId(),
@@ -133,6 +184,30 @@ export class SavingsProjects {
     this.editing.set(null);
     this.projects.reload();
     await this.router.navigate(['/reports/savings', project.id]);
+  }
+
+  protected async markInstalled(p: SavingsProjectDto): Promise<void> {
+    const sure = await confirm(this.dialog, {
+      title: 'Mark installed?',
+      message:
+        `The installation date, the baseline months and the model of "${p.title}" lock now. ` +
+        "Changing them later needs the site owner's manager and a reason, kept in the project's history.",
+      confirmLabel: 'Mark installed',
+    });
+    if (sure) await this.act(this.api.markInstalled(p.id), 'The project could not be marked installed.');
+  }
+
+  protected async setArchived(p: SavingsProjectDto, archived: boolean): Promise<void> {
+    await this.act(this.api.setArchived(p.id, archived), 'The project could not be changed.');
+  }
+
+  private async act(request: Observable<unknown>, failure: string): Promise<void> {
+    try {
+      await firstValueFrom(request);
+      this.projects.reload();
+    } catch (err) {
+      this.snack.open(describeApiError(err, failure).message, 'OK', { duration: 8000 });
+    }
   }
 
   protected async remove(p: SavingsProjectDto): Promise<void> {

@@ -77,9 +77,13 @@ const report = {
         limit: '≤ 20 %',
         passed: false,
         source: 'ASHRAE Guideline 14-2002 §5.2.11',
-        fromMemory: true,
       },
     ],
+    criteria: {
+      standard: 'ASHRAE Guideline 14-2002',
+      clause: '§5.2.11',
+      version: 'Rillmark savings criteria, version 1 (December 2026)',
+    },
   },
   warnings: [],
   method: ['We fitted a straight-line model.'],
@@ -108,6 +112,16 @@ describe('SavingsReport', () => {
       expect(text).toContain('61.50 USD');
       expect(text).toContain('31.2 %');
       expect(text).toMatch(/≤ 20 %\s*fail/);
+      // What a client may read: the standard and the criteria version, never a provenance note.
+      expect(text).toContain('Criteria applied: Rillmark savings criteria, version 1');
+      expect(text).not.toMatch(/from memory/i);
+      (await vi.waitFor(() => http.expectOne((r) => r.url === '/api/savings-projects/7/history'))).flush({
+        items: [{ at: '2026-05-01T10:00:00Z', userName: 'Dana Ruiz', action: 'Created the project', lines: [] }],
+        total: 1,
+        page: 0,
+        pageSize: 100,
+      });
+      await vi.waitFor(() => expect((fixture.nativeElement as HTMLElement).textContent).toContain('Dana Ruiz'));
       expect(
         (fixture.nativeElement as HTMLElement).querySelector('a[href="/api/savings-projects/7/report.pdf"]'),
       ).not.toBeNull();

@@ -10,6 +10,7 @@ import { SAVINGS_CHANGE_LABELS } from '@shared/savings/savings-project-dto';
 import { describeApiError } from '../../core/http/api-error';
 import { SavingsApi } from '../savings-api';
 import { SavingsChart } from '../savings-chart/savings-chart';
+import { ProjectHistory } from '../project-history/project-history';
 
 /** `/reports/savings/:id`: the savings figure, the chart, the Guideline 14 checks and the verdict in plain words. */
 @Component({
@@ -22,6 +23,7 @@ import { SavingsChart } from '../savings-chart/savings-chart';
     MatProgressBarModule,
     MatTableModule,
     SavingsChart,
+    ProjectHistory,
   ],
   templateUrl: './savings-report.html',
   styleUrl: './savings-report.scss',
@@ -44,4 +46,5 @@ export class SavingsReport {
   });
   protected readonly csvUrl = computed(() => this.api.savingsExportUrl(this.id(), 'csv'));
   protected readonly pdfUrl = computed(() => this.api.savingsExportUrl(this.id(), 'pdf'));
+  protected readonly handoutUrl = computed(() => this.api.handoutUrl(this.id()));
 }
