@@ -1,6 +1,12 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { ComplianceNoticeDto, ComplianceReportDto, ComplianceSort } from '@shared/reports/compliance-report-dto';
+import type { Page } from '@shared/api/page';
+import type {
+  ComplianceNoticeDto,
+  ComplianceReportDto,
+  ComplianceSort,
+  NoticeHistoryDto,
+} from '@shared/reports/compliance-report-dto';
 import type { SiteKind } from '@shared/sites/site';
 import { Observable } from 'rxjs';
 import { queryParams } from '../core/http/query-params';
@@ -10,6 +16,8 @@ export interface ComplianceQuery {
   month?: string | null;
   kind?: SiteKind | null;
   tag?: string | null;
+  /** The owning organisation's id. */
+  owner?: number | null;
   page: number;
   pageSize: number;
   sort: ComplianceSort;
@@ -31,11 +39,18 @@ export class ReportsApi {
       month: q.month,
       kind: q.kind,
       tag: q.tag,
+      owner: q.owner,
       sort: q.sort,
       dir: q.dir,
       format: format === 'csv' ? 'csv' : null,
     }).toString();
     return `/api/reports/compliance${format === 'pdf' ? '.pdf' : ''}?${params}`;
+  }
+
+  noticeHistory(siteId: number): Observable<Page<NoticeHistoryDto>> {
+    return this.http.get<Page<NoticeHistoryDto>>(`/api/reports/compliance/${siteId}/notices`, {
+      params: queryParams({ pageSize: 50 }),
+    });
   }
 
   sendNotice(siteId: number, month: string, message: string): Observable<ComplianceNoticeDto> {

@@ -18,13 +18,19 @@ function row(rank: number, siteName: string, percentOfBudget: number | null): Co
     siteId: rank,
     siteName,
     siteKind: 'park',
+    ownerId: 5,
     organisationName: 'Bluestem Grounds Co.',
     tags: [],
+    group: percentOfBudget === null ? 'no-budget' : percentOfBudget > 100 ? 'over-budget' : 'incomplete-data',
+    openAlerts: rank - 1,
     useGal: 1000 * rank,
     budgetGal: percentOfBudget === null ? null : 900,
+    fullBudgetGal: percentOfBudget === null ? null : 900,
+    allowanceShare: null,
     percentOfBudget,
     annualUseGal: 0,
     annualMawaGal: null,
+    annualAllowanceGal: null,
     annualPercentOfMawa: null,
     completeness: 0.5,
     presentDays: 15,
@@ -55,6 +61,7 @@ describe('CompliancePage', () => {
     TestBed.tick();
     (await next('/api/sites/tags')).flush([]);
     (await next('/api/sites')).flush({ items: [], total: 0, page: 0, pageSize: 200 });
+    (await next('/api/organisation/settings')).flush({ unitSystem: 'us' });
     return { fixture, loader: TestbedHarnessEnvironment.loader(fixture) };
   }
 
@@ -72,6 +79,13 @@ describe('CompliancePage', () => {
         month: '2026-06',
         period: { from: '2026-06-01', to: '2026-06-30' },
         basis: "Metered use in 2026-06 against that month's water budget.",
+        allowanceLabel: "The month's water budget.",
+        owners: [{ id: 5, name: 'Bluestem Grounds Co.' }],
+        groups: [
+          { group: 'over-budget', label: 'Over budget', count: 1 },
+          { group: 'incomplete-data', label: 'Incomplete data', count: 1 },
+          { group: 'no-budget', label: 'No budget', count: 1 },
+        ],
         items: [row(1, 'Larkspur Green', 140), row(2, 'Dry Creek Park', 80), row(3, 'Ochre Yard', null)],
         total: 3,
         page: 0,
@@ -88,6 +102,10 @@ describe('CompliancePage', () => {
       expect(cells[0]!['notice']).toContain('Send');
       expect(cells[1]!['notice']).not.toContain('Send');
       expect(cells[2]!['percent']).toContain('no hydrozones');
+      // Groups in words, never codes.
+      expect(cells[0]!['group']).toBe('Over budget');
+      expect(cells[1]!['group']).toBe('Incomplete data');
+      expect(cells[1]!['alerts']).toBe('1');
     },
   );
 
@@ -98,6 +116,9 @@ describe('CompliancePage', () => {
       month: null,
       period: { from: '2026-01-01', to: '2026-12-31' },
       basis: '',
+      allowanceLabel: '',
+      owners: [],
+      groups: [],
       items: [row(1, 'Larkspur Green', 140)],
       total: 1,
       page: 0,
@@ -118,6 +139,9 @@ describe('CompliancePage', () => {
       month: null,
       period: { from: '2026-01-01', to: '2026-12-31' },
       basis: '',
+      allowanceLabel: '',
+      owners: [],
+      groups: [],
       items: [],
       total: 0,
       page: 0,
@@ -129,6 +153,6 @@ describe('CompliancePage', () => {
     const { fixture } = await setUp('contractor');
     await fixture.whenStable();
     http.expectNone((req) => req.url === '/api/reports/compliance');
-    expect(fixture.nativeElement.textContent).not.toContain('Budget compliance ranking');
+    expect(fixture.nativeElement.textContent).not.toContain('Budget worklist');
   });
 });

@@ -13,14 +13,17 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { Router } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import type { ComplianceRowDto, ComplianceSort } from '@shared/reports/compliance-report-dto';
+import { WORKLIST_GROUP_LABELS } from '@shared/reports/worklist';
 import { SITE_KINDS, SITE_KIND_LABELS, type SiteKind } from '@shared/sites/site';
 import { firstValueFrom } from 'rxjs';
 import { AuthStore } from '../../core/auth/auth-store';
 import { describeApiError } from '../../core/http/api-error';
 import { SitesApi } from '../../sites/sites-api';
+import { UnitSystemStore } from '../../shared/unit-system/unit-system';
 import { askNotice } from '../notice-dialog/notice-dialog';
+import { showNoticeHistory } from '../notice-history/notice-history';
 import { ReportsApi, type ComplianceQuery } from '../reports-api';
 
 const lastMonth = () => {
@@ -28,11 +31,15 @@ const lastMonth = () => {
   return new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth() - 1, 1)).toISOString().slice(0, 7);
 };
 
-/** `/reports`: the compliance ranking (auditors, managers, admins) and the way into a site's savings projects. */
+/**
+ * `/reports`: the budget worklist (auditors, managers, admins) — sites needing a look first, each in its group —
+ * and the way into the savings book and a site's savings projects.
+ */
 @Component({
   selector: 'rm-compliance-page',
   imports: [
     DecimalPipe,
+    RouterLink,
     FormsModule,
     MatButtonModule,
     MatFormFieldModule,
@@ -55,10 +62,23 @@ export class CompliancePage {
   private readonly dialog = inject(MatDialog);
   private readonly snack = inject(MatSnackBar);
   private readonly router = inject(Router);
+  protected readonly units = inject(UnitSystemStore);
 
   protected readonly kinds = SITE_KINDS;
   protected readonly kindLabels: Record<string, string> = SITE_KIND_LABELS;
-  protected readonly columns = ['rank', 'name', 'kind', 'use', 'budget', 'percent', 'completeness', 'trend', 'notice'];
+  protected readonly groupLabels: Record<string, string> = WORKLIST_GROUP_LABELS;
+  protected readonly columns = [
+    'rank',
+    'name',
+    'group',
+    'use',
+    'budget',
+    'percent',
+    'alerts',
+    'completeness',
+    'trend',
+    'notice',
+  ];
   protected readonly canRank = computed(() =>
     ['admin', 'manager', 'auditor'].includes(this.auth.user()?.organisation.role ?? ''),
   );
@@ -67,6 +87,7 @@ export class CompliancePage {
   protected readonly month = signal<string | null>(lastMonth());
   protected readonly kind = signal<SiteKind | null>(null);
   protected readonly tag = signal<string | null>(null);
+  protected readonly owner = signal<number | null>(null);
   protected readonly page = signal(0);
   protected readonly pageSize = signal(25);
   protected readonly sort = signal<ComplianceSort>('rank');
@@ -80,6 +101,7 @@ export class CompliancePage {
     month: this.month(),
     kind: this.kind(),
     tag: this.tag(),
+    owner: this.owner(),
     page: this.page(),
     pageSize: this.pageSize(),
     sort: this.sort(),
@@ -99,6 +121,18 @@ export class CompliancePage {
   });
   protected readonly csvUrl = computed(() => this.api.complianceExportUrl(this.query(), 'csv'));
   protected readonly pdfUrl = computed(() => this.api.complianceExportUrl(this.query(), 'pdf'));
+
+  constructor() {
+    void this.units.ensureLoaded();
+  }
+
+  protected volume(gallons: number | null): string {
+    return gallons === null ? '—' : this.units.volume(gallons);
+  }
+
+  protected history(row: ComplianceRowDto): void {
+    showNoticeHistory(this.dialog, { siteId: row.siteId, siteName: row.siteName });
+  }
 
   protected setYear(value: number): void {
     if (!Number.isInteger(value) || value < 2000 || value > 2100) return;

@@ -27,4 +27,8 @@ export class SiteSummary {
   protected readonly levelLabels = SITE_LEVEL_LABELS;
   protected readonly organisationKindLabels = ORGANISATION_KIND_LABELS;
   protected readonly shareLabels = { contribute: 'May contribute', read: 'May view' } as const;
+
+  protected sharedOn(iso: string): string {
+    return new Intl.DateTimeFormat('en-US', { dateStyle: 'medium' }).format(new Date(iso));
+  }
 }
