@@ -43,7 +43,7 @@ export const THRESHOLD_GROUPS: { title: string; intro: string; names: ThresholdN
       'longRunMinHistoryRuns',
       'longRunScheduleRatio',
       'openValveShareOfSmallestZone',
-      'openValveFallbackGpm',
+      'openValveDesignTolerance',
       'openValveMinHours',
     ],
   },
@@ -138,11 +138,13 @@ export const THRESHOLD_TEXT: Record<ThresholdName, ThresholdText> = {
   },
   openValveShareOfSmallestZone: {
     label: 'Flow with nothing running that suggests a stuck valve',
-    help: 'During the watering window, compared with the smallest zone’s design flow.',
+    help: 'Compared with the smallest zone’s design flow.',
   },
-  openValveFallbackGpm: {
-    label: 'Stuck-valve flow when no zone flow is on record',
-    help: 'Used until zones have design flows.',
+  openValveDesignTolerance: {
+    label: 'How close to a zone’s design flow the extra water must be',
+    help:
+      'A valve is blamed only when the water starts as that zone’s run ends and flows within this much of ' +
+      'its design flow; otherwise it is reported as a leak.',
   },
   openValveMinHours: { label: 'Hours of such flow before an alert', help: '' },
   overspendMinDays: {
