@@ -126,7 +126,7 @@ export async function seedSavings(db: DataSource): Promise<{ readings: number; p
   await db.query(
     `UPDATE savings_project SET status = 'installed', locked_at = ?, locked_by = ?, retrofits = ?,
       installed_cost = ?, cost_currency = 'USD' WHERE site_id = ? AND title = ? AND retrofits IS NULL`,
-    [new Date(`${INSTALLED_ON}T17:00:00Z`), author?.id ?? null, JSON.stringify(RETROFITS), 4_800, site.id, title],
+    [new Date(`${INSTALLED_ON}T17:00:00Z`), author?.id ?? null, JSON.stringify(RETROFITS), 18_400, site.id, title],
   );
   return { readings, projects };
 }
