@@ -18,6 +18,8 @@ import { e2eDatabase } from '../support/e2e-database';
  * a handout, the auditor works the budget worklist and sends a notice. The generated PDFs are read back as text.
  */
 const MONTH = '2026-11';
+/** Each walk runs twice (desktop, phone) and builds PDFs: more than the default minute on a shared machine. */
+const WALK_TIMEOUT_MS = 240_000;
 let server: RunningServer;
 let db: DataSource;
 
@@ -111,154 +113,166 @@ async function look(page: Page, name: string, width: 'desktop' | 'phone'): Promi
 }
 
 describe("each role's month in the browser", () => {
-  it('a manager closes November: reviews a site, builds a board packet and reads its PDF', async () => {
-    await atEachWidth('month-manager', async (page, width) => {
-      await signIn(page, { baseUrl: server.url, email: manager.email });
-      await page.goto(`${server.url}/month-close`);
-      await page.getByRole('heading', { name: 'Month close', level: 1 }).waitFor();
-      await stepTo(page, MONTH);
-      const table = page.getByRole('table', { name: 'Sites in the month close' });
-      const north = table.locator('tr', { hasText: 'Willowmere HOA — North Commons' });
-      await north.waitFor();
-      await page.locator('rm-month-close-page mat-progress-bar').waitFor({ state: 'detached' });
-      await expect(table.innerText()).resolves.not.toMatch(/hoa-common-area|weatherStation:|hydrozones:/);
-      await look(page, 'month-manager-close', width);
+  it(
+    'a manager closes November: reviews a site, builds a board packet and reads its PDF',
+    async () => {
+      await atEachWidth('month-manager', async (page, width) => {
+        await signIn(page, { baseUrl: server.url, email: manager.email });
+        await page.goto(`${server.url}/month-close`);
+        await page.getByRole('heading', { name: 'Month close', level: 1 }).waitFor();
+        await stepTo(page, MONTH);
+        const table = page.getByRole('table', { name: 'Sites in the month close' });
+        const north = table.locator('tr', { hasText: 'Willowmere HOA — North Commons' });
+        await north.waitFor();
+        await page.locator('rm-month-close-page mat-progress-bar').waitFor({ state: 'detached' });
+        await expect(table.innerText()).resolves.not.toMatch(/hoa-common-area|weatherStation:|hydrozones:/);
+        await look(page, 'month-manager-close', width);
 
-      const note = `Valve 4 rebuilt on the 18th (${width}).`;
-      await north.getByRole('button', { name: /reviewed|Edit review/ }).click();
-      await page.getByLabel('Note (what was done, what to watch)').fill(note);
-      await page.getByRole('button', { name: 'Mark reviewed' }).click();
-      await north.getByText(note).waitFor();
-      await expect(north.innerText()).resolves.toContain('Reviewed by Morgan Okafor');
+        const note = `Valve 4 rebuilt on the 18th (${width}).`;
+        await north.getByRole('button', { name: /reviewed|Edit review/ }).click();
+        await page.getByLabel('Note (what was done, what to watch)').fill(note);
+        await page.getByRole('button', { name: 'Mark reviewed' }).click();
+        await north.getByText(note).waitFor();
+        await expect(north.innerText()).resolves.toContain('Reviewed by Morgan Okafor');
 
-      // Unique per run: the test database keeps earlier runs' packets.
-      const title = `Willowmere HOA board packet (${width}, ${Date.now().toString(36)})`;
-      await page.getByRole('button', { name: 'New board packet' }).click();
-      await page.getByLabel('Title on the cover').fill(title);
-      await page.getByRole('button', { name: 'north-valley' }).click();
-      await page.getByRole('button', { name: /Build packet \(\d+ sites?\)/ }).click();
-      const packet = page.getByRole('listitem').filter({ hasText: title });
-      const download = packet.getByRole('link', { name: /Download PDF/ });
-      await download.waitFor({ timeout: 45_000 });
-      await download.scrollIntoViewIfNeeded();
-      await look(page, 'month-manager-packet', width);
-      const { text, pages } = await pdfBehind(page, (await download.getAttribute('href'))!);
-      expect(text).toContain(title);
-      expect(text).toContain('November 2026');
-      expect(text).toContain('Willowmere HOA — North Commons');
-      expect(text).toContain('Daily use against the daily budget');
-      expect(text).toContain('Alerts this month');
-      expect(text).toContain(note);
-      expect(text).not.toMatch(/hoa-common-area|weatherStation:|from memory/);
-      expect(pages).toBeGreaterThanOrEqual(2);
+        // Unique per run: the test database keeps earlier runs' packets.
+        const title = `Willowmere HOA board packet (${width}, ${Date.now().toString(36)})`;
+        await page.getByRole('button', { name: 'New board packet' }).click();
+        await page.getByLabel('Title on the cover').fill(title);
+        await page.getByRole('button', { name: 'north-valley' }).click();
+        await page.getByRole('button', { name: /Build packet \(\d+ sites?\)/ }).click();
+        const packet = page.getByRole('listitem').filter({ hasText: title });
+        const download = packet.getByRole('link', { name: /Download PDF/ });
+        await download.waitFor({ timeout: 45_000 });
+        await download.scrollIntoViewIfNeeded();
+        await look(page, 'month-manager-packet', width);
+        const { text, pages } = await pdfBehind(page, (await download.getAttribute('href'))!);
+        expect(text).toContain(title);
+        expect(text).toContain('November 2026');
+        expect(text).toContain('Willowmere HOA — North Commons');
+        expect(text).toContain('Daily use against the daily budget');
+        expect(text).toContain('Alerts this month');
+        expect(text).toContain(note);
+        expect(text).not.toMatch(/hoa-common-area|weatherStation:|from memory/);
+        expect(pages).toBeGreaterThanOrEqual(2);
 
-      // The watch settings speak plainly and name the site.
-      const siteHref = (await north
-        .getByRole('link', { name: 'Willowmere HOA — North Commons' })
-        .getAttribute('href'))!;
-      const siteId = /\/sites\/(\d+)/.exec(siteHref)![1];
-      await page.goto(`${server.url}/alerts/sites/${siteId}/settings`);
-      await page.getByRole('heading', { name: 'Watch settings · Willowmere HOA — North Commons' }).waitFor();
-      await page.getByRole('heading', { name: 'Leak suspected', level: 2 }).waitFor();
-      const settings = await page.locator('rm-watch-settings').innerText();
-      expect(settings).not.toMatch(/nightFlowMadK|common practice|no source|scaled mad/i);
-      expect(settings).toContain('gal per hour');
-      await look(page, 'month-manager-watch-settings', width);
-    });
-  });
+        // The watch settings speak plainly and name the site.
+        const siteHref = (await north
+          .getByRole('link', { name: 'Willowmere HOA — North Commons' })
+          .getAttribute('href'))!;
+        const siteId = /\/sites\/(\d+)/.exec(siteHref)![1];
+        await page.goto(`${server.url}/alerts/sites/${siteId}/settings`);
+        await page.getByRole('heading', { name: 'Watch settings · Willowmere HOA — North Commons' }).waitFor();
+        await page.getByRole('heading', { name: 'Leak suspected', level: 2 }).waitFor();
+        const settings = await page.locator('rm-watch-settings').innerText();
+        expect(settings).not.toMatch(/nightFlowMadK|common practice|no source|scaled mad/i);
+        expect(settings).toContain('gal per hour');
+        await look(page, 'month-manager-watch-settings', width);
+      });
+    },
+    WALK_TIMEOUT_MS,
+  );
 
-  it('a contractor opens the savings book and prints the client handout', async () => {
-    await atEachWidth('month-contractor', async (page, width) => {
-      await signIn(page, { baseUrl: server.url, email: contractor.email });
-      await page.goto(`${server.url}/reports/savings`);
-      await page.getByRole('heading', { name: 'Savings book', level: 1 }).waitFor();
-      const row = page.getByRole('row').filter({ hasText: 'Greenbelt path: spray to drip' });
-      await row.waitFor();
-      await page.locator('rm-savings-book mat-progress-bar').waitFor({ state: 'detached' });
-      await expect(row.innerText()).resolves.toMatch(/Installed \(baseline locked\)/);
-      await expect(row.innerText()).resolves.toMatch(/Savings proven|Not proven yet|No savings/);
-      await expect(row.innerText()).resolves.toMatch(/\d gal/);
-      await look(page, 'month-contractor-book', width);
+  it(
+    'a contractor opens the savings book and prints the client handout',
+    async () => {
+      await atEachWidth('month-contractor', async (page, width) => {
+        await signIn(page, { baseUrl: server.url, email: contractor.email });
+        await page.goto(`${server.url}/reports/savings`);
+        await page.getByRole('heading', { name: 'Savings book', level: 1 }).waitFor();
+        const row = page.getByRole('row').filter({ hasText: 'Greenbelt path: spray to drip' });
+        await row.waitFor();
+        await page.locator('rm-savings-book mat-progress-bar').waitFor({ state: 'detached' });
+        await expect(row.innerText()).resolves.toMatch(/Installed \(baseline locked\)/);
+        await expect(row.innerText()).resolves.toMatch(/Savings proven|Not proven yet|No savings/);
+        await expect(row.innerText()).resolves.toMatch(/\d gal/);
+        await look(page, 'month-contractor-book', width);
 
-      const handout = row.getByRole('link', { name: /Handout/ });
-      const { text, pages } = await pdfBehind(page, (await handout.getAttribute('href'))!);
-      expect(pages).toBe(1);
-      expect(text).toContain('Greenbelt path: spray to drip');
-      expect(text).toContain('212 spray heads capped');
-      expect(text).toContain('Simple payback');
-      expect(text).toContain('ASHRAE Guideline 14-2002 §5.2.11');
-      expect(text).toContain('Rillmark savings criteria, version 1');
-      expect(text).toContain('Rain is not part of this model.');
-      expect(text).not.toMatch(/from memory|quoted|and rain into/i);
+        const handout = row.getByRole('link', { name: /Handout/ });
+        const { text, pages } = await pdfBehind(page, (await handout.getAttribute('href'))!);
+        expect(pages).toBe(1);
+        expect(text).toContain('Greenbelt path: spray to drip');
+        expect(text).toContain('212 spray heads capped');
+        expect(text).toContain('Simple payback');
+        expect(text).toContain('ASHRAE Guideline 14-2002 §5.2.11');
+        expect(text).toContain('Rillmark savings criteria, version 1');
+        expect(text).toContain('Rain is not part of this model.');
+        expect(text).not.toMatch(/from memory|quoted|and rain into/i);
 
-      // The project's own page: what the contractor may still do once the baseline is locked.
-      await row.getByRole('link', { name: 'Greenbelt path: spray to drip' }).click();
-      await page.getByRole('heading', { name: 'Greenbelt path: spray to drip', level: 1 }).waitFor();
-      await page.getByRole('heading', { name: 'History' }).waitFor();
-      await expect(page.locator('rm-savings-report').innerText()).resolves.not.toMatch(/from memory/i);
-      await page.getByRole('link', { name: 'Willowmere HOA — South Greenbelt' }).click();
-      const project = page.locator('article', { hasText: 'Greenbelt path: spray to drip' });
-      await project.getByText(/Baseline and model locked since/).waitFor();
-      expect(await project.getByRole('button', { name: 'Delete' }).count()).toBe(0);
-      expect(await project.getByRole('button', { name: 'Archive' }).count()).toBe(0);
-      await look(page, 'month-contractor-project', width);
-    });
-  });
+        // The project's own page: what the contractor may still do once the baseline is locked.
+        await row.getByRole('link', { name: 'Greenbelt path: spray to drip' }).click();
+        await page.getByRole('heading', { name: 'Greenbelt path: spray to drip', level: 1 }).waitFor();
+        await page.getByRole('heading', { name: 'History' }).waitFor();
+        await expect(page.locator('rm-savings-report').innerText()).resolves.not.toMatch(/from memory/i);
+        await page.getByRole('link', { name: 'Willowmere HOA — South Greenbelt' }).click();
+        const project = page.locator('article', { hasText: 'Greenbelt path: spray to drip' });
+        await project.getByText(/Baseline and model locked since/).waitFor();
+        expect(await project.getByRole('button', { name: 'Delete' }).count()).toBe(0);
+        expect(await project.getByRole('button', { name: 'Archive' }).count()).toBe(0);
+        await look(page, 'month-contractor-project', width);
+      });
+    },
+    WALK_TIMEOUT_MS,
+  );
 
-  it('an auditor works the budget worklist, sends a notice and reads the notice history', async () => {
-    await atEachWidth('month-auditor', async (page, width) => {
-      await signIn(page, { baseUrl: server.url, email: auditor.email });
-      await page.goto(`${server.url}/reports`);
-      await page.getByRole('heading', { name: 'Budget worklist' }).waitFor();
-      await page.getByLabel('Year').fill('2026');
-      await page.getByLabel('Period').click();
-      await page.getByRole('option', { name: `${MONTH} (against the month's budget)` }).click();
-      await page.getByRole('listbox').waitFor({ state: 'detached' });
-      const table = page.getByRole('table', { name: 'Sites needing a look first' });
-      await table.locator('tbody tr').first().waitFor();
-      await page.locator('rm-compliance-page mat-progress-bar').waitFor({ state: 'detached' });
-      const shown = await table.innerText();
-      expect(shown).not.toMatch(/hoa-common-area|office-park|weatherStation:|hydrozones:|no-data|over-budget/);
-      expect(shown).toMatch(/Over budget|Within budget|Incomplete data|Open alerts|No data|No budget/);
-      await look(page, 'month-auditor-worklist', width);
+  it(
+    'an auditor works the budget worklist, sends a notice and reads the notice history',
+    async () => {
+      await atEachWidth('month-auditor', async (page, width) => {
+        await signIn(page, { baseUrl: server.url, email: auditor.email });
+        await page.goto(`${server.url}/reports`);
+        await page.getByRole('heading', { name: 'Budget worklist' }).waitFor();
+        await page.getByLabel('Year').fill('2026');
+        await page.getByLabel('Period').click();
+        await page.getByRole('option', { name: `${MONTH} (against the month's budget)` }).click();
+        await page.getByRole('listbox').waitFor({ state: 'detached' });
+        const table = page.getByRole('table', { name: 'Sites needing a look first' });
+        await table.locator('tbody tr').first().waitFor();
+        await page.locator('rm-compliance-page mat-progress-bar').waitFor({ state: 'detached' });
+        const shown = await table.innerText();
+        expect(shown).not.toMatch(/hoa-common-area|office-park|weatherStation:|hydrozones:|no-data|over-budget/);
+        expect(shown).toMatch(/Over budget|Within budget|Incomplete data|Open alerts|No data|No budget/);
+        await look(page, 'month-auditor-worklist', width);
 
-      // A site over budget gets a notice (at desktop width; the phone walk finds it sent).
-      if (width === 'desktop') {
-        const row = table
-          .locator('tbody tr')
-          .filter({ has: page.getByRole('button', { name: 'Send' }) })
-          .first();
-        const siteName = (await row.locator('td.mat-column-name a').innerText()).trim();
-        await row.getByRole('button', { name: 'Send' }).click();
-        await page.getByLabel('Note to add (optional)').fill('Please check the controller after the heat wave.');
-        await page.getByRole('button', { name: 'Send notice' }).click();
-        await page.getByText(/Notice sent to \d+ managers? of/).waitFor();
-        await page.getByRole('button', { name: `Notices about ${siteName}` }).click();
-      } else {
-        const sentRow = table.locator('tbody tr', { hasText: /sent \d{4}-\d{2}-\d{2}/ }).first();
-        await sentRow.getByRole('button', { name: /Notices about/ }).click();
-      }
-      const dialog = page.getByRole('dialog');
-      await dialog.getByText('November 2026').waitFor();
-      await expect(dialog.innerText()).resolves.toContain('Alex Moreau-Tanaka');
-      await expect(dialog.innerText()).resolves.toContain('Please check the controller after the heat wave.');
-      await look(page, 'month-auditor-notices', width);
-      await dialog.getByRole('button', { name: 'Close' }).click();
+        // A site over budget gets a notice (at desktop width; the phone walk finds it sent).
+        if (width === 'desktop') {
+          const row = table
+            .locator('tbody tr')
+            .filter({ has: page.getByRole('button', { name: 'Send' }) })
+            .first();
+          const siteName = (await row.locator('td.mat-column-name a').innerText()).trim();
+          await row.getByRole('button', { name: 'Send' }).click();
+          await page.getByLabel('Note to add (optional)').fill('Please check the controller after the heat wave.');
+          await page.getByRole('button', { name: 'Send notice' }).click();
+          await page.getByText(/Notice sent to \d+ managers? of/).waitFor();
+          await page.getByRole('button', { name: `Notices about ${siteName}` }).click();
+        } else {
+          const sentRow = table.locator('tbody tr', { hasText: /sent \d{4}-\d{2}-\d{2}/ }).first();
+          await sentRow.getByRole('button', { name: /Notices about/ }).click();
+        }
+        const dialog = page.getByRole('dialog');
+        await dialog.getByText('November 2026').waitFor();
+        await expect(dialog.innerText()).resolves.toContain('Alex Moreau-Tanaka');
+        await expect(dialog.innerText()).resolves.toContain('Please check the controller after the heat wave.');
+        await look(page, 'month-auditor-notices', width);
+        await dialog.getByRole('button', { name: 'Close' }).click();
 
-      // Exports carry labels, never codes or the API's field names.
-      const csvHref = (await page.getByRole('link', { name: /CSV/ }).getAttribute('href'))!;
-      const csv = await (await page.request.get(new URL(csvHref, page.url()).href)).text();
-      expect(csv).toContain('Needs a look');
-      expect(csv).not.toMatch(/hoa-common-area|office-park|weatherStation:|hydrozones:/);
+        // Exports carry labels, never codes or the API's field names.
+        const csvHref = (await page.getByRole('link', { name: /CSV/ }).getAttribute('href'))!;
+        const csv = await (await page.request.get(new URL(csvHref, page.url()).href)).text();
+        expect(csv).toContain('Needs a look');
+        expect(csv).not.toMatch(/hoa-common-area|office-park|weatherStation:|hydrozones:/);
 
-      // Through the share, the site's details say who shared it.
-      await page.goto(`${server.url}/sites`);
-      await page.getByRole('table', { name: 'Sites' }).locator('tbody tr').first().click();
-      await page.getByRole('heading', { name: 'Shared with you' }).waitFor();
-      await expect(page.locator('.shared-with-you').innerText()).resolves.toMatch(
-        /^(Cobalt Ridge Property Services|Harrowgate Estates Management) shared this site with your organisation/,
-      );
-      await look(page, 'month-auditor-site-details', width);
-    });
-  });
+        // Through the share, the site's details say who shared it.
+        await page.goto(`${server.url}/sites`);
+        await page.getByRole('table', { name: 'Sites' }).locator('tbody tr').first().click();
+        await page.getByRole('heading', { name: 'Shared with you' }).waitFor();
+        await expect(page.locator('.shared-with-you').innerText()).resolves.toMatch(
+          /^(Cobalt Ridge Property Services|Harrowgate Estates Management) shared this site with your organisation/,
+        );
+        await look(page, 'month-auditor-site-details', width);
+      });
+    },
+    WALK_TIMEOUT_MS,
+  );
 });
