@@ -14,7 +14,7 @@ import { FieldAudits1796300000000 } from './migrations/1796300000000-field-audit
 import { WhatIfPlans1796300001000 } from './migrations/1796300001000-what-if-plans';
 import { SiteEtafSettings1796300002000 } from './migrations/1796300002000-site-etaf-settings';
 import { Hardening1796320000000 } from './migrations/1796320000000-hardening';
-import { RoleMonths1796310000000 } from './migrations/1796310000000-role-months';
+import { RoleMonths1796330000000 } from './migrations/1796330000000-role-months';
 
 /** Every migration, in order (explicit imports, so bundled builds need no file globbing). Add new ones at the end. */
 export const MIGRATIONS: (new () => MigrationInterface)[] = [
@@ -33,5 +33,5 @@ export const MIGRATIONS: (new () => MigrationInterface)[] = [
   WhatIfPlans1796300001000,
   SiteEtafSettings1796300002000,
   Hardening1796320000000,
-  RoleMonths1796310000000,
+  RoleMonths1796330000000,
 ];

@@ -4,8 +4,8 @@ import type { MigrationInterface, QueryRunner } from 'typeorm';
  * Each role's month: a manager's review mark per site and month, board packets built in the background, and
  * savings projects that lock their baseline when marked installed (with a retrofit list and the installed cost).
  */
-export class RoleMonths1796310000000 implements MigrationInterface {
-  name = 'RoleMonths1796310000000';
+export class RoleMonths1796330000000 implements MigrationInterface {
+  name = 'RoleMonths1796330000000';
 
   public async up(q: QueryRunner): Promise<void> {
     await q.query(`CREATE TABLE \`site_month_review\` (
