@@ -124,9 +124,12 @@ export class BoardPacketService {
 
   private async store(pdf: Buffer): Promise<string> {
     const pending = this.files.begin();
-    await new Promise<void>((resolve, reject) =>
-      pending.stream.end(pdf, (error?: Error | null) => (error ? reject(error) : resolve())),
-    );
-    return pending.keep(createHash('sha256').update(pdf).digest('hex'));
+    try {
+      await pending.write(pdf);
+      return await pending.keep(createHash('sha256').update(pdf).digest('hex'));
+    } catch (error) {
+      await pending.discard();
+      throw error;
+    }
   }
 }
