@@ -1,4 +1,5 @@
 /// <reference lib="dom" />
+import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { DataSource } from 'typeorm';
@@ -45,16 +46,17 @@ const manager = user('morgan.manager@cobaltridge.example');
 const contractor = user('casey.contractor@thistlewood.example');
 const auditor = user('alex.auditor@verdellawater.example');
 
-// pdf-parse ships no types; the module path is a variable so TypeScript does not look for them.
-const PDF_PARSE = 'pdf-parse/lib/pdf-parse.js';
-
 /** Downloads a link's target with the page's session and returns the PDF's text. */
 async function pdfBehind(page: Page, href: string): Promise<{ text: string; pages: number }> {
   const res = await page.request.get(new URL(href, page.url()).href);
   expect(res.headers()['content-type']).toBe('application/pdf');
-  const parse = (await import(PDF_PARSE)).default as (b: Buffer) => Promise<{ text: string; numpages: number }>;
-  const parsed = await parse(await res.body());
-  return { text: parsed.text.replace(/\s+/g, ' '), pages: parsed.numpages };
+  const parser = new PDFParse({ data: new Uint8Array(await res.body()) });
+  try {
+    const parsed = await parser.getText();
+    return { text: parsed.text.replace(/\s+/g, ' '), pages: parsed.total };
+  } finally {
+    await parser.destroy();
+  }
 }
 
 async function expectNoSidewaysScroll(page: Page): Promise<void> {
