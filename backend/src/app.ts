@@ -32,6 +32,7 @@ import { createSites } from './components/sites/sites-module';
 import { createUploads } from './components/uploads/uploads-module';
 import { createUsers } from './components/users/users-module';
 import { createWatch, type Watch } from './components/watch/watch-module';
+import { createWateringRules } from './components/watering-rules/watering-rules-module';
 import { createWeather } from './components/weather/weather-module';
 import { createCsrf } from './platform/auth/csrf';
 import { requireSignedIn } from './platform/auth/guards';
@@ -130,8 +131,10 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     alerts: alerts.service,
     publicUrl: config.http.publicUrl,
   });
+  const wateringRules = createWateringRules({ ...siteAccess, alerts: alerts.service });
   const watch = createWatch({
     ...siteAccess,
+    wateringRules: wateringRules.service,
     config,
     budgets: budgets.service,
     rates: rates.service,
@@ -204,6 +207,7 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     savings,
     reports,
     etaf,
+    wateringRules,
     fieldAudits,
     planner,
     monthClose,

@@ -6,7 +6,14 @@ import { costOfGap } from '../rates/water-cost';
 import type { AlertThresholds } from './alert-thresholds';
 import type { SiteFacts } from './watch-inputs';
 
-export const FINDING_KINDS = ['leak', 'runaway-zone', 'overspend', 'silent-meter', 'weather'] as const;
+export const FINDING_KINDS = [
+  'leak',
+  'runaway-zone',
+  'overspend',
+  'silent-meter',
+  'weather',
+  'watering-rules',
+] as const;
 export type FindingKind = (typeof FINDING_KINDS)[number];
 
 export const FINDING_SUB_KINDS = {
@@ -17,6 +24,8 @@ export const FINDING_SUB_KINDS = {
   'silent-meter': ['no-reads', 'zero-while-running'],
   // A weather station's missing or late days (filed by the job, not by `watchSite`).
   weather: ['station-gap'],
+  // Runs against the local agency's watering rule in force: one alert per site and calendar month.
+  'watering-rules': ['outside-rules'],
 } as const satisfies Record<FindingKind, readonly string[]>;
 export type FindingSubKind = (typeof FINDING_SUB_KINDS)[FindingKind][number];
 

@@ -15,6 +15,7 @@ import { detectNoReads, detectZeroWhileRunning } from './silent-meter-detection'
 import { DAY_MS } from './site-clock';
 import type { SiteWatchInput, WatchContext } from './watch-inputs';
 import { detectOverVolume } from './zone-over-volume';
+import { detectRuleBreaches } from './watering-rule-detection';
 
 export function watchSite(input: SiteWatchInput): Finding[] {
   const ctx: WatchContext = {
@@ -23,7 +24,7 @@ export function watchSite(input: SiteWatchInput): Finding[] {
     thresholds: resolveThresholds(input.site.thresholds),
     asOfUtc: input.asOfUtc,
   };
-  const findings: Finding[] = [...detectLongRuns(input.runs, ctx)];
+  const findings: Finding[] = [...detectLongRuns(input.runs, ctx), ...detectRuleBreaches(input, ctx)];
   if (input.meterHours && input.meterHours.length > 0) {
     const shiftMinutes = estimateControllerShiftMinutes(
       input.meterHours,

@@ -1,6 +1,7 @@
 /** What the nightly watch reads for one site: meter data, controller runtime logs and site facts. Pure types. */
 import type { RuntimeCause } from '../ingest/ingest-records';
 import type { RateSchedule } from '../rates/rate-schedule';
+import type { SiteRule } from '../watering-rules/watering-rule';
 import type { AlertThresholds } from './alert-thresholds';
 
 /** One hour of meter volume; `startUtc` is the hour's start (epoch ms). Missing hours are simply absent. */
@@ -74,6 +75,8 @@ export interface SiteWatchInput {
   meterHours?: readonly MeterHour[];
   monthlyUse?: readonly MonthlyUse[];
   runs: readonly ZoneRun[];
+  /** The local water agency's watering rules this site is under (every stage; the one in force is picked by date). */
+  wateringRules?: readonly SiteRule[];
   /** "Now" for the run: an ongoing silence is measured up to here. */
   asOfUtc: number;
 }

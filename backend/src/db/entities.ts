@@ -44,6 +44,7 @@ import { WhatIfPlanEntity } from '../components/planner/data/what-if-plan.entity
 import { SiteEtafSettingEntity } from '../components/etaf/data/site-etaf-setting.entity';
 import { BoardPacketEntity } from '../components/month-close/data/board-packet.entity';
 import { SiteMonthReviewEntity } from '../components/month-close/data/site-month-review.entity';
+import { WateringRuleEntity, WateringRuleSiteEntity } from '../components/watering-rules/data/watering-rule.entity';
 /** Every entity, listed once (explicit imports, so bundled builds need no file globbing). */
 export const ENTITIES = [
   OrganisationEntity,
@@ -96,4 +97,7 @@ export const ENTITIES = [
   FieldAuditPhotoEntity,
   WhatIfPlanEntity,
   SiteEtafSettingEntity,
+  // Watering rules by stage and the sites under them
+  WateringRuleEntity,
+  WateringRuleSiteEntity,
 ];

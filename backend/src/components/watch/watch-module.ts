@@ -8,6 +8,7 @@ import type { BudgetsService } from '../budgets/domain/budgets-service';
 import type { RateSchedulesService } from '../rates/domain/rate-schedules-service';
 import type { SitesService } from '../sites/domain/sites-service';
 import type { DailyWeatherService } from '../weather/domain/daily-weather-service';
+import type { WateringRulesService } from '../watering-rules/domain/watering-rules-service';
 import { watchRouter, watchSettingsRouter } from './api/watch-router';
 import { WatchDataRepository } from './data/watch-data-repository';
 import { WatchRunsRepository } from './data/watch-runs-repository';
@@ -36,15 +37,18 @@ export function createWatch(deps: {
   alerts: Alerts;
   audit: AuditRepository;
   dailyWeather: DailyWeatherService;
+  wateringRules: WateringRulesService;
 }): Watch {
-  const { db, config, sites, budgets, rates, alerts, audit, dailyWeather } = deps;
+  const { db, config, sites, budgets, rates, alerts, audit, dailyWeather, wateringRules } = deps;
   const data = new WatchDataRepository(db);
   const runs = new WatchRunsRepository(db);
   const service = new WatchService({
     db,
     data,
-    inputs: new SiteWatchInputLoader(data, budgets, rates),
+    inputs: new SiteWatchInputLoader(data, budgets, rates, wateringRules),
     alerts: alerts.repository,
+    repairs: alerts.repairs,
+    repairNotifier: alerts.repairNotifier,
     runs,
     notifier: alerts.notifier,
     stations: new StationHealth(dailyWeather),

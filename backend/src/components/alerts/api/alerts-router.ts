@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { ALERT_SORTS, ALERT_STATUSES, NOTIFICATION_FREQUENCIES } from '@shared/alerts/alert-dto';
+import { ALERT_RESOLUTIONS, ALERT_SORTS, ALERT_STATUSES, NOTIFICATION_FREQUENCIES } from '@shared/alerts/alert-dto';
 import { FINDING_KINDS } from '@shared/watch/finding';
 import { principalOf } from '../../../platform/auth/guards';
 import { idParam, validate } from '../../../platform/validation';
@@ -18,6 +18,13 @@ const listQuery = z.object({
 const note = z.string().trim().max(2000, 'must be at most 2000 characters');
 const actionBody = z.strictObject({ note: note.optional() });
 const noteBody = z.strictObject({ note: note.min(1, 'is required') });
+const day = z.string().regex(/^\d{4}-(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'must be a date YYYY-MM-DD');
+const resolveBody = z.strictObject({
+  note: note.optional(),
+  resolution: z.enum(ALERT_RESOLUTIONS, { message: `must be one of ${ALERT_RESOLUTIONS.join(', ')}` }).optional(),
+  repairedOn: day.optional(),
+});
+const repairTimesQuery = z.object({ from: day, to: day });
 const preferenceBody = z.strictObject({
   frequency: z.enum(NOTIFICATION_FREQUENCIES),
   siteIds: z.array(z.number().int().positive()).max(5000).nullable(),
@@ -28,6 +35,10 @@ export function alertsRouter(alerts: AlertsService): Router {
   const router = Router();
   router.get('/', async (req, res) => {
     res.json(await alerts.list(principalOf(req), validate(listQuery, req.query, 'Query')));
+  });
+  router.get('/repair-times', async (req, res) => {
+    const q = validate(repairTimesQuery, req.query, 'Query');
+    res.json(await alerts.repairTimes(principalOf(req), q.from, q.to));
   });
   router.get('/:id', async (req, res) => {
     res.json(await alerts.get(principalOf(req), validate(idParam, req.params).id));
@@ -46,7 +57,7 @@ export function alertsRouter(alerts: AlertsService): Router {
       await alerts.resolve(
         principalOf(req),
         validate(idParam, req.params).id,
-        validate(actionBody, req.body ?? {}, 'Resolution').note,
+        validate(resolveBody, req.body ?? {}, 'Resolution'),
       ),
     );
   });

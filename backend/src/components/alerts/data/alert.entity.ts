@@ -5,7 +5,11 @@ import { Column, Entity, PrimaryGeneratedColumn } from 'typeorm';
 export class AlertEntity {
   @PrimaryGeneratedColumn({ type: 'int', unsigned: true }) id!: number;
   @Column({ type: 'int', unsigned: true, name: 'site_id' }) siteId!: number;
-  @Column({ type: 'enum', enum: ['leak', 'runaway-zone', 'overspend', 'silent-meter', 'weather'], name: 'kind' })
+  @Column({
+    type: 'enum',
+    enum: ['leak', 'runaway-zone', 'overspend', 'silent-meter', 'weather', 'watering-rules'],
+    name: 'kind',
+  })
   kind!: string;
   @Column({ type: 'varchar', length: 40, name: 'sub_kind' }) subKind!: string;
   @Column({ type: 'int', unsigned: true, name: 'zone_id', nullable: true }) zoneId!: number | null;
@@ -26,4 +30,15 @@ export class AlertEntity {
   @Column({ type: 'datetime', precision: 3, name: 'last_seen_at' }) lastSeenAt!: Date;
   @Column({ type: 'datetime', precision: 3, name: 'resolved_at', nullable: true }) resolvedAt!: Date | null;
   @Column({ type: 'int', unsigned: true, name: 'reopen_count', default: 0 }) reopenCount!: number;
+  // How it was resolved, and whether the data since confirmed the repair (migration 1796310000000).
+  @Column({ type: 'enum', enum: ['fixed', 'not-a-problem', 'other'], name: 'resolution', nullable: true })
+  resolution!: string | null;
+  @Column({ type: 'datetime', name: 'repaired_at', nullable: true }) repairedAt!: Date | null;
+  @Column({ type: 'int', unsigned: true, name: 'resolved_by', nullable: true }) resolvedBy!: number | null;
+  @Column({ type: 'int', unsigned: true, name: 'resolver_organisation_id', nullable: true })
+  resolverOrganisationId!: number | null;
+  @Column({ type: 'enum', enum: ['watching', 'verified', 'not-verified'], name: 'verification', nullable: true })
+  verification!: string | null;
+  @Column({ type: 'datetime', precision: 3, name: 'verified_at', nullable: true }) verifiedAt!: Date | null;
+  @Column({ type: 'mediumtext', name: 'verification_evidence', nullable: true }) verificationEvidence!: string | null;
 }

@@ -6,9 +6,15 @@ import type {
   AlertDetailDto,
   AlertEventDto,
   AlertListFilter,
+  AlertResolution,
   AlertSummaryDto,
   NotificationPreferenceDto,
+  RepairTimesDto,
 } from '@shared/alerts/alert-dto';
+import { repairTimes } from '@shared/alerts/repair-times';
+import type { RuleWorklistRow } from '@shared/watering-rules/rules-dto';
+import { localMidnightUtc, nextDate } from '@shared/watch/site-clock';
+import { repairVerifiable } from '@shared/watch/repair-check';
 import { atLeast, siteLevel } from '@shared/auth/roles';
 import { addMonths } from '@shared/portfolio/period';
 import { AppError } from '../../../platform/app-error';
@@ -17,6 +23,7 @@ import type { AuditRepository } from '../../audit/data/audit-repository';
 import type { SitesService } from '../../sites/domain/sites-service';
 import type { AlertFiguresRepository } from '../data/alert-figures-repository';
 import type { AlertMailRepository } from '../data/alert-mail-repository';
+import type { AlertRepairsRepository } from '../data/alert-repairs-repository';
 import type { AlertsRepository } from '../data/alerts-repository';
 
 /**
@@ -31,6 +38,7 @@ export class AlertsService {
     private readonly audit: AuditRepository,
     private readonly figures: AlertFiguresRepository,
     private readonly mail: AlertMailRepository,
+    private readonly repairs: AlertRepairsRepository,
   ) {}
 
   /** Unresolved alerts per site over every site the organisation sees; the caller keeps the ones in scope. */
@@ -81,6 +89,7 @@ export class AlertsService {
     const site = await this.sites.requireLevel(principal, alert.siteId, 'read');
     return {
       ...alert,
+      ...(await this.repairs.verificationOf(id)),
       events: await this.alerts.events(id),
       canAct: atLeast(siteLevel(principal.role, site.relation), 'contribute'),
     };
@@ -90,8 +99,64 @@ export class AlertsService {
     return this.act(principal, id, 'acknowledged', note);
   }
 
-  resolve(principal: Principal, id: number, note: string | undefined): Promise<AlertDetailDto> {
-    return this.act(principal, id, 'resolved', note);
+  /**
+   * Resolves an alert. "fixed" records the repair's day (default: now) and, for conditions the meter or the log can
+   * confirm, asks the watch to check the nights after it.
+   */
+  async resolve(
+    principal: Principal,
+    id: number,
+    input: { note?: string | undefined; resolution?: AlertResolution | undefined; repairedOn?: string | undefined },
+  ): Promise<AlertDetailDto> {
+    const alert = await this.alerts.findVisible(principal.organisationId, id);
+    if (!alert) throw AppError.notFound('Alert');
+    const site = await this.sites.requireLevel(principal, alert.siteId, 'contribute');
+    if (alert.status === 'resolved') throw new AppError('conflict', 'This alert is resolved already.');
+    const repairedAt = repairMoment(input.repairedOn, site.timeZone, new Date(alert.firstDetectedAt));
+    const resolution = input.resolution ?? null;
+    const watch = resolution === 'fixed' && repairVerifiable(alert.subKind, alert.zoneId);
+    await this.db.transaction(async (em) => {
+      await this.repairs.resolve(em, id, {
+        resolution,
+        repairedAt,
+        resolvedBy: principal.userId,
+        resolverOrganisationId: principal.organisationId,
+        watch,
+      });
+      await this.alerts.addEvent(em, id, principal.userId, 'resolved', input.note?.trim() || null);
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'alert',
+        entityId: id,
+        action: 'resolved',
+        changes: { note: input.note ?? null, resolution, repairedAt: repairedAt.toISOString() },
+      });
+    });
+    return this.get(principal, id);
+  }
+
+  /** The watch's rule-breach alerts of a month on these sites (the caller chose sites its organisation sees). */
+  ruleBreachesVisibleTo(organisationId: number, siteIds: number[], month: string): Promise<RuleWorklistRow[]> {
+    return this.repairs.ruleBreaches(organisationId, siteIds, month);
+  }
+
+  /** Time from alert to verified repair per site and per who resolved it, for alerts first seen in [from, to]. */
+  async repairTimes(principal: Principal, from: string, to: string): Promise<RepairTimesDto> {
+    if (to < from) throw AppError.invalid('to', 'must be on or after from');
+    const rows = await this.repairs.repairs(
+      principal.organisationId,
+      new Date(`${from}T00:00:00Z`),
+      new Date(Date.parse(`${to}T00:00:00Z`) + 86_400_000),
+    );
+    return {
+      from,
+      to,
+      bySite: repairTimes(rows.map((r) => ({ ...r, key: String(r.siteId), label: r.siteName }))),
+      byResolver: repairTimes(
+        rows.map((r) => ({ ...r, key: `${r.resolverOrg}|${r.resolver}`, label: `${r.resolver} (${r.resolverOrg})` })),
+      ),
+    };
   }
 
   addNote(principal: Principal, id: number, note: string): Promise<AlertDetailDto> {
@@ -101,7 +166,7 @@ export class AlertsService {
   private async act(
     principal: Principal,
     id: number,
-    action: 'acknowledged' | 'resolved' | 'note',
+    action: 'acknowledged' | 'note',
     note: string | undefined,
   ): Promise<AlertDetailDto> {
     const alert = await this.alerts.findVisible(principal.organisationId, id);
@@ -109,8 +174,6 @@ export class AlertsService {
     const site = await this.sites.requireLevel(principal, alert.siteId, 'contribute');
     if (action === 'acknowledged' && alert.status !== 'open')
       throw new AppError('conflict', `This alert is ${alert.status} already.`);
-    if (action === 'resolved' && alert.status === 'resolved')
-      throw new AppError('conflict', 'This alert is resolved already.');
     await this.db.transaction(async (em) => {
       if (action !== 'note') await this.alerts.setStatus(em, id, action);
       await this.alerts.addEvent(em, id, principal.userId, action, note?.trim() || null);
@@ -138,4 +201,18 @@ export class AlertsService {
     await this.mail.savePreference(principal.userId, pref);
     return this.notificationPreference(principal);
   }
+}
+
+/**
+ * The repair's moment: the end of the local day the person named (only nights after it count), else now. A day in
+ * the future or before the alert was first seen is an error.
+ */
+function repairMoment(repairedOn: string | undefined, timeZone: string, firstDetected: Date): Date {
+  const now = new Date();
+  if (!repairedOn) return now;
+  const end = localMidnightUtc(nextDate(repairedOn), timeZone);
+  if (localMidnightUtc(repairedOn, timeZone) > now.getTime()) throw AppError.invalid('repairedOn', 'is in the future');
+  if (end <= firstDetected.getTime() - 86_400_000)
+    throw AppError.invalid('repairedOn', 'is before the alert was first seen');
+  return new Date(Math.min(end, now.getTime()));
 }

@@ -1,4 +1,5 @@
 import type { RateSchedule } from '@shared/rates/rate-schedule';
+import type { SiteRule } from '@shared/watering-rules/watering-rule';
 import type { MonthlyUse, SiteWatchInput } from '@shared/watch/watch-inputs';
 import { localHourOf } from '@shared/watch/site-clock';
 import { DEFAULT_IRRIGATION_WINDOW } from '@shared/watch/watch-dto';
@@ -34,6 +35,7 @@ export class SiteWatchInputLoader {
     private readonly data: WatchDataRepository,
     private readonly budgets: BudgetsService,
     private readonly rates: RateSchedulesService,
+    private readonly rules: { siteRules(siteId: number): Promise<SiteRule[]> },
   ) {}
 
   async load(
@@ -42,12 +44,13 @@ export class SiteWatchInputLoader {
     fromUtc: Date,
     asOfUtc: Date,
   ): Promise<LoadedSite> {
-    const [meterHours, longReads, runs, zones, schedules] = await Promise.all([
+    const [meterHours, longReads, runs, zones, schedules, wateringRules] = await Promise.all([
       this.data.meterHours(site.siteId, fromUtc, asOfUtc),
       this.data.longReadings(site.siteId, fromUtc, asOfUtc),
       this.data.runs(site.siteId, fromUtc, asOfUtc),
       this.data.zones(site.siteId),
       this.rates.allOfSite(site.siteId),
+      this.rules.siteRules(site.siteId),
     ]);
     const fromMonth = fromUtc.toISOString().slice(0, 7);
     const toMonth = asOfUtc.toISOString().slice(0, 7);
@@ -69,6 +72,7 @@ export class SiteWatchInputLoader {
       ...(meterHours.length ? { meterHours } : {}),
       ...(longReads.length ? { monthlyUse: byLocalMonth(longReads, site.timeZone) } : {}),
       runs,
+      ...(wateringRules.length ? { wateringRules } : {}),
       asOfUtc: asOfUtc.getTime(),
     };
     // Overspend needs hourly data; a monthly-read site's budget only feeds the monthly leak check.

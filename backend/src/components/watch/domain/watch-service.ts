@@ -5,6 +5,10 @@ import type { Finding } from '@shared/watch/finding';
 import type { JobLease } from '../../../jobs/job-lease';
 import { logger } from '../../../platform/logger';
 import type { AlertsRepository } from '../../alerts/data/alerts-repository';
+import type { AlertRepairsRepository, Verdict } from '../../alerts/data/alert-repairs-repository';
+import type { RepairNotifier } from '../../alerts/domain/repair-notifier';
+import { verifyRepair } from '@shared/watch/repair-check';
+import type { SiteWatchInput } from '@shared/watch/watch-inputs';
 import type { AlertNotifier } from '../../alerts/domain/alert-notifier';
 import type { SiteSettingsRow, SiteStateRow, WatchDataRepository, WatchSiteRow } from '../data/watch-data-repository';
 import type { RunCounts, WatchRunsRepository } from '../data/watch-runs-repository';
@@ -31,6 +35,9 @@ export interface WatchDeps {
   data: WatchDataRepository;
   inputs: SiteWatchInputLoader;
   alerts: AlertsRepository;
+  /** Fixed alerts whose repair the data is still to confirm, and the verdicts. */
+  repairs: AlertRepairsRepository;
+  repairNotifier: RepairNotifier;
   runs: WatchRunsRepository;
   notifier: AlertNotifier;
   stations: StationHealth;
@@ -53,8 +60,17 @@ interface RunState {
   errors: WatchRunNote[];
   warnings: WatchRunNote[];
   toMail: { alertId: number; reopened: boolean }[];
+  /** Fixed alerts the data did not confirm: their resolvers get a note. */
+  notConfirmed: { alertId: number; at: number }[];
   checked: WatchSiteRow[];
 }
+
+interface VerdictOn {
+  alertId: number;
+  verdict: Verdict;
+}
+
+type SiteFindings = Finding[] & { night: string | null; verdicts: VerdictOn[] };
 
 interface SiteContext {
   states: Map<number, SiteStateRow>;
@@ -115,6 +131,7 @@ export class WatchService {
       errors: [],
       warnings: [],
       toMail: [],
+      notConfirmed: [],
       checked: [],
     };
     try {
@@ -157,7 +174,10 @@ export class WatchService {
         const current = site;
         const findings = await this.checkSite(run, current, ctx);
         if (findings) {
-          const file = filing.then(() => this.file(run, findings, current.timeZone));
+          const file = filing.then(async () => {
+            await this.file(run, findings, current.timeZone);
+            await this.recordVerdicts(run, findings.verdicts);
+          });
           filing = file.catch(() => undefined);
           await this.guard(run, current, async () => {
             await file;
@@ -180,12 +200,8 @@ export class WatchService {
   }
 
   /** One site's findings (with the night to remember), or null when it is skipped or fails (recorded). */
-  private async checkSite(
-    run: RunState,
-    site: WatchSiteRow,
-    ctx: SiteContext,
-  ): Promise<(Finding[] & { night: string | null }) | null> {
-    let result: (Finding[] & { night: string | null }) | null = null;
+  private async checkSite(run: RunState, site: WatchSiteRow, ctx: SiteContext): Promise<SiteFindings | null> {
+    let result: SiteFindings | null = null;
     await this.guard(run, site, async () => {
       const siteSettings = ctx.settings.get(site.siteId);
       const plan = planSiteCheck({
@@ -207,9 +223,42 @@ export class WatchService {
         run.warnings.push({ siteId: site.siteId, siteName: site.name, message: w.message, setupOnly: w.setupOnly });
       const findings = watchSite(loaded.input);
       run.counts.findings += findings.length;
-      result = Object.assign(findings, { night: plan.night });
+      const verdicts = await this.repairVerdicts(site.siteId, loaded.input);
+      result = Object.assign(findings, { night: plan.night, verdicts });
     });
     return result;
+  }
+
+  /** The data's verdict on each repair of the site still being checked (none while nights are still to come). */
+  private async repairVerdicts(siteId: number, input: SiteWatchInput): Promise<VerdictOn[]> {
+    const awaiting = await this.deps.repairs.awaitingVerification(siteId);
+    return awaiting.flatMap((r) => {
+      const verdict = verifyRepair(
+        {
+          kind: r.kind,
+          subKind: r.subKind,
+          zoneId: r.zoneId === null ? null : String(r.zoneId),
+          repairedAtUtc: r.repairedAt.getTime(),
+          evidence: r.evidence,
+        },
+        input,
+      );
+      return verdict && verdict.status !== 'pending' ? [{ alertId: r.id, verdict }] : [];
+    });
+  }
+
+  /** Verified repairs are marked with their evidence; the others reopen, and whoever resolved them is told. */
+  private async recordVerdicts(run: RunState, verdicts: readonly VerdictOn[]): Promise<void> {
+    if (verdicts.length === 0) return;
+    await this.deps.db.transaction(async (em) => {
+      for (const { alertId, verdict } of verdicts) {
+        const recorded = await this.deps.repairs.recordVerdict(em, alertId, verdict);
+        if (recorded && verdict.status === 'not-verified') {
+          run.counts.alertsReopened++;
+          run.notConfirmed.push({ alertId, at: verdict.decidedAtUtc });
+        }
+      }
+    });
   }
 
   /** Runs one site's step; a failure (corrupt settings, odd data) is recorded and the others go on. */
@@ -236,6 +285,7 @@ export class WatchService {
         night: run.asOf.toISOString().slice(0, 10),
         warnings: run.warnings,
       });
+      run.counts.mailsQueued += await this.deps.repairNotifier.notConfirmed(run.notConfirmed);
     } catch (err) {
       run.errors.push({ siteId: 0, siteName: '(e-mail)', message: (err as Error).message.slice(0, 500) });
     }
@@ -257,6 +307,12 @@ export class WatchService {
         if (outcome === 'raised') run.counts.alertsRaised++;
         if (outcome === 'updated') run.counts.alertsUpdated++;
         if (outcome === 'reopened') run.counts.alertsReopened++;
+        if (
+          outcome === 'reopened' &&
+          alertId &&
+          (await this.deps.repairs.markNotConfirmed(em, alertId, f.periodEndUtc))
+        )
+          run.notConfirmed.push({ alertId, at: f.periodEndUtc });
         if ((outcome === 'raised' || outcome === 'reopened') && alertId)
           run.toMail.push({ alertId, reopened: outcome === 'reopened' });
       }
