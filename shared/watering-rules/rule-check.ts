@@ -33,8 +33,9 @@ export interface RuleBreach {
 }
 
 /**
- * A metered hour counts as watering when it used at least this share of the site's 95th-percentile hour (and at
- * least 1 gal): Rillmark's own rule of thumb (no source), so that a small leak or base flow is not taken for watering.
+ * A metered hour counts as watering when it used at least this share of a typical watering hour (the median of the
+ * site's busiest 2 % of hours, at least three) and at least 1 gal: Rillmark's own rule of thumb (no source), so that a
+ * small leak or base flow is not taken for watering.
  */
 export const METERED_WATERING_SHARE = 0.25;
 
@@ -89,8 +90,9 @@ function meteredStretches(hours: readonly MeterHour[]): Stretch[] {
   if (hours.length === 0) return [];
   const sorted = [...hours].sort((a, b) => a.startUtc - b.startUtc);
   const volumes = sorted.map((h) => h.gallons).sort((a, b) => a - b);
-  const p95 = volumes[Math.min(volumes.length - 1, Math.floor(volumes.length * 0.95))]!;
-  const limit = Math.max(1, p95 * METERED_WATERING_SHARE);
+  const busiest = volumes.slice(-Math.max(3, Math.ceil(volumes.length * 0.02)));
+  const typical = busiest[Math.floor(busiest.length / 2)]!;
+  const limit = Math.max(1, typical * METERED_WATERING_SHARE);
   const out: Stretch[] = [];
   for (const h of sorted) {
     if (h.gallons < limit) continue;
