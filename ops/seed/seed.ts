@@ -8,6 +8,7 @@ import { seedMeters } from './seed-meters';
 import { seedSavings } from './seed-savings';
 import { seedAlerts } from './seed-alerts';
 import { seedFieldWork } from './seed-field-work';
+import { seedVerifiedRepair, seedWateringRules } from './seed-field-tools';
 
 /** `npm run seed`: writes the demo scenario into the configured database (idempotent). */
 const db = createDataSource(loadConfig().db);
@@ -29,6 +30,8 @@ const savings = await seedSavings(db);
 logger.info(`demo savings seeded: ${savings.readings} daily readings, ${savings.projects} new savings projects`);
 const fieldWork = await seedFieldWork(db, loadConfig());
 logger.info(`demo field work seeded: ${fieldWork.audits} new audits, ${fieldWork.plans} new what-if plans`);
+const rules = await seedWateringRules(db);
+logger.info(`demo watering rules seeded: ${rules} new agency rule(s)`);
 // Last: the watch reads everything seeded above.
 const watched = await seedAlerts(db, loadConfig());
 logger.info(
@@ -36,4 +39,6 @@ logger.info(
     .map(([k, n]) => `${k} ${n}`)
     .join(', ')}); ${watched.mails} e-mails queued`,
 );
+const repaired = await seedVerifiedRepair(db, loadConfig());
+logger.info(`demo repair: ${repaired} leak resolved as fixed and re-checked against the meter`);
 await db.destroy();

@@ -54,7 +54,6 @@ export function detectRuleBreaches(input: SiteWatchInput, ctx: WatchContext): Fi
             outsideAllowedHours: count('hours'),
             overStationLimit: count('minutes'),
             fromMeterOnly: counted.filter((b) => b.source === 'meter').length,
-            ruleId: first.ruleId,
           },
           series: [
             { label: 'Runs outside the rules, minutes', unit: 'min', points: points(counted) },

@@ -41,6 +41,10 @@ export const routes: Routes = [
       },
       { path: 'reports', loadChildren: () => import('./reports/reports.routes').then((m) => m.reportsRoutes) },
       { path: 'etaf', loadChildren: () => import('./etaf/etaf.routes').then((m) => m.etafRoutes) },
+      {
+        path: 'watering-rules',
+        loadChildren: () => import('./watering-rules/watering-rules.routes').then((m) => m.wateringRulesRoutes),
+      },
       { path: 'settings', loadChildren: () => import('./settings/settings.routes').then((m) => m.settingsRoutes) },
       {
         path: 'admin/users',

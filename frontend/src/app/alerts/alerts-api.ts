@@ -3,10 +3,12 @@ import { Injectable, inject } from '@angular/core';
 import type { Page } from '@shared/api/page';
 import type {
   AlertDetailDto,
+  AlertResolution,
   AlertSort,
   AlertStatus,
   AlertSummaryDto,
   NotificationPreferenceDto,
+  RepairTimesDto,
 } from '@shared/alerts/alert-dto';
 import type { FindingKind } from '@shared/watch/finding';
 import { Observable } from 'rxjs';
@@ -37,6 +39,18 @@ export class AlertsApi {
 
   act(id: number, action: 'acknowledge' | 'resolve' | 'notes', note: string): Observable<AlertDetailDto> {
     return this.http.post<AlertDetailDto>(`/api/alerts/${id}/${action}`, note ? { note } : {});
+  }
+
+  /** Resolves with how it was resolved; "fixed" with the repair's day asks the watch to confirm it from the data. */
+  resolve(
+    id: number,
+    body: { note?: string; resolution: AlertResolution; repairedOn?: string },
+  ): Observable<AlertDetailDto> {
+    return this.http.post<AlertDetailDto>(`/api/alerts/${id}/resolve`, body);
+  }
+
+  repairTimes(from: string, to: string): Observable<RepairTimesDto> {
+    return this.http.get<RepairTimesDto>('/api/alerts/repair-times', { params: { from, to } });
   }
 
   notifications(): Observable<NotificationPreferenceDto> {

@@ -34,6 +34,11 @@ export const alertsRoutes: Routes = [
         loadComponent: () => import('../watch/watch-settings/watch-settings').then((m) => m.WatchSettings),
       },
       {
+        path: 'repairs',
+        title: 'Repairs verified · Rillmark',
+        loadComponent: () => import('./repair-times/repair-times').then((m) => m.RepairTimes),
+      },
+      {
         path: ':id',
         title: 'Alert · Rillmark',
         loadComponent: () => import('./alert-detail/alert-detail').then((m) => m.AlertDetail),

@@ -39,6 +39,9 @@ function alert(extra: Partial<AlertDetailDto> = {}): AlertDetailDto {
       { id: 1, action: 'opened', note: null, at: '2026-11-12T09:00:00Z', userId: null, userName: 'Nightly watch' },
     ],
     canAct: true,
+    resolution: null,
+    repairedAt: null,
+    verification: null,
     ...extra,
   };
 }

@@ -6,8 +6,18 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { KIND_LABELS, SEVERITY_LABELS, SUB_KIND_LABELS, type AlertDetailDto } from '@shared/alerts/alert-dto';
+import {
+  ALERT_RESOLUTIONS,
+  KIND_LABELS,
+  RESOLUTION_LABELS,
+  SEVERITY_LABELS,
+  SUB_KIND_LABELS,
+  VERIFICATION_LABELS,
+  type AlertDetailDto,
+  type AlertResolution,
+} from '@shared/alerts/alert-dto';
 import { describeApiError } from '../../core/http/api-error';
 import { AlertsApi } from '../alerts-api';
 import { EvidenceChart } from '../evidence-chart/evidence-chart';
@@ -26,6 +36,7 @@ import { gallons, money, siteTime } from '../site-time';
     MatInputModule,
     MatIconModule,
     MatProgressBarModule,
+    MatSelectModule,
     EvidenceChart,
   ],
   templateUrl: './alert-detail.html',
@@ -62,7 +73,15 @@ export class AlertDetail {
   protected readonly gallons = gallons;
   protected readonly money = money;
 
+  protected readonly verificationNumbers = computed(() => evidenceRows(this.alert()?.verification?.numbers ?? {}));
+  protected readonly resolutions = ALERT_RESOLUTIONS;
+  protected readonly resolutionLabels = RESOLUTION_LABELS;
+  protected readonly verificationLabels = VERIFICATION_LABELS;
+
   protected note = '';
+  protected resolution: AlertResolution = 'fixed';
+  /** The repair's day (YYYY-MM-DD); empty means today. */
+  protected repairedOn = '';
   protected readonly busy = signal(false);
   protected readonly actionError = signal<string | null>(null);
 
@@ -71,7 +90,16 @@ export class AlertDetail {
     if (!a) return;
     this.busy.set(true);
     this.actionError.set(null);
-    this.api.act(a.id, action, this.note.trim()).subscribe({
+    const note = this.note.trim();
+    const request =
+      action === 'resolve'
+        ? this.api.resolve(a.id, {
+            resolution: this.resolution,
+            ...(note ? { note } : {}),
+            ...(this.resolution === 'fixed' && this.repairedOn ? { repairedOn: this.repairedOn } : {}),
+          })
+        : this.api.act(a.id, action, note);
+    request.subscribe({
       next: (fresh) => {
         this.updated.set(fresh);
         this.note = '';

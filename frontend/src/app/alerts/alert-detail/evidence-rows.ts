@@ -3,6 +3,13 @@ const KNOWN: Record<string, { label: string; unit: string }> = {
   hoursFlowing: { label: 'Hours of flow without a break', unit: 'h' },
   lowestHourGal: { label: 'Lowest hour in that time', unit: 'gal' },
   totalGal: { label: 'Metered in that time', unit: 'gal' },
+  runsOutsideRules: { label: 'Runs outside the watering rules', unit: '' },
+  manualRunsOutsideRules: { label: 'Manual runs outside the rules (shown apart)', unit: '' },
+  minutesOutsideRules: { label: 'Minutes of those runs', unit: 'min' },
+  notAWateringDay: { label: 'On a day the rule does not allow', unit: '' },
+  outsideAllowedHours: { label: 'Outside the allowed hours', unit: '' },
+  overStationLimit: { label: 'Longer than the station limit', unit: '' },
+  fromMeterOnly: { label: 'Judged from meter hours (no controller log)', unit: '' },
 };
 
 function split(name: string): { label: string; unit: string } {

@@ -22,6 +22,8 @@ export class EvidenceChart {
   readonly timeZone = input.required<string>();
   readonly periodStartUtc = input.required<string>();
   readonly periodEndUtc = input.required<string>();
+  /** What the shaded period is: the alert's, or the nights after a repair. */
+  readonly periodLabel = input('Alert period');
 
   protected readonly summary = computed(() =>
     this.series()
@@ -62,7 +64,7 @@ export class EvidenceChart {
                 itemStyle: { color: 'rgba(196, 84, 44, 0.12)' },
                 data: [
                   [
-                    { xAxis: Date.parse(this.periodStartUtc()), name: 'Alert period' },
+                    { xAxis: Date.parse(this.periodStartUtc()), name: this.periodLabel() },
                     { xAxis: Date.parse(this.periodEndUtc()) },
                   ],
                 ],

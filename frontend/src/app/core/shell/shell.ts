@@ -70,6 +70,9 @@ export class Shell {
       links.push({ path: '/month-close', label: 'Month close', icon: 'fact_check' });
     links.push({ path: '/reports', label: 'Reports', icon: 'insights' });
     links.push({ path: '/etaf', label: 'Achieved ETAF', icon: 'water_drop' });
+    // Conservation work: the agency's officers (auditors), managers and administrators; the server says the same.
+    if (this.auth.user()?.organisation.role !== 'contractor')
+      links.push({ path: '/watering-rules', label: 'Watering rules', icon: 'gavel' });
     links.push({ path: '/alerts', label: 'Alerts', icon: 'notifications_active' });
     if (can.manageUsers) links.push({ path: '/admin/users', label: 'Users', icon: 'group' });
     if (can.viewOutbox) links.push({ path: '/admin/outbox', label: 'Outbox', icon: 'outgoing_mail' });
