@@ -11,9 +11,12 @@ import { median } from './robust-statistics';
 import { DAY_MS, HOUR_MS, inLocalWindow } from './site-clock';
 import { runWatered, zoneName, type SiteWatchInput, type ZoneRun } from './watch-inputs';
 
-/** Nights (or runs) after the repair that decide it. */
+/** Nights (or runs) after the repair that decide it (common practice, no source; docs/references.md §7). */
 export const REPAIR_NIGHTS = 3;
-/** Allowed margin over the usual figure: the larger of this share and the night-flow threshold's own margin. */
+/**
+ * Allowed margin over the usual figure: the larger of this share and the night-flow threshold's own margin (common
+ * practice, no source; docs/references.md §7).
+ */
 export const REPAIR_MARGIN_SHARE = 0.25;
 
 export interface RepairToVerify {

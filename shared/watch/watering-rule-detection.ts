@@ -100,7 +100,7 @@ function explain(counted: readonly RuleBreach[], manual: readonly RuleBreach[], 
     : [];
   return [
     `${counted.length} run(s) broke the watering rule in force:`,
-    ...listed.map((l) => `${l};`),
+    `${listed.join('; ')}.`,
     ...more,
     ...manualText,
     RULES_DEFER,

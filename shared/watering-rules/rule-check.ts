@@ -34,8 +34,8 @@ export interface RuleBreach {
 
 /**
  * A metered hour counts as watering when it used at least this share of a typical watering hour (the median of the
- * site's busiest 2 % of hours, at least three) and at least 1 gal: Rillmark's own rule of thumb (no source), so that a
- * small leak or base flow is not taken for watering.
+ * site's busiest 2 % of hours, at least three) and at least 1 gal (common practice, no source; docs/references.md §7),
+ * so that a small leak or base flow is not taken for watering.
  */
 export const METERED_WATERING_SHARE = 0.25;
 
