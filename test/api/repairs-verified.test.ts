@@ -107,14 +107,19 @@ describe('repairs verified by the meter', () => {
     },
   );
 
-  it('when an alert is resolved without "fixed", or the repair day is in the future, then nothing is watched', async () => {
-    const { alertId } = await leakInJune();
-    await contractor
-      .post(`/api/alerts/${alertId}/resolve`, { resolution: 'fixed', repairedOn: '2099-01-01' })
-      .expect(400);
-    const plain = await contractor.post(`/api/alerts/${alertId}/resolve`, { resolution: 'not-a-problem' }).expect(200);
-    expect(plain.body).toMatchObject({ status: 'resolved', resolution: 'not-a-problem', verification: null });
-    const auditor = await signedIn(app, world.users.auditor.email);
-    await auditor.post(`/api/alerts/${alertId}/resolve`, { resolution: 'fixed' }).expect(403);
-  });
+  it(
+    'when an alert is resolved without "fixed", or the repair day is in the future, ' + 'then nothing is watched',
+    async () => {
+      const { alertId } = await leakInJune();
+      await contractor
+        .post(`/api/alerts/${alertId}/resolve`, { resolution: 'fixed', repairedOn: '2099-01-01' })
+        .expect(400);
+      const plain = await contractor
+        .post(`/api/alerts/${alertId}/resolve`, { resolution: 'not-a-problem' })
+        .expect(200);
+      expect(plain.body).toMatchObject({ status: 'resolved', resolution: 'not-a-problem', verification: null });
+      const auditor = await signedIn(app, world.users.auditor.email);
+      await auditor.post(`/api/alerts/${alertId}/resolve`, { resolution: 'fixed' }).expect(403);
+    },
+  );
 });

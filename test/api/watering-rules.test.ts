@@ -149,28 +149,33 @@ describe('watering rules and the officer worklist', () => {
       expect((await ownerAdmin.get(`/api/alerts?siteId=${s.id}&kind=watering-rules`).expect(200)).body.total).toBe(0);
   });
 
-  it('when a rule is invalid, names a site the organisation cannot see, or the role is wrong, then it is refused', async () => {
-    const site = await createSite(app.db, owner.org.id);
-    const unseen = await createSite(app.db, owner.org.id);
-    await shareSite(app.db, site.id, agency.org.id, 'read');
-    const bad = await officer.post('/api/watering-rules', { ...stage2(site.id), inForceTo: '2026-04-01' }).expect(400);
-    expect(bad.body.error.details).toContainEqual(expect.objectContaining({ field: 'inForceTo' }));
-    await officer.post('/api/watering-rules', { ...stage2(site.id), dayMode: 'weekdays', weekdays: [] }).expect(400);
-    await officer.post('/api/watering-rules', stage2(unseen.id)).expect(404);
-    const contractor = await signedIn(app, agency.users.contractor.email);
-    await contractor.get('/api/watering-rules').expect(403);
-    await contractor.post('/api/watering-rules', stage2(site.id)).expect(403);
+  it(
+    'when a rule is invalid, names a site the organisation cannot see, or the role is wrong, ' + 'then it is refused',
+    async () => {
+      const site = await createSite(app.db, owner.org.id);
+      const unseen = await createSite(app.db, owner.org.id);
+      await shareSite(app.db, site.id, agency.org.id, 'read');
+      const bad = await officer
+        .post('/api/watering-rules', { ...stage2(site.id), inForceTo: '2026-04-01' })
+        .expect(400);
+      expect(bad.body.error.details).toContainEqual(expect.objectContaining({ field: 'inForceTo' }));
+      await officer.post('/api/watering-rules', { ...stage2(site.id), dayMode: 'weekdays', weekdays: [] }).expect(400);
+      await officer.post('/api/watering-rules', stage2(unseen.id)).expect(404);
+      const contractor = await signedIn(app, agency.users.contractor.email);
+      await contractor.get('/api/watering-rules').expect(403);
+      await contractor.post('/api/watering-rules', stage2(site.id)).expect(403);
 
-    const rule = (await officer.post('/api/watering-rules', stage2(site.id)).expect(201)).body;
-    await ownerAdmin.get(`/api/watering-rules/${rule.id}`).expect(404);
-    await ownerAdmin.put(`/api/watering-rules/${rule.id}`, stage2(site.id)).expect(404);
-    const changed = await officer
-      .put(`/api/watering-rules/${rule.id}`, { ...stage2(site.id), stage: 'Stage 3', maxStationMinutes: 15 })
-      .expect(200);
-    expect(changed.body).toMatchObject({ stage: 'Stage 3', maxStationMinutes: 15 });
-    const page = (await officer.get('/api/watering-rules?q=Stage%203').expect(200)).body;
-    expect(page.items.map((r: { id: number }) => r.id)).toContain(rule.id);
-    await officer.delete(`/api/watering-rules/${rule.id}`).expect(204);
-    await officer.get(`/api/watering-rules/${rule.id}`).expect(404);
-  });
+      const rule = (await officer.post('/api/watering-rules', stage2(site.id)).expect(201)).body;
+      await ownerAdmin.get(`/api/watering-rules/${rule.id}`).expect(404);
+      await ownerAdmin.put(`/api/watering-rules/${rule.id}`, stage2(site.id)).expect(404);
+      const changed = await officer
+        .put(`/api/watering-rules/${rule.id}`, { ...stage2(site.id), stage: 'Stage 3', maxStationMinutes: 15 })
+        .expect(200);
+      expect(changed.body).toMatchObject({ stage: 'Stage 3', maxStationMinutes: 15 });
+      const page = (await officer.get('/api/watering-rules?q=Stage%203').expect(200)).body;
+      expect(page.items.map((r: { id: number }) => r.id)).toContain(rule.id);
+      await officer.delete(`/api/watering-rules/${rule.id}`).expect(204);
+      await officer.get(`/api/watering-rules/${rule.id}`).expect(404);
+    },
+  );
 });

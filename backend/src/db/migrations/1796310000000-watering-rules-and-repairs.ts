@@ -62,8 +62,8 @@ export class WateringRulesAndRepairs1796310000000 implements MigrationInterface 
     await q.query("DELETE FROM `alert_event` WHERE `action` IN ('verified', 'not-verified')");
     await q.query(`ALTER TABLE \`alert_event\` MODIFY \`action\` enum (${ACTIONS_BEFORE}) NOT NULL`);
     await q.query(`ALTER TABLE \`alert\` DROP INDEX \`ix_alert_verification\`, DROP \`resolution\`,
-      DROP \`repaired_at\`, DROP \`resolved_by\`, DROP \`resolver_organisation_id\`, DROP \`verification\`, DROP \`verified_at\`,
-      DROP \`verification_evidence\``);
+      DROP \`repaired_at\`, DROP \`resolved_by\`, DROP \`resolver_organisation_id\`, DROP \`verification\`,
+      DROP \`verified_at\`, DROP \`verification_evidence\``);
     await q.query("DELETE FROM `alert` WHERE `kind` = 'watering-rules'");
     await q.query(`ALTER TABLE \`alert\` MODIFY \`kind\` enum (${KINDS_BEFORE}) NOT NULL`);
     await q.query('DROP TABLE `watering_rule_site`');
