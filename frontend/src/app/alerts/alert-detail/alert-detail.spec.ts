@@ -106,4 +106,24 @@ describe('AlertDetail', () => {
     expect((fixture.nativeElement as HTMLElement).textContent).toContain('status: acknowledged');
     expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: 'Acknowledge' }))).toHaveLength(0);
   });
+
+  it('resolves as fixed with the day of the repair, then shows the repair being checked', async () => {
+    const { fixture, http, loader } = await setUp(alert());
+    (fixture.componentInstance as unknown as { repairedOn: string }).repairedOn = '2026-11-13';
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Mark resolved' }))).click();
+    const req = await vi.waitFor(() => http.expectOne('/api/alerts/7/resolve'));
+    expect(req.request.body).toEqual({ resolution: 'fixed', repairedOn: '2026-11-13' });
+    req.flush(
+      alert({
+        status: 'resolved',
+        resolution: 'fixed',
+        repairedAt: '2026-11-14T07:00:00Z',
+        verification: { status: 'watching', decidedAt: null, numbers: {}, series: [], explanation: null },
+      }),
+    );
+    await fixture.whenStable();
+    const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
+    expect(text).toContain('Repair check: Repair being checked against the meter');
+    expect(text).toContain('Repaired by Nov 14, 2026, 12:00 AM MST');
+  });
 });
