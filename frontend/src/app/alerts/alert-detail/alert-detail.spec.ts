@@ -121,9 +121,12 @@ describe('AlertDetail', () => {
         verification: { status: 'watching', decidedAt: null, numbers: {}, series: [], explanation: null },
       }),
     );
-    await fixture.whenStable();
-    const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
-    expect(text).toContain('Repair check: Repair being checked against the meter');
-    expect(text).toContain('Repaired by Nov 14, 2026, 12:00 AM MST');
+    // Under load the re-render can land after the first stable point: wait for the section itself.
+    await vi.waitFor(async () => {
+      await fixture.whenStable();
+      const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
+      expect(text).toContain('Repair check: Repair being checked against the meter');
+      expect(text).toContain('Repaired by Nov 14, 2026, 12:00 AM MST');
+    });
   });
 });
