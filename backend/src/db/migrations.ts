@@ -15,7 +15,7 @@ import { WhatIfPlans1796300001000 } from './migrations/1796300001000-what-if-pla
 import { SiteEtafSettings1796300002000 } from './migrations/1796300002000-site-etaf-settings';
 import { Hardening1796320000000 } from './migrations/1796320000000-hardening';
 import { RoleMonths1796330000000 } from './migrations/1796330000000-role-months';
-import { WateringRulesAndRepairs1796310000000 } from './migrations/1796310000000-watering-rules-and-repairs';
+import { WateringRulesAndRepairs1796340000000 } from './migrations/1796340000000-watering-rules-and-repairs';
 
 /** Every migration, in order (explicit imports, so bundled builds need no file globbing). Add new ones at the end. */
 export const MIGRATIONS: (new () => MigrationInterface)[] = [
@@ -35,5 +35,5 @@ export const MIGRATIONS: (new () => MigrationInterface)[] = [
   SiteEtafSettings1796300002000,
   Hardening1796320000000,
   RoleMonths1796330000000,
-  WateringRulesAndRepairs1796310000000,
+  WateringRulesAndRepairs1796340000000,
 ];

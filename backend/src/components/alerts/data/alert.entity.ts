@@ -30,7 +30,7 @@ export class AlertEntity {
   @Column({ type: 'datetime', precision: 3, name: 'last_seen_at' }) lastSeenAt!: Date;
   @Column({ type: 'datetime', precision: 3, name: 'resolved_at', nullable: true }) resolvedAt!: Date | null;
   @Column({ type: 'int', unsigned: true, name: 'reopen_count', default: 0 }) reopenCount!: number;
-  // How it was resolved, and whether the data since confirmed the repair (migration 1796310000000).
+  // How it was resolved, and whether the data since confirmed the repair (migration 1796340000000).
   @Column({ type: 'enum', enum: ['fixed', 'not-a-problem', 'other'], name: 'resolution', nullable: true })
   resolution!: string | null;
   @Column({ type: 'datetime', name: 'repaired_at', nullable: true }) repairedAt!: Date | null;

@@ -1,6 +1,6 @@
 import { Column, Entity, PrimaryColumn, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 
-/** One stage of an agency's watering rule (see migration 1796310000000). Weekday lists are "0,2,4" (0 = Sunday). */
+/** One stage of an agency's watering rule (see migration 1796340000000). Weekday lists are "0,2,4" (0 = Sunday). */
 @Entity({ name: 'watering_rule' })
 export class WateringRuleEntity {
   @PrimaryGeneratedColumn({ type: 'int', unsigned: true }) id!: number;

@@ -8,8 +8,8 @@ const ACTIONS_BEFORE = `'opened', 'acknowledged', 'resolved', 'reopened', 'note'
  * the sites under each; the watch's "watering outside the rules" alerts; and repairs verified by the meter: how an
  * alert was resolved ("fixed" with the repair's date), and whether the data since confirmed it.
  */
-export class WateringRulesAndRepairs1796310000000 implements MigrationInterface {
-  name = 'WateringRulesAndRepairs1796310000000';
+export class WateringRulesAndRepairs1796340000000 implements MigrationInterface {
+  name = 'WateringRulesAndRepairs1796340000000';
 
   public async up(q: QueryRunner): Promise<void> {
     await q.query(`CREATE TABLE \`watering_rule\` (
