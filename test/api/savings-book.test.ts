@@ -1,3 +1,4 @@
+import { PDFParse } from 'pdf-parse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { SavingsBookRowDto, SavingsHistoryEntryDto } from '@shared/savings/savings-project-dto';
 import { SAVINGS_PROJECT, siteWithSavings } from '../support/month-fixtures';
@@ -20,9 +21,6 @@ let manager: Client;
 let firmContractor: Client;
 let siteId: number;
 
-// pdf-parse ships no types; the module path is a variable so TypeScript does not look for them.
-const PDF_PARSE = 'pdf-parse/lib/pdf-parse.js';
-
 async function pdfOf(client: Client, path: string): Promise<{ text: string; pages: number }> {
   const res = await client
     .get(path)
@@ -34,9 +32,13 @@ async function pdfOf(client: Client, path: string): Promise<{ text: string; page
     })
     .expect(200)
     .expect('content-type', 'application/pdf');
-  const parse = (await import(PDF_PARSE)).default as (b: Buffer) => Promise<{ text: string; numpages: number }>;
-  const parsed = await parse(res.body as Buffer);
-  return { text: parsed.text.replace(/\s+/g, ' '), pages: parsed.numpages };
+  const parser = new PDFParse({ data: new Uint8Array(res.body as Buffer) });
+  try {
+    const parsed = await parser.getText();
+    return { text: parsed.text.replace(/\s+/g, ' '), pages: parsed.total };
+  } finally {
+    await parser.destroy();
+  }
 }
 
 beforeAll(async () => {
