@@ -16,6 +16,7 @@ import { SiteEtafSettings1796300002000 } from './migrations/1796300002000-site-e
 import { Hardening1796320000000 } from './migrations/1796320000000-hardening';
 import { RoleMonths1796330000000 } from './migrations/1796330000000-role-months';
 import { WateringRulesAndRepairs1796340000000 } from './migrations/1796340000000-watering-rules-and-repairs';
+import { BudgetCacheReasons1796360000000 } from './migrations/1796360000000-budget-cache-reasons';
 
 /** Every migration, in order (explicit imports, so bundled builds need no file globbing). Add new ones at the end. */
 export const MIGRATIONS: (new () => MigrationInterface)[] = [
@@ -36,4 +37,5 @@ export const MIGRATIONS: (new () => MigrationInterface)[] = [
   Hardening1796320000000,
   RoleMonths1796330000000,
   WateringRulesAndRepairs1796340000000,
+  BudgetCacheReasons1796360000000,
 ];
