@@ -26,6 +26,11 @@ export type ApiErrorCode =
   | 'rate_limited'
   | 'payload_too_large'
   | 'database_unavailable'
+  /**
+   * An upload whose numeric dates fit both day-first and month-first (or disagree): send it again with
+   * `dateOrder` (`day-first` or `month-first`); nothing was stored.
+   */
+  | 'date_order_ambiguous'
   /** A service Rillmark calls (e.g. the weather feed) did not answer or answered nonsense. */
   | 'upstream_unavailable'
   | 'internal_error';

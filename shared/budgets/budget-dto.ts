@@ -13,6 +13,8 @@ export interface OrganisationSettingsDto {
   organisationId: number;
   organisationName: string;
   unitSystem: UnitSystem;
+  /** The day/month order of the organisation's usual exports, used only for files whose dates fit both. */
+  dateOrder: 'month-first' | 'day-first' | null;
 }
 
 /** `none`, `fixed-fraction` (25 % by default) or `threshold` (5 mm by default); see weather/effective-rain.ts. */

@@ -9,6 +9,9 @@ import { parseVolumeUnit, type VolumeUnit } from '../units/volume-units';
 export type HeaderRole =
   | 'interval-slot'
   | 'unit'
+  | 'readType'
+  | 'multiplier'
+  | 'registerDigits'
   | 'intervalMinutes'
   | 'controller'
   | 'station'
@@ -45,6 +48,12 @@ const slotPatterns = [
 const rules: Array<[HeaderRole, RegExp]> = [
   ['unit', /^(?:unit|units|uom|unit of measure|measure unit|volume unit)$/],
   [
+    'readType',
+    /\b(?:read|reading|usage) ?(?:type|code|status|source|quality)\b|^(?:actual ?\/ ?estimated|est|estimated|quality|data quality|read flag)$/,
+  ],
+  ['multiplier', /\b(?:multiplier|mult|meter constant|register factor|read factor|meter factor)\b/],
+  ['registerDigits', /\b(?:dials|number of dials|register digits|digits|dial digits)\b/],
+  [
     'intervalMinutes',
     /\binterval (?:length|len|minutes|mins?|duration)\b|\binterval \((?:min|mins|minutes)\)|^(?:resolution|int min|interval min)$/,
   ],
@@ -55,8 +64,8 @@ const rules: Array<[HeaderRole, RegExp]> = [
     /\b(?:run ?time|runtime|duration|minutes run|mins run|watering (?:time|minutes))\b|^(?:minutes|mins|min)$/,
   ],
   ['cause', /\b(?:cause|reason|trigger|run type|event type|start type|origin)\b/],
-  ['end', /\b(?:end|ended|stop|stopped|finish|finished)\b/],
-  ['start', /\b(?:start|started|begin|began|beginning)\b/],
+  ['end', /\b(?:end|ended|stop|stopped|finish|finished|through|thru)\b|^to$|\b(?:current|present) (?:read )?date\b/],
+  ['start', /\b(?:start|started|begin|began|beginning|from)\b|\b(?:previous|prior|prev) (?:read )?date\b/],
   ['timestamp', /\b(?:timestamp|time stamp|date ?\/ ?time|datetime|date time|date and time|read at)\b/],
   ['date', /\b(?:date|day)\b/],
   ['time', /\b(?:time|hour|time of day)\b/],
@@ -68,6 +77,11 @@ const rules: Array<[HeaderRole, RegExp]> = [
   ],
   ['meter', /\b(?:meter|serial|device|service point|sp id|meter ?#)\b|#$/],
 ];
+
+/** A meter-like header that names the physical meter's serial rather than the account or service point. */
+export function isSerialHeader(header: string): boolean {
+  return /\bserial\b/.test(normaliseHeader(header));
+}
 
 /** The role a header most likely plays, ignoring which kind of file it is in. */
 export function classifyHeader(header: string): HeaderRole {
@@ -81,10 +95,10 @@ export function classifyHeader(header: string): HeaderRole {
 const unitRules: Array<[VolumeUnit, RegExp]> = [
   ['ccf', /\b(?:ccf|hcf|hundred cubic feet|100 ?cu ?ft|100 ?ft3)\b/],
   ['kgal', /\b(?:kgal|k ?gal|thousand gallons|1000 ?gal(?:lons)?|1,000 ?gal(?:lons)?)\b/],
-  ['acre-ft', /\b(?:acre ?-?f(?:ee|oo)?t|af)\b/],
+  ['acre-ft', /\b(?:acre ?-?f(?:ee|oo)?t|acre ?ft|af)\b/],
   ['acre-in', /\b(?:acre ?-?inch(?:es)?|acre ?-?in)\b/],
   ['gal', /\b(?:gal|gals|gallons?|us gal)\b/],
-  ['ft3', /\b(?:cf|cu ?ft|ft3|cubic f(?:ee|oo)t)\b|ft³/],
+  ['ft3', /\b(?:cf|cu ?ft|cu\.? ?ft|ft3|ft\^3|cubic f(?:ee|oo)t)\b|ft³/],
   ['m3', /\b(?:m3|cubic met(?:er|re)s?|cu ?m)\b|m³/],
   ['l', /\b(?:l|litres?|liters?)\b/],
 ];

@@ -8,6 +8,8 @@ export interface IntervalRecord {
   minutes: number;
   volume: number;
   unit: VolumeUnit;
+  /** The file marks the value estimated (a read-type column), or it comes from an estimated register read. */
+  estimated?: boolean;
 }
 
 export interface RegisterRecord {
@@ -15,6 +17,23 @@ export interface RegisterRecord {
   atUtc: string;
   value: number;
   unit: VolumeUnit;
+  /** The physical meter's serial when the file names it apart from the meter id; a change is a meter swap. */
+  serial?: string;
+  /** Register multiplier and dial digits as the file gives them (else the meter's settings apply). */
+  multiplier?: number;
+  digits?: number;
+  estimated?: boolean;
+}
+
+/** A billing period: usage between two dates (local, inclusive), as utility bills give it. */
+export interface BillingRecord {
+  meterRef: string;
+  /** `YYYY-MM-DD`, the first and last local day of the period. */
+  startDate: string;
+  endDate: string;
+  volume: number;
+  unit: VolumeUnit;
+  estimated?: boolean;
 }
 
 export const RUNTIME_CAUSES = ['scheduled', 'manual', 'skipped-rain', 'skipped-wind'] as const;
@@ -30,10 +49,17 @@ export interface RuntimeRecord {
   measuredGallons?: number;
 }
 
-export type IngestRecord = IntervalRecord | RegisterRecord | RuntimeRecord;
+export type IngestRecord = IntervalRecord | RegisterRecord | RuntimeRecord | BillingRecord;
+
+/** A meter or controller the row names that the site (or organisation) does not have. */
+export interface UnknownRef {
+  field: 'meter' | 'controller';
+  ref: string;
+}
 
 /** One row's (or one wide-row cell's) outcome. `row` and `column` are 1-based, as a spreadsheet shows them. */
 export type RowOutcome<R> =
-  { ok: true; record: R; warnings?: string[] } | { ok: false; row: number; column: number | null; message: string };
+  | { ok: true; record: R; warnings?: string[] }
+  | { ok: false; row: number; column: number | null; message: string; unknownRef?: UnknownRef };
 
 export type RowError = Extract<RowOutcome<unknown>, { ok: false }>;

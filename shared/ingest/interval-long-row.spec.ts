@@ -72,6 +72,7 @@ describe('createIntervalLongReader', () => {
       row: 5,
       column: 1,
       message: 'Meter #: unknown meter "HOA-SOUTH-99"; add it to the site or fix the file',
+      unknownRef: { field: 'meter', ref: 'HOA-SOUTH-99' },
     });
   });
 

@@ -1,6 +1,17 @@
 /** One-row-per-day interval files → interval records, one per interval column (see `wide-day-layout.ts`). */
 import { parseVolume } from './number-parsing';
-import { cellText, isBlankRow, nowMs, readRef, readUnit, rowError, toIso, type ReadOptions } from './row-cells';
+import {
+  cellText,
+  isBlankRow,
+  nowMs,
+  observeDate,
+  readRef,
+  readUnit,
+  rowError,
+  toIso,
+  zoneFor,
+  type ReadOptions,
+} from './row-cells';
 import { parseTimestamp } from './timestamp-parsing';
 import type { IntervalRecord, RowOutcome } from './ingest-records';
 import type { ColumnMapping } from './upload-kind';
@@ -26,18 +37,22 @@ export function createIntervalWideReader(mapping: ColumnMapping, options: ReadOp
       const meter = readRef(mapping, cells, row, 'meter', options);
       if (!meter.ok) return [meter];
       const dateCol = mapping.columns.date!;
-      const date = parseTimestamp(cellText(cells, dateCol));
+      const dateText = cellText(cells, dateCol);
+      const date = parseTimestamp(dateText, mapping.dateOrder);
+      observeDate(options.dateEvidence, date, row, dateText);
       if (!date.ok) return [rowError(mapping, row, dateCol, date.message)];
       if (date.kind !== 'wall' || date.wall.hour !== 0 || date.wall.minute !== 0) {
         return [rowError(mapping, row, dateCol, 'should be a local date (one row per day)')];
       }
-      const unit = readUnit(mapping, cells, row);
+      const unit = readUnit(mapping, cells, row, { ref: meter.ref, options });
       if (!unit.ok) return [unit];
 
-      const key = formatWallTime(date.wall);
+      const zone = zoneFor(options, meter.ref);
+      const day = formatWallTime(date.wall);
+      const key = `${day}|${zone}`;
       let layout = layouts.get(key);
       if (!layout) {
-        layout = layoutWideDay(date.wall, run.count, options.timeZone);
+        layout = layoutWideDay(date.wall, run.count, zone);
         layouts.set(key, layout);
       }
       if (!layout.ok) return [rowError(mapping, row, dateCol, layout.message)];
@@ -54,7 +69,7 @@ export function createIntervalWideReader(mapping: ColumnMapping, options: ReadOp
                 mapping,
                 row,
                 col,
-                `this clock time does not exist on ${key.slice(0, 10)} in ${options.timeZone} ` +
+                `this clock time does not exist on ${day.slice(0, 10)} in ${zone} ` +
                   '(clocks spring forward); it should be empty',
               ),
             );

@@ -24,13 +24,16 @@ export function springGapMessage(wall: WallTime, zone: string): string {
 }
 
 export interface InstantResolver {
-  /** Resolves a timestamp for the row sequence named by `key` (a meter, or a controller and station). */
-  resolve(key: string, parsed: ParsedOk): ResolvedInstant;
+  /**
+   * Resolves a timestamp for the row sequence named by `key` (a meter, or a controller and station), in `zone` (the
+   * resolver's own zone unless a file of many sites names the row's site zone).
+   */
+  resolve(key: string, parsed: ParsedOk, zone?: string): ResolvedInstant;
   /** Resolves a wall time to the first instant not before `notBeforeUtcMs` (a run's end after its start). */
-  resolveNotBefore(parsed: ParsedOk, notBeforeUtcMs: number): ResolvedInstant;
+  resolveNotBefore(parsed: ParsedOk, notBeforeUtcMs: number, zone?: string): ResolvedInstant;
 }
 
-export function createInstantResolver(zone: string): InstantResolver {
+export function createInstantResolver(defaultZone: string): InstantResolver {
   // Boxed so that moving a key's latest instant on (every row of a big file) is a field write, not a Map.set.
   const latestByKey = new Map<string, { ms: number }>();
 
@@ -41,7 +44,7 @@ export function createInstantResolver(zone: string): InstantResolver {
   };
 
   return {
-    resolve(key, parsed) {
+    resolve(key, parsed, zone = defaultZone) {
       if (parsed.kind === 'instant') {
         remember(key, parsed.utcMs);
         return { ok: true, utcMs: parsed.utcMs };
@@ -57,7 +60,7 @@ export function createInstantResolver(zone: string): InstantResolver {
       remember(key, utcMs);
       return { ok: true, utcMs };
     },
-    resolveNotBefore(parsed, notBeforeUtcMs) {
+    resolveNotBefore(parsed, notBeforeUtcMs, zone = defaultZone) {
       if (parsed.kind === 'instant') return { ok: true, utcMs: parsed.utcMs };
       const r = resolveLocalTime(parsed.wall, zone);
       if (r.kind === 'gap') return { ok: false, message: springGapMessage(parsed.wall, zone) };

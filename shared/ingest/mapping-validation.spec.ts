@@ -31,8 +31,9 @@ describe('validateMapping', () => {
     );
   });
 
-  it('no unit anywhere → unit problem', () => {
-    expect(validateMapping(longMapping({ unit: undefined })).map((p) => p.field)).toEqual(['unit']);
+  it("no unit anywhere is no problem: each meter's own unit is used; an unknown unit is", () => {
+    expect(validateMapping(longMapping({ unit: undefined }))).toEqual([]);
+    expect(validateMapping(longMapping({ unit: 'pints' as never })).map((p) => p.field)).toEqual(['unit']);
   });
 
   it('an interval length outside the accepted set → problem', () => {

@@ -37,9 +37,8 @@ export function validateMapping(mapping: ColumnMapping): MappingProblem[] {
     if (!has('meter') && !mapping.fixedMeterRef?.trim())
       problems.push(required('meter', ', or choose the meter for a single-meter file'));
   };
+  // Without a unit column or a chosen unit, each meter's own unit is used.
   const needsUnit = () => {
-    if (!has('unit') && !mapping.unit)
-      problems.push({ field: 'unit', message: 'Choose the unit column, or the unit the volumes are in.' });
     if (mapping.unit && !(VOLUME_UNITS as readonly string[]).includes(mapping.unit)) {
       problems.push({ field: 'unit', message: `Unknown unit "${mapping.unit}".` });
     }
@@ -84,6 +83,13 @@ export function validateMapping(mapping: ColumnMapping): MappingProblem[] {
     case 'register':
       needsMeter();
       needsTimestamp();
+      if (!has('value')) problems.push(required('value'));
+      needsUnit();
+      break;
+    case 'billing':
+      needsMeter();
+      if (!has('start')) problems.push({ field: 'start', message: "Choose the column with each period's first day." });
+      if (!has('end')) problems.push({ field: 'end', message: "Choose the column with each period's last day." });
       if (!has('value')) problems.push(required('value'));
       needsUnit();
       break;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { differenceRegisterReads, type RegisterPeriod } from './register-differencing';
+import { differenceRegisterReads, serialSwaps, type RegisterPeriod } from './register-differencing';
 import type { RegisterRecord } from './ingest-records';
 
 const read = (day: string, value: number, meterRef = 'M'): RegisterRecord => ({
@@ -112,5 +112,37 @@ describe('differenceRegisterReads', () => {
     ]);
     expect(out.volumes).toEqual([]);
     expect(out.problems.map((p) => p.kind)).toEqual(['unit-changed']);
+  });
+
+  it('a multiplier and digits read from the file win over the meter settings (a ×10 dial is not a rollover)', () => {
+    const x10 = (day: string, value: number) => ({ ...read(day, value), multiplier: 10, digits: 5 });
+    const out = differenceRegisterReads({ meterRef: 'M', registers: [register({ digits: 4 })] }, [
+      x10('06-01', 9950),
+      x10('07-01', 10012),
+    ]);
+    expect(out.problems).toEqual([]);
+    expect(out.volumes.map((v) => v.volume)).toEqual([620]);
+  });
+
+  it('a serial change is a swap: each serial is differenced on its own, usage across it counted once', () => {
+    const on = (serial: string, day: string, value: number, hour = '07') => ({
+      ...read(day, value),
+      atUtc: `2026-${day}T${hour}:00:00.000Z`,
+      serial,
+    });
+    const reads = [on('A-1', '06-01', 4500), on('A-1', '07-01', 4610), on('B-2', '07-01', 2), on('B-2', '08-01', 98)];
+    const out = differenceRegisterReads({ meterRef: 'M', registers: [register()] }, reads);
+    expect(out.volumes.map((v) => v.volume)).toEqual([110, 96]);
+    expect(out.problems.map((p) => [p.kind, p.severity])).toEqual([['meter-swap', 'notice']]);
+    expect(serialSwaps(reads)).toMatchObject([{ fromSerial: 'A-1', toSerial: 'B-2', initialReadUtc: reads[2]!.atUtc }]);
+  });
+
+  it('a volume with an estimated read at either end is estimated', () => {
+    const out = differenceRegisterReads({ meterRef: 'M', registers: [register()] }, [
+      read('06-01', 100),
+      { ...read('07-01', 150), estimated: true },
+      read('08-01', 210),
+    ]);
+    expect(out.volumes.map((v) => v.estimated ?? false)).toEqual([true, true]);
   });
 });

@@ -21,6 +21,7 @@ interface SampleFile {
   fileProblem?: string;
   mappingProblems?: string[];
   mappingOverrides?: Partial<ColumnMapping>;
+  dateOrder?: 'month-first' | 'day-first';
   checkKnownRefs?: boolean;
   differenced?: { volumes: number; rollovers: number; problems: string[] };
 }
@@ -51,6 +52,7 @@ function interpret(path: string, extra: Partial<Parameters<typeof interpretRows>
     now,
     delimiter,
     mappingOverrides: spec.mappingOverrides,
+    dateOrder: spec.dateOrder,
     knownRefs: spec.checkKnownRefs ? knownRefs : undefined,
     ...extra,
   });

@@ -1,5 +1,8 @@
 /** One entry point for streaming rows of any kind, and a whole-table interpretation for previews and tests. */
+import { createBillingReader } from './billing-row';
 import { detectColumns, type ColumnDetection } from './column-detection';
+import { collectDateEvidence } from './date-evidence';
+import { decideDateOrder, type DateOrder, type DateOrderDecision } from './date-order';
 import type { Delimiter } from './delimiter-sniffing';
 import { createIntervalLongReader } from './interval-long-row';
 import { createIntervalWideReader } from './interval-wide-row';
@@ -37,6 +40,8 @@ export function createRowReader(mapping: ColumnMapping, options: ReadOptions): R
       return single(createRuntimeReader(mapping, options));
     case 'interval-wide':
       return createIntervalWideReader(mapping, options);
+    case 'billing':
+      return single(createBillingReader(mapping, options));
   }
 }
 
@@ -48,6 +53,10 @@ export interface InterpretOptions extends ReadOptions {
   delimiter?: Delimiter;
   /** Rows given to column detection; 20 is enough to see the interval spacing. */
   sampleSize?: number;
+  /** Day/month order chosen for this file (wins over the file's own dates; a mapping's `dateOrder` counts too). */
+  dateOrder?: DateOrder;
+  /** The organisation's usual order, used only when the dates fit both. */
+  organisationDateOrder?: DateOrder | null;
 }
 
 export interface Interpretation {
@@ -56,6 +65,8 @@ export interface Interpretation {
   detection: ColumnDetection | null;
   mapping: ColumnMapping | null;
   mappingProblems: MappingProblem[];
+  /** What the rows given say about day/month order, and what was decided from it (null before detection). */
+  dateOrder: DateOrderDecision | null;
   records: IngestRecord[];
   errors: RowError[];
 }
@@ -70,6 +81,7 @@ export function interpretRows(rows: string[][], options: InterpretOptions): Inte
     detection: null,
     mapping: null,
     mappingProblems: [],
+    dateOrder: null,
     records: [],
     errors: [],
   };
@@ -82,13 +94,26 @@ export function interpretRows(rows: string[][], options: InterpretOptions): Inte
   if (data.every((r) => r.every((c) => c.trim() === '')))
     result.fileProblems.push('The file has a header but no data rows.');
 
-  result.detection = detectColumns(header!, data.slice(0, options.sampleSize ?? 20), { delimiter: options.delimiter });
-  const base = options.mapping ?? result.detection.mapping;
-  if (!base) {
+  const sample = data.slice(0, options.sampleSize ?? 20);
+  const detect = (dateOrder?: DateOrder) => detectColumns(header!, sample, { delimiter: options.delimiter, dateOrder });
+  result.detection = detect();
+  const first = options.mapping ?? result.detection.mapping;
+  if (!first) {
     result.fileProblems.push(`No known layout: ${result.detection.reasons.join(' ')}`);
     return result;
   }
+  // Day/month order from every row given; detection is repeated in that order (it reads the interval spacing).
+  const chosen = options.dateOrder ?? options.mapping?.dateOrder ?? options.mappingOverrides?.dateOrder;
+  result.dateOrder = decideDateOrder(collectDateEvidence(first, data), {
+    chosen,
+    organisationDefault: options.organisationDateOrder,
+  });
+  const order = result.dateOrder.kind === 'decided' ? result.dateOrder.order : chosen;
+  if (order && !options.mapping) result.detection = detect(order);
+  const base = options.mapping ?? result.detection.mapping ?? first;
   const mapping: ColumnMapping = { ...base, ...options.mappingOverrides };
+  if (order) mapping.dateOrder = order;
+  else delete mapping.dateOrder;
   result.mapping = mapping;
   // A header-only file is reported as such; asking for an interval length it cannot have would only confuse.
   if (result.fileProblems.length > 0) return result;

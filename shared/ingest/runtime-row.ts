@@ -1,7 +1,17 @@
 /** Irrigation-controller runtime logs → runtime records. */
 import { createInstantResolver } from './local-instant-resolver';
 import { parseNumber, parseVolume } from './number-parsing';
-import { cellText, isBlankRow, nowMs, readRef, readTimestamp, rowError, toIso, type ReadOptions } from './row-cells';
+import {
+  cellText,
+  isBlankRow,
+  nowMs,
+  readRef,
+  readTimestamp,
+  rowError,
+  toIso,
+  zoneFor,
+  type ReadOptions,
+} from './row-cells';
 import { parseTimestamp } from './timestamp-parsing';
 import type { RowOutcome, RuntimeCause, RuntimeRecord } from './ingest-records';
 import type { ColumnMapping } from './upload-kind';
@@ -41,9 +51,10 @@ export function createRuntimeReader(mapping: ColumnMapping, options: ReadOptions
       const station = cellText(cells, c.station);
       if (station === '') return rowError(mapping, row, c.station ?? null, 'the station is empty');
 
-      const start = readTimestamp(mapping, cells, row, 'start');
+      const start = readTimestamp(mapping, cells, row, 'start', options.dateEvidence);
       if (!start.ok) return start;
-      const startAt = resolver.resolve(`${controller.ref}\u0000${station}`, start.parsed);
+      const zone = zoneFor(options, controller.ref);
+      const startAt = resolver.resolve(`${controller.ref}\u0000${station}`, start.parsed, zone);
       if (!startAt.ok) return rowError(mapping, row, start.column, startAt.message);
       if (startAt.utcMs > now) return rowError(mapping, row, start.column, `${toIso(startAt.utcMs)} is in the future`);
 
@@ -57,11 +68,12 @@ export function createRuntimeReader(mapping: ColumnMapping, options: ReadOptions
         }
         minutes = parsed.value;
       } else {
-        const end = readTimestamp(mapping, cells, row, 'end');
+        // The date column (if any) was already counted with the start.
+        const end = readTimestamp(mapping, cells, row, 'end', c.date === undefined ? options.dateEvidence : undefined);
         if (!end.ok) return end;
         let parsedEnd = end.parsed;
         // Time-only end before time-only start on one date: the run crossed midnight.
-        const endAlone = parseTimestamp(cellText(cells, c.end));
+        const endAlone = parseTimestamp(cellText(cells, c.end), mapping.dateOrder);
         if (
           !endAlone.ok &&
           parsedEnd.kind === 'wall' &&
@@ -70,7 +82,7 @@ export function createRuntimeReader(mapping: ColumnMapping, options: ReadOptions
         ) {
           parsedEnd = { ...parsedEnd, wall: addWallMinutes(parsedEnd.wall, 24 * 60) };
         }
-        const endAt = resolver.resolveNotBefore(parsedEnd, startAt.utcMs);
+        const endAt = resolver.resolveNotBefore(parsedEnd, startAt.utcMs, zone);
         if (!endAt.ok) return rowError(mapping, row, end.column, endAt.message);
         minutes = (endAt.utcMs - startAt.utcMs) / 60_000;
         if (minutes < 0) return rowError(mapping, row, end.column, 'the run ends before it starts');

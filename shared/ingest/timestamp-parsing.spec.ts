@@ -100,6 +100,18 @@ describe('parseTimestamp', () => {
     expect(parseTimestamp('3/8/2026')).toMatchObject({ wall: wall(2026, 3, 8), dateOnly: true });
   });
 
+  it('day-first reads the same text the other way, and every numeric date reports its two fields', () => {
+    expect(parseTimestamp('13/06/2026 14:00', 'day-first')).toMatchObject({
+      wall: wall(2026, 6, 13, 14),
+      numericDate: { first: 13, second: 6 },
+    });
+    expect(parseTimestamp('08.06.2026', 'day-first')).toMatchObject({ wall: wall(2026, 6, 8), dateOnly: true });
+    expect(parseTimestamp('8-6-26', 'day-first')).toMatchObject({ wall: wall(2026, 6, 8) });
+    const refused = parseTimestamp('13/06/2026');
+    expect(refused).toMatchObject({ ok: false, numericDate: { first: 13, second: 6 } });
+    expect(!refused.ok && refused.message).toMatch(/read month-first/);
+  });
+
   it('spreadsheet serial dates (1900 system): 45292 = 2024-01-01, 45292.5 = noon', () => {
     expect(parseTimestamp('45292')).toEqual({ ok: true, kind: 'wall', wall: wall(2024, 1, 1), dateOnly: true });
     expect(parseTimestamp('45292.5')).toEqual({ ok: true, kind: 'wall', wall: wall(2024, 1, 1, 12), dateOnly: false });
@@ -112,7 +124,7 @@ describe('parseTimestamp', () => {
 
   it.each([
     ['2026-02-30', /calendar date/],
-    ['13/1/2026', /month\/day\/year/],
+    ['13/1/2026', /read month-first \(m\/d\/yyyy\)/],
     ['2026-11-01T25:00', /impossible time/],
     ['11/1/2026 13:00 PM', /AM\/PM/],
     ['123', /not a plausible spreadsheet date/],
@@ -155,6 +167,7 @@ describe('combineDateAndTime', () => {
       kind: 'wall',
       wall: wall(2026, 11, 8, 14, 30),
       dateOnly: false,
+      numericDate: { first: 11, second: 8 },
     });
   });
 

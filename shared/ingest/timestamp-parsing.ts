@@ -1,21 +1,29 @@
 /**
  * Timestamp cells → either an exact instant (the text carried `Z` or an offset) or a local wall time that the
  * caller resolves in the site's zone. Accepted: ISO 8601 (`2026-11-01T01:00`, `2026-11-01 01:00:00-07:00`,
- * `...Z`), date-only `yyyy-mm-dd`, US `m/d/yyyy h:mm AM/PM` and `m/d/yyyy HH:mm`, and spreadsheet serial dates
- * in the 1900 date system (45292 = 2024-01-01, 45292.5 = noon). Day-first dates (`d/m/yyyy`) are not accepted:
- * `3/8/2026` is read as 8 March, because the product serves US exports.
+ * `...Z`), date-only `yyyy-mm-dd`, numeric dates with `/`, `.` or `-` and a 4- or 2-digit year (`6/8/2026 1:00 PM`,
+ * `13.06.2026 14:00`, `08-06-26`), and spreadsheet serial dates in the 1900 date system (45292 = 2024-01-01,
+ * 45292.5 = noon). Numeric dates are read in the order given (month-first unless told otherwise); which order a
+ * file uses is decided from all of its dates (`date-order.ts`), so every numeric date reports its two fields.
  */
+import type { DateOrder } from './date-order';
 import { addWallMinutes, type WallTime } from './zoned-time';
+
+/** The two leading fields of a numeric date (`13/06/2026` → 13 and 6), for deciding the file's date order. */
+export interface NumericDateFields {
+  first: number;
+  second: number;
+}
 
 export type ParsedTimestamp =
   | { ok: true; kind: 'instant'; utcMs: number }
-  | { ok: true; kind: 'wall'; wall: WallTime; dateOnly: boolean }
-  | { ok: false; message: string };
+  | { ok: true; kind: 'wall'; wall: WallTime; dateOnly: boolean; numericDate?: NumericDateFields }
+  | { ok: false; message: string; numericDate?: NumericDateFields };
 
 export type ParsedTimeOfDay = { ok: true; minutes: number; seconds: number } | { ok: false; message: string };
 
 const iso = /^(\d{4})-(\d{2})-(\d{2})(?:[T ](\d{1,2}):(\d{2})(?::(\d{2})(?:\.\d+)?)?)?\s*(Z|[+-]\d{2}(?::?\d{2})?)?$/i;
-const us = /^(\d{1,2})\/(\d{1,2})\/(\d{4})(?:\s+(\d{1,2}):(\d{2})(?::(\d{2}))?\s*([AP]\.?M\.?)?)?$/i;
+const numeric = /^(\d{1,2})([/.-])(\d{1,2})\2(\d{4}|\d{2})(?:[\sT]+(\d{1,2}):(\d{2})(?::(\d{2}))?\s*([AP]\.?M\.?)?)?$/i;
 const serial = /^\d{1,7}(?:\.\d+)?$/;
 const clock = /^(\d{1,2}):(\d{2})(?::(\d{2}))?\s*([AP]\.?M\.?)?$/i;
 
@@ -120,8 +128,8 @@ function parsePlainIso(t: string): ParsedTimestamp | null {
   return { ok: true, kind: 'wall', wall: { year, month, day, hour, minute, second }, dateOnly: false };
 }
 
-/** Parses one timestamp cell (see the file comment for the accepted forms). */
-export function parseTimestamp(text: string): ParsedTimestamp {
+/** Parses one timestamp cell (see the file comment for the accepted forms); numeric dates in `order`. */
+export function parseTimestamp(text: string, order: DateOrder = 'month-first'): ParsedTimestamp {
   const t = text.trim();
   if (t === '') return { ok: false, message: 'is empty' };
   const plain = parsePlainIso(t);
@@ -141,15 +149,8 @@ export function parseTimestamp(text: string): ParsedTimestamp {
     return { ok: true, kind: 'wall', wall, dateOnly: !hasTime };
   }
 
-  m = us.exec(t);
-  if (m) {
-    const hasTime = m[4] !== undefined;
-    const hour = hasTime ? to24Hour(+m[4]!, m[7]) : 0;
-    if (hour === null) return fail('has an hour that does not fit AM/PM');
-    const wall = buildWall(+m[3]!, +m[1]!, +m[2]!, hour, hasTime ? +m[5]! : 0, m[6] ? +m[6] : 0);
-    if (typeof wall === 'string') return fail(`${wall} (dates are read as month/day/year)`);
-    return { ok: true, kind: 'wall', wall, dateOnly: !hasTime };
-  }
+  m = numeric.exec(t);
+  if (m) return parseNumericDate(m, order, t);
 
   if (serial.test(t)) {
     const value = Number(t);
@@ -157,7 +158,27 @@ export function parseTimestamp(text: string): ParsedTimestamp {
     return { ok: true, kind: 'wall', wall: spreadsheetSerialToWall(value), dateOnly: Number.isInteger(value) };
   }
 
-  return fail('is not a date/time this reader understands (ISO 8601, m/d/yyyy h:mm AM/PM, or a spreadsheet serial)');
+  return fail(
+    'is not a date/time this reader understands (ISO 8601, m/d/yyyy or d/m/yyyy with a time, or a spreadsheet serial)',
+  );
+}
+
+const ORDER_PATTERN: Record<DateOrder, string> = { 'month-first': 'm/d/yyyy', 'day-first': 'd/m/yyyy' };
+
+/** `first sep second sep year [time]`, read in `order`; two-digit years are 2000–2099. */
+function parseNumericDate(m: RegExpExecArray, order: DateOrder, text: string): ParsedTimestamp {
+  const numericDate = { first: +m[1]!, second: +m[3]! };
+  const failed = (why: string): ParsedTimestamp => ({ ok: false, message: `"${text}" ${why}`, numericDate });
+  const year = m[4]!.length === 2 ? 2000 + +m[4]! : +m[4]!;
+  const dayFirst = order === 'day-first';
+  const month = dayFirst ? numericDate.second : numericDate.first;
+  const day = dayFirst ? numericDate.first : numericDate.second;
+  const hasTime = m[5] !== undefined;
+  const hour = hasTime ? to24Hour(+m[5]!, m[8]) : 0;
+  if (hour === null) return failed('has an hour that does not fit AM/PM');
+  const wall = buildWall(year, month, day, hour, hasTime ? +m[6]! : 0, m[7] ? +m[7] : 0);
+  if (typeof wall === 'string') return failed(`${wall} when read ${order} (${ORDER_PATTERN[order]})`);
+  return { ok: true, kind: 'wall', wall, dateOnly: !hasTime, numericDate };
 }
 
 /** A time-of-day cell: `14:00`, `2:00 PM`, `14:00:00`, `24:00` (= end of day), or a spreadsheet fraction `0.5`. */
@@ -183,8 +204,12 @@ export function parseTimeOfDay(text: string): ParsedTimeOfDay {
 }
 
 /** A date cell followed by a separate time cell. The date cell must not carry its own time or offset. */
-export function combineDateAndTime(dateText: string, timeText: string): ParsedTimestamp {
-  const date = parseTimestamp(dateText);
+export function combineDateAndTime(
+  dateText: string,
+  timeText: string,
+  order: DateOrder = 'month-first',
+): ParsedTimestamp {
+  const date = parseTimestamp(dateText, order);
   if (!date.ok) return date;
   if (date.kind !== 'wall' || !date.dateOnly) {
     return { ok: false, message: `"${dateText.trim()}" should be a date only, since the time is in its own column` };
@@ -192,5 +217,6 @@ export function combineDateAndTime(dateText: string, timeText: string): ParsedTi
   const time = parseTimeOfDay(timeText);
   if (!time.ok) return time;
   const wall = addWallMinutes(date.wall, time.minutes);
-  return { ok: true, kind: 'wall', wall: { ...wall, second: time.seconds }, dateOnly: false };
+  const combined = { ...wall, second: time.seconds };
+  return { ok: true, kind: 'wall', wall: combined, dateOnly: false, numericDate: date.numericDate };
 }

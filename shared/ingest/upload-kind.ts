@@ -1,17 +1,20 @@
 // Ingest only recognises and carries the unit; conversions belong to shared/units (docs/references.md §5).
 import type { VolumeUnit } from '../units/volume-units';
+import type { DateOrder } from './date-order';
 
 /**
  * The shapes shared by every step of CSV interpretation: the kinds of upload, the column mapping a person
  * confirms, and the plain records the row readers produce. Pure types and tiny constants only.
  */
 
-export const UPLOAD_KINDS = ['interval-long', 'interval-wide', 'register', 'runtime'] as const;
+export const UPLOAD_KINDS = ['interval-long', 'interval-wide', 'register', 'runtime', 'billing'] as const;
 /**
- * - `interval-long`: one row per reading (meter, timestamp, volume; optional interval length).
- * - `interval-wide`: one row per local day (meter optional, date, then 24 or 96 interval columns).
- * - `register`: cumulative register reads (meter optional, timestamp, register value).
+ * - `interval-long`: one row per reading (meter, timestamp, volume; optional interval length, read type).
+ * - `interval-wide`: one row per local day (meter optional, date, then 24, 48 or 96 interval columns).
+ * - `register`: cumulative register reads (meter optional, timestamp, register value; optional serial,
+ *   multiplier, register digits, read type).
  * - `runtime`: irrigation-controller runs (controller, station, start, duration or end; optional cause, gallons).
+ * - `billing`: billing periods (meter optional, start date, end date, usage), spread over the period's days.
  */
 export type UploadKind = (typeof UPLOAD_KINDS)[number];
 
@@ -34,6 +37,10 @@ export const MAPPED_FIELDS = [
   'duration',
   'cause',
   'measuredGallons',
+  'serial',
+  'multiplier',
+  'registerDigits',
+  'readType',
 ] as const;
 export type MappedField = (typeof MAPPED_FIELDS)[number];
 
@@ -53,6 +60,10 @@ export const FIELD_LABELS: Record<MappedField, string> = {
   duration: 'run time (minutes)',
   cause: 'cause',
   measuredGallons: 'measured gallons',
+  serial: 'meter serial (register swaps)',
+  multiplier: 'register multiplier',
+  registerDigits: 'register digits',
+  readType: 'read type (actual / estimated)',
 };
 
 export interface ColumnMapping {
@@ -73,4 +84,6 @@ export interface ColumnMapping {
   decimalComma?: boolean;
   /** Long layout: the timestamp marks the END of each interval ("Interval End"), so start = stamp − minutes. */
   timestampMarksEnd?: boolean;
+  /** How numeric dates are read (`13/06/2026`); absent: decided from the file (see `date-order.ts`). */
+  dateOrder?: DateOrder;
 }

@@ -19,8 +19,29 @@ export interface MeterDto {
   /** ISO instants; null when not known. */
   installedAt: string | null;
   removedAt: string | null;
-  /** Earlier registers replaced in meter swaps, oldest first. */
-  previousRegisters: Array<{ installedAt: string; removedAt: string; multiplier: number; digits: number | null }>;
+  /** Earlier registers replaced in meter swaps, oldest first (`serial` and `uploadId` when an upload saw the swap). */
+  previousRegisters: Array<{
+    installedAt: string;
+    removedAt: string;
+    multiplier: number;
+    digits: number | null;
+    serial?: string | null;
+    uploadId?: number | null;
+  }>;
+}
+
+/** A meter swap entered by a person: the new register from `swappedAt` on, the old one kept as a period. */
+export interface MeterSwapInput {
+  swappedAt: string;
+  /** The new register's multiplier and digits (the old one's are kept with its period). */
+  multiplier: number;
+  digits: number | null;
+}
+
+/** A meter and the site it belongs to, for files that name meters of many sites. */
+export interface SiteMeterDto extends MeterDto {
+  siteName: string;
+  timeZone: string;
 }
 
 export type MeterInput = Omit<MeterDto, 'id' | 'siteId'>;

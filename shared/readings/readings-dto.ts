@@ -44,6 +44,7 @@ export interface HourlyGridDto {
   maxGallons: number;
 }
 
+/** `estimated`: some use comes from estimated reads; `from-bills`: some is a bill spread over its days. */
 export const MONTHLY_FLAGS = [
   'over-budget',
   'partial-data',
@@ -51,6 +52,8 @@ export const MONTHLY_FLAGS = [
   'no-budget',
   'weather-filled',
   'partial-budget',
+  'estimated',
+  'from-bills',
 ] as const;
 export type MonthlyFlag = (typeof MONTHLY_FLAGS)[number];
 
