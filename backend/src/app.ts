@@ -112,7 +112,14 @@ export function createApp({ config, db, mailer }: AppDeps): App {
     organisationSettings: organisations.settings,
   });
   const meters = createMeters(siteAccess);
-  const uploads = createUploads({ ...siteAccess, config, meters: meters.service, dailyUse: readings.dailyUse });
+  const uploads = createUploads({
+    ...siteAccess,
+    config,
+    meters: meters.service,
+    organisations: organisations.settings,
+    dailyWeather: weather.daily,
+    dailyUse: readings.dailyUse,
+  });
   const apiKeys = createApiKeys({ ...siteAccess, auth: auth.service });
   const savings = createSavings({
     ...siteAccess,

@@ -13,6 +13,8 @@ import { DailyUseRepository } from '../../backend/src/components/readings/data/d
 import { OrganisationEntity } from '../../backend/src/components/organisations/data/organisation.entity';
 import { SiteEntity } from '../../backend/src/components/sites/data/site.entity';
 import { createSites } from '../../backend/src/components/sites/sites-module';
+import { createOrganisations } from '../../backend/src/components/organisations/organisations-module';
+import { createWeather } from '../../backend/src/components/weather/weather-module';
 import { createUploads } from '../../backend/src/components/uploads/uploads-module';
 import { UsersRepository } from '../../backend/src/components/users/data/users-repository';
 import { UserEntity } from '../../backend/src/components/users/data/user.entity';
@@ -202,17 +204,33 @@ export async function seedMeters(
   const sites = createSites({ db, audit }).service;
   const metersService = createMeters({ db, sites, audit }).service;
   const dailyUse = new DailyUseRepository(db);
-  const importer = createUploads({ db, config, sites, meters: metersService, dailyUse, audit }).service;
+  const organisations = createOrganisations({ db, audit }).settings;
+  const weather = createWeather({ db, config, sites, audit });
+  const importer = createUploads({
+    db,
+    config,
+    sites,
+    meters: metersService,
+    organisations,
+    dailyWeather: weather.daily,
+    dailyUse,
+    audit,
+  }).service;
   const principal = (await auth.principal(adminUser.id, org.id))!;
   let uploads = 0;
   let readings = 0;
   for (const w of work) {
-    const result = await importer.ingest(principal, w.siteId, {
-      fileName: w.name,
-      file: Readable.from([Buffer.from(w.csv)]),
-      replaceConflicts: false,
-      rowErrors: 'keep-valid',
-    });
+    const result = await importer.ingest(
+      principal,
+      { siteId: w.siteId },
+      {
+        fileName: w.name,
+        file: Readable.from([Buffer.from(w.csv)]),
+        replaceConflicts: false,
+        rowErrors: 'keep-valid',
+        repeats: 'not-stored',
+      },
+    );
     if (result.outcome === 'imported') {
       uploads++;
       readings += result.upload.accepted;

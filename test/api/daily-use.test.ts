@@ -67,8 +67,24 @@ describe('daily use rollup', () => {
       const { siteId, start, end } = await meterWithHourlyReadings('America/Denver', '2026-05-31T06:00:00Z', 48, 5);
       await app.db.transaction((em) => rollup.refresh(em, siteId, start, end));
       expect(await rollup.monthly([siteId], '2026-05-01', '2026-06-30')).toEqual([
-        { siteId, month: '2026-05', gallons: 120, coveredMinutes: 1440, days: 1 },
-        { siteId, month: '2026-06', gallons: 120, coveredMinutes: 1440, days: 1 },
+        {
+          siteId,
+          month: '2026-05',
+          gallons: 120,
+          coveredMinutes: 1440,
+          days: 1,
+          estimatedGallons: 0,
+          spreadGallons: 0,
+        },
+        {
+          siteId,
+          month: '2026-06',
+          gallons: 120,
+          coveredMinutes: 1440,
+          days: 1,
+          estimatedGallons: 0,
+          spreadGallons: 0,
+        },
       ]);
       await app.db.query(
         'DELETE r FROM meter_reading r JOIN meter m ON m.id = r.meter_id WHERE m.site_id = ? AND r.start_utc >= ?',
@@ -110,7 +126,7 @@ describe('daily use rollup', () => {
             days: m.days + 1,
           });
         }
-        return [...byMonth].map(([month, m]) => ({ siteId, month, ...m }));
+        return [...byMonth].map(([month, m]) => ({ siteId, month, ...m, estimatedGallons: 0, spreadGallons: 0 }));
       };
       for (const [from, to] of [
         ['2026-03-01', '2026-06-30'],

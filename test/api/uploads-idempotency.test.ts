@@ -124,7 +124,9 @@ describe('re-uploads', () => {
   it("when an upload is rolled back, then exactly its rows go and another upload's stay", async () => {
     const siteId = await equippedSite();
     const a = await uploadFile(manager, siteId, 'meters/interval-long-hourly.csv').expect(201);
-    const b = await uploadFile(manager, siteId, 'meters/interval-long-date-time-columns.csv').expect(201);
+    const b = await uploadFile(manager, siteId, 'meters/interval-long-date-time-columns.csv', {
+      dateOrder: 'month-first',
+    }).expect(201);
     const runs = await uploadFile(manager, siteId, 'runtime/runtime-start-duration.csv').expect(201);
     await manager.post(`/api/uploads/${a.body.upload.id}/rollback`).expect(200);
     const left = await siteReadings(app.db, siteId);

@@ -38,6 +38,7 @@ describe('every sample file imports with the counts samples/catalogue.json gives
     const fields: Record<string, string> = spec.mappingOverrides
       ? { overrides: JSON.stringify(spec.mappingOverrides) }
       : {};
+    if (spec.dateOrder) fields['dateOrder'] = spec.dateOrder;
     const res = await uploadFile(manager, siteId, path, fields);
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     const upload = res.body.upload;

@@ -28,6 +28,9 @@ export interface CatalogueFile {
   fileProblem?: string;
   mappingProblems?: string[];
   mappingOverrides?: Record<string, unknown>;
+  checkKnownRefs?: boolean;
+  /** The day/month order a person chooses for a file whose dates fit both. */
+  dateOrder?: 'month-first' | 'day-first';
   differenced?: { volumes: number; rollovers: number; problems: string[] };
 }
 

@@ -34,6 +34,9 @@ import { ImportProfileEntity } from '../components/uploads/data/import-profile.e
 import { UploadRejectionEntity } from '../components/uploads/data/upload-rejection.entity';
 import { UploadReplacementEntity } from '../components/uploads/data/upload-replacement.entity';
 import { UploadEntity } from '../components/uploads/data/upload.entity';
+import { UploadSiteEntity } from '../components/uploads/data/upload-site.entity';
+import { UploadConflictEntity } from '../components/uploads/data/upload-conflict.entity';
+import { MeterBillingPeriodEntity } from '../components/readings/data/meter-billing-period.entity';
 import { SavingsProjectEntity } from '../components/savings/data/savings-project.entity';
 import { ComplianceNoticeEntity } from '../components/reports/data/compliance-notice.entity';
 import { FieldAuditEntity } from '../components/field-audits/data/field-audit.entity';
@@ -68,10 +71,13 @@ export const ENTITIES = [
   MeterRegisterPeriodEntity,
   MeterReadingEntity,
   MeterRegisterReadEntity,
+  MeterBillingPeriodEntity,
   ControllerEntity,
   ZoneEntity,
   RuntimeEventEntity,
   UploadEntity,
+  UploadSiteEntity,
+  UploadConflictEntity,
   UploadRejectionEntity,
   UploadReplacementEntity,
   ImportProfileEntity,

@@ -10,6 +10,7 @@ import { Watch1796215000000 } from './migrations/1796215000000-watch';
 import { Reports1796220000000 } from './migrations/1796220000000-reports';
 import { MonthlyUse1796240000000 } from './migrations/1796240000000-monthly-use';
 import { WatchImperfectData1796250000000 } from './migrations/1796250000000-watch-imperfect-data';
+import { IngestDecisions1796260000000 } from './migrations/1796260000000-ingest-decisions';
 import { FieldAudits1796300000000 } from './migrations/1796300000000-field-audits';
 import { WhatIfPlans1796300001000 } from './migrations/1796300001000-what-if-plans';
 import { SiteEtafSettings1796300002000 } from './migrations/1796300002000-site-etaf-settings';
@@ -31,6 +32,7 @@ export const MIGRATIONS: (new () => MigrationInterface)[] = [
   DashboardIndexes1796230000000,
   MonthlyUse1796240000000,
   WatchImperfectData1796250000000,
+  IngestDecisions1796260000000,
   FieldAudits1796300000000,
   WhatIfPlans1796300001000,
   SiteEtafSettings1796300002000,

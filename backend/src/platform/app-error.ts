@@ -8,6 +8,7 @@ const STATUS: Record<ApiErrorCode, number> = {
   conflict: 409,
   csrf_invalid: 403,
   payload_too_large: 413,
+  date_order_ambiguous: 422,
   rate_limited: 429,
   internal_error: 500,
   database_unavailable: 503,

@@ -15,6 +15,7 @@ declare global {
 /** What a key may call: send a file to one of its sites, and follow that upload. */
 const MACHINE_ROUTES: Array<[method: string, path: RegExp]> = [
   ['POST', /^\/sites\/\d+\/uploads\/?$/],
+  ['POST', /^\/uploads\/?$/],
   ['GET', /^\/uploads\/\d+\/?$/],
 ];
 
@@ -30,7 +31,8 @@ export function apiKeyAuth(keys: ApiKeysService): RequestHandler {
     if (!caller) throw new AppError('unauthenticated', 'The API key is not valid or has been revoked.');
     if (!MACHINE_ROUTES.some(([method, path]) => req.method === method && path.test(req.path))) {
       throw AppError.forbidden(
-        'An API key can only send uploads (POST /api/sites/:id/uploads) and read their status (GET /api/uploads/:id).',
+        'An API key can only send uploads (POST /api/sites/:id/uploads, or POST /api/uploads for all its sites) ' +
+          'and read their status (GET /api/uploads/:id).',
       );
     }
     req.user = caller.principal;

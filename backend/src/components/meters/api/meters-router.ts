@@ -56,6 +56,11 @@ const controllerBody = z.strictObject({
   name: z.string().trim().min(1, 'is required').max(120),
   zones: z.array(zoneBody).max(200).optional(),
 });
+const swapBody = z.strictObject({
+  swappedAt: instant,
+  multiplier: z.number().positive().default(1),
+  digits: z.number().int().min(1).max(12).nullable().default(null),
+});
 const meterParams = z.object({ id: z.coerce.number().int().positive(), meterId: z.coerce.number().int().positive() });
 const zonePatch = z
   .strictObject({
@@ -94,6 +99,10 @@ export function metersRouter(meters: MetersService): Router {
   router.patch('/sites/:id/meters/:meterId', async (req, res) => {
     const { id, meterId } = validate(meterParams, req.params);
     res.json(await meters.updateMeter(principalOf(req), id, meterId, validate(meterPatch, req.body, 'Meter')));
+  });
+  router.post('/sites/:id/meters/:meterId/swaps', async (req, res) => {
+    const { id, meterId } = validate(meterParams, req.params);
+    res.status(201).json(await meters.recordSwap(principalOf(req), id, meterId, validate(swapBody, req.body, 'Swap')));
   });
   router.delete('/sites/:id/meters/:meterId', async (req, res) => {
     const { id, meterId } = validate(meterParams, req.params);

@@ -1,9 +1,13 @@
 import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
 import { MeterEntity } from './meter.entity';
 
-/** An earlier register of a meter, replaced in a meter swap; register reads are never differenced across two. */
+/**
+ * An earlier register of a meter, replaced in a meter swap; register reads are never differenced across two. A swap
+ * an upload recognised (the serial changed) names that upload, and goes when it is rolled back.
+ */
 @Entity({ name: 'meter_register_period' })
 @Index('ix_meter_register_period_meter', ['meterId', 'installedAt'])
+@Index('ix_meter_register_period_upload', ['uploadId'])
 export class MeterRegisterPeriodEntity {
   @PrimaryGeneratedColumn({ type: 'int', unsigned: true })
   id!: number;
@@ -26,4 +30,10 @@ export class MeterRegisterPeriodEntity {
 
   @Column({ type: 'tinyint', unsigned: true, nullable: true })
   digits!: number | null;
+
+  @Column({ type: 'varchar', length: 64, nullable: true })
+  serial!: string | null;
+
+  @Column({ type: 'int', unsigned: true, name: 'upload_id', nullable: true })
+  uploadId!: number | null;
 }

@@ -13,7 +13,18 @@ export class MetersRepository {
   constructor(private readonly db: DataSource) {}
 
   async meters(siteId: number): Promise<MeterDto[]> {
-    const rows = await this.db.getRepository(MeterEntity).find({ where: { siteId }, order: { ref: 'ASC' } });
+    return this.metersOf([siteId]);
+  }
+
+  /** The meters of several sites (a file for a whole organisation). */
+  async metersOf(siteIds: number[]): Promise<MeterDto[]> {
+    if (siteIds.length === 0) return [];
+    const rows = await this.db
+      .getRepository(MeterEntity)
+      .createQueryBuilder('m')
+      .where('m.site_id IN (:...siteIds)', { siteIds })
+      .orderBy('m.ref', 'ASC')
+      .getMany();
     if (rows.length === 0) return [];
     const periods = await this.db
       .getRepository(MeterRegisterPeriodEntity)
@@ -39,6 +50,8 @@ export class MetersRepository {
           removedAt: p.removedAt.toISOString(),
           multiplier: p.multiplier,
           digits: p.digits,
+          serial: p.serial,
+          uploadId: p.uploadId,
         })),
     }));
   }
@@ -107,10 +120,72 @@ export class MetersRepository {
     }
   }
 
+  /**
+   * Records a swap: the current register becomes a period ending at `at` and the meter's current register starts
+   * there with the new multiplier and digits. `uploadId` when an upload saw it (undone with that upload).
+   */
+  async recordSwap(
+    em: EntityManager,
+    meterId: number,
+    swap: {
+      at: Date;
+      multiplier: number | null;
+      digits: number | null;
+      oldSerial: string | null;
+      uploadId: number | null;
+    },
+  ): Promise<void> {
+    const meter = await em.getRepository(MeterEntity).findOneByOrFail({ id: meterId });
+    await em.getRepository(MeterRegisterPeriodEntity).insert({
+      meterId,
+      installedAt: meter.installedAt ?? new Date(0),
+      removedAt: swap.at,
+      multiplier: meter.registerMultiplier,
+      digits: meter.registerDigits,
+      serial: swap.oldSerial,
+      uploadId: swap.uploadId,
+    });
+    await em.getRepository(MeterEntity).update(
+      { id: meterId },
+      {
+        installedAt: swap.at,
+        registerMultiplier: swap.multiplier ?? meter.registerMultiplier,
+        registerDigits: swap.digits === null ? meter.registerDigits : swap.digits,
+      },
+    );
+  }
+
+  /** Undoes the swaps an upload recorded, newest first: each meter gets its earlier register back. */
+  async undoUploadSwaps(em: EntityManager, uploadId: number): Promise<number> {
+    const periods = await em
+      .getRepository(MeterRegisterPeriodEntity)
+      .find({ where: { uploadId }, order: { installedAt: 'DESC' } });
+    for (const p of periods) {
+      await em.getRepository(MeterEntity).update(
+        { id: p.meterId },
+        {
+          installedAt: p.installedAt.getTime() === 0 ? null : p.installedAt,
+          registerMultiplier: p.multiplier,
+          registerDigits: p.digits,
+        },
+      );
+      await em.getRepository(MeterRegisterPeriodEntity).delete({ id: p.id });
+    }
+    return periods.length;
+  }
+
   async controllers(siteId: number): Promise<ControllerDto[]> {
+    return this.controllersOf([siteId]);
+  }
+
+  async controllersOf(siteIds: number[]): Promise<ControllerDto[]> {
+    if (siteIds.length === 0) return [];
     const controllers = await this.db
       .getRepository(ControllerEntity)
-      .find({ where: { siteId }, order: { ref: 'ASC' } });
+      .createQueryBuilder('c')
+      .where('c.site_id IN (:...siteIds)', { siteIds })
+      .orderBy('c.ref', 'ASC')
+      .getMany();
     if (controllers.length === 0) return [];
     const zones = await this.db
       .getRepository(ZoneEntity)

@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
-import type { ControllerDto, MeterDto, MeterInput, ZoneInput } from '@shared/meters/meter';
+import type { EntityManager } from 'typeorm';
+import type { ControllerDto, MeterDto, MeterInput, MeterSwapInput, ZoneInput } from '@shared/meters/meter';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
 import type { AuditRepository } from '../../audit/data/audit-repository';
@@ -83,9 +84,56 @@ export class MetersService {
     });
   }
 
-  /** For components that already checked access (uploads): everything a site's files can refer to. */
-  async equipment(siteId: number): Promise<{ meters: MeterDto[]; controllers: ControllerDto[] }> {
-    return { meters: await this.repo.meters(siteId), controllers: await this.repo.controllers(siteId) };
+  /** For components that already checked access (uploads): everything the sites' files can refer to. */
+  async equipment(siteIds: number[]): Promise<{ meters: MeterDto[]; controllers: ControllerDto[] }> {
+    return { meters: await this.repo.metersOf(siteIds), controllers: await this.repo.controllersOf(siteIds) };
+  }
+
+  /**
+   * A meter swap entered on the meter form: the current register is kept as a period ending at `swappedAt`, and
+   * the new register (multiplier, digits) starts then. Register reads are never differenced across the two.
+   */
+  async recordSwap(principal: Principal, siteId: number, meterId: number, input: MeterSwapInput): Promise<MeterDto> {
+    const site = await this.sites.requireLevel(principal, siteId, 'contribute');
+    const meter = (await this.repo.meters(siteId)).find((m) => m.id === meterId);
+    if (!meter) throw AppError.notFound('Meter');
+    const at = new Date(input.swappedAt);
+    const after = [meter.installedAt, ...meter.previousRegisters.map((p) => p.removedAt)].filter(Boolean) as string[];
+    if (after.some((iso) => Date.parse(iso) >= at.getTime()))
+      throw AppError.invalid('swappedAt', "must be after the current register's installation and any earlier swap");
+    if (at.getTime() > Date.now()) throw AppError.invalid('swappedAt', 'must not be in the future');
+    await this.db.transaction(async (em) => {
+      await this.repo.recordSwap(em, meterId, {
+        at,
+        multiplier: input.multiplier,
+        digits: input.digits,
+        oldSerial: null,
+        uploadId: null,
+      });
+      await this.audit.record(em, {
+        userId: principal.userId,
+        organisationId: site.organisationId,
+        entity: 'meter',
+        entityId: meterId,
+        action: 'swap',
+        changes: input,
+      });
+    });
+    return (await this.repo.meters(siteId)).find((m) => m.id === meterId)!;
+  }
+
+  /** A swap an upload recognised (the serial changed), inside the upload's transaction; undone with it. */
+  recordSwapFromUpload(
+    em: EntityManager,
+    meterId: number,
+    swap: { at: Date; multiplier: number | null; digits: number | null; oldSerial: string; uploadId: number },
+  ): Promise<void> {
+    return this.repo.recordSwap(em, meterId, swap);
+  }
+
+  /** Rolling an upload back: the swaps it recorded go, newest first. */
+  undoUploadSwaps(em: EntityManager, uploadId: number): Promise<number> {
+    return this.repo.undoUploadSwaps(em, uploadId);
   }
 
   async controllers(principal: Principal, siteId: number): Promise<ControllerDto[]> {

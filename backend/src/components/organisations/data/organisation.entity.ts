@@ -17,6 +17,10 @@ export class OrganisationEntity {
   @Column({ type: 'enum', enum: ['us', 'metric'], default: 'us', name: 'unit_system' })
   unitSystem!: UnitSystem;
 
+  /** The day/month order of the organisation's usual exports, for files whose dates fit both. */
+  @Column({ type: 'enum', enum: ['month-first', 'day-first'], name: 'date_order', nullable: true })
+  dateOrder!: 'month-first' | 'day-first' | null;
+
   @CreateDateColumn({ type: 'datetime', precision: 3, name: 'created_at' })
   createdAt!: Date;
 }

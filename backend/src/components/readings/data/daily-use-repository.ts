@@ -1,4 +1,5 @@
 import type { DataSource, EntityManager } from 'typeorm';
+import { READING_FLAGS, SPREAD_FLAGS } from '@shared/readings/reading-flags';
 import { addMonths, lastDayOfMonth } from '@shared/portfolio/period';
 import { addDays } from '@shared/weather/day-of-year';
 
@@ -15,6 +16,9 @@ export interface MonthlyUse {
   gallons: number;
   coveredMinutes: number;
   days: number;
+  /** Of `gallons`: from estimated reads, and spread from billing periods. */
+  estimatedGallons: number;
+  spreadGallons: number;
 }
 
 const DAY_MS = 86_400_000;
@@ -52,8 +56,11 @@ export class DailyUseRepository {
     ]);
     // A UTC window one day wider on each side holds every reading of those local days; HAVING trims it.
     await em.query(
-      `INSERT INTO site_daily_use (site_id, local_date, gallons, covered_minutes, reading_count)
-       SELECT m.site_id, DATE(CONVERT_TZ(r.start_utc, '+00:00', ?)) AS d, SUM(r.volume_gal), SUM(r.minutes), COUNT(*)
+      `INSERT INTO site_daily_use (site_id, local_date, gallons, covered_minutes, reading_count, estimated_gal,
+        spread_gal)
+       SELECT m.site_id, DATE(CONVERT_TZ(r.start_utc, '+00:00', ?)) AS d, SUM(r.volume_gal), SUM(r.minutes), COUNT(*),
+        SUM(IF(r.flags & ${READING_FLAGS.estimated}, r.volume_gal, 0)),
+        SUM(IF(r.flags & ${SPREAD_FLAGS}, r.volume_gal, 0))
        FROM meter_reading r JOIN meter m ON m.id = r.meter_id
        WHERE m.site_id = ? AND r.start_utc >= ? AND r.start_utc < ?
        GROUP BY m.site_id, d
@@ -70,6 +77,19 @@ export class DailyUseRepository {
       [uploadId],
     );
     return span?.first && span.last ? { from: new Date(span.first), to: new Date(span.last) } : null;
+  }
+
+  /** Per site, the time span of the readings one upload stored (an organisation's upload writes to several). */
+  async uploadSpansBySite(
+    em: EntityManager,
+    uploadId: number,
+  ): Promise<Array<{ siteId: number; from: Date; to: Date }>> {
+    const rows: { site_id: number; first: Date; last: Date }[] = await em.query(
+      `SELECT m.site_id, MIN(r.start_utc) AS first, MAX(r.start_utc) AS last FROM meter_reading r JOIN meter m ON
+        m.id = r.meter_id WHERE r.upload_id = ? GROUP BY m.site_id`,
+      [uploadId],
+    );
+    return rows.map((r) => ({ siteId: Number(r.site_id), from: new Date(r.first), to: new Date(r.last) }));
   }
 
   /** Rebuilds a whole site's rollup (seeding, repairs). */
@@ -111,8 +131,8 @@ export class DailyUseRepository {
     const params: unknown[] = [];
     if (firstWhole <= lastWhole) {
       parts.push(
-        `SELECT site_id, month, gallons, covered_minutes, days FROM site_monthly_use WHERE site_id
-          IN (?) AND month BETWEEN ? AND ?`,
+        `SELECT site_id, month, gallons, covered_minutes, days, estimated_gal, spread_gal FROM site_monthly_use
+          WHERE site_id IN (?) AND month BETWEEN ? AND ?`,
       );
       params.push(siteIds, firstWhole, lastWhole);
     }
@@ -127,14 +147,15 @@ export class DailyUseRepository {
     for (const [from, to] of dayRanges) {
       if (!from || !to || to < from) continue;
       parts.push(`SELECT site_id, DATE_FORMAT(local_date, '%Y-%m') AS month, SUM(gallons) AS
-        gallons, SUM(covered_minutes) AS covered_minutes, COUNT(*) AS days
+        gallons, SUM(covered_minutes) AS covered_minutes, COUNT(*) AS days, SUM(estimated_gal) AS estimated_gal,
+        SUM(spread_gal) AS spread_gal
                   FROM site_daily_use WHERE site_id IN (?) AND local_date BETWEEN ? AND ? GROUP BY
         site_id, month`);
       params.push(siteIds, from, to);
     }
     const rows: Record<string, unknown>[] = await this.db.query(
       `SELECT site_id AS siteId, month, SUM(gallons) AS gallons, SUM(covered_minutes) AS
-        coveredMinutes, SUM(days) AS days
+        coveredMinutes, SUM(days) AS days, SUM(estimated_gal) AS estimatedGallons, SUM(spread_gal) AS spreadGallons
        FROM (${parts.join(' UNION ALL ')}) AS u
        GROUP BY site_id, month ORDER BY site_id, month`,
       params,
@@ -145,6 +166,8 @@ export class DailyUseRepository {
       gallons: Number(r['gallons']),
       coveredMinutes: Number(r['coveredMinutes']),
       days: Number(r['days']),
+      estimatedGallons: Number(r['estimatedGallons']),
+      spreadGallons: Number(r['spreadGallons']),
     }));
   }
 }
@@ -162,8 +185,9 @@ export async function refreshMonths(
     toMonth,
   ]);
   await em.query(
-    `INSERT INTO site_monthly_use (site_id, month, gallons, covered_minutes, days)
-     SELECT site_id, DATE_FORMAT(local_date, '%Y-%m') AS m, SUM(gallons), SUM(covered_minutes), COUNT(*)
+    `INSERT INTO site_monthly_use (site_id, month, gallons, covered_minutes, days, estimated_gal, spread_gal)
+     SELECT site_id, DATE_FORMAT(local_date, '%Y-%m') AS m, SUM(gallons), SUM(covered_minutes), COUNT(*),
+      SUM(estimated_gal), SUM(spread_gal)
      FROM site_daily_use WHERE site_id = ? AND local_date BETWEEN ? AND ? GROUP BY site_id, m`,
     [siteId, `${fromMonth}-01`, lastDayOfMonth(toMonth)],
   );

@@ -35,4 +35,8 @@ export class MeterReadingEntity {
 
   @Column({ type: 'int', unsigned: true, name: 'upload_id' })
   uploadId!: number;
+
+  /** `READING_FLAGS`: estimated, spread from a bill by ETo, spread evenly. */
+  @Column({ type: 'tinyint', unsigned: true, default: 0 })
+  flags!: number;
 }

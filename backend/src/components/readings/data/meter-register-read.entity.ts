@@ -30,4 +30,17 @@ export class MeterRegisterReadEntity {
 
   @Column({ type: 'int', unsigned: true, name: 'upload_id' })
   uploadId!: number;
+
+  /** What the file said beside the read: the physical meter's serial, multiplier, dial digits, estimated. */
+  @Column({ type: 'varchar', length: 64, nullable: true })
+  serial!: string | null;
+
+  @Column({ type: 'double', nullable: true })
+  multiplier!: number | null;
+
+  @Column({ type: 'tinyint', unsigned: true, nullable: true })
+  digits!: number | null;
+
+  @Column({ type: 'tinyint', unsigned: true, default: 0 })
+  estimated!: number;
 }

@@ -23,6 +23,13 @@ export class SiteDailyUseEntity {
   @Column({ type: 'int', unsigned: true, name: 'reading_count' })
   readingCount!: number;
 
+  /** Of `gallons`: from estimated reads, and spread from billing periods. */
+  @Column({ type: 'decimal', precision: 16, scale: 4, name: 'estimated_gal', default: 0 })
+  estimatedGal!: string;
+
+  @Column({ type: 'decimal', precision: 16, scale: 4, name: 'spread_gal', default: 0 })
+  spreadGal!: string;
+
   @UpdateDateColumn({ type: 'datetime', precision: 3, name: 'updated_at' })
   updatedAt!: Date;
 }

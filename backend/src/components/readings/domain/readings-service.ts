@@ -214,6 +214,8 @@ function monthRow(
   if ((b?.filledDays ?? 0) > 0) flags.push('weather-filled');
   // The cache keeps a partial month's budget for its covered days, with the note in `problem`.
   if (budgetGallons !== null && b?.problem) flags.push('partial-budget');
+  if ((u?.estimatedGallons ?? 0) > 0) flags.push('estimated');
+  if ((u?.spreadGallons ?? 0) > 0) flags.push('from-bills');
   return {
     month,
     useGallons,

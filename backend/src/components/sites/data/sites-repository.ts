@@ -87,6 +87,12 @@ export class SitesRepository {
     return toRecord(raw, organisationId);
   }
 
+  /** Every site the organisation sees (an organisation's upload routes rows among them). */
+  async allVisible(organisationId: number): Promise<SiteRecord[]> {
+    const raw = await withColumns(this.visible(organisationId)).orderBy('s.name', 'ASC').getRawMany();
+    return raw.map((r) => toRecord(r, organisationId));
+  }
+
   async tags(organisationId: number): Promise<string[]> {
     const rows = await this.visible(organisationId)
       .innerJoin(SiteTagEntity, 't', 't.site_id = s.id')

@@ -60,6 +60,12 @@ export class SitesService {
     return record;
   }
 
+  /** Every visible site on which the user has at least `needed` (e.g. where an organisation's file may write). */
+  async sitesAtLevel(principal: Principal, needed: SiteLevel): Promise<SiteRecord[]> {
+    const all = await this.sites.allVisible(principal.organisationId);
+    return all.filter((r) => atLeast(siteLevel(principal.role, r.relation), needed));
+  }
+
   async create(principal: Principal, input: SiteInput): Promise<SiteDto> {
     if (!capabilities(principal.role).createSites)
       throw AppError.forbidden('Only administrators and managers can create sites.');

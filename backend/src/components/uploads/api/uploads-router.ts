@@ -1,10 +1,12 @@
-import { Router, type Request } from 'express';
+import { Router, type Request, type Response } from 'express';
 import { z } from 'zod';
+import { DATE_ORDERS } from '@shared/ingest/date-order';
 import { UPLOAD_KINDS } from '@shared/ingest/upload-kind';
-import { ROW_ERROR_POLICIES, type RejectionDto } from '@shared/uploads/upload';
+import { IN_FILE_REPEAT_POLICIES, ROW_ERROR_POLICIES, type UploadDto } from '@shared/uploads/upload';
 import { AppError } from '../../../platform/app-error';
 import { principalOf } from '../../../platform/auth/guards';
-import { idParam, validate } from '../../../platform/validation';
+import { idParam, pageQuerySchema, validate } from '../../../platform/validation';
+import type { UploadTarget } from '../domain/upload-scope';
 import type { UploadsService } from '../domain/uploads-service';
 import { mappingSchema, overridesSchema } from './mapping-schema';
 import { receiveUpload } from './multipart-upload';
@@ -32,46 +34,33 @@ const uploadFields = z.strictObject({
     .default('false')
     .transform((v) => v === 'true'),
   rowErrors: z.enum(ROW_ERROR_POLICIES).default('keep-valid'),
+  repeats: z.enum(IN_FILE_REPEAT_POLICIES).default('not-stored'),
+  dateOrder: z.enum(DATE_ORDERS).optional(),
   clientRef: z
     .string()
     .regex(/^[A-Za-z0-9_-]{1,40}$/, 'must be 1–40 letters, digits, - or _')
     .optional(),
 });
-const listQuery = z.object({
-  page: z.coerce.number().int().min(0).default(0),
-  pageSize: z.coerce.number().int().min(1).max(200).default(25),
-  clientRef: z.string().max(40).optional(),
-});
-const rejectionsQuery = z.object({
-  format: z.enum(['json', 'csv']).default('json'),
-  offset: z.coerce.number().int().min(0).default(0),
-  limit: z.coerce.number().int().min(1).max(10_000).default(200),
-});
+const listQuery = pageQuerySchema(['created'], 'created').extend({ clientRef: z.string().max(40).optional() });
 
 /** An API key reaches only its own sites; anything else looks like it does not exist. */
-function assertKeyScope(req: Request, siteId: number): void {
-  if (req.apiKey && !req.apiKey.siteIds.includes(siteId)) throw AppError.notFound('Site');
+export function assertKeyScope(req: Request, siteIds: number[]): void {
+  if (req.apiKey && siteIds.some((id) => !req.apiKey!.siteIds.includes(id))) throw AppError.notFound('Upload');
 }
 
-/** A CSV cell; text that a spreadsheet would run as a formula (file content echoed in messages) is defused with `'`. */
-function csvCell(value: string | number | null): string {
-  const raw = value === null ? '' : String(value);
-  const text = typeof value === 'string' && /^[=+\-@\t\r]/.test(raw) ? `'${raw}` : raw;
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
+const sitesOf = (upload: UploadDto) => (upload.siteId !== null ? [upload.siteId] : upload.sites.map((s) => s.siteId));
 
-/** /api/sites/:id/uploads and /api/uploads/:id… */
+/** /api/sites/:id/uploads (one site's files), /api/uploads (an organisation's files), /api/uploads/:id */
 export function uploadsRouter(uploads: UploadsService, maxBytes: number): Router {
   const router = Router();
 
-  router.post('/sites/:id/uploads', async (req, res) => {
-    const { id } = validate(idParam, req.params);
+  const send = (target: (req: Request) => UploadTarget) => async (req: Request, res: Response) => {
     const principal = principalOf(req);
-    assertKeyScope(req, id);
+    const to = target(req);
     const result = await receiveUpload(req, maxBytes, async (fields, file, fileName) => {
       const f = validate(uploadFields, fields, 'Upload');
       const mapping = f.mapping ?? (f.profileId ? await uploads.profileMapping(principal, f.profileId) : undefined);
-      return uploads.ingest(principal, id, {
+      return uploads.ingest(principal, to, {
         fileName,
         file,
         mapping,
@@ -79,40 +68,40 @@ export function uploadsRouter(uploads: UploadsService, maxBytes: number): Router
         kind: f.kind,
         replaceConflicts: f.replaceConflicts,
         rowErrors: f.rowErrors,
+        repeats: f.repeats,
+        dateOrder: f.dateOrder,
         clientRef: f.clientRef,
-        apiKeyId: req.apiKey?.id,
+        apiKey: req.apiKey,
       });
     });
     res.status(result.outcome === 'imported' ? 201 : 200).json(result);
-  });
+  };
+
+  router.post(
+    '/sites/:id/uploads',
+    send((req) => {
+      const { id } = validate(idParam, req.params);
+      if (req.apiKey && !req.apiKey.siteIds.includes(id)) throw AppError.notFound('Site');
+      return { siteId: id };
+    }),
+  );
+  router.post(
+    '/uploads',
+    send(() => ({ organisation: true })),
+  );
 
   router.get('/sites/:id/uploads', async (req, res) => {
-    res.json(
-      await uploads.list(principalOf(req), validate(idParam, req.params).id, validate(listQuery, req.query, 'Query')),
-    );
+    const q = validate(listQuery, req.query, 'Query');
+    res.json(await uploads.list(principalOf(req), validate(idParam, req.params).id, q));
+  });
+  router.get('/uploads', async (req, res) => {
+    res.json(await uploads.list(principalOf(req), null, validate(listQuery, req.query, 'Query')));
   });
 
   router.get('/uploads/:id', async (req, res) => {
     const upload = await uploads.get(principalOf(req), validate(idParam, req.params).id);
-    assertKeyScope(req, upload.siteId);
+    assertKeyScope(req, sitesOf(upload));
     res.json(upload);
-  });
-
-  router.get('/uploads/:id/rejections', async (req, res) => {
-    const { id } = validate(idParam, req.params);
-    const q = validate(rejectionsQuery, req.query, 'Query');
-    if (q.format === 'json') {
-      const { items, total } = await uploads.rejections(principalOf(req), id, { offset: q.offset, limit: q.limit });
-      res.json({ items, total });
-      return;
-    }
-    const first = await uploads.rejections(principalOf(req), id, { offset: 0, limit: 10_000 });
-    const name = first.upload.fileName.replace(/\.[^.]*$/, '').replace(/[^A-Za-z0-9_-]+/g, '-');
-    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-    res.setHeader('Content-Disposition', `attachment; filename="${name}-rejected-rows.csv"`);
-    const line = (r: RejectionDto) =>
-      [first.upload.fileName, r.row, r.column, r.kind, r.message].map(csvCell).join(',');
-    res.send(['file,row,column,kind,reason', ...first.items.map(line)].join('\r\n') + '\r\n');
   });
 
   router.post('/uploads/:id/rollback', async (req, res) => {

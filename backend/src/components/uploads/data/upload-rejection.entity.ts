@@ -27,4 +27,14 @@ export class UploadRejectionEntity {
 
   @Column({ type: 'varchar', length: 500 })
   message!: string;
+
+  /** With kind `unknown`: the meter/controller ref no site has, and how many rows named it. */
+  @Column({ type: 'varchar', length: 64, nullable: true })
+  ref!: string | null;
+
+  @Column({ type: 'enum', enum: ['meter', 'controller'], name: 'ref_field', nullable: true })
+  refField!: 'meter' | 'controller' | null;
+
+  @Column({ type: 'int', unsigned: true, name: 'ref_rows', nullable: true })
+  refRows!: number | null;
 }

@@ -1,22 +1,35 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
 import { UPLOAD_KINDS, type UploadKind } from '@shared/ingest/upload-kind';
 import { UPLOAD_STATUSES, type UploadStatus } from '@shared/uploads/upload';
+import { OrganisationEntity } from '../../organisations/data/organisation.entity';
 import { SiteEntity } from '../../sites/data/site.entity';
 
-/** One file sent to a site: who, what, how it was read and what came of it. Rows point back here for roll-back. */
+/**
+ * One file sent to a site, or to a whole organisation (`siteId` null: rows routed by meter/controller to their
+ * sites): who, what, how it was read and what came of it. Rows point back here for roll-back.
+ */
 @Entity({ name: 'upload' })
 @Index('ix_upload_site_created', ['siteId', 'createdAt'])
 @Index('ix_upload_site_sha', ['siteId', 'sha256'])
+@Index('ix_upload_org_sha', ['organisationId', 'sha256'])
 export class UploadEntity {
   @PrimaryGeneratedColumn({ type: 'int', unsigned: true })
   id!: number;
 
-  @Column({ type: 'int', unsigned: true, name: 'site_id' })
-  siteId!: number;
+  @Column({ type: 'int', unsigned: true, name: 'site_id', nullable: true })
+  siteId!: number | null;
 
   @ManyToOne(() => SiteEntity, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'site_id', foreignKeyConstraintName: 'fk_upload_site' })
   site?: SiteEntity;
+
+  /** Whose upload it is (always written by the app; a site's upload without it belongs to the site's owner). */
+  @Column({ type: 'int', unsigned: true, name: 'organisation_id', nullable: true })
+  organisationId!: number | null;
+
+  @ManyToOne(() => OrganisationEntity, { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'organisation_id', foreignKeyConstraintName: 'fk_upload_org' })
+  organisation?: OrganisationEntity;
 
   @Column({ type: 'int', unsigned: true, name: 'uploaded_by', nullable: true })
   uploadedBy!: number | null;
@@ -71,6 +84,10 @@ export class UploadEntity {
 
   @Column({ type: 'int', unsigned: true, default: 0 })
   rejected!: number;
+
+  /** Distinct meter/controller refs in the file that no site has (such an upload may be sent again). */
+  @Column({ type: 'int', unsigned: true, name: 'unknown_refs', default: 0 })
+  unknownRefs!: number;
 
   @Column({ type: 'text', name: 'error_summary', nullable: true })
   errorSummary!: string | null;

@@ -1,18 +1,32 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { ColumnMapping, UploadKind } from '@shared/ingest/upload-kind';
-import type { ImportProfileDto, RejectionDto, UploadCounts, UploadDto, UploadStatus } from '@shared/uploads/upload';
+import type {
+  ImportProfileDto,
+  RejectionDto,
+  RejectionKind,
+  UploadCounts,
+  UploadDto,
+  UploadSiteCounts,
+  UploadStatus,
+} from '@shared/uploads/upload';
+import { affected } from './affected';
 import { ImportProfileEntity } from './import-profile.entity';
 import { ALL_TARGETS } from './ingest-targets';
-import { affected } from './ingest-writer';
 import { UploadRejectionEntity } from './upload-rejection.entity';
+import { UploadSiteEntity } from './upload-site.entity';
 import { UploadEntity } from './upload.entity';
 
 export interface UploadRecord extends Omit<UploadDto, 'progressRows'> {
   organisationId: number;
 }
 
-export interface NewUpload {
-  siteId: number;
+/** Where an upload's rows may go: one site, or (siteId null) the organisation's sites. */
+export interface UploadScopeKey {
+  siteId: number | null;
+  organisationId: number;
+}
+
+export interface NewUpload extends UploadScopeKey {
   fileName: string;
   uploadedBy: number | null;
   apiKeyId: number | null;
@@ -28,11 +42,16 @@ export interface FinishedUpload extends UploadCounts {
   storageKey: string | null;
   mapping: ColumnMapping | null;
   errorSummary: string | null;
+  unknownRefs: number;
 }
 
-const SELECT = `SELECT u.*, s.organisation_id AS org_id, us.display_name AS by_name, k.name AS key_name
-  FROM upload u JOIN site s ON s.id = u.site_id LEFT JOIN user us ON us.id = u.uploaded_by LEFT
-  JOIN api_key k ON k.id = u.api_key_id`;
+const SELECT = `SELECT u.*, COALESCE(u.organisation_id, s.organisation_id) AS org_id, us.display_name AS by_name,
+  k.name AS key_name FROM upload u LEFT JOIN site s ON s.id = u.site_id LEFT JOIN user us ON us.id = u.uploaded_by
+  LEFT JOIN api_key k ON k.id = u.api_key_id`;
+
+/** A site's list shows its own uploads and the organisation uploads that wrote to it. */
+const OF_SITE = `(u.site_id = ? OR (u.site_id IS NULL AND EXISTS (SELECT 1 FROM upload_site x WHERE
+  x.upload_id = u.id AND x.site_id = ?)))`;
 
 /** Upload rows, their rejections and the organisation's import profiles. */
 export class UploadsRepository {
@@ -41,6 +60,7 @@ export class UploadsRepository {
   async create(u: NewUpload): Promise<number> {
     const result = await this.db.getRepository(UploadEntity).insert({
       siteId: u.siteId,
+      organisationId: u.organisationId,
       fileName: u.fileName.slice(0, 255),
       uploadedBy: u.uploadedBy,
       apiKeyId: u.apiKeyId,
@@ -68,6 +88,7 @@ export class UploadsRepository {
         conflicting: f.conflicting,
         replaced: f.replaced,
         rejected: f.rejected,
+        unknownRefs: f.unknownRefs,
         finishedAt: new Date(),
       },
     );
@@ -86,33 +107,93 @@ export class UploadsRepository {
     return row !== undefined;
   }
 
-  /** The done upload of the same bytes to the same site, if any (what makes a re-upload a no-op). */
-  async findDoneBySha(siteId: number, sha256: string, exceptId: number): Promise<number | null> {
+  /**
+   * The done upload of the same bytes to the same site (or the same organisation), if any: what makes a re-upload
+   * a no-op. An upload that left rows of unknown meters aside does not count, so the file can be sent again once
+   * the meters exist (what it stored is then only a duplicate).
+   */
+  async findDoneBySha(scope: UploadScopeKey, sha256: string, exceptId: number): Promise<number | null> {
+    const [where, key] =
+      scope.siteId === null
+        ? ['site_id IS NULL AND organisation_id = ?', scope.organisationId]
+        : ['site_id = ?', scope.siteId];
     const [row] = await this.db.query(
-      `SELECT id FROM upload WHERE site_id = ? AND sha256 = ? AND status = 'done' AND id <> ? ORDER BY id LIMIT 1`,
-      [siteId, sha256, exceptId],
+      `SELECT id FROM upload WHERE ${where} AND sha256 = ? AND status = 'done' AND unknown_refs = 0 AND id <> ?
+        ORDER BY id LIMIT 1`,
+      [key, sha256, exceptId],
     );
     return row ? Number(row.id) : null;
   }
 
   async get(id: number): Promise<UploadRecord | null> {
     const [row] = await this.db.query(`${SELECT} WHERE u.id = ?`, [id]);
-    return row ? toRecord(row) : null;
+    if (!row) return null;
+    return toRecord(row, (await this.siteCounts([id])).get(id) ?? []);
   }
 
+  /** A site's uploads (its own and organisation uploads that wrote to it), or an organisation's own uploads. */
   async list(
-    siteId: number,
+    scope: UploadScopeKey,
     f: { page: number; pageSize: number; clientRef?: string },
   ): Promise<{ items: UploadRecord[]; total: number }> {
-    const where = f.clientRef ? 'u.site_id = ? AND u.client_ref = ?' : 'u.site_id = ?';
-    const params = f.clientRef ? [siteId, f.clientRef] : [siteId];
+    let where = scope.siteId === null ? 'u.site_id IS NULL AND u.organisation_id = ?' : OF_SITE;
+    const params: unknown[] = scope.siteId === null ? [scope.organisationId] : [scope.siteId, scope.siteId];
+    if (f.clientRef) {
+      where += ' AND u.client_ref = ?';
+      params.push(f.clientRef);
+    }
     const [count] = await this.db.query(`SELECT COUNT(*) AS n FROM upload u WHERE ${where}`, params);
     const rows = await this.db.query(`${SELECT} WHERE ${where} ORDER BY u.id DESC LIMIT ? OFFSET ?`, [
       ...params,
       f.pageSize,
       f.page * f.pageSize,
     ]);
-    return { items: rows.map(toRecord), total: Number(count.n) };
+    const counts = await this.siteCounts(rows.map((r: Record<string, unknown>) => Number(r['id'])));
+    return {
+      items: rows.map((r: Record<string, unknown>) => toRecord(r, counts.get(Number(r['id'])) ?? [])),
+      total: Number(count.n),
+    };
+  }
+
+  /** What each upload did per site. */
+  private async siteCounts(uploadIds: number[]): Promise<Map<number, UploadSiteCounts[]>> {
+    const out = new Map<number, UploadSiteCounts[]>();
+    if (uploadIds.length === 0) return out;
+    const rows: Array<Record<string, unknown>> = await this.db.query(
+      `SELECT x.*, s.name AS site_name FROM upload_site x JOIN site s ON s.id = x.site_id WHERE x.upload_id IN (?)
+        ORDER BY s.name`,
+      [uploadIds],
+    );
+    for (const r of rows) {
+      const id = Number(r['upload_id']);
+      if (!out.has(id)) out.set(id, []);
+      out.get(id)!.push({
+        siteId: Number(r['site_id']),
+        siteName: String(r['site_name']),
+        accepted: Number(r['accepted']),
+        duplicate: Number(r['duplicate']),
+        conflicting: Number(r['conflicting']),
+        rejected: Number(r['rejected']),
+      });
+    }
+    return out;
+  }
+
+  async saveSiteCounts(
+    em: EntityManager,
+    uploadId: number,
+    counts: Omit<UploadSiteCounts, 'siteName'>[],
+  ): Promise<void> {
+    if (counts.length) await em.getRepository(UploadSiteEntity).insert(counts.map((c) => ({ uploadId, ...c })));
+  }
+
+  /** After the fact: readings replaced or stored by a person's choice are added to the upload's counts. */
+  async addCounts(em: EntityManager, uploadId: number, add: { accepted?: number; replaced?: number }): Promise<void> {
+    await em.query('UPDATE upload SET accepted = accepted + ?, replaced = replaced + ? WHERE id = ?', [
+      add.accepted ?? 0,
+      add.replaced ?? 0,
+      uploadId,
+    ]);
   }
 
   async insertRejections(em: EntityManager | DataSource, uploadId: number, rows: RejectionDto[]): Promise<void> {
@@ -124,6 +205,9 @@ export class UploadsRepository {
           columnNo: r.column,
           kind: r.kind,
           message: r.message.slice(0, 500),
+          ref: r.ref?.ref.slice(0, 64) ?? null,
+          refField: r.ref?.field ?? null,
+          refRows: r.ref?.rows ?? null,
         })),
       );
     }
@@ -131,23 +215,17 @@ export class UploadsRepository {
 
   async rejections(
     uploadId: number,
-    page: { offset: number; limit: number },
+    page: { offset: number; limit: number; kind?: RejectionKind },
   ): Promise<{ items: RejectionDto[]; total: number }> {
-    const [count] = await this.db.query('SELECT COUNT(*) AS n FROM upload_rejection WHERE upload_id = ?', [uploadId]);
+    const where = page.kind ? 'upload_id = ? AND kind = ?' : 'upload_id = ?';
+    const params = page.kind ? [uploadId, page.kind] : [uploadId];
+    const [count] = await this.db.query(`SELECT COUNT(*) AS n FROM upload_rejection WHERE ${where}`, params);
     const rows = await this.db.query(
-      `SELECT row_no, column_no, kind, message FROM upload_rejection WHERE upload_id = ? ORDER BY
-        row_no, id LIMIT ? OFFSET ?`,
-      [uploadId, page.limit, page.offset],
+      `SELECT row_no, column_no, kind, message, ref, ref_field, ref_rows FROM upload_rejection WHERE ${where}
+        ORDER BY row_no, id LIMIT ? OFFSET ?`,
+      [...params, page.limit, page.offset],
     );
-    return {
-      items: rows.map((r: Record<string, unknown>) => ({
-        row: Number(r['row_no']),
-        column: r['column_no'] === null ? null : Number(r['column_no']),
-        kind: r['kind'],
-        message: r['message'],
-      })),
-      total: Number(count.n),
-    };
+    return { items: rows.map(toRejection), total: Number(count.n) };
   }
 
   /** Deletes exactly what the upload wrote and puts back what it replaced. Runs in the caller's transaction. */
@@ -203,12 +281,31 @@ export class UploadsRepository {
   }
 }
 
-function toRecord(r: Record<string, unknown>): UploadRecord {
+function toRejection(r: Record<string, unknown>): RejectionDto {
+  const rejection: RejectionDto = {
+    row: Number(r['row_no']),
+    column: r['column_no'] === null ? null : Number(r['column_no']),
+    kind: r['kind'] as RejectionKind,
+    message: String(r['message']),
+  };
+  if (r['ref'] !== null && r['ref'] !== undefined) {
+    rejection.ref = {
+      field: r['ref_field'] as 'meter' | 'controller',
+      ref: String(r['ref']),
+      rows: Number(r['ref_rows']),
+    };
+  }
+  return rejection;
+}
+
+function toRecord(r: Record<string, unknown>, sites: UploadSiteCounts[]): UploadRecord {
   const date = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
   return {
     id: Number(r['id']),
-    siteId: Number(r['site_id']),
+    siteId: r['site_id'] === null ? null : Number(r['site_id']),
     organisationId: Number(r['org_id']),
+    sites,
+    unknownRefs: Number(r['unknown_refs']),
     kind: (r['kind'] as UploadKind | null) ?? null,
     fileName: String(r['file_name']),
     sizeBytes: Number(r['size_bytes']),

@@ -1,13 +1,12 @@
+import type { MeterSpan } from '../data/interval-overlaps-repository';
+
 /** `2026-11-01 08:00:00` (a DATETIME in UTC) → the instant. */
 const instant = (sql: string) => new Date(`${sql.slice(0, 10)}T${sql.slice(11)}Z`);
 
-export interface MeterSpan {
-  meterId: number;
-  /** Earliest start. */
-  first: Date;
-  /** Latest end (start + minutes). */
-  last: Date;
-  lengths: number[];
+interface LengthSpan {
+  first: string;
+  last: string;
+  count: number;
 }
 
 /**
@@ -17,9 +16,9 @@ export interface MeterSpan {
  * sorts in time order.
  */
 export class IntervalSpans {
-  private readonly byMeter = new Map<number, Map<number, { first: string; last: string }>>();
+  private readonly byMeter = new Map<number, Map<number, LengthSpan>>();
   private lastMeterId = -1;
-  private lastLengths: Map<number, { first: string; last: string }> | undefined;
+  private lastLengths: Map<number, LengthSpan> | undefined;
 
   add(meterId: number, startSql: string, minutes: number): void {
     if (meterId !== this.lastMeterId) {
@@ -28,9 +27,23 @@ export class IntervalSpans {
       if (!this.lastLengths) this.byMeter.set(meterId, (this.lastLengths = new Map()));
     }
     const span = this.lastLengths!.get(minutes);
-    if (!span) this.lastLengths!.set(minutes, { first: startSql, last: startSql });
-    else if (startSql < span.first) span.first = startSql;
-    else if (startSql > span.last) span.last = startSql;
+    if (!span) this.lastLengths!.set(minutes, { first: startSql, last: startSql, count: 1 });
+    else {
+      span.count++;
+      if (startSql < span.first) span.first = startSql;
+      else if (startSql > span.last) span.last = startSql;
+    }
+  }
+
+  /** Lines sent per meter (after a direct load, the readings stored per meter). */
+  countsByMeter(): Map<number, number> {
+    const out = new Map<number, number>();
+    for (const [meterId, lengths] of this.byMeter) {
+      let n = 0;
+      for (const span of lengths.values()) n += span.count;
+      out.set(meterId, n);
+    }
+    return out;
   }
 
   /** Per meter, over the lengths up to `maxMinutes`: earliest start, latest end, the lengths seen. */
@@ -51,11 +64,12 @@ export class IntervalSpans {
     return out;
   }
 
-  /** Earliest and latest start over every line (null when none was sent). */
-  overall(): { from: Date; to: Date } | null {
+  /** Earliest and latest start over the lines of the meters `include` accepts (null when none was sent). */
+  overall(include: (meterId: number) => boolean = () => true): { from: Date; to: Date } | null {
     let first: string | null = null;
     let last: string | null = null;
-    for (const lengths of this.byMeter.values()) {
+    for (const [meterId, lengths] of this.byMeter) {
+      if (!include(meterId)) continue;
       for (const span of lengths.values()) {
         if (first === null || span.first < first) first = span.first;
         if (last === null || span.last > last) last = span.last;

@@ -2,8 +2,18 @@ import type { RejectionDto } from '@shared/uploads/upload';
 import { AppError } from '../../../platform/app-error';
 import { clipText } from '../../../platform/clip-text';
 import { isDatabaseUnavailable } from '../../../platform/db-errors';
+import type { ApiErrorDetail } from '@shared/api/errors';
 import { FileProblem } from './csv-rows';
-import { MappingProblem } from './stage-upload';
+
+/** The column mapping (detected or sent) cannot read the file; `details` name the fields. */
+export class MappingProblem extends FileProblem {
+  constructor(
+    message: string,
+    readonly details: ApiErrorDetail[],
+  ) {
+    super(message);
+  }
+}
 
 /** The file went over the configured size limit while streaming. */
 export class TooLarge extends Error {}

@@ -1,10 +1,16 @@
-import { createHash } from 'node:crypto';
-import type { DailyUseRepository } from '../../readings/data/daily-use-repository';
-import { finished, Transform, type Readable } from 'node:stream';
-import type { DataSource } from 'typeorm';
+import type { Readable } from 'node:stream';
+import type { DataSource, QueryRunner } from 'typeorm';
 import type { Page } from '@shared/api/page';
+import type { DateOrder } from '@shared/ingest/date-order';
 import type { ColumnMapping, UploadKind } from '@shared/ingest/upload-kind';
-import type { RejectionDto, RowErrorPolicy, UploadDto, UploadResult } from '@shared/uploads/upload';
+import type {
+  InFileRepeatPolicy,
+  RejectionDto,
+  RejectionKind,
+  RowErrorPolicy,
+  UploadDto,
+  UploadResult,
+} from '@shared/uploads/upload';
 import { AppError } from '../../../platform/app-error';
 import type { Principal } from '../../../platform/auth/principal';
 import { clipText } from '../../../platform/clip-text';
@@ -12,35 +18,26 @@ import { logger } from '../../../platform/logger';
 import type { FileStore } from '../../../platform/storage/file-store';
 import type { AuditRepository } from '../../audit/data/audit-repository';
 import type { MetersService } from '../../meters/domain/meters-service';
+import type { OrganisationSettingsService } from '../../organisations/domain/organisation-settings-service';
+import type { DailyUseRepository } from '../../readings/data/daily-use-repository';
 import type { SitesService } from '../../sites/domain/sites-service';
-import { INTERVAL_TARGET } from '../data/ingest-targets';
-import type { MergeOutcome } from '../data/ingest-writer';
+import { BillingPeriodsRepository } from '../data/billing-periods-repository';
+import { IntervalOverlapsRepository } from '../data/interval-overlaps-repository';
+import { RegisterReadsRepository } from '../data/register-reads-repository';
 import type { FinishedUpload, UploadRecord, UploadsRepository } from '../data/uploads-repository';
-import { conflictRejections } from './conflict-messages';
+import type { DailyEto } from './billing-periods';
 import { openCsvRows } from './csv-rows';
-import { ingestRefsFrom } from './ingest-refs-from';
-import { OVERLAP_MAX_MINUTES, withdrawLengthOverlaps } from './interval-overlaps';
-import { deriveRegisterVolumes } from './register-volumes';
-import { IMPORT_ISOLATION, stageUpload, type Staged } from './stage-upload';
-import { RowsRefused, TooLarge, toUploadError } from './upload-errors';
+import { decideStaged, type Decision } from './pipeline/decide';
+import { mergeStaged, type MergeDeps } from './pipeline/merge';
+import { receiveBytes, type Received } from './pipeline/receive';
+import { recordUpload } from './pipeline/record';
+import { IMPORT_ISOLATION, stageFile, type Staged, type StageOptions } from './pipeline/stage';
+import { RowsRefused, toUploadError } from './upload-errors';
+import { resolveScope, type IngestScope, type UploadTarget } from './upload-scope';
 
 /** A failed upload whose outcome could not be written (MariaDB down) is retried this often, this many times. */
 const MARK_FAILED_RETRY_MS = 5_000;
 const MARK_FAILED_ATTEMPTS = 60;
-
-/**
- * Pipes the upload into the tap. A source that fails or closes before its end (the client went away, even before
- * this was called) fails the tap with that error, so the parser reading the tap stops instead of waiting forever.
- * The tap's own errors reach the parser through its read side; the listener here only keeps them from being
- * unhandled once nobody reads.
- */
-function feedTap(file: Readable, tap: Transform): void {
-  tap.on('error', () => undefined);
-  finished(file, (err) => {
-    if (err) tap.destroy(err);
-  });
-  file.pipe(tap);
-}
 
 export interface IngestRequest {
   fileName: string;
@@ -50,213 +47,260 @@ export interface IngestRequest {
   kind?: UploadKind;
   replaceConflicts: boolean;
   rowErrors: RowErrorPolicy;
+  repeats: InFileRepeatPolicy;
+  dateOrder?: DateOrder;
   clientRef?: string;
-  apiKeyId?: number;
+  apiKey?: { id: number; siteIds: number[] };
+}
+
+export interface UploadsServiceDeps {
+  db: DataSource;
+  repo: UploadsRepository;
+  sites: SitesService;
+  meters: MetersService;
+  organisations: OrganisationSettingsService;
+  audit: AuditRepository;
+  store: FileStore;
+  limits: { maxBytes: number; now?: () => number };
+  dailyUse: DailyUseRepository;
+  dailyEto: DailyEto;
+}
+
+/** One upload on its way through the pipeline. */
+interface Run {
+  uploadId: number;
+  principal: Principal;
+  scope: IngestScope;
+  request: IngestRequest;
+  received: Received;
+  stageOptions: StageOptions;
+  staged?: Staged;
 }
 
 /**
- * Uploads: one file in, streamed through parsing into a stage table, then merged into stored data in one
- * transaction (or not at all). The same bytes sent to the same site again change nothing.
+ * Uploads: one file in, through named steps — receive (hash, keep a copy), stage (parse rows into a stage table),
+ * decide (what the whole file says: date order, units, unknown meters), merge (against stored data), record
+ * (rollups, rows needing attention, counts) — in one transaction, or not at all. The same bytes sent to the same
+ * site (or organisation) again change nothing.
  */
 export class UploadsService {
   /** Rows read so far by imports running in this process, for the progress bar. */
   private readonly progress = new Map<number, number>();
+  private readonly mergeDeps: MergeDeps;
 
-  constructor(
-    private readonly db: DataSource,
-    private readonly repo: UploadsRepository,
-    private readonly sites: SitesService,
-    private readonly meters: MetersService,
-    private readonly audit: AuditRepository,
-    private readonly store: FileStore,
-    private readonly limits: { maxBytes: number; now?: () => number },
-    private readonly dailyUse: DailyUseRepository,
-  ) {}
+  constructor(private readonly deps: UploadsServiceDeps) {
+    this.mergeDeps = {
+      overlaps: new IntervalOverlapsRepository(),
+      registerReads: new RegisterReadsRepository(),
+      billing: new BillingPeriodsRepository(),
+      recordSwap: (em, meterId, swap) => deps.meters.recordSwapFromUpload(em, meterId, swap),
+      dailyEto: deps.dailyEto,
+    };
+  }
 
-  async ingest(principal: Principal, siteId: number, request: IngestRequest): Promise<UploadResult> {
-    const site = await this.sites.requireLevel(principal, siteId, 'contribute');
-    const refs = ingestRefsFrom(await this.meters.equipment(siteId));
-    const { fileName, replaceConflicts, rowErrors } = request;
-    const uploadId = await this.repo.create({
-      siteId,
-      fileName,
+  async ingest(principal: Principal, target: UploadTarget, request: IngestRequest): Promise<UploadResult> {
+    const { repo, db } = this.deps;
+    const scope = await resolveScope(this.deps, principal, target, request.apiKey?.siteIds);
+    const uploadId = await repo.create({
+      ...scope.key,
+      fileName: request.fileName,
       uploadedBy: principal.userId,
-      apiKeyId: request.apiKeyId ?? null,
+      apiKeyId: request.apiKey?.id ?? null,
       clientRef: request.clientRef ?? null,
-      options: { replaceConflicts, rowErrors },
+      options: { replaceConflicts: request.replaceConflicts, rowErrors: request.rowErrors, repeats: request.repeats },
     });
     this.progress.set(uploadId, 0);
-
-    // Hash, count and keep the original bytes as they pass; the parser reads the same stream.
-    const pending = this.store.begin();
-    const hash = createHash('sha256');
-    let size = 0;
-    const maxBytes = this.limits.maxBytes;
-    const tap = new Transform({
-      transform(chunk: Buffer, _enc, done) {
-        size += chunk.length;
-        if (size > maxBytes) return done(new TooLarge());
-        hash.update(chunk);
-        pending.write(chunk).then(() => done(null, chunk), done);
-      },
-    });
-    feedTap(request.file, tap);
-
-    const qr = this.db.createQueryRunner();
-    let staged: Staged | undefined;
-    let keptKey: string | null = null;
+    const received = receiveBytes(request.file, this.deps.store, this.deps.limits.maxBytes);
+    const run: Run = {
+      uploadId,
+      principal,
+      scope,
+      request,
+      received,
+      stageOptions: await this.stageOptions(principal, scope, request, uploadId),
+    };
+    const qr = db.createQueryRunner();
     try {
       await qr.connect();
-      const started = Date.now();
-      const stageOptions = {
-        timeZone: site.timeZone,
-        now: this.limits.now?.() ?? Date.now(),
-        mapping: request.mapping,
-        overrides: request.overrides,
-        kind: request.kind,
-        refs,
-        onProgress: (rows: number) => this.progress.set(uploadId, rows),
-      };
-      staged = await stageUpload(qr, await openCsvRows(tap), { ...stageOptions, directUploadId: uploadId });
-      const sha256 = hash.digest('hex');
-      const earlier = await this.repo.findDoneBySha(siteId, sha256, uploadId);
-      if (earlier !== null) {
-        if (qr.isTransactionActive) await qr.rollbackTransaction();
-        await pending.discard();
-        await this.repo.remove(uploadId);
-        const upload = await this.dto((await this.repo.get(earlier))!);
-        return {
-          outcome: 'already-imported',
-          upload,
-          message:
-            `"${fileName}" was already imported as upload #${earlier} on ` +
-            `${upload.createdAt.slice(0, 10)}; nothing was changed.`,
-        };
-      }
-      if (rowErrors === 'refuse-file' && staged.rejected > 0) throw new RowsRefused(staged.rejected, staged.rejections);
-      const storageKey = await pending.keep(sha256);
-      keptKey = storageKey;
-      if (staged.direct && staged.staged < staged.writer.linesSent) {
-        // Some lines met stored readings (or repeat within the file): undo the fast load and read the kept copy
-        // again through the stage, which tells duplicates from conflicts row by row.
-        await qr.rollbackTransaction();
-        staged = await stageUpload(qr, await openCsvRows(this.store.open(storageKey)), {
-          ...stageOptions,
-          mapping: staged.mapping,
-          overrides: undefined,
-          kind: undefined,
-        });
-      }
-
-      const stagedAt = Date.now();
-      let merged: MergeOutcome = { accepted: staged.staged, duplicate: 0, conflicting: 0, replaced: 0, conflicts: [] };
-      if (!staged.direct) {
-        await qr.startTransaction(IMPORT_ISOLATION);
-        merged = await staged.writer.merge(uploadId, replaceConflicts);
-      }
-      const rejections: RejectionDto[] = [
-        ...staged.rejections,
-        ...conflictRejections(staged.target, merged, refs, replaceConflicts),
-      ];
-      if (staged.target === INTERVAL_TARGET && merged.accepted > 0) {
-        // After a direct load every line sent was stored: the spans collected while sending are exact.
-        const overlaps = await withdrawLengthOverlaps(
-          qr,
-          uploadId,
-          refs,
-          staged.direct ? staged.spans?.meterSpans(OVERLAP_MAX_MINUTES) : undefined,
-        );
-        merged = {
-          ...merged,
-          accepted: merged.accepted - overlaps.withdrawn,
-          conflicting: merged.conflicting + overlaps.withdrawn,
-        };
-        rejections.push(...overlaps.rejections);
-      }
-      let rejected = staged.rejected;
-      if (staged.kind === 'register') {
-        const derived = await deriveRegisterVolumes(qr, staged.writer, refs, uploadId);
-        rejections.push(...derived.rejections);
-        rejected += derived.problems;
-      }
-      const counts = {
-        rowsRead: staged.rowsRead,
-        accepted: merged.accepted,
-        duplicate: merged.duplicate,
-        conflicting: merged.conflicting,
-        replaced: merged.replaced,
-        rejected,
-      };
-      // The daily rollup moves with the readings, in the same transaction.
-      // (A direct load's span may include readings withdrawn above; refreshing those days again changes nothing.)
-      const span =
-        staged.direct && staged.spans ? staged.spans.overall() : await this.dailyUse.uploadSpan(qr.manager, uploadId);
-      if (span) await this.dailyUse.refresh(qr.manager, siteId, span.from, span.to);
-      await this.repo.insertRejections(qr.manager, uploadId, rejections);
-      await this.repo.finish(qr.manager, uploadId, {
-        ...counts,
-        status: 'done',
-        kind: staged.kind,
-        sizeBytes: size,
-        sha256,
-        storageKey,
-        mapping: staged.mapping,
-        errorSummary: null,
-      });
-      await this.audit.record(qr.manager, {
-        userId: principal.userId,
-        organisationId: site.organisationId,
-        entity: 'upload',
-        entityId: uploadId,
-        action: 'import',
-        changes: { siteId, fileName, ...counts },
-      });
-      await qr.commitTransaction();
-      logger.info('upload imported', {
-        uploadId,
-        rows: staged.rowsRead,
-        stageMs: stagedAt - started,
-        mergeMs: Date.now() - stagedAt,
-      });
-      return { outcome: 'imported', upload: await this.dto((await this.repo.get(uploadId))!) };
+      return await this.runPipeline(qr, run);
     } catch (err) {
-      if (qr.isTransactionActive) await qr.rollbackTransaction().catch(() => undefined);
-      if (keptKey) await this.removeKeptCopy(keptKey, uploadId);
-      else await pending.discard();
-      const problem = toUploadError(err, fileName, maxBytes);
-      if (!problem) logger.error('upload failed', { uploadId, error: (err as Error).stack ?? String(err) });
-      const summary = clipText(
-        problem?.message ?? 'The server could not finish this upload; nothing was stored.',
-        2_000,
-      );
-      await this.markFailed(uploadId, {
-        status: 'failed',
-        kind: staged?.kind ?? null,
-        sizeBytes: size,
-        sha256: null,
-        storageKey: null,
-        mapping: staged?.mapping ?? null,
-        errorSummary: summary,
-        rowsRead: staged?.rowsRead ?? this.progress.get(uploadId) ?? 0,
-        accepted: 0,
-        duplicate: 0,
-        conflicting: 0,
-        replaced: 0,
-        rejected: staged?.rejected ?? 0,
-      });
-      if (err instanceof RowsRefused)
-        await this.repo.insertRejections(this.db, uploadId, err.rejections).catch(() => undefined);
-      throw problem ?? err;
+      throw await this.fail(qr, run, err);
     } finally {
-      // Whatever happened, let the rest of the request body flow so the multipart parser can finish.
-      request.file.unpipe(tap);
-      request.file.resume();
-      tap.destroy();
-      if (!keptKey) await pending.discard();
-      await staged?.writer.drop();
+      received.release();
+      await received.discard();
+      await run.staged?.table.drop();
       await qr.release();
       this.progress.delete(uploadId);
     }
+  }
+
+  private async stageOptions(
+    principal: Principal,
+    scope: IngestScope,
+    request: IngestRequest,
+    uploadId: number,
+  ): Promise<StageOptions> {
+    return {
+      timeZone: scope.timeZone,
+      zoneOf: scope.zoneOf,
+      now: this.deps.limits.now?.() ?? Date.now(),
+      mapping: request.mapping,
+      overrides: request.overrides,
+      kind: request.kind,
+      refs: scope.refs,
+      dateOrder: {
+        chosen: request.dateOrder ?? request.mapping?.dateOrder,
+        organisationDefault: await this.deps.organisations.usualDateOrder(principal.organisationId),
+      },
+      onProgress: (rows) => this.progress.set(uploadId, rows),
+      directUploadId: uploadId,
+    };
+  }
+
+  private decide(run: Run, staged: Staged): Decision {
+    return decideStaged(
+      {
+        direct: staged.direct,
+        staged: staged.staged,
+        linesSent: staged.table.linesSent,
+        readOrder: staged.mapping.dateOrder,
+        dateEvidence: staged.dateEvidence,
+        unknownRefs: staged.unknownRefs,
+        units: staged.units,
+      },
+      {
+        fileName: run.request.fileName,
+        choices: run.stageOptions.dateOrder,
+        refs: run.scope.refs,
+        organisationWide: run.scope.key.siteId === null,
+      },
+    );
+  }
+
+  private async runPipeline(qr: QueryRunner, run: Run): Promise<UploadResult> {
+    const { repo } = this.deps;
+    run.staged = await stageFile(qr, await openCsvRows(run.received.bytes), run.stageOptions);
+    const sha256 = run.received.sha256();
+    const earlier = await repo.findDoneBySha(run.scope.key, sha256, run.uploadId);
+    if (earlier !== null) return this.alreadyImported(qr, run, earlier);
+    let decision = this.decide(run, run.staged);
+    if (decision.action === 'refuse') throw decision.error;
+    if (decision.action === 'merge') this.assertRowsAccepted(run, run.staged, decision);
+    const storageKey = await run.received.keep(sha256);
+    for (let pass = 0; decision.action === 'restage' && pass < 2; pass++) {
+      run.staged = await this.restage(qr, run, storageKey, decision.dateOrder);
+      decision = this.decide(run, run.staged);
+      if (decision.action === 'refuse') throw decision.error;
+    }
+    if (decision.action !== 'merge') throw new Error(`upload #${run.uploadId} did not settle after reading it again`);
+    const staged = run.staged;
+    this.assertRowsAccepted(run, staged, decision);
+    const stagedAt = Date.now();
+    const merged = await mergeStaged(
+      qr,
+      staged,
+      {
+        uploadId: run.uploadId,
+        refs: run.scope.refs,
+        replaceConflicts: run.request.replaceConflicts,
+        repeats: run.request.repeats,
+        zoneOfSite: run.scope.zoneOfSite,
+      },
+      this.mergeDeps,
+    );
+    await recordUpload(
+      qr.manager,
+      {
+        uploadId: run.uploadId,
+        principal: run.principal,
+        organisationId: run.scope.key.organisationId,
+        siteId: run.scope.key.siteId,
+        fileName: run.request.fileName,
+        refs: run.scope.refs,
+        staged,
+        merged,
+        notices: [...decision.notices, ...decision.unknown],
+        file: { sizeBytes: run.received.size(), sha256, storageKey },
+      },
+      this.deps,
+    );
+    await qr.commitTransaction();
+    logger.info('upload imported', { uploadId: run.uploadId, rows: staged.rowsRead, mergeMs: Date.now() - stagedAt });
+    return { outcome: 'imported', upload: await this.dto((await repo.get(run.uploadId))!) };
+  }
+
+  /** `rowErrors=refuse-file`: any rejected row refuses the whole file. */
+  private assertRowsAccepted(run: Run, staged: Staged, decision: Extract<Decision, { action: 'merge' }>): void {
+    if (run.request.rowErrors === 'refuse-file' && staged.rejected > 0) {
+      throw new RowsRefused(staged.rejected, [...decision.unknown, ...staged.rejections]);
+    }
+  }
+
+  /**
+   * Reads the kept copy again through the stage: when a direct load met stored readings (or repeats), or when the
+   * whole file showed another date order than the one its first rows were read with.
+   */
+  private async restage(qr: QueryRunner, run: Run, storageKey: string, dateOrder?: DateOrder): Promise<Staged> {
+    if (qr.isTransactionActive) await qr.rollbackTransaction();
+    await run.staged!.table.drop();
+    const { dateOrder: _used, ...mapping } = run.staged!.mapping;
+    const read = dateOrder ?? run.staged!.mapping.dateOrder;
+    return stageFile(qr, await openCsvRows(this.deps.store.open(storageKey)), {
+      ...run.stageOptions,
+      mapping: read ? { ...mapping, dateOrder: read } : mapping,
+      overrides: undefined,
+      kind: undefined,
+      dateOrder: { ...run.stageOptions.dateOrder, read },
+      directUploadId: undefined,
+    });
+  }
+
+  private async alreadyImported(qr: QueryRunner, run: Run, earlier: number): Promise<UploadResult> {
+    if (qr.isTransactionActive) await qr.rollbackTransaction();
+    await run.received.discard();
+    await this.deps.repo.remove(run.uploadId);
+    const upload = await this.dto((await this.deps.repo.get(earlier))!);
+    return {
+      outcome: 'already-imported',
+      upload,
+      message:
+        `"${run.request.fileName}" was already imported as upload #${earlier} on ` +
+        `${upload.createdAt.slice(0, 10)}; nothing was changed.`,
+    };
+  }
+
+  /**
+   * Rolls back, throws the copy away (or removes the one it had filed), records the failure once, and says what
+   * went wrong.
+   */
+  private async fail(qr: QueryRunner, run: Run, err: unknown): Promise<unknown> {
+    if (qr.isTransactionActive) await qr.rollbackTransaction().catch(() => undefined);
+    const keptKey = run.received.keptKey();
+    if (keptKey) await this.removeKeptCopy(keptKey, run.uploadId);
+    else await run.received.discard();
+    const maxBytes = this.deps.limits.maxBytes;
+    const problem = toUploadError(err, run.request.fileName, maxBytes);
+    if (!problem) logger.error('upload failed', { uploadId: run.uploadId, error: (err as Error).stack ?? String(err) });
+    const staged = run.staged;
+    await this.markFailed(run.uploadId, {
+      status: 'failed',
+      kind: staged?.kind ?? null,
+      sizeBytes: run.received.size(),
+      sha256: null,
+      storageKey: null,
+      mapping: staged?.mapping ?? null,
+      errorSummary: clipText(problem?.message ?? 'The server could not finish this upload; nothing was stored.', 2_000),
+      rowsRead: staged?.rowsRead ?? this.progress.get(run.uploadId) ?? 0,
+      accepted: 0,
+      duplicate: 0,
+      conflicting: 0,
+      replaced: 0,
+      rejected: staged?.rejected ?? 0,
+      unknownRefs: staged?.unknownRefs.size ?? 0,
+    });
+    if (err instanceof RowsRefused)
+      await this.deps.repo.insertRejections(this.deps.db, run.uploadId, err.rejections).catch(() => undefined);
+    return problem ?? err;
   }
 
   /**
@@ -265,7 +309,7 @@ export class UploadsService {
    */
   private async markFailed(uploadId: number, outcome: FinishedUpload, attempt = 1): Promise<void> {
     try {
-      await this.repo.finish(this.db, uploadId, outcome);
+      await this.deps.repo.finish(this.deps.db, uploadId, outcome);
     } catch (err) {
       if (attempt >= MARK_FAILED_ATTEMPTS) {
         logger.error('could not record a failed upload', { uploadId, error: (err as Error).message });
@@ -279,7 +323,7 @@ export class UploadsService {
   /** A failed upload removes the original it had already filed, unless another upload refers to the same bytes. */
   private async removeKeptCopy(storageKey: string, uploadId: number): Promise<void> {
     try {
-      if (!(await this.repo.storageKeyInUse(storageKey, uploadId))) await this.store.remove(storageKey);
+      if (!(await this.deps.repo.storageKeyInUse(storageKey, uploadId))) await this.deps.store.remove(storageKey);
     } catch (err) {
       logger.warn('kept copy of a failed upload not removed', { uploadId, storageKey, error: String(err) });
     }
@@ -287,7 +331,7 @@ export class UploadsService {
 
   /** A saved mapping of the principal's organisation, to read a file with. */
   async profileMapping(principal: Principal, profileId: number): Promise<ColumnMapping> {
-    const profile = (await this.repo.profiles(principal.organisationId)).find((p) => p.id === profileId);
+    const profile = (await this.deps.repo.profiles(principal.organisationId)).find((p) => p.id === profileId);
     if (!profile) throw AppError.invalid('profileId', 'no such import profile in your organisation');
     return profile.mapping;
   }
@@ -296,13 +340,14 @@ export class UploadsService {
     return this.dto(await this.load(principal, uploadId, 'read'));
   }
 
+  /** A site's uploads (with the organisation uploads that wrote to it), or (siteId null) the organisation's own. */
   async list(
     principal: Principal,
-    siteId: number,
+    siteId: number | null,
     query: { page: number; pageSize: number; clientRef?: string },
   ): Promise<Page<UploadDto>> {
-    await this.sites.requireLevel(principal, siteId, 'read');
-    const { items, total } = await this.repo.list(siteId, query);
+    if (siteId !== null) await this.deps.sites.requireLevel(principal, siteId, 'read');
+    const { items, total } = await this.deps.repo.list({ siteId, organisationId: principal.organisationId }, query);
     return {
       items: await Promise.all(items.map((u) => this.dto(u))),
       total,
@@ -314,13 +359,13 @@ export class UploadsService {
   async rejections(
     principal: Principal,
     uploadId: number,
-    page: { offset: number; limit: number },
+    page: { offset: number; limit: number; kind?: RejectionKind },
   ): Promise<{ upload: UploadDto; items: RejectionDto[]; total: number }> {
     const upload = await this.dto(await this.load(principal, uploadId, 'read'));
-    return { upload, ...(await this.repo.rejections(uploadId, page)) };
+    return { upload, ...(await this.deps.repo.rejections(uploadId, page)) };
   }
 
-  /** Deletes exactly the rows this upload stored and restores any it replaced. */
+  /** Deletes exactly the rows this upload stored, restores any it replaced, and undoes swaps it recorded. */
   async rollBack(principal: Principal, uploadId: number): Promise<{ upload: UploadDto; removed: number }> {
     const upload = await this.load(principal, uploadId, 'contribute');
     if (upload.status !== 'done')
@@ -328,11 +373,13 @@ export class UploadsService {
         'conflict',
         `Upload #${uploadId} is ${upload.status}; only a finished upload can be rolled back.`,
       );
-    const removed = await this.db.transaction(IMPORT_ISOLATION, async (em) => {
-      const span = await this.dailyUse.uploadSpan(em, uploadId);
-      const n = await this.repo.rollBack(em, uploadId);
-      if (span) await this.dailyUse.refresh(em, upload.siteId, span.from, span.to);
-      await this.audit.record(em, {
+    const { dailyUse, repo, audit, meters } = this.deps;
+    const removed = await this.deps.db.transaction(IMPORT_ISOLATION, async (em) => {
+      const spans = await dailyUse.uploadSpansBySite(em, uploadId);
+      const n = await repo.rollBack(em, uploadId);
+      await meters.undoUploadSwaps(em, uploadId);
+      for (const span of spans) await dailyUse.refresh(em, span.siteId, span.from, span.to);
+      await audit.record(em, {
         userId: principal.userId,
         organisationId: upload.organisationId,
         entity: 'upload',
@@ -342,19 +389,27 @@ export class UploadsService {
       });
       return n;
     });
-    return { upload: await this.dto((await this.repo.get(uploadId))!), removed };
+    return { upload: await this.dto((await repo.get(uploadId))!), removed };
   }
 
-  private async load(principal: Principal, uploadId: number, needed: 'read' | 'contribute'): Promise<UploadRecord> {
-    const upload = await this.repo.get(uploadId);
+  /**
+   * An upload the principal may see: a site's through that site; an organisation's by its organisation, and, for
+   * changes, only when the principal may contribute to every site it wrote to.
+   */
+  async load(principal: Principal, uploadId: number, needed: 'read' | 'contribute'): Promise<UploadRecord> {
+    const upload = await this.deps.repo.get(uploadId);
     if (!upload) throw AppError.notFound('Upload');
-    await this.sites.requireLevel(principal, upload.siteId, needed).catch((err: AppError) => {
-      throw err.status === 404 ? AppError.notFound('Upload') : err;
-    });
+    const siteIds = upload.siteId !== null ? [upload.siteId] : upload.sites.map((s) => s.siteId);
+    if (upload.siteId === null && upload.organisationId !== principal.organisationId) throw AppError.notFound('Upload');
+    for (const siteId of upload.siteId === null && needed === 'read' ? [] : siteIds) {
+      await this.deps.sites.requireLevel(principal, siteId, needed).catch((err: AppError) => {
+        throw err.status === 404 ? AppError.notFound('Upload') : err;
+      });
+    }
     return upload;
   }
 
-  private async dto(u: UploadRecord): Promise<UploadDto> {
+  dto(u: UploadRecord): UploadDto {
     const { organisationId: _org, ...rest } = u;
     return { ...rest, progressRows: this.progress.get(u.id) ?? u.rowsRead };
   }

@@ -249,6 +249,24 @@ export class DailyWeatherService {
     return weather;
   }
 
+  /**
+   * Daily ETo (mm) of the station a site takes its weather from, gap-filled from the station's monthly normals
+   * where it can be; null when the site has no station. For components that already checked access (uploads
+   * spreading a bill over its days).
+   */
+  async siteDailyEto(siteId: number, from: string, to: string): Promise<Map<string, number | null> | null> {
+    const stationId = await this.weather.stationIdOfSite(siteId);
+    if (stationId === null) return null;
+    const stored = await this.weather.days(stationId, from, to);
+    try {
+      const filled = fillWeatherGaps(stored, from, to, await this.weather.normals(stationId));
+      return new Map(filled.days.map((d) => [d.date, d.etoMm]));
+    } catch {
+      // Days missing and no normal for their month: only the stored days are known.
+      return new Map(stored.map((d) => [d.date, d.etoMm]));
+    }
+  }
+
   private async store(
     principal: Principal,
     station: StationRecord,

@@ -11,6 +11,8 @@ const FLAG_LABELS: Record<MonthlyFlag, string> = {
   'no-budget': 'No budget',
   'weather-filled': 'Weather from normals',
   'partial-budget': 'Budget covers part of the month',
+  estimated: 'Includes estimated reads',
+  'from-bills': 'Spread from bills',
 };
 
 /** The site's months: use, budget, variance, percent, ETo, rain, cost and flags. Display only. */

@@ -13,10 +13,22 @@ import { VOLUME_UNIT_LABELS, VOLUME_UNITS, type VolumeUnit } from '@shared/units
 
 /** The columns a person may point at, per kind of file. */
 const FIELDS_BY_KIND: Record<UploadKind, MappedField[]> = {
-  'interval-long': ['meter', 'timestamp', 'date', 'time', 'value', 'unit', 'intervalMinutes'],
+  'interval-long': ['meter', 'timestamp', 'date', 'time', 'value', 'unit', 'intervalMinutes', 'readType'],
   'interval-wide': ['meter', 'date', 'unit'],
-  register: ['meter', 'timestamp', 'date', 'time', 'value', 'unit'],
+  register: [
+    'meter',
+    'serial',
+    'timestamp',
+    'date',
+    'time',
+    'value',
+    'unit',
+    'multiplier',
+    'registerDigits',
+    'readType',
+  ],
   runtime: ['controller', 'station', 'start', 'date', 'end', 'duration', 'cause', 'measuredGallons'],
+  billing: ['meter', 'start', 'end', 'value', 'unit', 'readType'],
 };
 
 export const KIND_LABELS: Record<UploadKind, string> = {
@@ -24,6 +36,7 @@ export const KIND_LABELS: Record<UploadKind, string> = {
   'interval-wide': 'Interval readings, one day per row',
   register: 'Register reads (cumulative)',
   runtime: 'Controller run log',
+  billing: 'Billing periods (start, end, usage)',
 };
 
 /** Shows the detected column for each field and lets a person point any field at another column (or none). */

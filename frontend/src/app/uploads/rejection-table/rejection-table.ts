@@ -8,6 +8,7 @@ const KIND_LABELS: Record<RejectionKind, string> = {
   rejected: 'Not imported',
   conflict: 'Differs from stored',
   notice: 'Note',
+  unknown: 'Unknown meter',
 };
 
 /** Rows an upload could not take (and conflicts and notes), where they are and why; downloadable as CSV. */

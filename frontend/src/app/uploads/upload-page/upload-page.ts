@@ -265,6 +265,8 @@ export class UploadPage {
       );
     if ('atUtc' in r)
       return `${r.meterRef} · read at ${local(r.atUtc)} · register ${r.value} ${this.unitLabels[r.unit]}`;
+    if ('startDate' in r)
+      return `${r.meterRef} · bill ${r.startDate} – ${r.endDate} · ${r.volume} ${this.unitLabels[r.unit]}`;
     return `${r.meterRef} · ${local(r.startUtc)} · ${r.minutes} min · ${r.volume} ${this.unitLabels[r.unit]}`;
   }
 }

@@ -1,16 +1,26 @@
 import type { QueryRunner } from 'typeorm';
-import type { ApiErrorDetail } from '@shared/api/errors';
+import { DateOrderEvidence, type DateOrder } from '@shared/ingest/date-order';
 import type { RowError } from '@shared/ingest/ingest-records';
+import { cellText } from '@shared/ingest/row-cells';
 import { createRowReader, interpretRows } from '@shared/ingest/row-reader';
 import type { ColumnMapping, UploadKind } from '@shared/ingest/upload-kind';
 import type { RejectionDto } from '@shared/uploads/upload';
-import { INTERVAL_TARGET, REGISTER_TARGET, RUNTIME_TARGET, type IngestTarget } from '../data/ingest-targets';
-import { IngestWriter } from '../data/ingest-writer';
-import { clipText } from '../../../platform/clip-text';
-import { FileProblem, type CsvRows } from './csv-rows';
-import type { IngestRefs } from './ingest-refs';
-import { IntervalSpans } from './interval-spans';
-import { createStageLines } from './stage-lines';
+import type { VolumeUnit } from '@shared/units/volume-units';
+import {
+  BILLING_TARGET,
+  INTERVAL_TARGET,
+  REGISTER_TARGET,
+  RUNTIME_TARGET,
+  type IngestTarget,
+} from '../../data/ingest-targets';
+import { StageTable } from '../../data/stage-table';
+import { clipText } from '../../../../platform/clip-text';
+import { FileProblem, type CsvRows } from '../csv-rows';
+import type { IngestRefs } from '../ingest-refs';
+import { IntervalSpans } from '../interval-spans';
+import { MappingProblem } from '../upload-errors';
+import { createStageLines } from '../stage-lines';
+import { UnitFindings } from '../unit-findings';
 
 /**
  * Imports and roll-backs run READ COMMITTED: under REPEATABLE READ the range DELETE that refreshes
@@ -24,17 +34,10 @@ export const MAX_STORED_REJECTIONS = 10_000;
 /** Data rows given to column detection (enough to see the interval spacing). */
 const HEAD_ROWS = 20;
 
-export class MappingProblem extends FileProblem {
-  constructor(
-    message: string,
-    readonly details: ApiErrorDetail[],
-  ) {
-    super(message);
-  }
-}
-
 export interface StageOptions {
   timeZone: string;
+  /** A file for many sites: each meter's or controller's site zone. */
+  zoneOf?: (ref: string) => string | undefined;
   now: number;
   /** A whole mapping a person confirmed (its header is replaced by the file's). */
   mapping?: ColumnMapping;
@@ -43,27 +46,45 @@ export interface StageOptions {
   /** Refuse the file when it is not of this kind. */
   kind?: UploadKind;
   refs: IngestRefs;
+  /**
+   * Day/month order: chosen for the file, the organisation's usual one, and (a second reading, once the whole file
+   * decided) the order to read with from the first row.
+   */
+  dateOrder: { chosen?: DateOrder; organisationDefault?: DateOrder | null; read?: DateOrder };
   onProgress(rowsRead: number): void;
   /** Interval files load straight into stored readings under this upload, in a transaction this function opens. */
   directUploadId?: number;
+}
+
+/** Rows naming one meter or controller no site in scope has. */
+export interface UnknownRefTally {
+  field: 'meter' | 'controller';
+  ref: string;
+  rows: number;
+  firstRows: number[];
 }
 
 export interface Staged {
   /** Loaded straight into stored readings (a transaction is open); `staged` is then the rows stored. */
   direct: boolean;
   kind: UploadKind;
+  /** The mapping the rows were read with (its `dateOrder` is the order used, when the file has numeric dates). */
   mapping: ColumnMapping;
   target: IngestTarget;
-  writer: IngestWriter;
+  table: StageTable;
   rowsRead: number;
-  /** Records staged (after repeats within the file were dropped). */
+  /** Records staged (a direct load: stored). */
   staged: number;
-  /** Records whose key repeats an earlier row of the same file. */
-  repeats: number;
   /** With `direct`: the spans of what was loaded, so the checks after the load need not read it back. */
   spans?: IntervalSpans;
   rejected: number;
   rejections: RejectionDto[];
+  /** Rejected rows per site (null: a row whose meter or controller no site in scope has). */
+  rejectedBySite: Map<number | null, number>;
+  unknownRefs: Map<string, UnknownRefTally>;
+  /** Every numeric date of the file, for the date-order decision. */
+  dateEvidence: DateOrderEvidence;
+  units: UnitFindings;
 }
 
 const TARGETS: Record<UploadKind, IngestTarget> = {
@@ -71,14 +92,11 @@ const TARGETS: Record<UploadKind, IngestTarget> = {
   'interval-wide': INTERVAL_TARGET,
   register: REGISTER_TARGET,
   runtime: RUNTIME_TARGET,
+  billing: BILLING_TARGET,
 };
 
-/**
- * Reads the CSV rows as they stream in and loads every good record into the connection's stage table; row
- * errors are collected with their row, column and reason. Nothing is written to stored data here.
- */
-export async function stageUpload(qr: QueryRunner, csv: CsvRows, options: StageOptions): Promise<Staged> {
-  const batches = csv.batches[Symbol.asyncIterator]();
+/** Reads up to HEAD_ROWS data rows (and the header) from the batches, keeping what came after them. */
+async function readHead(batches: AsyncIterator<string[][]>): Promise<{ head: string[][]; afterHead: string[][] }> {
   const head: string[][] = [];
   let afterHead: string[][] = [];
   while (head.length <= HEAD_ROWS) {
@@ -88,80 +106,120 @@ export async function stageUpload(qr: QueryRunner, csv: CsvRows, options: StageO
     head.push(...next.value.slice(0, wanted));
     afterHead = next.value.slice(wanted);
   }
-  const mapping = decideMapping(head, csv, options);
-  const knownRefs = mapping.kind === 'runtime' ? options.refs.controllers : new Set(options.refs.meters.keys());
-  const reader = createRowReader(mapping, { timeZone: options.timeZone, now: options.now, knownRefs });
-  const target = TARGETS[mapping.kind];
-  const writer = new IngestWriter(qr, target);
-  const direct = options.directUploadId !== undefined && target === INTERVAL_TARGET;
-  const spans = direct ? new IntervalSpans() : undefined;
-  const toLine = createStageLines(mapping, options.refs, spans);
-  if (direct) await qr.startTransaction(IMPORT_ISOLATION);
-  await writer.open(direct ? options.directUploadId : undefined);
+  return { head, afterHead };
+}
 
+/** The site of the meter or controller a row names (for counts per site), when it is known. */
+function rowSiteOf(mapping: ColumnMapping, refs: IngestRefs): (cells: string[]) => number | null {
+  const c = mapping.columns;
+  if (mapping.kind === 'runtime') return (cells) => refs.controllers.get(cellText(cells, c.controller)) ?? null;
+  return (cells) => {
+    const ref = c.meter === undefined ? (mapping.fixedMeterRef ?? '').trim() : cellText(cells, c.meter);
+    return refs.meters.get(ref)?.siteId ?? null;
+  };
+}
+
+/**
+ * Stage: reads the CSV rows as they stream in and loads every good record into the connection's stage table (or,
+ * direct, into stored readings); row errors are collected with their row, column and reason, rows of unknown meters
+ * once per meter. Nothing is decided here beyond the mapping: the file's date order, repeats and conflicts are for
+ * the next steps.
+ */
+export async function stageFile(qr: QueryRunner, csv: CsvRows, options: StageOptions): Promise<Staged> {
+  const batches = csv.batches[Symbol.asyncIterator]();
+  const { head, afterHead } = await readHead(batches);
+  const mapping = decideMapping(head, csv, options);
+  const target = TARGETS[mapping.kind];
+  const direct = options.directUploadId !== undefined && target === INTERVAL_TARGET;
   const staged: Staged = {
     direct,
     kind: mapping.kind,
     mapping,
     target,
-    writer,
+    table: new StageTable(qr, target),
     rowsRead: 0,
     staged: 0,
-    repeats: 0,
     rejected: 0,
     rejections: [],
-    spans,
+    rejectedBySite: new Map(),
+    unknownRefs: new Map(),
+    dateEvidence: new DateOrderEvidence(),
+    units: new UnitFindings(),
+    spans: direct ? new IntervalSpans() : undefined,
   };
-  const reject = (e: RowError) => {
+  const handleAll = rowHandler(staged, options);
+  if (direct) await qr.startTransaction(IMPORT_ISOLATION);
+  await staged.table.open(direct ? options.directUploadId : undefined);
+  try {
+    await handleAll(head.slice(1));
+    await handleAll(afterHead);
+    for (let next = await batches.next(); !next.done; next = await batches.next()) await handleAll(next.value);
+    staged.staged = await staged.table.finish();
+  } catch (err) {
+    staged.table.abort(err as Error);
+    throw err;
+  }
+  options.onProgress(staged.rowsRead);
+  return staged;
+}
+
+/** The per-row work: read, turn into a stage line, send; errors and unknown refs are tallied. */
+function rowHandler(staged: Staged, options: StageOptions): (rows: string[][]) => Promise<void> {
+  const { mapping, table } = staged;
+  const refs = options.refs;
+  const runtime = mapping.kind === 'runtime';
+  const knownRefs = runtime ? new Set(refs.controllers.keys()) : new Set(refs.meters.keys());
+  const meterUnits = new Map<string, VolumeUnit>([...refs.meters.values()].map((m) => [m.ref, m.unit]));
+  const reader = createRowReader(mapping, {
+    timeZone: options.timeZone,
+    zoneOf: options.zoneOf,
+    now: options.now,
+    knownRefs,
+    meterUnits,
+    dateEvidence: staged.dateEvidence,
+  });
+  const toLine = createStageLines(mapping, refs, { units: staged.units, spans: staged.spans });
+  const siteOf = rowSiteOf(mapping, refs);
+  const reject = (e: RowError, cells: string[]) => {
     staged.rejected++;
+    const site = siteOf(cells);
+    staged.rejectedBySite.set(site, (staged.rejectedBySite.get(site) ?? 0) + 1);
+    if (e.unknownRef) return tallyUnknown(staged, e);
     if (staged.rejections.length < MAX_STORED_REJECTIONS)
       staged.rejections.push({ row: e.row, column: e.column, kind: 'rejected', message: clipText(e.message, 500) });
   };
   let row = 1;
-  // Synchronous per row (a promise per row costs more than the row); the writer is flushed between rows.
+  // Synchronous per row (a promise per row costs more than the row); the table is flushed between rows.
   const handle = (cells: string[]) => {
     row++;
     if (cells.length === 1 && cells[0]!.trim() === '') return;
     staged.rowsRead++;
     for (const outcome of reader.read(cells, row)) {
       if (!outcome.ok) {
-        reject(outcome);
+        reject(outcome, cells);
         continue;
       }
       const line = toLine(outcome.record, row);
-      if (typeof line === 'string') writer.add(line);
-      else reject(line);
+      if (typeof line === 'string') table.add(line);
+      else reject(line, cells);
     }
     if (staged.rowsRead % 2000 === 0) options.onProgress(staged.rowsRead);
   };
-  const handleAll = async (rows: string[][]) => {
+  return async (rows) => {
     for (const cells of rows) {
       handle(cells);
-      if (writer.full) await writer.flush();
+      if (table.full) await table.flush();
     }
   };
-  try {
-    await handleAll(head.slice(1));
-    await handleAll(afterHead);
-    for (let next = await batches.next(); !next.done; next = await batches.next()) await handleAll(next.value);
-    staged.staged = await writer.finish();
-  } catch (err) {
-    writer.abort(err as Error);
-    throw err;
-  }
-  staged.repeats = direct ? 0 : writer.linesSent - staged.staged;
-  if (staged.repeats > 0) {
-    staged.rejections.push({
-      row: 0,
-      column: null,
-      kind: 'notice',
-      message:
-        `${staged.repeats} record(s) repeat a meter/zone and interval ` +
-        'given earlier in this file; the first of each was kept.',
-    });
-  }
-  options.onProgress(staged.rowsRead);
-  return staged;
+}
+
+function tallyUnknown(staged: Staged, e: RowError): void {
+  const { field, ref } = e.unknownRef!;
+  const key = `${field}\u0000${ref}`;
+  let tally = staged.unknownRefs.get(key);
+  if (!tally) staged.unknownRefs.set(key, (tally = { field, ref, rows: 0, firstRows: [] }));
+  tally.rows++;
+  if (tally.firstRows.length < 8) tally.firstRows.push(e.row);
 }
 
 /** Detects (or takes) the mapping from the header and the first rows; whole-file problems stop the upload here. */
@@ -175,6 +233,8 @@ function decideMapping(head: string[][], csv: CsvRows, options: StageOptions): C
     mapping: given,
     mappingOverrides: options.overrides,
     sampleSize: HEAD_ROWS,
+    dateOrder: options.dateOrder.read ?? options.dateOrder.chosen,
+    organisationDateOrder: options.dateOrder.organisationDefault,
   });
   if (result.fileProblems.length) throw new FileProblem(clipText(result.fileProblems.join(' '), 2_000));
   const mapping = result.mapping!;
