@@ -64,7 +64,10 @@ const rules: Array<[HeaderRole, RegExp]> = [
     /\b(?:run ?time|runtime|duration|minutes run|mins run|watering (?:time|minutes))\b|^(?:minutes|mins|min)$/,
   ],
   ['cause', /\b(?:cause|reason|trigger|run type|event type|start type|origin)\b/],
-  ['end', /\b(?:end|ended|stop|stopped|finish|finished|through|thru)\b|^to$|\b(?:current|present) (?:read )?date\b/],
+  [
+    'end',
+    /\b(?:end|ended|stop|stopped|finish|finished|through|thru)\b|^to$|\b(?:service|period|bill|billing) to\b|\b(?:current|present) (?:read )?date\b/,
+  ],
   ['start', /\b(?:start|started|begin|began|beginning|from)\b|\b(?:previous|prior|prev) (?:read )?date\b/],
   ['timestamp', /\b(?:timestamp|time stamp|date ?\/ ?time|datetime|date time|date and time|read at)\b/],
   ['date', /\b(?:date|day)\b/],

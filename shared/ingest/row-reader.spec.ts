@@ -7,6 +7,7 @@ import { differenceRegisterReads, type RegisterPeriod } from './register-differe
 import { interpretRows } from './row-reader';
 import type { IntervalRecord, RegisterRecord, RuntimeRecord } from './ingest-records';
 import type { ColumnMapping } from './upload-kind';
+import type { VolumeUnit } from '../units/volume-units';
 
 // Expected outcomes live in samples/catalogue.json so the demo seed and these tests share one description.
 interface SampleFile {
@@ -22,11 +23,14 @@ interface SampleFile {
   mappingProblems?: string[];
   mappingOverrides?: Partial<ColumnMapping>;
   dateOrder?: 'month-first' | 'day-first';
+  decidedDateOrder?: 'month-first' | 'day-first';
+  dateEvidenceRow?: number;
   checkKnownRefs?: boolean;
   differenced?: { volumes: number; rollovers: number; problems: string[] };
 }
 interface CatalogueMeter {
   ref: string;
+  unit: VolumeUnit;
   registerDigits?: number;
   multiplier?: number;
   registers?: RegisterPeriod[];
@@ -40,6 +44,7 @@ const catalogue = JSON.parse(readFileSync(new URL('catalogue.json', samples), 'u
 const meters = catalogue.sites.flatMap((s) => s.meters);
 const knownRefs = new Set([...meters.map((m) => m.ref), ...catalogue.sites.flatMap((s) => s.controllers)]);
 const now = new Date(catalogue.now);
+const meterUnits = new Map(meters.map((m) => [m.ref, m.unit]));
 
 function interpret(path: string, extra: Partial<Parameters<typeof interpretRows>[1]> = {}) {
   const spec = catalogue.files[path]!;
@@ -53,6 +58,7 @@ function interpret(path: string, extra: Partial<Parameters<typeof interpretRows>
     delimiter,
     mappingOverrides: spec.mappingOverrides,
     dateOrder: spec.dateOrder,
+    meterUnits,
     knownRefs: spec.checkKnownRefs ? knownRefs : undefined,
     ...extra,
   });
@@ -79,6 +85,10 @@ describe('every sample file gives the outcome samples/catalogue.json lists', () 
     if (spec.fileProblem) expect(result!.fileProblems.join(' ')).toContain(spec.fileProblem);
     else expect(result!.fileProblems).toEqual([]);
     expect(result!.mappingProblems.map((p) => p.field)).toEqual(spec.mappingProblems ?? []);
+    if (spec.decidedDateOrder) {
+      expect(result!.dateOrder).toMatchObject({ kind: 'decided', order: spec.decidedDateOrder, source: 'file' });
+      if (spec.dateEvidenceRow) expect(result!.dateOrder).toMatchObject({ clue: { row: spec.dateEvidenceRow } });
+    }
 
     if (spec.differenced) {
       const reads = result!.records as RegisterRecord[];

@@ -17,6 +17,7 @@ import { sniffDelimiter, stripBom } from '@shared/ingest/delimiter-sniffing';
 import { decodeText, sniffEncoding } from '@shared/ingest/encoding-sniffing';
 import { interpretRows } from '@shared/ingest/row-reader';
 import type { ColumnMapping } from '@shared/ingest/upload-kind';
+import type { VolumeUnit } from '@shared/units/volume-units';
 
 interface SampleFile {
   timeZone: string;
@@ -24,13 +25,15 @@ interface SampleFile {
   records?: number;
   mappingOverrides?: Partial<ColumnMapping>;
   checkKnownRefs?: boolean;
+  dateOrder?: 'month-first' | 'day-first';
 }
 const samples = new URL('../../samples/', import.meta.url);
 const catalogue = JSON.parse(readFileSync(new URL('catalogue.json', samples), 'utf8')) as {
   now: string;
-  sites: Array<{ meters: Array<{ ref: string }>; controllers: string[] }>;
+  sites: Array<{ meters: Array<{ ref: string; unit: VolumeUnit }>; controllers: string[] }>;
   files: Record<string, SampleFile>;
 };
+const meterUnits = new Map(catalogue.sites.flatMap((s) => s.meters.map((m) => [m.ref, m.unit] as const)));
 const knownRefs = new Set(catalogue.sites.flatMap((s) => [...s.meters.map((m) => m.ref), ...s.controllers]));
 
 function withCsvParse(bytes: Buffer): { text: string; rows: string[][] } {
@@ -65,6 +68,8 @@ describe('csv-parse and Papa Parse agree on every sample file', () => {
       delimiter: sniffDelimiter(a.text),
       mappingOverrides: spec.mappingOverrides,
       knownRefs: spec.checkKnownRefs ? knownRefs : undefined,
+      dateOrder: spec.dateOrder,
+      meterUnits,
     };
     const fromCsvParse = interpretRows(a.rows, options);
     const fromPapa = interpretRows(b.rows, options);
