@@ -32,6 +32,9 @@ export interface CatalogueFile {
   /** The day/month order a person chooses for a file whose dates fit both. */
   dateOrder?: 'month-first' | 'day-first';
   differenced?: { volumes: number; rollovers: number; problems: string[] };
+  /** A file for the organisation-wide upload (rows of several sites). */
+  organisation?: boolean;
+  unknownRefs?: string[];
 }
 
 export const catalogue = JSON.parse(readFileSync(resolve(SAMPLES, 'catalogue.json'), 'utf8')) as {
@@ -39,6 +42,13 @@ export const catalogue = JSON.parse(readFileSync(resolve(SAMPLES, 'catalogue.jso
   sites: CatalogueSite[];
   files: Record<string, CatalogueFile>;
 };
+
+/** Per file and meter: readings (register files: volumes; bills: periods) and US gallons, summed by make-samples.py. */
+export const expectedTotals = (
+  JSON.parse(readFileSync(resolve(SAMPLES, 'expected-totals.json'), 'utf8')) as {
+    files: Record<string, Record<string, { records: number; gallons: number }>>;
+  }
+).files;
 
 /** Stations the sample runtime logs use, per controller. */
 export const SAMPLE_STATIONS: Record<string, string[]> = {
