@@ -85,6 +85,10 @@ describe('upload page', () => {
         const sample = page.locator('ul.sample li');
         expect(await sample.count()).toBe(6);
         expect(await sample.first().innerText()).toMatch(/^SCHOOL-01 · 2026-11-01 00:00:00 · 60 min · 83\.25/);
+        // Every date fits both orders (no day above 12): the page asks rather than guessing.
+        await page.getByText(/fit both day-first and month-first/).waitFor();
+        await page.getByRole('radio', { name: /month first/ }).check();
+        await page.getByText(/Dates read month first \(m\/d\/yyyy\): as chosen/).waitFor();
         await screenshot(page, 'uploads-preview');
 
         await page.getByRole('button', { name: 'Upload', exact: true }).click();

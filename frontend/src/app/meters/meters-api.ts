@@ -20,6 +20,15 @@ export class MetersApi {
     return this.http.patch<MeterDto>(`/api/sites/${siteId}/meters/${meterId}`, changes);
   }
 
+  /** The meter's register was replaced at `swappedAt`: the old one becomes a previous register period. */
+  recordSwap(
+    siteId: number,
+    meterId: number,
+    swap: { swappedAt: string; multiplier: number; digits: number | null },
+  ): Observable<MeterDto> {
+    return this.http.post<MeterDto>(`/api/sites/${siteId}/meters/${meterId}/swaps`, swap);
+  }
+
   deleteMeter(siteId: number, meterId: number): Observable<void> {
     return this.http.delete<void>(`/api/sites/${siteId}/meters/${meterId}`);
   }

@@ -2,7 +2,14 @@ import { HttpClient, type HttpEvent } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Page } from '@shared/api/page';
 import type { ColumnMapping } from '@shared/ingest/upload-kind';
-import type { ImportProfileDto, RejectionDto, UploadDto, UploadResult } from '@shared/uploads/upload';
+import type {
+  ConflictSummaryDto,
+  ImportProfileDto,
+  RejectionDto,
+  RepeatChoice,
+  UploadDto,
+  UploadResult,
+} from '@shared/uploads/upload';
 import type { Observable } from 'rxjs';
 
 /** The /api upload, import-profile, meter and controller endpoints. */
@@ -13,25 +20,54 @@ export class UploadsApi {
   /**
    * Sends the file as multipart, reporting upload progress; the fields go before the file, as the server reads them.
    */
-  upload(siteId: number, file: File, fields: Record<string, string>): Observable<HttpEvent<UploadResult>> {
+  upload(siteId: number | null, file: File, fields: Record<string, string>): Observable<HttpEvent<UploadResult>> {
     const form = new FormData();
     for (const [name, value] of Object.entries(fields)) form.append(name, value);
     form.append('file', file, file.name);
-    return this.http.post<UploadResult>(`/api/sites/${siteId}/uploads`, form, {
+    // No site: the organisation's upload, each row routed to the site its meter or controller belongs to.
+    const url = siteId === null ? '/api/uploads' : `/api/sites/${siteId}/uploads`;
+    return this.http.post<UploadResult>(url, form, {
       reportProgress: true,
       observe: 'events',
     });
   }
 
-  list(siteId: number, page = 0, clientRef?: string): Observable<Page<UploadDto>> {
+  /** A site's uploads, or (no site) the organisation's own multi-site uploads and every upload it may see. */
+  list(siteId: number | null, page = 0, clientRef?: string): Observable<Page<UploadDto>> {
     const params: Record<string, string | number> = { page, pageSize: 20 };
     if (clientRef) params['clientRef'] = clientRef;
-    return this.http.get<Page<UploadDto>>(`/api/sites/${siteId}/uploads`, { params });
+    const url = siteId === null ? '/api/uploads' : `/api/sites/${siteId}/uploads`;
+    return this.http.get<Page<UploadDto>>(url, { params });
   }
 
-  rejections(uploadId: number, limit = 200): Observable<{ items: RejectionDto[]; total: number }> {
+  get(uploadId: number): Observable<UploadDto> {
+    return this.http.get<UploadDto>(`/api/uploads/${uploadId}`);
+  }
+
+  rejections(uploadId: number, page = 0, pageSize = 50): Observable<{ items: RejectionDto[]; total: number }> {
     return this.http.get<{ items: RejectionDto[]; total: number }>(`/api/uploads/${uploadId}/rejections`, {
-      params: { limit },
+      params: { page, pageSize },
+    });
+  }
+
+  conflicts(uploadId: number): Observable<ConflictSummaryDto> {
+    return this.http.get<ConflictSummaryDto>(`/api/uploads/${uploadId}/conflicts`);
+  }
+
+  /** Stores the file's values over the stored ones: one site's day, or (no day) every open conflict. */
+  replaceConflicts(
+    uploadId: number,
+    day?: { siteId: number; date: string },
+  ): Observable<{ replaced: number; upload: UploadDto }> {
+    return this.http.post<{ replaced: number; upload: UploadDto }>(
+      `/api/uploads/${uploadId}/conflicts/replace`,
+      day ?? {},
+    );
+  }
+
+  resolveRepeats(uploadId: number, choice: RepeatChoice): Observable<{ stored: number; upload: UploadDto }> {
+    return this.http.post<{ stored: number; upload: UploadDto }>(`/api/uploads/${uploadId}/conflicts/repeats`, {
+      choice,
     });
   }
 

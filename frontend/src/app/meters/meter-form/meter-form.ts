@@ -40,6 +40,14 @@ export interface MeterFormData {
     MatIconModule,
   ],
   templateUrl: './meter-form.html',
+  styles: `
+    .swap {
+      padding: 0 24px 8px;
+    }
+    .hint {
+      color: var(--mat-sys-on-surface-variant);
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class MeterForm {
@@ -70,6 +78,41 @@ export class MeterForm {
     installedAt: [this.localDate(this.meter?.installedAt ?? null)],
     removedAt: [this.localDate(this.meter?.removedAt ?? null)],
   });
+
+  /** Editing only: a replaced register, from the day it was swapped (the site's midnight) with its own settings. */
+  protected readonly swap = inject(NonNullableFormBuilder).group({
+    swappedOn: ['', Validators.required],
+    multiplier: [1, [Validators.required, Validators.min(0.000001)]],
+    digits: [null as number | null, [Validators.min(1), Validators.max(12), Validators.pattern(/^\d+$/)]],
+  });
+  protected readonly previous = this.meter?.previousRegisters ?? [];
+
+  protected async recordSwap(): Promise<void> {
+    if (!this.meter || this.swap.invalid) {
+      this.swap.markAllAsTouched();
+      return;
+    }
+    const v = this.swap.getRawValue();
+    const swap = {
+      swappedAt: siteMidnight(v.swappedOn, this.data.timeZone),
+      multiplier: Number(v.multiplier),
+      digits: v.digits === null || String(v.digits) === '' ? null : Number(v.digits),
+    };
+    this.saving.set(true);
+    this.saveError.set(null);
+    try {
+      this.ref.close(await firstValueFrom(this.api.recordSwap(this.data.siteId, this.meter.id, swap)));
+    } catch (err) {
+      const problem = describeApiError(err, 'The swap could not be recorded.');
+      this.saveError.set([problem.message, ...Object.values(problem.fields)].join(' '));
+    } finally {
+      this.saving.set(false);
+    }
+  }
+
+  protected localDay(iso: string | null): string {
+    return iso ? this.localDate(iso) : '…';
+  }
 
   protected async save(): Promise<void> {
     if (this.form.invalid) {

@@ -24,6 +24,8 @@ export class RejectionTable {
   /** How many there are in all (the table may show the first ones only). */
   readonly total = input.required<number>();
   readonly csvUrl = input.required<string>();
+  /** A paginator beside the table shows the rest (no "first N" note then). */
+  readonly paged = input(false);
 
   protected readonly columns = ['row', 'column', 'kind', 'message'];
   protected kindLabel(kind: string): string {

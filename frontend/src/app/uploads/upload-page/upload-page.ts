@@ -13,22 +13,40 @@ import { MatSelectModule } from '@angular/material/select';
 import { ActivatedRoute } from '@angular/router';
 import type { IngestRecord } from '@shared/ingest/ingest-records';
 import { validateMapping } from '@shared/ingest/mapping-validation';
+import { DATE_ORDER_LABELS, DATE_ORDERS, describeDateOrder, type DateOrder } from '@shared/ingest/date-order';
 import { interpretRows, type Interpretation } from '@shared/ingest/row-reader';
 import type { ColumnMapping } from '@shared/ingest/upload-kind';
 import type { SiteDto } from '@shared/sites/site';
 import { VOLUME_UNIT_LABELS } from '@shared/units/volume-units';
-import type { ImportProfileDto, RejectionDto, RowErrorPolicy, UploadDto, UploadResult } from '@shared/uploads/upload';
+import type {
+  ImportProfileDto,
+  InFileRepeatPolicy,
+  RowErrorPolicy,
+  UploadDto,
+  UploadResult,
+} from '@shared/uploads/upload';
 import { Subscription, interval } from 'rxjs';
 import { confirm } from '../../shared/confirm-dialog/confirm-dialog';
 import { MetersApi } from '../../meters/meters-api';
 import { SitesApi } from '../../sites/sites-api';
 import { ColumnMappingEditor } from '../column-mapping-editor/column-mapping-editor';
-import { RejectionTable } from '../rejection-table/rejection-table';
 import { UploadHistory } from '../upload-history/upload-history';
+import { UploadOutcome } from '../upload-outcome/upload-outcome';
 import { UploadsApi } from '../uploads-api';
 import { newClientRef, previewFile, type FilePreview } from './file-preview';
 
 type Phase = 'idle' | 'sending' | 'processing' | 'finished' | 'failed';
+
+/** The site choice that means the whole organisation (no site has id 0). */
+const ORGANISATION = 0;
+
+/** A mapping as the page keeps it: the day/month order is the person's choice or the whole file's, kept apart. */
+function withoutDateOrder(mapping: ColumnMapping | null): ColumnMapping | null {
+  if (!mapping) return null;
+  const copy = { ...mapping };
+  delete copy.dateOrder;
+  return copy;
+}
 
 /** Drop a CSV, check how it will be read, send it, and see what came of it; earlier uploads below. */
 @Component({
@@ -44,8 +62,8 @@ type Phase = 'idle' | 'sending' | 'processing' | 'finished' | 'failed';
     MatRadioModule,
     MatSelectModule,
     ColumnMappingEditor,
-    RejectionTable,
     UploadHistory,
+    UploadOutcome,
   ],
   templateUrl: './upload-page.html',
   styleUrl: './upload-page.scss',
@@ -59,9 +77,17 @@ export class UploadPage {
   private polling?: Subscription;
 
   protected readonly sites = signal<SiteDto[]>([]);
+  /** A site, or ORGANISATION: one file for many sites, each row routed by its meter or controller. */
   protected readonly siteId = signal<number | null>(null);
+  protected readonly organisationWide = computed(() => this.siteId() === ORGANISATION);
   protected readonly site = computed(() => this.sites().find((s) => s.id === this.siteId()) ?? null);
-  protected readonly canUpload = computed(() => !!this.site() && this.site()!.access !== 'read');
+  /** The site whose time zone the preview reads in (an organisation's upload: each row's own site on the server). */
+  private readonly previewSite = computed(() => this.site() ?? (this.organisationWide() ? this.sites()[0] : null));
+  protected readonly canUpload = computed(() =>
+    this.organisationWide()
+      ? this.sites().some((s) => s.access !== 'read')
+      : !!this.site() && this.site()!.access !== 'read',
+  );
   protected readonly meterRefs = signal<string[]>([]);
   protected readonly profiles = signal<ImportProfileDto[]>([]);
   protected readonly history = signal<UploadDto[]>([]);
@@ -71,7 +97,7 @@ export class UploadPage {
   protected readonly mapping = signal<ColumnMapping | null>(null);
   protected readonly interpretation = computed<Interpretation | null>(() => {
     const preview = this.preview();
-    const site = this.site();
+    const site = this.previewSite();
     if (!preview?.ok || !site) return null;
     const mapping = this.mapping();
     return interpretRows(preview.rows, {
@@ -79,6 +105,7 @@ export class UploadPage {
       now: Date.now(),
       delimiter: preview.delimiter,
       mapping: mapping ?? undefined,
+      dateOrder: this.chosenDateOrder() ?? undefined,
     });
   });
   protected readonly problems = computed(() => {
@@ -90,8 +117,25 @@ export class UploadPage {
   protected readonly sampleRecords = computed(() =>
     (this.interpretation()?.records ?? []).slice(0, 8).map((r) => this.describe(r)),
   );
+  /** The day/month order as the preview decided it, with its evidence, or the question when it cannot. */
+  protected readonly dateDecision = computed(() => this.interpretation()?.dateOrder ?? null);
+  protected readonly dateNote = computed(() => {
+    const d = this.dateDecision();
+    return d && d.kind !== 'not-needed' ? describeDateOrder(d) : null;
+  });
+  /** Ask when the preview cannot decide, or when the server refused the file as ambiguous. */
+  protected readonly askDateOrder = computed(() => {
+    const kind = this.dateDecision()?.kind;
+    return kind === 'ambiguous' || kind === 'contradictory' || this.serverAsked() || this.chosenDateOrder() !== null;
+  });
+  private readonly serverAsked = signal(false);
+  /** Chosen by the person; otherwise the server decides from the whole file (the preview sees its head). */
+  protected readonly chosenDateOrder = signal<DateOrder | null>(null);
+  protected readonly dateOrders = DATE_ORDERS;
+  protected readonly dateOrderLabels = DATE_ORDER_LABELS;
   protected readonly replaceConflicts = signal(false);
   protected readonly rowErrors = signal<RowErrorPolicy>('keep-valid');
+  protected readonly repeats = signal<InFileRepeatPolicy>('not-stored');
   protected readonly profileName = signal('');
 
   protected readonly phase = signal<Phase>('idle');
@@ -100,7 +144,7 @@ export class UploadPage {
   protected readonly result = signal<UploadResult | null>(null);
   protected readonly error = signal<string | null>(null);
   protected readonly shown = signal<UploadDto | null>(null);
-  protected readonly rejections = signal<{ items: RejectionDto[]; total: number } | null>(null);
+  protected readonly organisation = ORGANISATION;
   protected readonly dragging = signal(false);
   protected readonly unitLabels = VOLUME_UNIT_LABELS;
 
@@ -120,8 +164,13 @@ export class UploadPage {
 
   protected chooseSite(id: number): void {
     this.siteId.set(id);
-    this.metersApi.meters(id).subscribe((m) => this.meterRefs.set(m.map((x) => x.ref)));
+    this.meterRefs.set([]);
+    if (id !== ORGANISATION) this.metersApi.meters(id).subscribe((m) => this.meterRefs.set(m.map((x) => x.ref)));
     this.refreshHistory();
+  }
+
+  protected chooseDateOrder(order: DateOrder): void {
+    this.chosenDateOrder.set(order);
   }
 
   protected dragOver(event: DragEvent): void {
@@ -146,22 +195,28 @@ export class UploadPage {
     this.file.set(file);
     this.result.set(null);
     this.error.set(null);
-    this.rejections.set(null);
+    this.shown.set(null);
+    this.serverAsked.set(false);
+    this.chosenDateOrder.set(null);
     this.phase.set('idle');
     this.mapping.set(null);
     const preview = await previewFile(file);
     this.preview.set(preview);
-    this.mapping.set(this.interpretation()?.mapping ?? null);
+    this.mapping.set(withoutDateOrder(this.interpretation()?.mapping ?? null));
   }
 
   protected useProfile(profile: ImportProfileDto | null): void {
     const preview = this.preview();
     if (!profile || !preview?.ok) return;
-    this.mapping.set({ ...profile.mapping, header: preview.rows[0] ?? [] });
+    this.mapping.set(withoutDateOrder({ ...profile.mapping, header: preview.rows[0] ?? [] }));
+    // A profile's saved day/month order counts as chosen.
+    if (profile.mapping.dateOrder) this.chosenDateOrder.set(profile.mapping.dateOrder);
   }
 
   protected saveProfile(): void {
-    const mapping = this.mapping();
+    const confirmed = this.mapping();
+    const order = this.chosenDateOrder();
+    const mapping = confirmed && order ? { ...confirmed, dateOrder: order } : confirmed;
     const name = this.profileName().trim();
     if (!mapping || !name) return;
     this.api.saveProfile(name, mapping).subscribe({
@@ -172,9 +227,12 @@ export class UploadPage {
 
   protected send(): void {
     const file = this.file();
-    const siteId = this.siteId();
-    const mapping = this.mapping();
-    if (!file || siteId === null || !mapping) return;
+    const chosen = this.siteId();
+    const confirmed = this.mapping();
+    if (!file || chosen === null || !confirmed) return;
+    const order = this.chosenDateOrder();
+    const mapping = order ? { ...confirmed, dateOrder: order } : confirmed;
+    const siteId = chosen === ORGANISATION ? null : chosen;
     const clientRef = newClientRef();
     this.phase.set('sending');
     this.sentPercent.set(0);
@@ -184,7 +242,9 @@ export class UploadPage {
       mapping: JSON.stringify(mapping),
       replaceConflicts: String(this.replaceConflicts()),
       rowErrors: this.rowErrors(),
+      repeats: this.repeats(),
       clientRef,
+      ...(order ? { dateOrder: order } : {}),
     };
     this.api.upload(siteId, file, fields).subscribe({
       next: (event) => {
@@ -202,6 +262,7 @@ export class UploadPage {
         this.finish();
         this.phase.set('failed');
         this.error.set(e.error?.error?.message ?? 'The upload did not reach the server.');
+        if (e.error?.error?.code === 'date_order_ambiguous') this.serverAsked.set(true);
         const details: Array<{ field: string; message: string }> = e.error?.error?.details ?? [];
         if (details.length)
           this.error.update((m) => `${m} ${details.map((d) => `${d.field}: ${d.message}`).join('; ')}`);
@@ -211,7 +272,11 @@ export class UploadPage {
 
   protected showUpload(upload: UploadDto): void {
     this.shown.set(upload);
-    this.api.rejections(upload.id).subscribe((r) => this.rejections.set(r));
+  }
+
+  protected changed(upload: UploadDto): void {
+    this.shown.set(upload);
+    this.refreshHistory();
   }
 
   protected async rollBack(upload: UploadDto): Promise<void> {
@@ -230,11 +295,7 @@ export class UploadPage {
     });
   }
 
-  protected csvUrl(id: number): string {
-    return this.api.rejectionsCsvUrl(id);
-  }
-
-  private startPolling(siteId: number, clientRef: string): void {
+  private startPolling(siteId: number | null, clientRef: string): void {
     if (this.polling) return;
     this.phase.set('processing');
     this.polling = interval(700).subscribe(() =>
@@ -252,12 +313,12 @@ export class UploadPage {
 
   private refreshHistory(): void {
     const id = this.siteId();
-    if (id !== null) this.api.list(id).subscribe((page) => this.history.set(page.items));
+    if (id !== null) this.api.list(id === ORGANISATION ? null : id).subscribe((page) => this.history.set(page.items));
   }
 
   private describe(r: IngestRecord): string {
     const local = (iso: string) =>
-      new Date(iso).toLocaleString('en-CA', { timeZone: this.site()!.timeZone, hour12: false }).replace(',', '');
+      new Date(iso).toLocaleString('en-CA', { timeZone: this.previewSite()!.timeZone, hour12: false }).replace(',', '');
     if ('controllerRef' in r)
       return (
         `${r.controllerRef} station ${r.station} · ${local(r.startUtc)} ` +
