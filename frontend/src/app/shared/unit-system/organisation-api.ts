@@ -12,6 +12,11 @@ export class OrganisationApi {
     return this.http.get<OrganisationSettingsDto>('/api/organisation/settings');
   }
 
+  /** The day/month order the organisation's exports usually use (null: none; ambiguous files are asked about). */
+  setDateOrder(dateOrder: 'month-first' | 'day-first' | null): Observable<OrganisationSettingsDto> {
+    return this.http.patch<OrganisationSettingsDto>('/api/organisation/settings', { dateOrder });
+  }
+
   setUnitSystem(unitSystem: UnitSystem): Observable<OrganisationSettingsDto> {
     return this.http.patch<OrganisationSettingsDto>('/api/organisation/settings', { unitSystem });
   }

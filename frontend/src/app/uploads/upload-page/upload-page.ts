@@ -26,7 +26,9 @@ import type {
   UploadResult,
 } from '@shared/uploads/upload';
 import { Subscription, interval } from 'rxjs';
+import { AuthStore } from '../../core/auth/auth-store';
 import { confirm } from '../../shared/confirm-dialog/confirm-dialog';
+import { OrganisationApi } from '../../shared/unit-system/organisation-api';
 import { MetersApi } from '../../meters/meters-api';
 import { SitesApi } from '../../sites/sites-api';
 import { ColumnMappingEditor } from '../column-mapping-editor/column-mapping-editor';
@@ -74,6 +76,10 @@ export class UploadPage {
   private readonly sitesApi = inject(SitesApi);
   private readonly metersApi = inject(MetersApi);
   private readonly dialog = inject(MatDialog);
+  private readonly organisationApi = inject(OrganisationApi);
+  /** Administrators may make a chosen order the organisation's usual one. */
+  private readonly auth = inject(AuthStore);
+  protected readonly canSetUsualOrder = computed(() => this.auth.capabilities().manageSettings);
   private polling?: Subscription;
 
   protected readonly sites = signal<SiteDto[]>([]);
@@ -106,6 +112,7 @@ export class UploadPage {
       delimiter: preview.delimiter,
       mapping: mapping ?? undefined,
       dateOrder: this.chosenDateOrder() ?? undefined,
+      organisationDateOrder: this.usualDateOrder(),
     });
   });
   protected readonly problems = computed(() => {
@@ -131,6 +138,8 @@ export class UploadPage {
   private readonly serverAsked = signal(false);
   /** Chosen by the person; otherwise the server decides from the whole file (the preview sees its head). */
   protected readonly chosenDateOrder = signal<DateOrder | null>(null);
+  /** The organisation's usual order (settings), as the server applies it to files whose dates fit both. */
+  protected readonly usualDateOrder = signal<DateOrder | null>(null);
   protected readonly dateOrders = DATE_ORDERS;
   protected readonly dateOrderLabels = DATE_ORDER_LABELS;
   protected readonly replaceConflicts = signal(false);
@@ -159,6 +168,7 @@ export class UploadPage {
         if (first && this.siteId() === null) this.chooseSite(first.id);
       });
     this.api.profiles().subscribe((p) => this.profiles.set(p));
+    this.organisationApi.settings().subscribe((s) => this.usualDateOrder.set(s.dateOrder));
     inject(DestroyRef).onDestroy(() => this.polling?.unsubscribe());
   }
 
@@ -171,6 +181,13 @@ export class UploadPage {
 
   protected chooseDateOrder(order: DateOrder): void {
     this.chosenDateOrder.set(order);
+  }
+
+  protected makeUsualDateOrder(order: DateOrder): void {
+    this.organisationApi.setDateOrder(order).subscribe({
+      next: (s) => this.usualDateOrder.set(s.dateOrder),
+      error: (e: HttpErrorResponse) => this.error.set(e.error?.error?.message ?? 'The setting could not be saved.'),
+    });
   }
 
   protected dragOver(event: DragEvent): void {
