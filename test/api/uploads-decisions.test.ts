@@ -56,6 +56,15 @@ describe('day/month order', () => {
     expect(res.body.upload.mapping).toMatchObject({ dateOrder: 'day-first' });
     // 3 April 01:00 PDT is 08:00 UTC.
     expect((await siteReadings(app.db, siteId)).map((r) => r.start)[0]).toBe('2026-04-03T08:00:00.000Z');
+
+    // The order kept in the mapping, as the upload page and a saved import profile send it.
+    const profile = await manager.post('/api/import-profiles', { name: 'Day-first', mapping: res.body.upload.mapping });
+    expect(profile.status, JSON.stringify(profile.body)).toBe(201);
+    expect(profile.body.mapping).toMatchObject({ dateOrder: 'day-first' });
+    const other = await siteWithMeter('DMY-1');
+    const byMapping = await uploadFile(manager, other, file, { mapping: JSON.stringify(profile.body.mapping) });
+    expect(byMapping.status, JSON.stringify(byMapping.body)).toBe(201);
+    expect((await siteReadings(app.db, other)).map((r) => r.start)[0]).toBe('2026-04-03T08:00:00.000Z');
   });
 });
 

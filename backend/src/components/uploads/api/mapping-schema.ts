@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { DATE_ORDERS } from '@shared/ingest/date-order';
 import { MAPPED_FIELDS, UPLOAD_KINDS, type MappedField } from '@shared/ingest/upload-kind';
 import { VOLUME_UNITS } from '@shared/units/volume-units';
 
@@ -16,12 +17,16 @@ const optionalFields = {
   timestampMarksEnd: z.boolean().optional(),
 };
 
-/** A whole ColumnMapping as the upload page (or a saved profile) sends it; the header is re-read from the file. */
+/**
+ * A whole ColumnMapping as the upload page (or a saved profile) sends it; the header is re-read from the file.
+ * Its `dateOrder` is a chosen day/month order (the upload's own `dateOrder` field wins when both are given).
+ */
 export const mappingSchema = z.strictObject({
   kind: z.enum(UPLOAD_KINDS),
   header: z.array(z.string().max(500)).max(10_000).default([]),
   columns,
   ...optionalFields,
+  dateOrder: z.enum(DATE_ORDERS).optional(),
 });
 
 /** Changes applied on top of the detected mapping, e.g. `{ "fixedMeterRef": "SCHOOL-02" }`. */
