@@ -5,6 +5,7 @@ import {
   createTestApp,
   createWorld,
   signedIn,
+  suffix,
   type Client,
   type TestApp,
   type World,
@@ -116,12 +117,13 @@ describe('conflicts with stored readings', () => {
 
 describe('one file for many sites', () => {
   it('when an organisation uploads a multi-site export, then each row lands on its meter’s site, once', async () => {
-    // An organisation of its own, so its meter refs are unique to it.
+    // An organisation of its own, so its meter refs are unique to it; site names of its own too, so the demo's
+    // sites (which the catalogue is named after) stay the only ones of their name in the shared test database.
     const org = await createWorld(app.db);
     const admin = await signedIn(app, org.users.manager.email);
     const siteOf = new Map<string, number>();
     for (const s of catalogue.sites) {
-      const site = await createSite(app.db, org.org.id, { name: s.name, timeZone: s.timeZone });
+      const site = await createSite(app.db, org.org.id, { name: `${s.name} ${suffix()}`, timeZone: s.timeZone });
       for (const m of s.meters) {
         const res = await admin.post(`/api/sites/${site.id}/meters`, meterBody(m));
         expect(res.status, JSON.stringify(res.body)).toBe(201);

@@ -11,7 +11,7 @@ import { seedFieldWork } from '../../ops/seed/seed-field-work';
 import { seedSavings } from '../../ops/seed/seed-savings';
 import { suffix } from '../support/test-app';
 import { DESKTOP, openBrowser, PHONE, screenshot, signIn } from '../support/browser';
-import { e2eDatabase } from '../support/e2e-database';
+import { demoSiteId, e2eDatabase } from '../support/e2e-database';
 
 /**
  * Field audits (contractor), the what-if planner (manager) and the achieved-ETAF index (auditor) in Chromium, at
@@ -27,8 +27,7 @@ beforeAll(async () => {
   await seedSavings(db);
   await seedFieldWork(db, config);
   for (const name of ['Willowmere HOA — South Greenbelt', 'Willowmere HOA — North Commons']) {
-    const [row]: { id: number }[] = await db.query('SELECT id FROM site WHERE name = ?', [name]);
-    siteIds[name] = Number(row!.id);
+    siteIds[name] = await demoSiteId(db, name);
   }
   await db.destroy();
   server = await startServer(config);

@@ -6,7 +6,7 @@ import { DEMO_USERS } from '../../ops/seed/demo-scenario';
 import { seedDemo } from '../../ops/seed/seed-demo';
 import { DESKTOP, openBrowser, PHONE, screenshot, signIn } from '../support/browser';
 import { suffix } from '../support/test-app';
-import { e2eDatabase } from '../support/e2e-database';
+import { demoSiteId, e2eDatabase } from '../support/e2e-database';
 
 /**
  * Settings in the browser: an administrator switches units, makes an API key, sees its secret once with the upload
@@ -19,8 +19,7 @@ const SITE = 'Tannery Point Office Park';
 beforeAll(async () => {
   const { config, db } = await e2eDatabase();
   await seedDemo(db);
-  const [site] = await db.query('SELECT id FROM site WHERE name = ?', [SITE]);
-  siteId = Number(site.id);
+  siteId = await demoSiteId(db, SITE);
   await db.destroy();
   server = await startServer(config);
 });
