@@ -10,13 +10,13 @@ import { Watch1796215000000 } from './migrations/1796215000000-watch';
 import { Reports1796220000000 } from './migrations/1796220000000-reports';
 import { MonthlyUse1796240000000 } from './migrations/1796240000000-monthly-use';
 import { WatchImperfectData1796250000000 } from './migrations/1796250000000-watch-imperfect-data';
-import { IngestDecisions1796260000000 } from './migrations/1796260000000-ingest-decisions';
 import { FieldAudits1796300000000 } from './migrations/1796300000000-field-audits';
 import { WhatIfPlans1796300001000 } from './migrations/1796300001000-what-if-plans';
 import { SiteEtafSettings1796300002000 } from './migrations/1796300002000-site-etaf-settings';
 import { Hardening1796320000000 } from './migrations/1796320000000-hardening';
 import { RoleMonths1796330000000 } from './migrations/1796330000000-role-months';
 import { WateringRulesAndRepairs1796340000000 } from './migrations/1796340000000-watering-rules-and-repairs';
+import { IngestDecisions1796350000000 } from './migrations/1796350000000-ingest-decisions';
 import { BudgetCacheReasons1796360000000 } from './migrations/1796360000000-budget-cache-reasons';
 
 /** Every migration, in order (explicit imports, so bundled builds need no file globbing). Add new ones at the end. */
@@ -32,12 +32,12 @@ export const MIGRATIONS: (new () => MigrationInterface)[] = [
   DashboardIndexes1796230000000,
   MonthlyUse1796240000000,
   WatchImperfectData1796250000000,
-  IngestDecisions1796260000000,
   FieldAudits1796300000000,
   WhatIfPlans1796300001000,
   SiteEtafSettings1796300002000,
   Hardening1796320000000,
   RoleMonths1796330000000,
   WateringRulesAndRepairs1796340000000,
+  IngestDecisions1796350000000,
   BudgetCacheReasons1796360000000,
 ];

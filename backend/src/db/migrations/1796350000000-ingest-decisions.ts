@@ -15,8 +15,8 @@ const OLD_KINDS = `'interval-long', 'interval-wide', 'register', 'runtime'`;
  * - Meter swaps recorded by an upload (`meter_register_period.upload_id`, undone with it).
  * - An organisation's usual day/month order.
  */
-export class IngestDecisions1796260000000 implements MigrationInterface {
-  name = 'IngestDecisions1796260000000';
+export class IngestDecisions1796350000000 implements MigrationInterface {
+  name = 'IngestDecisions1796350000000';
 
   public async up(q: QueryRunner): Promise<void> {
     await q.query(`ALTER TABLE \`upload\` ADD \`organisation_id\` int UNSIGNED NULL AFTER \`site_id\`,
